@@ -1,0 +1,66 @@
+// Every client route. Pages are split into their own chunks; the role table in
+// lib/roles.ts decides who may open each desk page and which links they see.
+import { lazy, Suspense, type ReactNode } from 'react';
+import { createBrowserRouter, type RouteObject } from 'react-router-dom';
+import { RequireAuth, RequireRole } from '@/lib/auth';
+import { rolesFor } from '@/lib/roles';
+import { AppShell } from '@/components/layouts/app-shell';
+import { PageLoading } from '@/components/ui/page-loading';
+import { RouteError } from './route-error';
+import SignInRoute from './routes/sign-in';
+import NotFoundRoute from './routes/not-found';
+import HomeRoute from './routes/home';
+
+const PackagesRoute = lazy(() => import('./routes/packages'));
+const QueueRoute = lazy(() => import('./routes/queue'));
+const AssignedRoute = lazy(() => import('./routes/assigned'));
+const AdminRoute = lazy(() => import('./routes/admin'));
+const PackageDetailRoute = lazy(() => import('./routes/package-detail'));
+
+function Page({ children }: { children: ReactNode }) {
+  return <Suspense fallback={<PageLoading label="Opening the page" />}>{children}</Suspense>;
+}
+
+function guarded(path: string, element: ReactNode): RouteObject {
+  return {
+    path,
+    element: (
+      <RequireRole roles={rolesFor(path)}>
+        <Page>{element}</Page>
+      </RequireRole>
+    ),
+  };
+}
+
+export const routes: RouteObject[] = [
+  { path: '/sign-in', element: <SignInRoute />, errorElement: <RouteError /> },
+  {
+    path: '/',
+    element: (
+      <RequireAuth>
+        <AppShell />
+      </RequireAuth>
+    ),
+    errorElement: <RouteError />,
+    children: [
+      { index: true, element: <HomeRoute /> },
+      guarded('/packages', <PackagesRoute />),
+      guarded('/queue', <QueueRoute />),
+      guarded('/assigned', <AssignedRoute />),
+      guarded('/admin', <AdminRoute />),
+      {
+        path: '/packages/:id',
+        element: (
+          <Page>
+            <PackageDetailRoute />
+          </Page>
+        ),
+      },
+    ],
+  },
+  { path: '*', element: <NotFoundRoute /> },
+];
+
+export function createRouter() {
+  return createBrowserRouter(routes);
+}

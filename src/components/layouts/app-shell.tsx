@@ -1,0 +1,105 @@
+// The frame of every signed-in page: the graphite rail with the links this person's role
+// may use, who is signed in, sign-out, and the standing caution under the content.
+import { NavLink, Outlet, useNavigate } from 'react-router-dom';
+import type { CurrentUser } from '@shared/schemas/auth';
+import { useCurrentUser, useSignOut } from '@/lib/auth';
+import { navItemsFor, ROLE_LABELS } from '@/lib/roles';
+import { Wordmark } from '@/components/ui/logo';
+import { CautionNote } from '@/components/ui/caution-note';
+
+function Initials({ name }: { name: string }) {
+  const letters = name
+    .split(/\s+/)
+    .filter(Boolean)
+    .slice(0, 2)
+    .map((part) => part[0]?.toUpperCase())
+    .join('');
+  return (
+    <span
+      aria-hidden="true"
+      className="flex size-8 shrink-0 items-center justify-center rounded-sm bg-graphite-line text-[13px] font-black text-chalk"
+    >
+      {letters}
+    </span>
+  );
+}
+
+function SignedInAs({ user }: { user: CurrentUser }) {
+  const navigate = useNavigate();
+  const signOut = useSignOut();
+  return (
+    <section aria-label="Signed in" className="border-t border-graphite-line px-4 py-4">
+      <div className="flex items-start gap-2.5">
+        <Initials name={user.name} />
+        <div className="min-w-0">
+          <p className="truncate text-sm font-bold text-chalk" data-testid="user-name">
+            {user.name}
+          </p>
+          <p className="text-[12.5px] text-steel">{ROLE_LABELS[user.role]}</p>
+          <p className="truncate text-[12.5px] text-steel" title={user.organisation.name}>
+            {user.organisation.name}
+          </p>
+        </div>
+      </div>
+      <button
+        type="button"
+        disabled={signOut.isPending}
+        onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) })}
+        className="mt-3 h-8 w-full rounded-[3px] border border-graphite-line text-[13px] font-bold text-chalk hover:border-steel hover:bg-graphite-raised disabled:opacity-70"
+      >
+        {signOut.isPending ? 'Signing out…' : 'Sign out'}
+      </button>
+    </section>
+  );
+}
+
+export function AppShell() {
+  const { data: user } = useCurrentUser();
+  if (!user) return null;
+  const items = navItemsFor(user.role);
+
+  return (
+    <div className="flex min-h-screen">
+      <a
+        href="#main"
+        className="sr-only z-50 bg-sheet px-3 py-2 font-bold text-ink focus:not-sr-only focus:fixed focus:left-2 focus:top-2"
+      >
+        Skip to content
+      </a>
+      <aside className="on-dark sticky top-0 flex h-screen w-[232px] shrink-0 flex-col bg-graphite text-chalk">
+        <div className="px-4 pb-5 pt-4">
+          <Wordmark className="text-chalk" />
+          <p className="mt-1 pl-9 text-[11.5px] uppercase tracking-[0.12em] text-steel">Critical lift review</p>
+        </div>
+        <nav aria-label="Main" className="flex-1 overflow-y-auto">
+          <ul className="flex flex-col">
+            {items.map((item) => (
+              <li key={item.to}>
+                <NavLink
+                  to={item.to}
+                  title={item.description}
+                  className={({ isActive }) =>
+                    `flex h-10 items-center border-l-4 pl-4 pr-3 text-sm font-bold ${
+                      isActive
+                        ? 'border-brass bg-graphite-raised text-chalk'
+                        : 'border-transparent text-steel hover:bg-graphite-raised hover:text-chalk'
+                    }`
+                  }
+                >
+                  {item.label}
+                </NavLink>
+              </li>
+            ))}
+          </ul>
+        </nav>
+        <SignedInAs user={user} />
+      </aside>
+      <div className="flex min-w-0 flex-1 flex-col">
+        <main id="main" tabIndex={-1} className="flex-1 px-6 pb-8 pt-5 focus:outline-none">
+          <Outlet />
+        </main>
+        <CautionNote className="bg-chalk" />
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,33 @@
+// GET /api/packages: one page of the lift packages this person may see, with counts by
+// status. The server scopes the list by role (organisation, site, assignment).
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { PackageListResponse } from '@shared/schemas/packages';
+import { api } from '@/lib/api-client';
+import { packageKeys, type PackageListFilters } from '@/lib/query-client';
+
+export function getPackages(filters: PackageListFilters, signal?: AbortSignal): Promise<PackageListResponse> {
+  // The order of the parameters is fixed, so the same filters always give the same URL.
+  return api.get('/api/packages', PackageListResponse, {
+    signal,
+    query: {
+      status: filters.status,
+      siteId: filters.siteId,
+      q: filters.q,
+      sort: filters.sort,
+      page: filters.page,
+      pageSize: filters.pageSize,
+    },
+  });
+}
+
+export const packagesQueryOptions = (filters: PackageListFilters) =>
+  queryOptions({
+    queryKey: packageKeys.list(filters),
+    queryFn: ({ signal }) => getPackages(filters, signal),
+    // Keep the previous page on screen while the next one loads, so the table does not jump.
+    placeholderData: keepPreviousData,
+  });
+
+export function usePackages(filters: PackageListFilters) {
+  return useQuery(packagesQueryOptions(filters));
+}

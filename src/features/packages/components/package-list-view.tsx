@@ -1,0 +1,111 @@
+// A whole package list: counts by status, search and status filter, the table and the
+// pager, all driven by the URL's search parameters and one query.
+import { useCallback, type ReactNode } from 'react';
+import type { Role } from '@shared/schemas/common';
+import { isApiError } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { PageLoading, Spinner } from '@/components/ui/page-loading';
+import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
+import { usePackages } from '../api/get-packages';
+import { usePackageListParams } from '../hooks/use-package-list-params';
+import { PackageTable, type PackageTableVariant } from './package-table';
+import { StatusCounts } from './status-counts';
+import { PackageFilters } from './package-filters';
+import { Pager } from './pager';
+
+export function PackageListView({
+  role,
+  variant,
+  caption,
+  emptyTitle,
+  emptyBody,
+}: {
+  role: Role;
+  variant: PackageTableVariant;
+  caption: string;
+  /** Shown when nothing at all is in this person's list (no filters on). */
+  emptyTitle: string;
+  emptyBody: ReactNode;
+}) {
+  const { filters, update } = usePackageListParams();
+  const query = usePackages(filters);
+  const onSearch = useCallback((q: string) => update({ q }, { replace: true }), [update]);
+
+  const filtered = Boolean(filters.q || filters.status || filters.siteId);
+  const data = query.data;
+
+  return (
+    <section aria-label={caption}>
+      {data && (
+        <StatusCounts counts={data.countsByStatus} active={filters.status} onSelect={(status) => update({ status })} />
+      )}
+      <PackageFilters q={filters.q} status={filters.status} onSearch={onSearch} onStatus={(status) => update({ status })} />
+
+      {query.isPending && <PageLoading label="Loading packages" />}
+
+      {query.isError && (
+        <ErrorPanel
+          title="The package list could not be loaded"
+          message={isApiError(query.error) ? query.error.message : 'Something went wrong while loading the list.'}
+          action={
+            <Button size="sm" onClick={() => query.refetch()}>
+              Try again
+            </Button>
+          }
+        />
+      )}
+
+      {data && data.items.length === 0 && !filtered && <EmptyState title={emptyTitle}>{emptyBody}</EmptyState>}
+
+      {data && data.items.length === 0 && filtered && (
+        <EmptyState title="No package matches these filters">
+          <p>
+            Nothing in your list matches
+            {filters.q ? ` “${filters.q}”` : ''}
+            {filters.status ? ' with the chosen status' : ''}.{' '}
+            <button
+              type="button"
+              className="font-bold text-verdigris underline underline-offset-2"
+              onClick={() => update({ q: undefined, status: undefined, siteId: undefined })}
+            >
+              Clear the filters
+            </button>{' '}
+            to see every package again.
+          </p>
+        </EmptyState>
+      )}
+
+      {data && data.items.length > 0 && (
+        <>
+          <div className="mb-1.5 flex items-center justify-between text-[12.5px] text-ink-soft">
+            <span>
+              <kbd className="font-mono">j</kbd>/<kbd className="font-mono">k</kbd> or ↑/↓ to move ·{' '}
+              <kbd className="font-mono">Enter</kbd> to open · <kbd className="font-mono">/</kbd> to search
+            </span>
+            {query.isFetching && (
+              <span className="inline-flex items-center gap-1.5" role="status">
+                <Spinner className="size-3.5" /> Updating
+              </span>
+            )}
+          </div>
+          <PackageTable
+            items={data.items}
+            role={role}
+            variant={variant}
+            sort={filters.sort}
+            onSortChange={(sort) => update({ sort })}
+            busy={query.isPlaceholderData}
+            caption={caption}
+          />
+          <Pager
+            page={data.page}
+            pageSize={data.pageSize}
+            total={data.total}
+            onPage={(page) => update({ page })}
+            onPageSize={(pageSize) => update({ pageSize })}
+          />
+        </>
+      )}
+    </section>
+  );
+}

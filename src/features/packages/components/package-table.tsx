@@ -1,0 +1,306 @@
+// The package table the contractor's desk, the site queue, the engineer's list and the
+// administrator's overview share. Sorting and paging happen on the server; the table only
+// says which sort is on. Rows take the keyboard: j/k or ↑/↓ move, Enter opens.
+import { useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import { Link, useNavigate } from 'react-router-dom';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import type { Role } from '@shared/schemas/common';
+import { DECISION_LABELS } from '@shared/schemas/common';
+import type { PackageSummary } from '@shared/schemas/packages';
+import { StatusBadge } from '@/components/ui/status-badge';
+import { CheckStatusMark } from '@/components/ui/check-status-mark';
+import { DateWithUrgency } from '@/components/ui/date-with-urgency';
+import { formatDate, plural } from '@/lib/format';
+import { waitingOn } from '../lib/waiting-on';
+import type { PackageSort } from '../hooks/use-package-list-params';
+
+export type PackageTableVariant = 'desk' | 'queue' | 'assigned';
+
+const COLUMNS_BY_VARIANT: Record<PackageTableVariant, string[]> = {
+  desk: ['reference', 'package', 'site', 'plannedLiftDate', 'revision', 'status', 'waitingOn'],
+  queue: ['reference', 'package', 'contractor', 'plannedLiftDate', 'revision', 'check', 'engineer', 'status', 'updatedAt'],
+  assigned: ['reference', 'package', 'contractor', 'plannedLiftDate', 'revision', 'check', 'status', 'waitingOn'],
+};
+
+type SortableColumn = 'reference' | 'plannedLiftDate' | 'updatedAt';
+const SORTABLE: Record<string, SortableColumn> = {
+  reference: 'reference',
+  plannedLiftDate: 'plannedLiftDate',
+  updatedAt: 'updatedAt',
+};
+
+const column = createColumnHelper<PackageSummary>();
+
+function SortHeader({
+  label,
+  field,
+  sort,
+  onSortChange,
+}: {
+  label: string;
+  field: SortableColumn;
+  sort: PackageSort;
+  onSortChange: (sort: PackageSort) => void;
+}) {
+  const active = sort === field || sort === `-${field}`;
+  const descending = sort === `-${field}`;
+  const nextSort = (active && !descending ? `-${field}` : field) as PackageSort;
+  return (
+    <button
+      type="button"
+      onClick={() => onSortChange(nextSort)}
+      className={`inline-flex items-center gap-1 font-bold hover:text-verdigris ${active ? 'text-ink' : ''}`}
+      title={`Sort by ${label.toLowerCase()}, ${active && !descending ? 'latest first' : 'earliest first'}`}
+    >
+      {label}
+      <svg className="size-3" viewBox="0 0 12 12" aria-hidden="true" fill="currentColor">
+        <path d="M6 1.5 L9.5 5 H2.5 Z" opacity={active && !descending ? 1 : 0.3} />
+        <path d="M6 10.5 L2.5 7 H9.5 Z" opacity={active && descending ? 1 : 0.3} />
+      </svg>
+    </button>
+  );
+}
+
+export function PackageTable({
+  items,
+  role,
+  variant,
+  sort,
+  onSortChange,
+  busy = false,
+  caption,
+}: {
+  items: PackageSummary[];
+  role: Role;
+  variant: PackageTableVariant;
+  sort: PackageSort;
+  onSortChange: (sort: PackageSort) => void;
+  busy?: boolean;
+  caption: string;
+}) {
+  const navigate = useNavigate();
+  const [activeIndex, setActiveIndex] = useState(0);
+  const rowRefs = useRef<(HTMLTableRowElement | null)[]>([]);
+
+  const columns = useMemo(
+    () => [
+      column.accessor('reference', {
+        id: 'reference',
+        header: 'Reference',
+        cell: (info) => (
+          <Link
+            to={`/packages/${info.row.original.id}`}
+            tabIndex={-1}
+            className="font-mono text-[13px] font-bold text-verdigris underline decoration-verdigris/40 underline-offset-2 hover:decoration-verdigris"
+          >
+            {info.getValue()}
+          </Link>
+        ),
+      }),
+      column.accessor('title', {
+        id: 'package',
+        header: 'Lift',
+        cell: (info) => {
+          const pkg = info.row.original;
+          return (
+            <div className="min-w-[14rem]">
+              <span className="font-bold">{pkg.title}</span>
+              {pkg.critical && (
+                <span className="ml-1.5 inline-block rounded-sm border border-ink px-1 align-[1px] text-[10.5px] font-black uppercase leading-4 tracking-[0.06em]">
+                  Critical
+                </span>
+              )}
+              {variant !== 'desk' && <div className="text-[12.5px] text-ink-soft">{pkg.site.name}</div>}
+            </div>
+          );
+        },
+      }),
+      column.accessor((pkg) => pkg.site.name, { id: 'site', header: 'Site' }),
+      column.accessor((pkg) => pkg.contractor.name, { id: 'contractor', header: 'Contractor' }),
+      column.accessor('plannedLiftDate', {
+        id: 'plannedLiftDate',
+        header: 'Planned lift',
+        cell: (info) => <DateWithUrgency value={info.getValue()} settled={info.row.original.status === 'returned'} />,
+      }),
+      column.accessor('revisionNumber', {
+        id: 'revision',
+        header: 'Rev.',
+        cell: (info) => <span className="tabular">{info.getValue()}</span>,
+      }),
+      column.display({
+        id: 'check',
+        header: 'Check',
+        cell: (info) => {
+          const pkg = info.row.original;
+          if (!pkg.worstStatus) return <span className="text-ink-soft">Not run</span>;
+          return (
+            <div className="flex flex-col items-start gap-0.5">
+              <CheckStatusMark status={pkg.worstStatus} />
+              {pkg.openDiscrepancies > 0 && (
+                <span className="text-[12px] font-bold text-fail-ink">
+                  {plural(pkg.openDiscrepancies, 'discrepancy', 'discrepancies')}
+                </span>
+              )}
+            </div>
+          );
+        },
+      }),
+      column.accessor((pkg) => pkg.engineer?.name ?? null, {
+        id: 'engineer',
+        header: 'Engineer',
+        cell: (info) => info.getValue() ?? <span className="text-ink-soft">Unassigned</span>,
+      }),
+      column.accessor('status', {
+        id: 'status',
+        header: 'Status',
+        cell: (info) => {
+          const pkg = info.row.original;
+          return (
+            <div className="flex flex-col items-start gap-0.5">
+              <StatusBadge status={pkg.status} />
+              {pkg.decision && <span className="text-[12px] font-bold">{DECISION_LABELS[pkg.decision]}</span>}
+            </div>
+          );
+        },
+      }),
+      column.display({
+        id: 'waitingOn',
+        header: 'Waiting on',
+        cell: (info) => {
+          const waiting = waitingOn(info.row.original, role);
+          return waiting.onYou ? (
+            <span className="inline-flex items-center gap-1 font-bold text-ink">
+              <svg className="size-2.5" viewBox="0 0 10 10" aria-hidden="true">
+                <path d="M1 1 L9 5 L1 9 Z" fill="currentColor" />
+              </svg>
+              {waiting.text}
+            </span>
+          ) : (
+            <span className="text-ink-soft">{waiting.text}</span>
+          );
+        },
+      }),
+      column.accessor('updatedAt', {
+        id: 'updatedAt',
+        header: 'Updated',
+        cell: (info) => <span className="whitespace-nowrap tabular text-ink-soft">{formatDate(info.getValue())}</span>,
+      }),
+    ],
+    [role, variant],
+  );
+
+  const visibleIds = COLUMNS_BY_VARIANT[variant];
+  const table = useReactTable({
+    data: items,
+    columns,
+    getCoreRowModel: getCoreRowModel(),
+    getRowId: (row) => row.id,
+    manualPagination: true,
+    manualSorting: true,
+    state: {
+      columnOrder: visibleIds,
+      columnVisibility: Object.fromEntries(columns.map((c) => [c.id as string, visibleIds.includes(c.id as string)])),
+    },
+  });
+
+  const rows = table.getRowModel().rows;
+  const current = Math.min(activeIndex, Math.max(rows.length - 1, 0));
+
+  function moveTo(index: number) {
+    const bounded = Math.max(0, Math.min(rows.length - 1, index));
+    setActiveIndex(bounded);
+    rowRefs.current[bounded]?.focus();
+  }
+
+  function onRowKeyDown(event: KeyboardEvent<HTMLTableRowElement>, index: number, id: string) {
+    if (event.altKey || event.ctrlKey || event.metaKey) return;
+    switch (event.key) {
+      case 'j':
+      case 'ArrowDown':
+        event.preventDefault();
+        moveTo(index + 1);
+        break;
+      case 'k':
+      case 'ArrowUp':
+        event.preventDefault();
+        moveTo(index - 1);
+        break;
+      case 'Home':
+        event.preventDefault();
+        moveTo(0);
+        break;
+      case 'End':
+        event.preventDefault();
+        moveTo(rows.length - 1);
+        break;
+      case 'Enter':
+        event.preventDefault();
+        navigate(`/packages/${id}`);
+        break;
+    }
+  }
+
+  return (
+    <div className="overflow-x-auto border border-rule bg-sheet">
+      <table className={`w-full border-collapse text-left text-[13.5px] ${busy ? 'opacity-60' : ''}`} aria-busy={busy}>
+        <caption className="sr-only">{caption}. Use j and k or the arrow keys to move between rows, Enter to open.</caption>
+        <thead className="bg-sheet-alt">
+          {table.getHeaderGroups().map((group) => (
+            <tr key={group.id} className="border-b-2 border-rule-strong">
+              {group.headers.map((header) => {
+                const sortField = SORTABLE[header.column.id];
+                const ariaSort = sortField
+                  ? sort === sortField
+                    ? 'ascending'
+                    : sort === `-${sortField}`
+                      ? 'descending'
+                      : 'none'
+                  : undefined;
+                return (
+                  <th
+                    key={header.id}
+                    scope="col"
+                    aria-sort={ariaSort}
+                    className="whitespace-nowrap px-3 py-2 text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft"
+                  >
+                    {sortField ? (
+                      <SortHeader
+                        label={String(header.column.columnDef.header)}
+                        field={sortField}
+                        sort={sort}
+                        onSortChange={onSortChange}
+                      />
+                    ) : (
+                      flexRender(header.column.columnDef.header, header.getContext())
+                    )}
+                  </th>
+                );
+              })}
+            </tr>
+          ))}
+        </thead>
+        <tbody>
+          {rows.map((row, index) => (
+            <tr
+              key={row.id}
+              ref={(element) => {
+                rowRefs.current[index] = element;
+              }}
+              tabIndex={index === current ? 0 : -1}
+              onFocus={() => setActiveIndex(index)}
+              onKeyDown={(event) => onRowKeyDown(event, index, row.original.id)}
+              onClick={() => navigate(`/packages/${row.original.id}`)}
+              className="cursor-pointer border-b border-rule align-top last:border-b-0 even:bg-sheet-alt hover:bg-verdigris-tint focus:bg-verdigris-tint"
+            >
+              {row.getVisibleCells().map((cell) => (
+                <td key={cell.id} className="px-3 py-2">
+                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,56 @@
+// Counts by status across the top of a list; each count is also the quickest way to
+// filter the list to that status (press again to show all).
+import { PACKAGE_STATUSES, PACKAGE_STATUS_LABELS, type PackageStatus } from '@shared/schemas/common';
+import { StatusShape } from '@/components/ui/status-badge';
+
+const INK: Record<PackageStatus, string> = {
+  draft: 'text-draft-ink',
+  checking: 'text-checking-ink',
+  check_failed: 'text-failed-ink',
+  ready_for_review: 'text-ready-ink',
+  with_engineer: 'text-engineer-ink',
+  decided: 'text-decided-ink',
+  returned: 'text-ink',
+};
+
+export function StatusCounts({
+  counts,
+  active,
+  onSelect,
+  statuses = PACKAGE_STATUSES,
+}: {
+  counts: Record<string, number>;
+  active: PackageStatus | undefined;
+  onSelect: (status: PackageStatus | undefined) => void;
+  statuses?: readonly PackageStatus[];
+}) {
+  const total = statuses.reduce((sum, status) => sum + (counts[status] ?? 0), 0);
+  const tile = (selected: boolean) =>
+    `flex min-w-[7.5rem] flex-1 flex-col items-start gap-0.5 border-r border-rule px-3 py-2 text-left last:border-r-0 hover:bg-sheet-alt ${
+      selected ? 'bg-sheet shadow-[inset_0_-3px_0_var(--color-ink)]' : ''
+    }`;
+
+  return (
+    <div role="group" aria-label="Packages by status" className="mb-3 flex flex-wrap border border-rule bg-sheet">
+      <button type="button" aria-pressed={active === undefined} onClick={() => onSelect(undefined)} className={tile(active === undefined)}>
+        <span className="text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft">All</span>
+        <span className="text-[22px] font-black leading-none tabular">{total}</span>
+      </button>
+      {statuses.map((status) => (
+        <button
+          key={status}
+          type="button"
+          aria-pressed={active === status}
+          onClick={() => onSelect(active === status ? undefined : status)}
+          className={tile(active === status)}
+        >
+          <span className={`inline-flex items-center gap-1 text-[12px] font-bold ${INK[status]}`}>
+            <StatusShape status={status} />
+            {PACKAGE_STATUS_LABELS[status]}
+          </span>
+          <span className="text-[22px] font-black leading-none tabular">{counts[status] ?? 0}</span>
+        </button>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,73 @@
+// The list's filters live in the URL (?status=&q=&sort=&page=&pageSize=&siteId=), so a
+// filtered queue can be bookmarked, shared and restored with the back button. Values
+// that the server would refuse are dropped here rather than sent.
+import { useCallback, useMemo } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { PACKAGE_STATUSES, type PackageStatus } from '@shared/schemas/common';
+import { PACKAGE_SORTS } from '@shared/schemas/packages';
+import type { PackageListFilters } from '@/lib/query-client';
+
+export type PackageSort = PackageListFilters['sort'];
+export const DEFAULT_SORT: PackageSort = 'plannedLiftDate';
+export const PAGE_SIZES = [25, 50, 100] as const;
+export const DEFAULT_PAGE_SIZE = 25;
+
+function isStatus(value: string | null): value is PackageStatus {
+  return value !== null && (PACKAGE_STATUSES as readonly string[]).includes(value);
+}
+
+function isSort(value: string | null): value is PackageSort {
+  return value !== null && (PACKAGE_SORTS as readonly string[]).includes(value);
+}
+
+function positiveInt(value: string | null, fallback: number, max: number): number {
+  const number = Number(value);
+  return Number.isInteger(number) && number >= 1 && number <= max ? number : fallback;
+}
+
+export function readPackageListParams(params: URLSearchParams): PackageListFilters {
+  const status = params.get('status');
+  const sort = params.get('sort');
+  const q = params.get('q')?.trim().slice(0, 100);
+  const siteId = params.get('siteId');
+  const pageSize = positiveInt(params.get('pageSize'), DEFAULT_PAGE_SIZE, 100);
+  return {
+    status: isStatus(status) ? status : undefined,
+    siteId: siteId && /^[0-9a-f-]{36}$/i.test(siteId) ? siteId : undefined,
+    q: q ? q : undefined,
+    sort: isSort(sort) ? sort : DEFAULT_SORT,
+    page: positiveInt(params.get('page'), 1, 10_000),
+    pageSize,
+  };
+}
+
+type Changes = Partial<{ [K in keyof PackageListFilters]: PackageListFilters[K] | undefined }>;
+
+export function usePackageListParams() {
+  const [params, setParams] = useSearchParams();
+  const filters = useMemo(() => readPackageListParams(params), [params]);
+
+  /** Changing anything but the page goes back to page 1; defaults are left out of the URL. */
+  const update = useCallback(
+    (changes: Changes, options: { replace?: boolean } = {}) => {
+      setParams(
+        (current) => {
+          const next = new URLSearchParams(current);
+          for (const [key, value] of Object.entries(changes)) {
+            if (value === undefined || value === '' || value === null) next.delete(key);
+            else next.set(key, String(value));
+          }
+          if (!('page' in changes)) next.delete('page');
+          if (next.get('page') === '1') next.delete('page');
+          if (next.get('sort') === DEFAULT_SORT) next.delete('sort');
+          if (next.get('pageSize') === String(DEFAULT_PAGE_SIZE)) next.delete('pageSize');
+          return next;
+        },
+        { replace: options.replace },
+      );
+    },
+    [setParams],
+  );
+
+  return { filters, update };
+}
