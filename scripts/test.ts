@@ -1,0 +1,110 @@
+// The test command: starts a throwaway PostgreSQL and Redis (temporary folders, free
+// ports) unless DATABASE_URL / REDIS_URL are set, then runs formatting, lint, types and
+// every test suite, stops the servers and exits non-zero on any failure.
+import { spawnSync } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { ensurePackages, freePort, startPostgres, startRedis, type PostgresHandle, type RedisHandle } from './lib/services';
+
+const root = process.cwd();
+const outDir = path.join(root, 'test-output');
+let tmp: string | null = null;
+let postgres: PostgresHandle | null = null;
+let redis: RedisHandle | null = null;
+
+function say(message: string) {
+  process.stdout.write(`[test] ${message}\n`);
+}
+
+function cleanup() {
+  redis?.stop();
+  postgres?.stop();
+  redis = null;
+  postgres = null;
+  if (tmp) fs.rmSync(tmp, { recursive: true, force: true });
+  tmp = null;
+}
+
+process.on('SIGINT', () => {
+  cleanup();
+  process.exit(130);
+});
+process.on('SIGTERM', () => {
+  cleanup();
+  process.exit(143);
+});
+
+function run(name: string, args: string[], env: NodeJS.ProcessEnv): boolean {
+  say(`${name}…`);
+  const started = Date.now();
+  const r = spawnSync(process.execPath, args, { stdio: 'inherit', env, cwd: root });
+  const ok = r.status === 0;
+  say(`${name}: ${ok ? 'ok' : 'FAILED'} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+  return ok;
+}
+
+async function main(): Promise<number> {
+  fs.mkdirSync(outDir, { recursive: true });
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    NODE_ENV: 'test',
+    JWT_SECRET: process.env.JWT_SECRET ?? randomBytes(32).toString('hex'),
+    LOG_LEVEL: process.env.LOG_LEVEL ?? 'silent',
+  };
+  const needPostgres = !process.env.DATABASE_URL;
+  const needRedis = !process.env.REDIS_URL;
+  ensurePackages({ postgres: needPostgres, redis: needRedis, chromium: true });
+  if (needPostgres || needRedis) {
+    tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'counterpoise-test-'));
+    fs.chmodSync(tmp, 0o755);
+  }
+  if (needPostgres) {
+    postgres = await startPostgres(path.join(tmp!, 'pg'), await freePort(), 'counterpoise_test');
+    env.DATABASE_URL = postgres.url;
+    say(`throwaway PostgreSQL on port ${postgres.port}`);
+  }
+  if (needRedis) {
+    redis = await startRedis(path.join(tmp!, 'redis'), await freePort(), { persist: false });
+    env.REDIS_URL = redis.url;
+    say(`throwaway Redis on port ${redis.port}`);
+  }
+  const bin = (p: string) => path.join(root, 'node_modules', p);
+  const results: Array<[string, boolean]> = [];
+  results.push(['format', run('format (prettier --check)', [bin('prettier/bin/prettier.cjs'), '--check', '--log-level', 'warn', '.'], env)]);
+  results.push(['lint', run('lint (eslint)', [bin('eslint/bin/eslint.js'), '--max-warnings', '0', '.'], env)]);
+  results.push(['types', run('types (tsc)', [bin('typescript/bin/tsc'), '-p', 'tsconfig.json'], env)]);
+  const reportFile = path.join(outDir, 'vitest.json');
+  fs.rmSync(reportFile, { force: true });
+  results.push([
+    'tests',
+    run('tests (vitest)', [bin('vitest/vitest.mjs'), 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`], env),
+  ]);
+  let passed = 0;
+  let failed = 0;
+  if (fs.existsSync(reportFile)) {
+    const report = JSON.parse(fs.readFileSync(reportFile, 'utf8')) as { numPassedTests: number; numFailedTests: number };
+    passed = report.numPassedTests;
+    failed = report.numFailedTests;
+  }
+  const failedSteps = results.filter(([, ok]) => !ok).map(([name]) => name);
+  if (failedSteps.length) say(`failed steps: ${failedSteps.join(', ')}`);
+  if (passed + failed === 0) {
+    say('no test ran');
+    failedSteps.push('no tests');
+  }
+  process.stdout.write(`${passed} passed, ${failed} failed\n`);
+  return failedSteps.length ? 1 : 0;
+}
+
+main()
+  .then((code) => {
+    cleanup();
+    process.exit(code);
+  })
+  .catch((error) => {
+    process.stderr.write(`[test] ${(error as Error).message}\n`);
+    cleanup();
+    process.exit(1);
+  });

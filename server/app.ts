@@ -1,0 +1,62 @@
+// Builds the Express app (no listen): security headers, request logs, JSON parsing,
+// the API routes, the built client with its history fallback, and one error handler.
+import fs from 'node:fs';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import { randomUUID } from 'node:crypto';
+import type { AppContext } from './context';
+import { logger } from './lib/logger';
+import { openApiDocument } from './lib/openapi';
+import { errorHandler, notFoundHandler } from './middleware/error-handler';
+import { authRoutes } from './modules/auth/routes';
+import { healthRoutes } from './modules/health/routes';
+import { packageRoutes } from './modules/packages/routes';
+import './openapi-routes';
+
+export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'worker-src': ["'self'", 'blob:'],
+          'script-src': ["'self'"],
+        },
+      },
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req) => (req.headers['x-request-id'] as string) || randomUUID(),
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+    }),
+  );
+  app.use(cookieParser());
+  app.use('/api', express.json({ limit: '2mb' }));
+
+  app.use('/api', healthRoutes(ctx));
+  app.use('/api', authRoutes(ctx));
+  app.use('/api', packageRoutes(ctx));
+  app.get('/api/openapi.json', (_req, res) => {
+    res.json(openApiDocument());
+  });
+  app.use('/api', notFoundHandler);
+
+  const clientDir = opts.clientDir ?? path.resolve('dist');
+  if (fs.existsSync(path.join(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get(/^\/(?!api\/).*/, (_req, res) => {
+      res.sendFile(path.join(clientDir, 'index.html'));
+    });
+  }
+  app.use(notFoundHandler);
+  app.use(errorHandler);
+  return app;
+}

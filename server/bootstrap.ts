@@ -1,0 +1,64 @@
+// Connects what the API and the worker share (database, Redis, queues, passport) and
+// names the step that failed, so a bad start prints one clear line instead of a stack.
+import 'reflect-metadata';
+import type { Redis } from 'ioredis';
+import type { AppContext } from './context';
+import { loadConfig, type Config } from './config';
+import { createDataSource } from './db/data-source';
+import { createQueues } from './lib/queues';
+import { createRedis } from './lib/redis';
+import { createPassport } from './modules/auth/passport';
+
+export class StartupError extends Error {
+  constructor(
+    readonly step: string,
+    message: string,
+  ) {
+    super(`${step} failed: ${message}`);
+  }
+}
+
+function redact(url: string) {
+  return url.replace(/\/\/([^:@/]+):([^@/]+)@/, '//$1:***@');
+}
+
+async function pingRedis(redis: Redis, url: string) {
+  try {
+    await Promise.race([
+      redis.ping(),
+      new Promise((_, reject) => setTimeout(() => reject(new Error('no answer within 5 s')), 5000)),
+    ]);
+  } catch (error) {
+    redis.disconnect();
+    throw new StartupError('connect to Redis', `${redact(url)}: ${(error as Error).message}`);
+  }
+}
+
+export async function connect(config: Config = loadConfig()): Promise<AppContext> {
+  const dataSource = createDataSource(config.DATABASE_URL);
+  try {
+    await dataSource.initialize();
+  } catch (error) {
+    throw new StartupError('connect to PostgreSQL', `${redact(config.DATABASE_URL)}: ${(error as Error).message}`);
+  }
+  const redis = createRedis(config.REDIS_URL);
+  redis.on('error', () => undefined);
+  await pingRedis(redis, config.REDIS_URL);
+  const queueConnection = createRedis(config.REDIS_URL, { forWorker: true });
+  queueConnection.on('error', () => undefined);
+  const queues = createQueues(queueConnection);
+  const passport = createPassport(dataSource, config.JWT_SECRET);
+  return {
+    config,
+    dataSource,
+    redis,
+    queues,
+    passport: passport as unknown as AppContext['passport'],
+    async close() {
+      await queues.close().catch(() => undefined);
+      queueConnection.disconnect();
+      redis.disconnect();
+      if (dataSource.isInitialized) await dataSource.destroy();
+    },
+  } as AppContext & { close(): Promise<void> };
+}

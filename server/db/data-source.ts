@@ -1,0 +1,21 @@
+// The one TypeORM DataSource: used by the API, the worker, the seed, the tests and the
+// TypeORM CLI (`npm run migration:run`). Schema changes go through migrations only.
+import 'reflect-metadata';
+import { DataSource } from 'typeorm';
+import { ENTITIES } from './entities';
+import { MIGRATIONS } from './migrations';
+
+export function createDataSource(url = process.env.DATABASE_URL): DataSource {
+  if (!url) throw new Error('DATABASE_URL is not set');
+  return new DataSource({
+    type: 'postgres',
+    url,
+    entities: ENTITIES,
+    migrations: MIGRATIONS,
+    synchronize: false,
+    migrationsRun: false,
+    migrationsTransactionMode: 'each',
+    logging: ['error'],
+    extra: { max: Number(process.env.DB_POOL_SIZE ?? 10), connectionTimeoutMillis: 5000 },
+  });
+}

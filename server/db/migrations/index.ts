@@ -1,0 +1,5 @@
+// Migrations in the order they run. Add new ones at the end (see DEVELOPERS.md).
+import { InitialSchema1764633600000 } from './1764633600000-initial-schema';
+import { QueueIndexes1764633700000 } from './1764633700000-queue-indexes';
+
+export const MIGRATIONS = [InitialSchema1764633600000, QueueIndexes1764633700000];

@@ -1,0 +1,42 @@
+// The BullMQ queues the API puts work on and the worker takes it from. Jobs carry ids
+// only; a job id derived from the record makes a repeated request harmless.
+import { Queue } from 'bullmq';
+import type { Redis } from 'ioredis';
+
+export const QUEUE_NAMES = {
+  checkRun: 'check-run',
+  stamp: 'stamp-return',
+  mail: 'mail',
+} as const;
+
+export interface CheckRunJob {
+  revisionId: string;
+}
+
+export interface Queues {
+  checkRun: Queue<CheckRunJob>;
+  close(): Promise<void>;
+}
+
+export function createQueues(connection: Redis): Queues {
+  const checkRun = new Queue<CheckRunJob>(QUEUE_NAMES.checkRun, {
+    connection,
+    defaultJobOptions: {
+      attempts: 5,
+      backoff: { type: 'exponential', delay: 2000 },
+      removeOnComplete: { age: 7 * 24 * 3600, count: 10_000 },
+      removeOnFail: { age: 30 * 24 * 3600 },
+    },
+  });
+  return {
+    checkRun,
+    async close() {
+      await checkRun.close();
+    },
+  };
+}
+
+/** The one job id of a revision's check run: repeated submits and retries cannot run it twice. */
+export function checkRunJobId(revisionId: string): string {
+  return `check-${revisionId}`;
+}

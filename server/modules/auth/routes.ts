@@ -1,0 +1,61 @@
+// Sign-in, sign-out and the signed-in person (GET /api/me).
+import { Router } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { SignInBody } from '@shared/schemas/auth';
+import type { AppContext } from '../../context';
+import { AppError } from '../../lib/app-error';
+import { currentUser, requireAuth } from '../../middleware/auth';
+import { valid, validate } from '../../middleware/validate';
+import { SESSION_COOKIE } from './passport';
+import { RedisRateLimitStore } from './rate-limit-store';
+import { issueToken, signIn } from './service';
+
+export function authRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { config } = ctx;
+  const secure = (config.APP_URL ?? '').startsWith('https://');
+
+  const signInLimit = rateLimit({
+    windowMs: config.SIGN_IN_WINDOW_MINUTES * 60_000,
+    limit: config.SIGN_IN_LIMIT,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    store: new RedisRateLimitStore(ctx.redis, 'rl:sign-in:'),
+    keyGenerator: (req) => `${req.ip}:${String(req.body?.email ?? '').toLowerCase()}`,
+    passOnStoreError: true,
+    handler: (_req, _res, next, options) =>
+      next(
+        new AppError(
+          429,
+          'too_many_attempts',
+          `Too many sign-in attempts. Wait ${Math.ceil(options.windowMs / 60_000)} minutes and try again.`,
+        ),
+      ),
+  });
+
+  router.post('/auth/sign-in', signInLimit, validate({ body: SignInBody }), async (req, res) => {
+    const body = valid(req, 'body', SignInBody);
+    const { user, tokenVersion } = await signIn(ctx.dataSource, body.email, body.password);
+    const token = issueToken(user.id, tokenVersion, config.JWT_SECRET, config.SESSION_HOURS);
+    res.cookie(SESSION_COOKIE, token, {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure,
+      path: '/',
+      maxAge: config.SESSION_HOURS * 3600_000,
+    });
+    req.log?.info({ userId: user.id }, 'signed in');
+    res.json({ user });
+  });
+
+  router.post('/auth/sign-out', (_req, res) => {
+    res.clearCookie(SESSION_COOKIE, { httpOnly: true, sameSite: 'lax', secure, path: '/' });
+    res.status(204).end();
+  });
+
+  router.get('/me', requireAuth(ctx.passport), (req, res) => {
+    res.json({ user: currentUser(req) });
+  });
+
+  return router;
+}

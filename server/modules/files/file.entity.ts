@@ -1,0 +1,22 @@
+// An uploaded PDF: its bytes live behind the storage interface under storage_key.
+import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { Revision } from '../packages/package.entity';
+
+export type FileKind = 'lift_plan' | 'supporting';
+
+@Entity({ name: 'uploaded_files' })
+export class UploadedFile {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ type: 'uuid', name: 'revision_id' }) revisionId: string;
+  @ManyToOne(() => Revision, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'revision_id' })
+  revision?: Revision;
+  @Column({ type: 'varchar', length: 20 }) kind: FileKind;
+  @Column({ type: 'varchar', length: 255, name: 'original_name' }) originalName: string;
+  @Column({ type: 'char', length: 64 }) sha256: string;
+  @Column({ type: 'bigint', name: 'size_bytes' }) sizeBytes: string;
+  @Column({ type: 'int' }) pages: number;
+  @Column({ type: 'varchar', length: 300, name: 'storage_key' }) storageKey: string;
+  @Column({ type: 'uuid', name: 'uploaded_by_id' }) uploadedById: string;
+  @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
+}

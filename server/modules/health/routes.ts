@@ -1,0 +1,30 @@
+// GET /api/health: the database and the queue's Redis, each with a short timeout; 503
+// when either is down so a load balancer takes the process out of rotation.
+import { Router } from 'express';
+import type { AppContext } from '../../context';
+
+function withTimeout<T>(promise: Promise<T>, ms: number): Promise<T> {
+  return Promise.race([
+    promise,
+    new Promise<T>((_, reject) => setTimeout(() => reject(new Error(`timed out after ${ms} ms`)), ms)),
+  ]);
+}
+
+export function healthRoutes(ctx: AppContext): Router {
+  const router = Router();
+  router.get('/health', async (_req, res) => {
+    const [database, queue] = await Promise.all([
+      withTimeout(ctx.dataSource.query('SELECT 1'), 2000).then(
+        () => ({ ok: true }),
+        (e: Error) => ({ ok: false, error: e.message }),
+      ),
+      withTimeout(ctx.redis.ping(), 2000).then(
+        () => ({ ok: true }),
+        (e: Error) => ({ ok: false, error: e.message }),
+      ),
+    ]);
+    const ok = database.ok && queue.ok;
+    res.status(ok ? 200 : 503).json({ status: ok ? 'ok' : 'degraded', database, queue });
+  });
+  return router;
+}

@@ -1,0 +1,11 @@
+// An organisation: a lifting contractor or a site owner (or general contractor).
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
+import type { OrganisationKind } from '@shared/schemas/common';
+
+@Entity({ name: 'organisations' })
+export class Organisation {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ type: 'varchar', length: 200 }) name: string;
+  @Column({ type: 'varchar', length: 20 }) kind: OrganisationKind;
+  @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
+}

@@ -1,0 +1,39 @@
+// Organisation isolation in one place. Every read or write of a lift package starts from
+// scopedPackages(): contractors see their organisation's packages, reviewers the packages
+// of the sites they serve, engineers the packages assigned to them, admins the packages
+// of sites their organisation owns. Anything outside the scope is "not found" (404), so
+// a guessed id tells nothing.
+import type { EntityManager, SelectQueryBuilder } from 'typeorm';
+import { AppError } from '../../lib/app-error';
+import { LiftPackage } from './package.entity';
+
+export function scopedPackages(manager: EntityManager, user: Express.User, alias = 'p'): SelectQueryBuilder<LiftPackage> {
+  const qb = manager.getRepository(LiftPackage).createQueryBuilder(alias);
+  switch (user.role) {
+    case 'contractor':
+      return qb.where(`${alias}.contractor_organisation_id = :scopeOrg`, { scopeOrg: user.organisationId });
+    case 'reviewer':
+      return qb
+        .where(`${alias}.site_id IN (SELECT sm.site_id FROM site_members sm WHERE sm.user_id = :scopeUser)`, {
+          scopeUser: user.id,
+        })
+        .andWhere(`${alias}.status <> 'draft'`);
+    case 'engineer':
+      return qb
+        .where(`${alias}.assigned_engineer_id = :scopeUser`, { scopeUser: user.id })
+        .andWhere(`${alias}.status <> 'draft'`);
+    case 'admin':
+      return qb
+        .where(`${alias}.site_id IN (SELECT s.id FROM sites s WHERE s.owner_organisation_id = :scopeOrg)`, {
+          scopeOrg: user.organisationId,
+        })
+        .andWhere(`${alias}.status <> 'draft'`);
+  }
+}
+
+/** One package the user may see, or a 404. */
+export async function findScopedPackage(manager: EntityManager, user: Express.User, id: string): Promise<LiftPackage> {
+  const found = await scopedPackages(manager, user).andWhere('p.id = :id', { id }).getOne();
+  if (!found) throw AppError.notFound('lift package');
+  return found;
+}

@@ -1,0 +1,33 @@
+// A site belongs to an owner organisation and holds its review policy (overrides of the
+// engine's defaults). Reviewers are attached to sites through site_members.
+import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryColumn, PrimaryGeneratedColumn } from 'typeorm';
+import { Organisation } from '../organisations/organisation.entity';
+import { User } from '../users/user.entity';
+
+@Entity({ name: 'sites' })
+export class Site {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ type: 'uuid', name: 'owner_organisation_id' }) ownerOrganisationId: string;
+  @ManyToOne(() => Organisation)
+  @JoinColumn({ name: 'owner_organisation_id' })
+  owner?: Organisation;
+  @Column({ type: 'varchar', length: 200 }) name: string;
+  @Column({ type: 'varchar', length: 20 }) code: string;
+  @Column({ type: 'varchar', length: 300, default: '' }) address: string;
+  @Column({ type: 'varchar', length: 60, name: 'time_zone', default: 'UTC' }) timeZone: string;
+  @Column({ type: 'jsonb', name: 'review_policy', default: () => "'{}'::jsonb" }) reviewPolicy: Record<string, unknown>;
+  @Column({ type: 'int', name: 'policy_version', default: 1 }) policyVersion: number;
+  @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
+}
+
+@Entity({ name: 'site_members' })
+export class SiteMember {
+  @PrimaryColumn({ type: 'uuid', name: 'site_id' }) siteId: string;
+  @PrimaryColumn({ type: 'uuid', name: 'user_id' }) userId: string;
+  @ManyToOne(() => Site, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'site_id' })
+  site?: Site;
+  @ManyToOne(() => User, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'user_id' })
+  user?: User;
+}
