@@ -13,7 +13,7 @@ export function DateWithUrgency({ value, settled = false }: { value: string | nu
   if (!value) return <span className="text-ink-soft">Not set</span>;
   const urgency = liftUrgency(value, settled);
   return (
-    <span className="inline-flex flex-wrap items-baseline gap-x-1.5 tabular">
+    <span className="flex flex-col tabular">
       <time dateTime={value.slice(0, 10)} className="whitespace-nowrap">
         {formatDate(value)}
       </time>

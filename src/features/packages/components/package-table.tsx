@@ -49,7 +49,7 @@ function SortHeader({
     <button
       type="button"
       onClick={() => onSortChange(nextSort)}
-      className={`inline-flex items-center gap-1 font-bold hover:text-verdigris ${active ? 'text-ink' : ''}`}
+      className={`inline-flex items-center gap-1 font-bold uppercase tracking-[0.06em] hover:text-verdigris ${active ? 'text-ink' : ''}`}
       title={`Sort by ${label.toLowerCase()}, ${active && !descending ? 'latest first' : 'earliest first'}`}
     >
       {label}
@@ -102,21 +102,33 @@ export function PackageTable({
         header: 'Lift',
         cell: (info) => {
           const pkg = info.row.original;
+          const critical = pkg.critical && (
+            <span className="inline-flex items-center gap-1 text-[11px] font-black uppercase tracking-[0.06em] text-ink">
+              <svg className="size-2.5" viewBox="0 0 10 10" aria-hidden="true">
+                <path d="M5 0.5 L9.5 5 L5 9.5 L0.5 5 Z" fill="none" stroke="currentColor" strokeWidth="1.6" />
+              </svg>
+              Critical
+            </span>
+          );
           return (
-            <div className="min-w-[14rem]">
-              <span className="font-bold">{pkg.title}</span>
-              {pkg.critical && (
-                <span className="ml-1.5 inline-block rounded-sm border border-ink px-1 align-[1px] text-[10.5px] font-black uppercase leading-4 tracking-[0.06em]">
-                  Critical
-                </span>
+            <div className="min-w-[13rem]">
+              <div className="font-bold">{pkg.title}</div>
+              {(variant !== 'desk' || critical) && (
+                <div className="flex flex-wrap items-center gap-x-2 text-[12.5px] text-ink-soft">
+                  {variant !== 'desk' && <span>{pkg.site.name}</span>}
+                  {critical}
+                </div>
               )}
-              {variant !== 'desk' && <div className="text-[12.5px] text-ink-soft">{pkg.site.name}</div>}
             </div>
           );
         },
       }),
       column.accessor((pkg) => pkg.site.name, { id: 'site', header: 'Site' }),
-      column.accessor((pkg) => pkg.contractor.name, { id: 'contractor', header: 'Contractor' }),
+      column.accessor((pkg) => pkg.contractor.name, {
+        id: 'contractor',
+        header: 'Contractor',
+        cell: (info) => <span className="block min-w-[8rem]">{info.getValue()}</span>,
+      }),
       column.accessor('plannedLiftDate', {
         id: 'plannedLiftDate',
         header: 'Planned lift',
@@ -261,7 +273,7 @@ export function PackageTable({
                     key={header.id}
                     scope="col"
                     aria-sort={ariaSort}
-                    className="whitespace-nowrap px-3 py-2 text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft"
+                    className="whitespace-nowrap px-2.5 py-2 text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft"
                   >
                     {sortField ? (
                       <SortHeader
@@ -293,7 +305,7 @@ export function PackageTable({
               className="cursor-pointer border-b border-rule align-top last:border-b-0 even:bg-sheet-alt hover:bg-verdigris-tint focus:bg-verdigris-tint"
             >
               {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-3 py-2">
+                <td key={cell.id} className="px-2.5 py-2">
                   {flexRender(cell.column.columnDef.cell, cell.getContext())}
                 </td>
               ))}

@@ -26,7 +26,7 @@ export function StatusCounts({
 }) {
   const total = statuses.reduce((sum, status) => sum + (counts[status] ?? 0), 0);
   const tile = (selected: boolean) =>
-    `flex min-w-[7.5rem] flex-1 flex-col items-start gap-0.5 border-r border-rule px-3 py-2 text-left last:border-r-0 hover:bg-sheet-alt ${
+    `flex flex-1 flex-col items-start gap-0.5 border-r border-rule px-3 py-2 text-left last:border-r-0 hover:bg-sheet-alt ${
       selected ? 'bg-sheet shadow-[inset_0_-3px_0_var(--color-ink)]' : ''
     }`;
 
@@ -44,7 +44,7 @@ export function StatusCounts({
           onClick={() => onSelect(active === status ? undefined : status)}
           className={tile(active === status)}
         >
-          <span className={`inline-flex items-center gap-1 text-[12px] font-bold ${INK[status]}`}>
+          <span className={`inline-flex items-center gap-1 whitespace-nowrap text-[12px] font-bold ${INK[status]}`}>
             <StatusShape status={status} />
             {PACKAGE_STATUS_LABELS[status]}
           </span>
