@@ -72,21 +72,30 @@ async function main(): Promise<number> {
   }
   const bin = (p: string) => path.join(root, 'node_modules', p);
   const results: Array<[string, boolean]> = [];
+  // `npm test -- <filter>` runs only the matching test files, without the static checks.
+  const filters = process.argv.slice(2);
+  if (!filters.length) {
   results.push(['format', run('format (prettier --check)', [bin('prettier/bin/prettier.cjs'), '--check', '--log-level', 'warn', '.'], env)]);
   results.push(['lint', run('lint (eslint)', [bin('eslint/bin/eslint.js'), '--max-warnings', '0', '.'], env)]);
   results.push(['types', run('types (tsc)', [bin('typescript/bin/tsc'), '-p', 'tsconfig.json'], env)]);
+  }
   const reportFile = path.join(outDir, 'vitest.json');
   fs.rmSync(reportFile, { force: true });
   results.push([
     'tests',
-    run('tests (vitest)', [bin('vitest/vitest.mjs'), 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`], env),
+    run('tests (vitest)', [bin('vitest/vitest.mjs'), 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...filters], env),
   ]);
   let passed = 0;
   let failed = 0;
   if (fs.existsSync(reportFile)) {
-    const report = JSON.parse(fs.readFileSync(reportFile, 'utf8')) as { numPassedTests: number; numFailedTests: number };
+    const report = JSON.parse(fs.readFileSync(reportFile, 'utf8')) as {
+      numPassedTests: number;
+      numFailedTests: number;
+      numFailedTestSuites: number;
+    };
     passed = report.numPassedTests;
-    failed = report.numFailedTests;
+    // A suite that fails before its tests run (a broken import, a failing beforeAll) counts too.
+    failed = report.numFailedTests || report.numFailedTestSuites;
   }
   const failedSteps = results.filter(([, ok]) => !ok).map(([name]) => name);
   if (failedSteps.length) say(`failed steps: ${failedSteps.join(', ')}`);

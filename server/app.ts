@@ -11,6 +11,7 @@ import type { AppContext } from './context';
 import { logger } from './lib/logger';
 import { openApiDocument } from './lib/openapi';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
+import { adminRoutes } from './modules/admin/routes';
 import { authRoutes } from './modules/auth/routes';
 import { healthRoutes } from './modules/health/routes';
 import { packageRoutes } from './modules/packages/routes';
@@ -44,6 +45,7 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   app.use('/api', healthRoutes(ctx));
   app.use('/api', authRoutes(ctx));
   app.use('/api', packageRoutes(ctx));
+  app.use('/api', adminRoutes(ctx));
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApiDocument());
   });

@@ -25,7 +25,7 @@ function redact(url: string) {
 async function pingRedis(redis: Redis, url: string) {
   try {
     await Promise.race([
-      redis.ping(),
+      redis.connect().then(() => redis.ping()),
       new Promise((_, reject) => setTimeout(() => reject(new Error('no answer within 5 s')), 5000)),
     ]);
   } catch (error) {
@@ -45,6 +45,7 @@ export async function connect(config: Config = loadConfig()): Promise<AppContext
   redis.on('error', () => undefined);
   await pingRedis(redis, config.REDIS_URL);
   const queueConnection = createRedis(config.REDIS_URL, { forWorker: true });
+  void queueConnection.connect().catch(() => undefined);
   queueConnection.on('error', () => undefined);
   const queues = createQueues(queueConnection);
   const passport = createPassport(dataSource, config.JWT_SECRET);

@@ -15,7 +15,7 @@ export function createDataSource(url = process.env.DATABASE_URL): DataSource {
     synchronize: false,
     migrationsRun: false,
     migrationsTransactionMode: 'each',
-    logging: ['error'],
+    logging: false,
     extra: { max: Number(process.env.DB_POOL_SIZE ?? 10), connectionTimeoutMillis: 5000 },
   });
 }

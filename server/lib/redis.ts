@@ -6,7 +6,7 @@ export function createRedis(url: string, opts: { forWorker?: boolean } = {}): Re
   return new Redis(url, {
     maxRetriesPerRequest: opts.forWorker ? null : 2,
     enableOfflineQueue: opts.forWorker ? true : false,
-    lazyConnect: false,
+    lazyConnect: true,
     connectTimeout: 5000,
   });
 }

@@ -1,6 +1,6 @@
 // Sign-in, sign-out and the signed-in person (GET /api/me).
 import { Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import { SignInBody } from '@shared/schemas/auth';
 import type { AppContext } from '../../context';
 import { AppError } from '../../lib/app-error';
@@ -21,7 +21,7 @@ export function authRoutes(ctx: AppContext): Router {
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     store: new RedisRateLimitStore(ctx.redis, 'rl:sign-in:'),
-    keyGenerator: (req) => `${req.ip}:${String(req.body?.email ?? '').toLowerCase()}`,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}:${String(req.body?.email ?? '').toLowerCase()}`,
     passOnStoreError: true,
     handler: (_req, _res, next, options) =>
       next(

@@ -1,0 +1,1 @@
+export async function seedPackages(..._args: unknown[]) {}

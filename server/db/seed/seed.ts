@@ -1,0 +1,25 @@
+// Seeds the invented demo scenario once: an owner with two sites, two lifting
+// contractors, a person in every role, and about a dozen lift packages across every
+// status, each with a generated lift plan PDF and (once submitted) the engine's results.
+import bcrypt from 'bcryptjs';
+import type { DataSource } from 'typeorm';
+import { createDataSource } from '../data-source';
+import { seedScenario } from './scenario';
+
+export async function isSeeded(dataSource: DataSource): Promise<boolean> {
+  const [row] = await dataSource.query(`SELECT count(*)::int AS n FROM organisations`);
+  return Number(row.n) > 0;
+}
+
+/** Seeds when the database holds no organisation yet; returns whether it seeded. */
+export async function seedDemoOnce(url: string, filesDir: string): Promise<boolean> {
+  const dataSource = createDataSource(url);
+  await dataSource.initialize();
+  try {
+    if (await isSeeded(dataSource)) return false;
+    await seedScenario(dataSource, filesDir, { hash: (p) => bcrypt.hashSync(p, 10) });
+    return true;
+  } finally {
+    await dataSource.destroy();
+  }
+}

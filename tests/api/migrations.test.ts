@@ -1,0 +1,78 @@
+import { randomUUID } from 'node:crypto';
+import pg from 'pg';
+import { afterAll, describe, expect, it } from 'vitest';
+import { createDataSource } from '@server/db/data-source';
+import { MIGRATIONS } from '@server/db/migrations';
+
+const base = process.env.DATABASE_URL!;
+const dbName = `migrations_${randomUUID().replace(/-/g, '').slice(0, 12)}`;
+const admin = new pg.Client({ connectionString: base });
+
+afterAll(async () => {
+  await admin.query(`DROP DATABASE IF EXISTS ${dbName}`);
+  await admin.end();
+});
+
+async function tables(ds: ReturnType<typeof createDataSource>) {
+  const rows: { table_name: string }[] = await ds.query(
+    `SELECT table_name FROM information_schema.tables WHERE table_schema = 'public' ORDER BY table_name`,
+  );
+  return rows.map((r) => r.table_name);
+}
+
+describe('migrations', () => {
+  it('when every migration runs on an empty database and the last is undone, then the schema follows', async () => {
+    await admin.connect();
+    await admin.query(`CREATE DATABASE ${dbName}`);
+    const ds = createDataSource(base.replace(/\/[^/]+$/, `/${dbName}`));
+    await ds.initialize();
+    try {
+      const applied = await ds.runMigrations();
+      expect(applied.map((m) => m.name)).toEqual(MIGRATIONS.map((m) => m.name));
+      expect(await tables(ds)).toEqual(
+        expect.arrayContaining([
+          'organisations', 'users', 'sites', 'site_members', 'lift_packages', 'revisions', 'uploaded_files',
+          'assignments', 'findings', 'markups', 'decisions', 'stamped_returns', 'audit_events',
+        ]),
+      );
+      const indexCount = async () =>
+        Number((await ds.query(`SELECT count(*) AS n FROM pg_indexes WHERE indexname = 'lift_packages_site_status_idx'`))[0].n);
+      expect(await indexCount()).toBe(1);
+      await ds.undoLastMigration();
+      expect(await indexCount()).toBe(0);
+      expect(await tables(ds)).toContain('lift_packages');
+      for (let i = 1; i < MIGRATIONS.length; i++) await ds.undoLastMigration();
+      expect((await tables(ds)).filter((t) => t !== 'migrations')).toEqual([]);
+    } finally {
+      await ds.destroy();
+    }
+  });
+
+  it('when a submitted revision is changed in the database, then the change is refused', async () => {
+    const ds = createDataSource(base);
+    await ds.initialize();
+    try {
+      const [org] = await ds.query(`INSERT INTO organisations (name, kind) VALUES ('Freeze test', 'owner') RETURNING id`);
+      const [user] = await ds.query(
+        `INSERT INTO users (organisation_id, email, name, role) VALUES ($1, $2, 'F', 'contractor') RETURNING id`,
+        [org.id, `freeze-${randomUUID()}@test.example`],
+      );
+      const [site] = await ds.query(`INSERT INTO sites (owner_organisation_id, name, code) VALUES ($1, 'S', $2) RETURNING id`, [
+        org.id, randomUUID().slice(0, 8),
+      ]);
+      const [pkg] = await ds.query(
+        `INSERT INTO lift_packages (reference, title, contractor_organisation_id, site_id, created_by_id, status)
+         VALUES ($1, 'T', $2, $3, $4, 'checking') RETURNING id`,
+        [randomUUID().slice(0, 12), org.id, site.id, user.id],
+      );
+      const [rev] = await ds.query(
+        `INSERT INTO revisions (package_id, number, state, inputs) VALUES ($1, 1, 'submitted', '{"a":1}') RETURNING id`,
+        [pkg.id],
+      );
+      await expect(ds.query(`UPDATE revisions SET inputs = '{"a":2}' WHERE id = $1`, [rev.id])).rejects.toThrow(/cannot change/);
+      await ds.query(`UPDATE revisions SET check_status = 'done' WHERE id = $1`, [rev.id]);
+    } finally {
+      await ds.destroy();
+    }
+  });
+});

@@ -1,0 +1,30 @@
+// Builds the real Express app against the test command's PostgreSQL and Redis, in-process.
+import type { Express } from 'express';
+import supertest from 'supertest';
+import { createApp } from '@server/app';
+import { connect } from '@server/bootstrap';
+import { loadConfig, type Config } from '@server/config';
+import type { AppContext } from '@server/context';
+
+export interface TestApp {
+  ctx: AppContext;
+  app: Express;
+  close(): Promise<void>;
+}
+
+export async function startTestApp(overrides: Partial<Config> = {}): Promise<TestApp> {
+  const config = { ...loadConfig(), ...overrides };
+  const ctx = await connect(config);
+  const app = createApp(ctx, { clientDir: '/nonexistent' });
+  return { ctx, app, close: async () => ctx.close?.() };
+}
+
+/** A supertest agent that keeps cookies, signed in as the given person. */
+export async function signedIn(app: Express, email: string, password = TEST_PASSWORD) {
+  const agent = supertest.agent(app);
+  const res = await agent.post('/api/auth/sign-in').send({ email, password });
+  if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return agent;
+}
+
+export const TEST_PASSWORD = 'correct horse battery';
