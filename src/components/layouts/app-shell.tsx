@@ -9,8 +9,10 @@ import { CautionNote } from '@/components/ui/caution-note';
 
 function Initials({ name }: { name: string }) {
   const letters = name
+    .replace(/,.*$/, '')
     .split(/\s+/)
-    .filter(Boolean)
+    // Titles like "Dr." are not part of the initials.
+    .filter((part) => part && !part.endsWith('.'))
     .slice(0, 2)
     .map((part) => part[0]?.toUpperCase())
     .join('');

@@ -81,7 +81,7 @@ export function PackageFilters({
             value={text}
             maxLength={100}
             onChange={(event) => setText(event.target.value)}
-            placeholder="Reference, lift, site or contractor"
+            placeholder="Reference or lift title"
             className="h-9 w-full rounded-[3px] border border-rule-strong bg-sheet pl-8 pr-10 text-sm font-normal normal-case tracking-normal text-ink placeholder:text-ink-soft"
           />
           <kbd className="pointer-events-none absolute right-2 top-1/2 -translate-y-1/2 rounded-sm border border-rule-strong px-1.5 font-mono text-[11px] font-normal text-ink-soft">

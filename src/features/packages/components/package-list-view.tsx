@@ -33,13 +33,17 @@ export function PackageListView({
 
   const filtered = Boolean(filters.q || filters.status || filters.siteId);
   const data = query.data;
+  // With nothing at all in the list, counts of zero and filters only get in the way.
+  const nothingYet = data !== undefined && data.total === 0 && !filtered;
 
   return (
     <section aria-label={caption}>
-      {data && (
+      {data && !nothingYet && (
         <StatusCounts counts={data.countsByStatus} active={filters.status} onSelect={(status) => update({ status })} />
       )}
-      <PackageFilters q={filters.q} status={filters.status} onSearch={onSearch} onStatus={(status) => update({ status })} />
+      {!nothingYet && (
+        <PackageFilters q={filters.q} status={filters.status} onSearch={onSearch} onStatus={(status) => update({ status })} />
+      )}
 
       {query.isPending && <PageLoading label="Loading packages" />}
 
@@ -55,7 +59,7 @@ export function PackageListView({
         />
       )}
 
-      {data && data.items.length === 0 && !filtered && <EmptyState title={emptyTitle}>{emptyBody}</EmptyState>}
+      {nothingYet && <EmptyState title={emptyTitle}>{emptyBody}</EmptyState>}
 
       {data && data.items.length === 0 && filtered && (
         <EmptyState title="No package matches these filters">
