@@ -1,0 +1,291 @@
+// Check 5 — support reactions and ground bearing (PRODUCT.md §5).
+// Outriggers: rigid base on four supports of equal stiffness (statics, common practice):
+//   R_i = V/4 ± M_L/(2·L) ± M_T/(2·B), with V the total weight, M_L = V·e_x and M_T = V·e_y its
+//   moments about the box centre, L and B the longitudinal and transverse spreads. When one R_i goes
+//   negative that support lifts off; the load is then shared by the other three (statically
+//   determinate) and the result is flagged.
+// Crawlers: each track is an eccentric footing: p_max = V_t/(b·L)·(1 + 6e/L) when e ≤ L/6,
+//   2·V_t/(3·b·(L/2 − e)) when e > L/6 (triangular).
+// Pressure under the mats = reaction ÷ (mat area × mats per support), mats taken as rigid.
+// Allowable bearing: as entered (geotechnical value), else IBC Table 1806.2 presumptive value for
+// the soil class; mud, organic soils, peat and unprepared fill have none (geotechnical value needed).
+import type { SoilClass } from '../../schemas/lift-input';
+import { planModel, resultant, SLEW_SWEEP, type PlanModel } from '../crane-model';
+import { check, f, item, statusMax, term, type Ctx } from '../context';
+import { gantryStatics } from './stability';
+import { SOURCES } from '../sources';
+import { si, TO_SI } from '../units';
+import type { CheckItem, CheckResult, LiftFigures, Source } from '../types';
+
+/** IBC Table 1806.2 (2012) presumptive load-bearing values, psf; null: none (geotechnical value). */
+export const IBC_1806_2_PSF: Readonly<Record<SoilClass, number | null>> = {
+  crystalline_bedrock: 12000,
+  sedimentary_rock: 4000,
+  sandy_gravel: 3000,
+  sand_silty_clayey: 2000,
+  clay_silt: 1500,
+  mud_organic_fill: null,
+};
+
+const SOIL_WORDS: Record<SoilClass, string> = {
+  crystalline_bedrock: 'crystalline bedrock',
+  sedimentary_rock: 'sedimentary and foliated rock',
+  sandy_gravel: 'sandy gravel and gravel (GW, GP)',
+  sand_silty_clayey: 'sand, silty sand, clayey sand, silty gravel, clayey gravel (SW, SP, SM, SC, GM, GC)',
+  clay_silt: 'clay, sandy clay, silty clay, clayey silt, silt, sandy silt (CL, ML, MH, CH)',
+  mud_organic_fill: 'mud, organic soil, peat or unprepared fill',
+};
+
+/** Four-support reactions about the box centre; order right front, left front, left rear, right rear. */
+export function fourSupportReactions(V: number, ex: number, ey: number, a: number, b: number): number[] {
+  const sx = [-1, -1, 1, 1];
+  const sy = [-1, 1, 1, -1];
+  const out = [0, 0, 0, 0];
+  for (let i = 0; i < 4; i++) out[i] = V / 4 + (V * ex * sx[i]) / (4 * a) + (V * ey * sy[i]) / (4 * b);
+  return out;
+}
+
+/** Reactions with support `off` lifted: three-support statics (ΣV, ΣM about both axes). */
+export function threeSupportReactions(V: number, ex: number, ey: number, a: number, b: number, off: number): number[] {
+  const px = [-a, -a, a, a];
+  const py = [-b, b, b, -b];
+  const idx = [0, 1, 2, 3].filter((i) => i !== off);
+  const [i, j, k] = idx;
+  // [1 1 1; x_i x_j x_k; y_i y_j y_k] R = [V, V ex, V ey]
+  const m = [
+    [1, 1, 1],
+    [px[i], px[j], px[k]],
+    [py[i], py[j], py[k]],
+  ];
+  const rhs = [V, V * ex, V * ey];
+  const det3 = (q: number[][]) =>
+    q[0][0] * (q[1][1] * q[2][2] - q[1][2] * q[2][1]) -
+    q[0][1] * (q[1][0] * q[2][2] - q[1][2] * q[2][0]) +
+    q[0][2] * (q[1][0] * q[2][1] - q[1][1] * q[2][0]);
+  const D = det3(m);
+  const out = [0, 0, 0, 0];
+  for (let c = 0; c < 3; c++) {
+    const mc = m.map((row, r) => row.map((v, cc) => (cc === c ? rhs[r] : v)));
+    out[idx[c]] = det3(mc) / D;
+  }
+  return out;
+}
+
+/** Peak bearing pressure under a track carrying Vt with eccentricity e along its length L, width w. */
+export function trackPeakPressure(Vt: number, e: number, L: number, w: number): { p: number; shape: 'uniform' | 'trapezoidal' | 'triangular' | 'tipping' } {
+  const ae = Math.abs(e);
+  if (ae === 0) return { p: Vt / (w * L), shape: 'uniform' };
+  if (ae <= L / 6) return { p: (Vt / (w * L)) * (1 + (6 * ae) / L), shape: 'trapezoidal' };
+  if (ae < L / 2) return { p: (2 * Vt) / (3 * w * (L / 2 - ae)), shape: 'triangular' };
+  return { p: Infinity, shape: 'tipping' };
+}
+
+function allowable(ctx: Ctx): { value: number | null; source: Source; message: string } {
+  const g = ctx.input.ground;
+  const entered = si(g?.allowableBearing);
+  if (entered !== undefined)
+    return { value: entered, source: { kind: 'input', text: 'allowable bearing pressure as entered (geotechnical value)' }, message: '' };
+  if (g?.soilClass) {
+    const psf = IBC_1806_2_PSF[g.soilClass];
+    if (psf === null)
+      return {
+        value: null,
+        source: SOURCES.ibc1806,
+        message: `IBC Table 1806.2 gives no presumptive value for ${SOIL_WORDS[g.soilClass]}: a geotechnical bearing value is required.`,
+      };
+    return {
+      value: psf * TO_SI.psf,
+      source: { kind: 'standard', text: `${SOURCES.ibc1806.text}: ${SOIL_WORDS[g.soilClass]} ${psf.toLocaleString('en-US')} psf` },
+      message: '',
+    };
+  }
+  return { value: null, source: SOURCES.input, message: 'No allowable bearing pressure or soil class entered.' };
+}
+
+function pressureItem(ctx: Ctx, p: number, area: number, R: number, what: string, items: CheckItem[], figures: LiftFigures) {
+  figures.groundPressure = p;
+  const al = allowable(ctx);
+  const formula = f`pressure = ${what} ${term(R, 'force')} ÷ bearing area ${term(area, 'area')} = ${term(p, 'pressure')}`;
+  if (al.value === null) {
+    const noValue = ctx.input.ground?.soilClass === 'mud_organic_fill';
+    items.push(
+      item(ctx, {
+        id: 'ground-bearing.pressure',
+        label: 'Ground bearing pressure',
+        status: noValue ? 'fail' : 'caution',
+        value: p,
+        unit: 'pressure',
+        formula,
+        source: al.source,
+        message: al.message,
+      }),
+    );
+    return;
+  }
+  items.push(
+    item(ctx, {
+      id: 'ground-bearing.pressure',
+      label: 'Ground bearing pressure',
+      status: statusMax(p, al.value, ctx.policy),
+      value: p,
+      limit: al.value,
+      limitType: 'max',
+      unit: 'pressure',
+      formula: [...formula, ' against allowable ', term(al.value, 'pressure')],
+      source: al.source,
+      message: p > al.value ? 'Pressure under the mats exceeds the allowable bearing pressure.' : 'Pressure under the mats against the allowable bearing pressure.',
+    }),
+  );
+}
+
+function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckItem[]) {
+  const entered = ctx.input.crane.slewAngle;
+  const slews = entered ? [entered.value] : SLEW_SWEEP;
+  let worst = { max: -Infinity, R: [0, 0, 0, 0], slew: 0, liftOff: -1, V: 0, ex: 0, ey: 0 };
+  for (const t of slews) {
+    const r = resultant(m, t);
+    const ex = r.ex - m.x0;
+    let R = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
+    let liftOff = -1;
+    let minI = 0;
+    for (let i = 1; i < 4; i++) if (R[i] < R[minI]) minI = i;
+    if (R[minI] < 0) {
+      liftOff = minI;
+      R = threeSupportReactions(r.V, ex, r.ey, m.a, m.b, minI);
+    }
+    const mx = Math.max(R[0], R[1], R[2], R[3]);
+    if (mx > worst.max) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
+  }
+  figures.supportReactions = m.supports.map((s, i) => ({ label: s.label, x: s.x, y: s.y, reaction: worst.R[i] }));
+  figures.maxSupportReaction = worst.max;
+  const L = 2 * m.a;
+  const B = 2 * m.b;
+  items.push(
+    item(ctx, {
+      id: 'ground-bearing.reactions',
+      label: 'Largest outrigger reaction',
+      status: worst.liftOff >= 0 ? 'caution' : 'pass',
+      value: worst.max,
+      unit: 'weight',
+      formula: f`slew ${worst.slew.toFixed(0)}°${entered ? '' : ' (largest reaction)'}: R = V/4 ± V·eₓ/(2L) ± V·e_y/(2B), V ${term(
+        worst.V,
+        'weight',
+      )}, eₓ ${term(worst.ex, 'length')}, e_y ${term(worst.ey, 'length')}, L ${term(L, 'length')}, B ${term(B, 'length')} → ${
+        m.supports[0].label
+      } ${term(worst.R[0], 'weight')}, ${m.supports[1].label} ${term(worst.R[1], 'weight')}, ${m.supports[2].label} ${term(
+        worst.R[2],
+        'weight',
+      )}, ${m.supports[3].label} ${term(worst.R[3], 'weight')}`,
+      source: SOURCES.rigidBase,
+      message:
+        worst.liftOff >= 0
+          ? `The ${m.supports[worst.liftOff].label} outrigger lifts off in the four-support model; reactions shown are shared by the other three. Confirm with the manufacturer's outrigger load figures.`
+          : 'Reactions from the rigid-base model on four supports.',
+    }),
+  );
+  const mat = ctx.input.ground?.mat;
+  if (mat) {
+    const area = si(mat.length)! * si(mat.width)! * (mat.perSupport ?? 1);
+    pressureItem(ctx, worst.max / area, area, worst.max, 'largest reaction', items, figures);
+  }
+}
+
+function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigures) {
+  const tr = ctx.input.crane.tracks!;
+  const L = si(tr.length)!;
+  const w = si(tr.shoeWidth)!;
+  const entered = ctx.input.crane.slewAngle;
+  const slews = entered ? [entered.value] : SLEW_SWEEP;
+  let worst = { p: -Infinity, Vt: 0, e: 0, slew: 0, shape: 'uniform' as string };
+  for (const t of slews) {
+    const r = resultant(m, t);
+    const e = r.ex - m.x0;
+    const VL = (r.V * (m.b + r.ey)) / (2 * m.b);
+    const VR = (r.V * (m.b - r.ey)) / (2 * m.b);
+    for (const Vt of [VL, VR]) {
+      const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
+      if (tp.p > worst.p) worst = { p: tp.p, Vt: Math.min(Math.max(Vt, 0), r.V), e, slew: t, shape: tp.shape };
+    }
+  }
+  const area = w * L;
+  const tipping = !Number.isFinite(worst.p);
+  figures.groundPressure = tipping ? null : worst.p;
+  const formula = f`slew ${worst.slew.toFixed(0)}°: track load ${term(worst.Vt, 'weight')}, eccentricity ${term(
+    Math.abs(worst.e),
+    'length',
+  )} on track length ${term(L, 'length')} (L/6 = ${term(L / 6, 'length')}), shoe ${term(w, 'length')} → ${worst.shape} pressure, peak ${
+    tipping ? 'unbounded' : ''
+  }${tipping ? '' : term(worst.p, 'pressure')}`;
+  const al = allowable(ctx);
+  const status = tipping ? 'fail' : al.value === null ? (ctx.input.ground?.soilClass === 'mud_organic_fill' ? 'fail' : 'caution') : statusMax(worst.p, al.value, ctx.policy);
+  items.push(
+    item(ctx, {
+      id: 'ground-bearing.pressure',
+      label: 'Peak track bearing pressure',
+      status,
+      value: tipping ? null : worst.p,
+      limit: al.value,
+      limitType: al.value === null ? null : 'max',
+      unit: 'pressure',
+      formula: al.value === null ? formula : [...formula, ' against allowable ', term(al.value, 'pressure')],
+      source: al.value === null ? al.source : al.source,
+      message: tipping
+        ? 'The resultant falls outside the track: the crane would tip.'
+        : al.value === null
+          ? al.message
+          : `Track ground pressure (eccentric footing, ${worst.shape}); mats under tracks are not modelled (area ${area.toFixed(2)} m² per track).`,
+    }),
+  );
+}
+
+export function groundBearingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
+  const items: CheckItem[] = [];
+  if (ctx.input.crane.type === 'gantry_a_frame') {
+    const gs = gantryStatics(ctx);
+    const mat = ctx.input.ground?.mat;
+    if (!gs || !mat) return na(ctx, 'Enter the mat size under each gantry foot.');
+    const Wf = si(ctx.input.crane.gantry!.frameWeight)!;
+    const foot = (gs.frameCompression * Math.cos(Math.asin(Math.min(1, gs.outreach / Math.max(1e-9, Math.hypot(gs.outreach, gs.apexHeight))))) + Wf / 2) / 2;
+    const area = si(mat.length)! * si(mat.width)! * (mat.perSupport ?? 1);
+    items.push(
+      item(ctx, {
+        id: 'ground-bearing.reactions',
+        label: 'Reaction at each leg foot',
+        status: 'pass',
+        value: foot,
+        unit: 'weight',
+        formula: f`(frame compression ${term(gs.frameCompression, 'force')} × cos(inclination) + half frame weight ${term(Wf / 2, 'weight')}) ÷ 2 feet = ${term(foot, 'weight')}`,
+        source: SOURCES.statics,
+        message: 'Vertical reaction at each foot of the legs.',
+      }),
+    );
+    figures.maxSupportReaction = foot;
+    pressureItem(ctx, foot / area, area, foot, 'foot reaction', items, figures);
+    return check('ground-bearing', 'Support reactions and ground bearing', items);
+  }
+  if (ctx.geometry.radius === null) return na(ctx, 'No radius entered.');
+  const m = planModel(ctx, ctx.geometry.radius);
+  if (!m) return na(ctx, 'Enter the crane weights and the outrigger spread or track geometry.');
+  if (m.kind === 'outriggers') outriggers(ctx, m, figures, items);
+  else crawler(ctx, m, items, figures);
+  if (items.length === 1 && m.kind === 'outriggers')
+    items.push(
+      item(ctx, {
+        id: 'ground-bearing.pressure',
+        label: 'Ground bearing pressure',
+        status: 'not_applicable',
+        value: null,
+        unit: 'pressure',
+        source: SOURCES.input,
+        message: 'Enter the mat size to check the pressure under the outriggers.',
+      }),
+    );
+  return check('ground-bearing', 'Support reactions and ground bearing', items, 'ground-bearing.pressure');
+}
+
+function na(ctx: Ctx, message: string): CheckResult {
+  return check('ground-bearing', 'Support reactions and ground bearing', [
+    item(ctx, { id: 'ground-bearing.pressure', label: 'Ground bearing pressure', status: 'not_applicable', value: null, unit: 'pressure', source: SOURCES.input, message }),
+  ]);
+}
+

@@ -1,0 +1,155 @@
+// Check 6 — rigging (PRODUCT.md §6): sling leg tension from the leg angles and the load's centre of
+// gravity, sling capacity by hitch, hardware working load limits.
+// Two legs meeting at the hook above the centre of gravity (statics of the hook):
+//   T_A = W·cos θ_B / sin(θ_A + θ_B),  T_B = W·cos θ_A / sin(θ_A + θ_B)   (θ from horizontal)
+// which for equal legs is W / (2 sin θ): the angle factor 1/sin θ (rigging handbooks, ASME B30.9
+// practice). A leg given by length and horizontal distance from the hook has cos θ = distance/length.
+// Minimum leg angle: site policy (default 30°, rigging handbooks). Hitch capacity: vertical 1×,
+// choker 0.75× wire rope (rigging handbooks), 0.80× synthetic and chain (from memory), basket 2×
+// with vertical legs (rigging handbooks); the angle is already in the tension.
+import type { LiftInput } from '../../schemas/lift-input';
+import { check, f, item, statusMax, term, type Ctx } from '../context';
+import { SOURCES } from '../sources';
+import { DEG, si } from '../units';
+import type { CheckItem, CheckResult, LiftFigures, Source } from '../types';
+
+export const angleFactor = (deg: number): number => 1 / Math.sin(deg * DEG);
+
+/** Tensions in two legs at angles θA, θB (degrees from horizontal) meeting at the hook over the CG. */
+export function twoLegTensions(W: number, thetaA: number, thetaB: number): [number, number] {
+  const a = thetaA * DEG;
+  const b = thetaB * DEG;
+  const s = Math.sin(a + b);
+  return [(W * Math.cos(b)) / s, (W * Math.cos(a)) / s];
+}
+
+type Leg = NonNullable<LiftInput['rigging']>['slings'] extends infer S ? (S extends { legs: (infer L)[] } ? L : never) : never;
+
+export function legAngleDeg(leg: Leg): number {
+  if (leg.angle) return leg.angle.value;
+  const len = si(leg.length)!;
+  const hd = si(leg.horizontalDistance)!;
+  const c = Math.min(1, hd / len);
+  return Math.acos(c) / DEG;
+}
+
+export function hitchFactor(hitch: 'vertical' | 'choker' | 'basket', material: 'wire' | 'synthetic' | 'chain'): { factor: number; source: Source } {
+  if (hitch === 'vertical') return { factor: 1, source: SOURCES.slingAngle };
+  if (hitch === 'basket') return { factor: 2, source: SOURCES.basket };
+  if (material === 'wire') return { factor: 0.75, source: SOURCES.chokerWire };
+  return { factor: 0.8, source: material === 'synthetic' ? SOURCES.chokerSynthetic : SOURCES.chokerChain };
+}
+
+export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
+  const r = ctx.input.rigging;
+  const { policy } = ctx;
+  const items: CheckItem[] = [];
+  let maxLeg = 0;
+  if (r?.slings) {
+    const sl = r.slings;
+    let W = si(ctx.input.load.weight)!;
+    if (r.items) for (const it of r.items) W += si(it.weight)!;
+    const angles = sl.legs.map(legAngleDeg);
+    let tensions: number[];
+    let formulaBase;
+    if (angles.length === 2) {
+      tensions = twoLegTensions(W, angles[0], angles[1]);
+      formulaBase = (i: number) =>
+        f`T = W ${term(W, 'weight')} × cos(${term(angles[1 - i], 'angle')}) ÷ sin(${term(angles[0], 'angle')} + ${term(
+          angles[1],
+          'angle',
+        )}) = ${term(tensions[i], 'weight')}`;
+    } else {
+      tensions = [W * angleFactor(angles[0])];
+      formulaBase = () =>
+        f`T = W ${term(W, 'weight')} × angle factor 1/sin(${term(angles[0], 'angle')}) = ${term(W, 'weight')} × ${term(
+          angleFactor(angles[0]),
+          'ratio',
+        )} = ${term(tensions[0], 'weight')}`;
+    }
+    const hf = hitchFactor(sl.hitch, sl.material);
+    const wll = si(sl.ratedLoadVertical)!;
+    const cap = wll * hf.factor;
+    for (let i = 0; i < tensions.length; i++) {
+      const T = tensions[i];
+      if (T > maxLeg) maxLeg = T;
+      const legName = sl.legs[i].name ?? `leg ${i + 1}`;
+      items.push(
+        item(ctx, {
+          id: `rigging.leg-${i + 1}`,
+          label: `Sling ${legName} tension`,
+          status: statusMax(T, cap, policy),
+          value: T,
+          limit: cap,
+          limitType: 'max',
+          unit: 'weight',
+          formula: [
+            ...formulaBase(i),
+            ' against ',
+            sl.hitch,
+            ' capacity ',
+            term(wll, 'weight'),
+            ` × ${hf.factor} = `,
+            term(cap, 'weight'),
+          ],
+          source: hf.source,
+          message: T > cap ? `Sling ${legName} is overloaded in a ${sl.hitch} hitch.` : `Sling ${legName} tension against its ${sl.hitch} hitch capacity.`,
+        }),
+      );
+      const ang = angles[i];
+      items.push(
+        item(ctx, {
+          id: `rigging.angle-${i + 1}`,
+          label: `Sling ${legName} angle from horizontal`,
+          status: ang < policy.minSlingAngleDeg ? 'fail' : 'pass',
+          value: ang,
+          limit: policy.minSlingAngleDeg,
+          limitType: 'min',
+          unit: 'angle',
+          formula: f`angle ${term(ang, 'angle')}, angle factor 1/sin θ = ${term(angleFactor(ang), 'ratio')}; minimum ${term(
+            policy.minSlingAngleDeg,
+            'angle',
+          )}`,
+          source: SOURCES.policy(`minimum sling angle ${policy.minSlingAngleDeg}° (default: ${SOURCES.slingMinAngle.text})`),
+          message: ang < policy.minSlingAngleDeg ? 'Sling leg flatter than the minimum angle.' : 'Sling leg angle.',
+        }),
+      );
+    }
+  }
+  if (r?.hardware) {
+    r.hardware.forEach((h, i) => {
+      const wll = si(h.wll)!;
+      const leg = h.carries === 'leg';
+      const load = leg ? maxLeg : ctx.belowHook;
+      const name = h.name ?? `hardware ${i + 1}`;
+      items.push(
+        item(ctx, {
+          id: `rigging.hardware-${i + 1}`,
+          label: `${name} working load limit`,
+          status: statusMax(load, wll, policy),
+          value: load,
+          limit: wll,
+          limitType: 'max',
+          unit: 'weight',
+          formula: f`${leg ? 'largest leg tension' : 'load below the hook'} ${term(load, 'weight')} against WLL ${term(wll, 'weight')}`,
+          source: { kind: 'input', text: 'working load limit as marked on the hardware (entered)' },
+          message: load > wll ? `${name} is loaded beyond its working load limit.` : `${name} against its working load limit.`,
+        }),
+      );
+    });
+  }
+  figures.maxSlingTension = maxLeg > 0 ? maxLeg : null;
+  if (items.length === 0)
+    items.push(
+      item(ctx, {
+        id: 'rigging.leg-1',
+        label: 'Rigging',
+        status: 'not_applicable',
+        value: null,
+        unit: 'weight',
+        source: SOURCES.input,
+        message: 'Enter the slings (legs, hitch, rated load) or hardware to check the rigging.',
+      }),
+    );
+  return check('rigging', 'Rigging', items);
+}

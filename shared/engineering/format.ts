@@ -1,0 +1,109 @@
+// Display of engine values: an SI value and its unit kind become a string in the user's unit
+// system, to three significant figures. The client, the CLI and the PDF calculation sheet all use
+// this so a number reads the same everywhere. Rounding happens here only, never in the engine.
+import { STANDARD_GRAVITY } from './units';
+import type { FormulaPart, UnitKind, UnitSystem } from './types';
+
+const LBF = 0.45359237 * STANDARD_GRAVITY;
+const FT = 0.3048;
+
+function group(intPart: string): string {
+  if (intPart.length <= 3) return intPart;
+  let out = '';
+  const n = intPart.length;
+  for (let i = 0; i < n; i++) {
+    out += intPart[i];
+    const left = n - 1 - i;
+    if (left > 0 && left % 3 === 0) out += ',';
+  }
+  return out;
+}
+
+/** Three significant figures, no exponent, thousands grouped: 16.0, 0.613, 12,000. */
+export function sig3(x: number): string {
+  if (!Number.isFinite(x)) return x > 0 ? '∞' : x < 0 ? '−∞' : '—';
+  if (x === 0) return '0';
+  const a = Math.abs(x);
+  let d = Math.floor(Math.log10(a));
+  let r = Math.round(a / 10 ** (d - 2)) * 10 ** (d - 2);
+  if (r >= 10 ** (d + 1)) d += 1;
+  r = Math.round(a / 10 ** (d - 2)) * 10 ** (d - 2);
+  const decimals = Math.max(0, 2 - d);
+  const s = r.toFixed(decimals);
+  const dot = s.indexOf('.');
+  const body = dot < 0 ? group(s) : group(s.slice(0, dot)) + s.slice(dot);
+  return (x < 0 ? '−' : '') + body;
+}
+
+/** A percentage: whole when it rounds to a whole number at one decimal, else one decimal. */
+export function formatPercent(pct: number): string {
+  if (!Number.isFinite(pct)) return '—';
+  const r = Math.round(pct * 10) / 10;
+  return (Number.isInteger(r) ? r.toFixed(0) : r.toFixed(1)) + '%';
+}
+
+export interface DisplayValue {
+  value: number;
+  unit: string;
+}
+
+/** Convert an SI value to the display unit of its kind in a unit system (no rounding). */
+export function toDisplay(si: number, kind: UnitKind, system: UnitSystem): DisplayValue {
+  const metric = system === 'metric';
+  switch (kind) {
+    case 'length':
+      return metric ? { value: si, unit: 'm' } : { value: si / FT, unit: 'ft' };
+    case 'weight': {
+      if (metric) {
+        const kg = si / STANDARD_GRAVITY;
+        return Math.abs(kg) < 1000 ? { value: kg, unit: 'kg' } : { value: kg / 1000, unit: 't' };
+      }
+      const lb = si / LBF;
+      return Math.abs(lb) < 10000 ? { value: lb, unit: 'lb' } : { value: lb / 1000, unit: 'kip' };
+    }
+    case 'force': {
+      if (metric) return { value: si / 1000, unit: 'kN' };
+      const lb = si / LBF;
+      return Math.abs(lb) < 10000 ? { value: lb, unit: 'lb' } : { value: lb / 1000, unit: 'kip' };
+    }
+    case 'pressure':
+      return metric ? { value: si / 1000, unit: 'kPa' } : { value: si / (LBF / (FT * FT)), unit: 'psf' };
+    case 'speed':
+      return metric ? { value: si, unit: 'm/s' } : { value: si / 0.44704, unit: 'mph' };
+    case 'area':
+      return metric ? { value: si, unit: 'm²' } : { value: si / (FT * FT), unit: 'ft²' };
+    case 'moment':
+      return metric ? { value: si / 1000, unit: 'kN·m' } : { value: si / (1000 * LBF * FT), unit: 'kip·ft' };
+    case 'angle':
+      return { value: si, unit: '°' };
+    case 'voltage':
+      return { value: si / 1000, unit: 'kV' };
+    case 'percent':
+      return { value: si, unit: '%' };
+    case 'ratio':
+    case 'count':
+      return { value: si, unit: '' };
+  }
+}
+
+/** "16.0 t", "35.3 kip", "1.52", "82%". */
+export function formatQuantity(si: number | null | undefined, kind: UnitKind, system: UnitSystem): string {
+  if (si == null) return '—';
+  if (kind === 'percent') return formatPercent(si);
+  if (kind === 'count') return Number.isInteger(si) ? String(si) : sig3(si);
+  const d = toDisplay(si, kind, system);
+  if (kind === 'angle') return `${sig3(d.value)}°`;
+  return d.unit ? `${sig3(d.value)} ${d.unit}` : sig3(d.value);
+}
+
+/** "82% of 16.0 t" */
+export function formatPercentOf(pct: number, of: number, kind: UnitKind, system: UnitSystem): string {
+  return `${formatPercent(pct)} of ${formatQuantity(of, kind, system)}`;
+}
+
+/** Render a structured formula in a unit system. */
+export function formatFormula(parts: readonly FormulaPart[], system: UnitSystem): string {
+  let out = '';
+  for (const p of parts) out += typeof p === 'string' ? p : formatQuantity(p.v, p.k, system);
+  return out;
+}
