@@ -11,7 +11,10 @@ export function RouteError() {
     : 'Something went wrong while showing this page. Reload it; if it happens again, tell the desk administrator what you were doing.';
   return (
     <PlainLayout>
-      <div role="alert" className="w-full max-w-[560px] border border-failed-edge border-l-4 bg-sheet px-7 py-8">
+      <div
+        role="alert"
+        className="w-full max-w-[560px] border border-failed-edge border-l-4 bg-sheet px-7 py-8"
+      >
         <h1 className="text-[22px] font-black">This page could not be shown</h1>
         <p className="mt-2 text-sm text-ink-soft">{message}</p>
         <div className="mt-5 flex gap-2">

@@ -68,11 +68,16 @@ async function toApiError(response: Response): Promise<ApiError> {
   return new ApiError(
     response.status,
     `http_${response.status}`,
-    FALLBACK_MESSAGES[response.status] ?? `The server answered ${response.status}. Try again; if it persists, tell the desk administrator.`,
+    FALLBACK_MESSAGES[response.status] ??
+      `The server answered ${response.status}. Try again; if it persists, tell the desk administrator.`,
   );
 }
 
-export async function request<T>(path: string, options: RequestOptions = {}, schema?: z.ZodType<T>): Promise<T> {
+export async function request<T>(
+  path: string,
+  options: RequestOptions = {},
+  schema?: z.ZodType<T>,
+): Promise<T> {
   const { method = 'GET', body, query, signal } = options;
   const headers: Record<string, string> = { Accept: 'application/json' };
   if (body !== undefined) headers['Content-Type'] = 'application/json';
@@ -88,7 +93,11 @@ export async function request<T>(path: string, options: RequestOptions = {}, sch
     });
   } catch (error) {
     if (error instanceof DOMException && error.name === 'AbortError') throw error;
-    throw new ApiError(0, 'network_error', 'Could not reach the Counterpoise server. Check your connection and try again.');
+    throw new ApiError(
+      0,
+      'network_error',
+      'Could not reach the Counterpoise server. Check your connection and try again.',
+    );
   }
 
   if (!response.ok) throw await toApiError(response);
@@ -110,5 +119,6 @@ export async function request<T>(path: string, options: RequestOptions = {}, sch
 export const api = {
   get: <T>(path: string, schema?: z.ZodType<T>, options: Omit<RequestOptions, 'method' | 'body'> = {}) =>
     request(path, { ...options, method: 'GET' }, schema),
-  post: <T>(path: string, body?: unknown, schema?: z.ZodType<T>) => request(path, { method: 'POST', body }, schema),
+  post: <T>(path: string, body?: unknown, schema?: z.ZodType<T>) =>
+    request(path, { method: 'POST', body }, schema),
 };

@@ -39,7 +39,11 @@ export type Urgency = { text: string; tone: 'late' | 'soon' | 'later' | 'past' }
  * How near a planned lift date is. `settled` packages (already returned) are no longer
  * late: their past dates read as plain history.
  */
-export function liftUrgency(value: string | null | undefined, settled: boolean, now = new Date()): Urgency | null {
+export function liftUrgency(
+  value: string | null | undefined,
+  settled: boolean,
+  now = new Date(),
+): Urgency | null {
   if (!value) return null;
   const day = calendarDay(value);
   if (day === null) return null;

@@ -10,7 +10,10 @@ export const authKeys = {
 };
 
 /** Every input of a package list request; the whole object is part of the query key. */
-export type PackageListFilters = Pick<PackageListQuery, 'status' | 'siteId' | 'q' | 'sort' | 'page' | 'pageSize'>;
+export type PackageListFilters = Pick<
+  PackageListQuery,
+  'status' | 'siteId' | 'q' | 'sort' | 'page' | 'pageSize'
+>;
 
 export const packageKeys = {
   all: ['packages'] as const,

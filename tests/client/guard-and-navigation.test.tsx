@@ -16,7 +16,8 @@ function signedInAs(role: Role) {
   return stubFetch((url) => {
     if (url.pathname === '/api/me') return { status: 200, body: { user: makeUser(role) } };
     if (url.pathname === '/api/packages') return listReply([]);
-    if (url.pathname === '/api/health') return { status: 200, body: { status: 'ok', database: { ok: true }, queue: { ok: true } } };
+    if (url.pathname === '/api/health')
+      return { status: 200, body: { status: 'ok', database: { ok: true }, queue: { ok: true } } };
     if (url.pathname === '/api/auth/sign-out') return { status: 204 };
   });
 }
@@ -35,7 +36,8 @@ describe('route guard', () => {
   it('when a list request answers 401 mid-session, then the person is sent to sign-in', async () => {
     stubFetch((url) => {
       if (url.pathname === '/api/me') return { status: 200, body: { user: makeUser('reviewer') } };
-      if (url.pathname === '/api/packages') return { status: 401, body: { error: { code: 'token_expired', message: 'Sign in again.' } } };
+      if (url.pathname === '/api/packages')
+        return { status: 401, body: { error: { code: 'token_expired', message: 'Sign in again.' } } };
     });
     const { router } = renderApp('/queue');
 
@@ -93,13 +95,16 @@ describe('role navigation', () => {
     expect(within(block).getByText('Ruth Halvorsen')).toBeTruthy();
     expect(within(block).getByText('Engineer of record')).toBeTruthy();
     expect(within(block).getByText('Saltmarsh Utilities')).toBeTruthy();
-    expect(screen.getByRole('contentinfo').textContent).toMatch(/do not replace the crane manufacturer's load chart/);
+    expect(screen.getByRole('contentinfo').textContent).toMatch(
+      /do not replace the crane manufacturer's load chart/,
+    );
   });
 
   it('when sign out is pressed, then the session is ended on the server and the sign-in page shows', async () => {
     let signedIn = true;
     const fetchMock = stubFetch((url) => {
-      if (url.pathname === '/api/me') return signedIn ? { status: 200, body: { user: makeUser('reviewer') } } : signedOut;
+      if (url.pathname === '/api/me')
+        return signedIn ? { status: 200, body: { user: makeUser('reviewer') } } : signedOut;
       if (url.pathname === '/api/packages') return listReply([]);
       if (url.pathname === '/api/auth/sign-out') {
         signedIn = false;

@@ -10,10 +10,15 @@ afterEach(() => {
 
 describe('package page', () => {
   it('when a package opens, then its reference, lift, status and planned date are shown', async () => {
-    const pkg = makePackage(7, { title: 'Boiler drum set', status: 'with_engineer', engineer: { id: makePackage(9).id, name: 'Ruth Halvorsen' } });
+    const pkg = makePackage(7, {
+      title: 'Boiler drum set',
+      status: 'with_engineer',
+      engineer: { id: makePackage(9).id, name: 'Ruth Halvorsen' },
+    });
     const fetchMock = stubFetch((url) => {
       if (url.pathname === '/api/me') return { status: 200, body: { user: makeUser('engineer') } };
-      if (url.pathname === `/api/packages/${pkg.id}`) return { status: 200, body: { package: pkg, revisions: [], latestResults: null } };
+      if (url.pathname === `/api/packages/${pkg.id}`)
+        return { status: 200, body: { package: pkg, revisions: [], latestResults: null } };
     });
     renderApp(`/packages/${pkg.id}`);
 
@@ -26,15 +31,18 @@ describe('package page', () => {
     expect(callsTo(fetchMock, `/api/packages/${pkg.id}`)).toHaveLength(1);
   });
 
-  it('when the server answers 404, then the page says the package is not in this person\'s list', async () => {
+  it("when the server answers 404, then the page says the package is not in this person's list", async () => {
     stubFetch((url) => {
       if (url.pathname === '/api/me') return { status: 200, body: { user: makeUser('contractor') } };
-      if (url.pathname.startsWith('/api/packages/')) return { status: 404, body: { error: { code: 'not_found', message: 'Package not found.' } } };
+      if (url.pathname.startsWith('/api/packages/'))
+        return { status: 404, body: { error: { code: 'not_found', message: 'Package not found.' } } };
     });
     renderApp(`/packages/${makePackage(3).id}`);
 
     const alert = await screen.findByRole('alert');
     expect(within(alert).getByText('No such package in your list')).toBeTruthy();
-    expect(within(alert).getByRole('link', { name: 'Back to your list' }).getAttribute('href')).toBe('/packages');
+    expect(within(alert).getByRole('link', { name: 'Back to your list' }).getAttribute('href')).toBe(
+      '/packages',
+    );
   });
 });

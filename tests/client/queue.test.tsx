@@ -26,7 +26,9 @@ describe('site queue', () => {
       '/api/packages?status=with_engineer&q=crawler&sort=-plannedLiftDate&page=2&pageSize=50',
     ]);
     expect((screen.getByRole('searchbox') as HTMLInputElement).value).toBe('crawler');
-    expect((screen.getByRole('combobox', { name: 'Status' }) as HTMLSelectElement).value).toBe('with_engineer');
+    expect((screen.getByRole('combobox', { name: 'Status' }) as HTMLSelectElement).value).toBe(
+      'with_engineer',
+    );
   });
 
   it('when the URL carries values the server would refuse, then they are left out and the defaults are asked for', async () => {
@@ -34,7 +36,9 @@ describe('site queue', () => {
     renderApp('/queue?status=lost&sort=colour&page=-3&pageSize=5000&siteId=north');
 
     await screen.findByRole('table');
-    expect(callsTo(fetchMock, '/api/packages')).toEqual(['/api/packages?sort=plannedLiftDate&page=1&pageSize=25']);
+    expect(callsTo(fetchMock, '/api/packages')).toEqual([
+      '/api/packages?sort=plannedLiftDate&page=1&pageSize=25',
+    ]);
   });
 
   it('when a status count is pressed, then the URL and the request filter by that status from page 1', async () => {
@@ -47,7 +51,9 @@ describe('site queue', () => {
 
     await waitFor(() => expect(router.state.location.search).toBe('?status=decided'));
     await waitFor(() =>
-      expect(callsTo(fetchMock, '/api/packages').at(-1)).toBe('/api/packages?status=decided&sort=plannedLiftDate&page=1&pageSize=25'),
+      expect(callsTo(fetchMock, '/api/packages').at(-1)).toBe(
+        '/api/packages?status=decided&sort=plannedLiftDate&page=1&pageSize=25',
+      ),
     );
   });
 
@@ -60,7 +66,9 @@ describe('site queue', () => {
 
     await waitFor(() => expect(router.state.location.search).toBe('?q=tailing'));
     await waitFor(() =>
-      expect(callsTo(fetchMock, '/api/packages').at(-1)).toBe('/api/packages?q=tailing&sort=plannedLiftDate&page=1&pageSize=25'),
+      expect(callsTo(fetchMock, '/api/packages').at(-1)).toBe(
+        '/api/packages?q=tailing&sort=plannedLiftDate&page=1&pageSize=25',
+      ),
     );
   });
 
@@ -72,7 +80,9 @@ describe('site queue', () => {
     await user.click(await screen.findByRole('button', { name: /Planned lift/ }));
 
     await waitFor(() => expect(router.state.location.search).toBe('?sort=-plannedLiftDate'));
-    await waitFor(() => expect(callsTo(fetchMock, '/api/packages').at(-1)).toContain('sort=-plannedLiftDate'));
+    await waitFor(() =>
+      expect(callsTo(fetchMock, '/api/packages').at(-1)).toContain('sort=-plannedLiftDate'),
+    );
   });
 
   it('when next page is pressed, then page 2 is asked for with the same filters', async () => {
@@ -110,7 +120,9 @@ describe('site queue', () => {
   });
 
   it('when a row is shown, then its status reads as a word and its check outcome and discrepancies are named', async () => {
-    reviewerWithList([makePackage(1, { status: 'with_engineer', worstStatus: 'fail', openDiscrepancies: 2 })]);
+    reviewerWithList([
+      makePackage(1, { status: 'with_engineer', worstStatus: 'fail', openDiscrepancies: 2 }),
+    ]);
     renderApp('/queue');
 
     const row = (await screen.findAllByRole('row'))[1];
@@ -124,7 +136,10 @@ describe('site queue', () => {
     stubFetch((url) => {
       if (url.pathname === '/api/me') return { status: 200, body: { user: makeUser('reviewer') } };
       if (url.pathname === '/api/packages') {
-        return { status: 503, body: { error: { code: 'database_unavailable', message: 'The database is not answering.' } } };
+        return {
+          status: 503,
+          body: { error: { code: 'database_unavailable', message: 'The database is not answering.' } },
+        };
       }
     });
     renderApp('/queue');
@@ -151,7 +166,9 @@ describe("contractor's desk", () => {
     stubFetch((url) => {
       if (url.pathname === '/api/me') return { status: 200, body: { user: makeUser('contractor') } };
       if (url.pathname === '/api/packages') {
-        return listReply([makePackage(1, { status: 'returned', decision: 'revise_and_resubmit', revisionNumber: 2 })]);
+        return listReply([
+          makePackage(1, { status: 'returned', decision: 'revise_and_resubmit', revisionNumber: 2 }),
+        ]);
       }
     });
     renderApp('/packages');

@@ -29,7 +29,10 @@ describe('sign-in page', () => {
     const fetchMock = stubFetch((url) => {
       if (url.pathname === '/api/me') return signedOut;
       if (url.pathname === '/api/auth/sign-in') {
-        return { status: 401, body: { error: { code: 'invalid_credentials', message: 'Email or password is incorrect.' } } };
+        return {
+          status: 401,
+          body: { error: { code: 'invalid_credentials', message: 'Email or password is incorrect.' } },
+        };
       }
     });
     renderApp('/sign-in');
@@ -43,7 +46,10 @@ describe('sign-in page', () => {
     const [, init] = fetchMock.mock.calls.find(([input]) => String(input).endsWith('/api/auth/sign-in'))!;
     expect(init?.method).toBe('POST');
     expect(init?.credentials).toBe('include');
-    expect(JSON.parse(String(init?.body))).toEqual({ email: 'planner@fenwick.example', password: 'not-the-password' });
+    expect(JSON.parse(String(init?.body))).toEqual({
+      email: 'planner@fenwick.example',
+      password: 'not-the-password',
+    });
   });
 
   it('when the server names a field in a 400, then the message appears under that field', async () => {
@@ -76,7 +82,8 @@ describe('sign-in page', () => {
   it('when a reviewer signs in, then they land on the site queue', async () => {
     let signedIn = false;
     stubFetch((url) => {
-      if (url.pathname === '/api/me') return signedIn ? { status: 200, body: { user: makeUser('reviewer') } } : signedOut;
+      if (url.pathname === '/api/me')
+        return signedIn ? { status: 200, body: { user: makeUser('reviewer') } } : signedOut;
       if (url.pathname === '/api/auth/sign-in') {
         signedIn = true;
         return { status: 200, body: { user: makeUser('reviewer') } };

@@ -16,7 +16,10 @@ export type Handler = (url: URL, init: RequestInit | undefined) => Reply | undef
 export function stubFetch(handler: Handler) {
   const fetchMock = vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
     const url = new URL(String(input), 'http://localhost');
-    const reply = handler(url, init) ?? { status: 404, body: { error: { code: 'not_found', message: 'No stub' } } };
+    const reply = handler(url, init) ?? {
+      status: 404,
+      body: { error: { code: 'not_found', message: 'No stub' } },
+    };
     return new Response(reply.body === undefined ? null : JSON.stringify(reply.body), {
       status: reply.status,
       headers: { 'Content-Type': 'application/json' },
@@ -38,7 +41,12 @@ export function makeUser(role: Role, overrides: Partial<CurrentUser> = {}): Curr
   return {
     id: '0a6e3b1c-2f4d-4c8e-9a1b-3c5d7e9f1a2b',
     email: `${role}@example.test`,
-    name: { contractor: 'Ines Marlowe', reviewer: 'Tomas Ekwueme', engineer: 'Ruth Halvorsen', admin: 'Dev Anand' }[role],
+    name: {
+      contractor: 'Ines Marlowe',
+      reviewer: 'Tomas Ekwueme',
+      engineer: 'Ruth Halvorsen',
+      admin: 'Dev Anand',
+    }[role],
     role,
     unitSystem: 'metric',
     organisation: {
@@ -74,12 +82,21 @@ export function makePackage(index: number, overrides: Partial<PackageSummary> = 
 export function listReply(items: PackageSummary[], extra: Partial<PackageListResponse> = {}): Reply {
   return {
     status: 200,
-    body: { items, total: items.length, page: 1, pageSize: 25, countsByStatus: { ready_for_review: items.length }, ...extra },
+    body: {
+      items,
+      total: items.length,
+      page: 1,
+      pageSize: 25,
+      countsByStatus: { ready_for_review: items.length },
+      ...extra,
+    },
   };
 }
 
 export function renderApp(path: string) {
-  const queryClient = createQueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
+  const queryClient = createQueryClient({
+    defaultOptions: { queries: { retry: false }, mutations: { retry: false } },
+  });
   const router = createMemoryRouter(routes, { initialEntries: [path] });
   const view = render(
     <AppProvider queryClient={queryClient}>

@@ -10,7 +10,11 @@ export default function AdminRoute() {
   if (!user) return null;
   return (
     <>
-      <PageHeader title="Desk administration" context="Every lift package on the desk, across all organisations and sites." actions={<HealthStrip />} />
+      <PageHeader
+        title="Desk administration"
+        context="Every lift package on the desk, across all organisations and sites."
+        actions={<HealthStrip />}
+      />
       <PackageListView
         role={user.role}
         variant="queue"

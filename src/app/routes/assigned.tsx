@@ -8,13 +8,21 @@ export default function AssignedRoute() {
   if (!user) return null;
   return (
     <>
-      <PageHeader title="Assigned to me" context="Lift packages a coordinator has assigned to you for review and decision." />
+      <PageHeader
+        title="Assigned to me"
+        context="Lift packages a coordinator has assigned to you for review and decision."
+      />
       <PackageListView
         role={user.role}
         variant="assigned"
         caption="Packages assigned to you"
         emptyTitle="Nothing is assigned to you"
-        emptyBody={<p>When a coordinator assigns you a lift package to review, it appears here with its planned lift date.</p>}
+        emptyBody={
+          <p>
+            When a coordinator assigns you a lift package to review, it appears here with its planned lift
+            date.
+          </p>
+        }
       />
     </>
   );

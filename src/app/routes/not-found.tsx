@@ -11,8 +11,8 @@ export default function NotFoundRoute() {
         <p className="font-mono text-[13px] font-bold text-ink-soft">404</p>
         <h1 className="mt-1 text-[24px] font-black">There is no page here</h1>
         <p className="mt-2 text-sm text-ink-soft">
-          Nothing lives at <code className="break-all font-mono text-ink">{location.pathname}</code>. The link may be
-          mistyped or out of date.
+          Nothing lives at <code className="break-all font-mono text-ink">{location.pathname}</code>. The link
+          may be mistyped or out of date.
         </p>
         <Link to="/" className={`${buttonClasses('primary')} mt-5`}>
           Go to your desk

@@ -47,8 +47,8 @@ export default function PackageDetailRoute() {
       <PackageHeading pkg={detail.data.package} />
       <EmptyState title="The review workspace arrives with the next feature">
         <p>
-          This page will show the lift inputs beside the recomputed checks, the plan pages with markups, the findings
-          and the differences between revisions. {back}.
+          This page will show the lift inputs beside the recomputed checks, the plan pages with markups, the
+          findings and the differences between revisions. {back}.
         </p>
       </EmptyState>
     </>

@@ -9,7 +9,10 @@ export default function PackagesRoute() {
   if (!user) return null;
   return (
     <>
-      <PageHeader title="Lift packages" context={`Every lift package from ${user.organisation.name}, nearest lift first.`} />
+      <PageHeader
+        title="Lift packages"
+        context={`Every lift package from ${user.organisation.name}, nearest lift first.`}
+      />
       <PackageListView
         role={user.role}
         variant="desk"
@@ -17,8 +20,8 @@ export default function PackagesRoute() {
         emptyTitle="No lift packages yet"
         emptyBody={
           <p>
-            A lift package appears here as soon as someone at {user.organisation.name} starts one: its status, site,
-            planned lift date, revision and what it is waiting on.
+            A lift package appears here as soon as someone at {user.organisation.name} starts one: its status,
+            site, planned lift date, revision and what it is waiting on.
           </p>
         }
       />

@@ -24,8 +24,8 @@ export default function QueueRoute() {
         emptyTitle="The queue is empty"
         emptyBody={
           <p>
-            Packages appear here when a contractor submits a lift package for one of your sites and the independent
-            check has run.
+            Packages appear here when a contractor submits a lift package for one of your sites and the
+            independent check has run.
           </p>
         }
       />

@@ -46,7 +46,9 @@ function SignedInAs({ user }: { user: CurrentUser }) {
       <button
         type="button"
         disabled={signOut.isPending}
-        onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) })}
+        onClick={() =>
+          signOut.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) })
+        }
         className="mt-3 h-8 w-full rounded-[3px] border border-graphite-line text-[13px] font-bold text-chalk hover:border-steel hover:bg-graphite-raised disabled:opacity-70"
       >
         {signOut.isPending ? 'Signing out…' : 'Sign out'}
@@ -71,7 +73,9 @@ export function AppShell() {
       <aside className="on-dark sticky top-0 flex h-screen w-[232px] shrink-0 flex-col bg-graphite text-chalk">
         <div className="px-4 pb-5 pt-4">
           <Wordmark className="text-chalk" />
-          <p className="mt-1 pl-9 text-[11.5px] uppercase tracking-[0.12em] text-steel">Critical lift review</p>
+          <p className="mt-1 pl-9 text-[11.5px] uppercase tracking-[0.12em] text-steel">
+            Critical lift review
+          </p>
         </div>
         <nav aria-label="Main" className="flex-1 overflow-y-auto">
           <ul className="flex flex-col">

@@ -1,7 +1,15 @@
 // The title strip at the top of a page, with an optional line of context and actions.
 import type { ReactNode } from 'react';
 
-export function PageHeader({ title, context, actions }: { title: string; context?: ReactNode; actions?: ReactNode }) {
+export function PageHeader({
+  title,
+  context,
+  actions,
+}: {
+  title: string;
+  context?: ReactNode;
+  actions?: ReactNode;
+}) {
   return (
     <header className="mb-4 flex flex-wrap items-end justify-between gap-3 border-b-2 border-ink pb-2.5">
       <div>

@@ -6,7 +6,8 @@ type Variant = 'primary' | 'secondary' | 'quiet';
 const VARIANTS: Record<Variant, string> = {
   primary:
     'bg-verdigris text-white border-verdigris hover:bg-verdigris-deep hover:border-verdigris-deep disabled:bg-ink-soft disabled:border-ink-soft',
-  secondary: 'bg-sheet text-ink border-rule-strong hover:bg-sheet-alt hover:border-ink disabled:text-ink-soft',
+  secondary:
+    'bg-sheet text-ink border-rule-strong hover:bg-sheet-alt hover:border-ink disabled:text-ink-soft',
   quiet: 'bg-transparent text-verdigris border-transparent hover:bg-verdigris-tint disabled:text-ink-soft',
 };
 

@@ -10,9 +10,20 @@ export function EmptyState({ title, children }: { title: string; children?: Reac
   );
 }
 
-export function ErrorPanel({ title, message, action }: { title: string; message: string; action?: ReactNode }) {
+export function ErrorPanel({
+  title,
+  message,
+  action,
+}: {
+  title: string;
+  message: string;
+  action?: ReactNode;
+}) {
   return (
-    <div role="alert" className="flex items-start gap-3 border border-failed-edge border-l-4 bg-failed-tint px-4 py-3">
+    <div
+      role="alert"
+      className="flex items-start gap-3 border border-failed-edge border-l-4 bg-failed-tint px-4 py-3"
+    >
       <div className="flex-1">
         <h2 className="text-sm font-bold text-failed-ink">{title}</h2>
         <p className="text-sm text-ink">{message}</p>

@@ -45,7 +45,10 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: CurrentUser) => 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Sign in" className="flex flex-col gap-4">
       {serverMessage && (
-        <div role="alert" className="border-l-4 border-failed-ink bg-failed-tint px-3 py-2 text-sm font-bold text-failed-ink">
+        <div
+          role="alert"
+          className="border-l-4 border-failed-ink bg-failed-tint px-3 py-2 text-sm font-bold text-failed-ink"
+        >
           {serverMessage}
         </div>
       )}

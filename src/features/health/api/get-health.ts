@@ -12,7 +12,11 @@ export const HealthResponse = z.object({
 export type HealthResponse = z.infer<typeof HealthResponse>;
 
 export async function getHealth(signal?: AbortSignal): Promise<HealthResponse> {
-  const response = await fetch('/api/health', { credentials: 'include', signal, headers: { Accept: 'application/json' } });
+  const response = await fetch('/api/health', {
+    credentials: 'include',
+    signal,
+    headers: { Accept: 'application/json' },
+  });
   const body: unknown = await response.json().catch(() => null);
   const parsed = HealthResponse.safeParse(body);
   if (parsed.success) return parsed.data;

@@ -24,7 +24,11 @@ export function HealthStrip() {
   const health = useHealth();
   const data = health.data;
   return (
-    <div role="status" aria-label="Desk services" className="flex items-center gap-4 border border-rule bg-sheet px-3 py-1.5">
+    <div
+      role="status"
+      aria-label="Desk services"
+      className="flex items-center gap-4 border border-rule bg-sheet px-3 py-1.5"
+    >
       <Item label="Database" ok={data ? data.database.ok : health.isError ? false : null} />
       <Item label="Job queue" ok={data ? data.queue.ok : health.isError ? false : null} />
     </div>

@@ -41,7 +41,8 @@ export function PackageFilters({
   useEffect(() => {
     function onKey(event: KeyboardEvent) {
       const target = event.target as HTMLElement | null;
-      const typing = target && (target.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(target.tagName));
+      const typing =
+        target && (target.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(target.tagName));
       if (event.key === '/' && !typing && !event.ctrlKey && !event.metaKey && !event.altKey) {
         event.preventDefault();
         inputRef.current?.focus();

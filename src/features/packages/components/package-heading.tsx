@@ -38,9 +38,15 @@ export function PackageHeading({ pkg }: { pkg: PackageSummary }) {
         <Fact label="Revision">
           <span className="tabular">{pkg.revisionNumber}</span>
         </Fact>
-        <Fact label="Engineer of record">{pkg.engineer?.name ?? <span className="text-ink-soft">Not assigned</span>}</Fact>
+        <Fact label="Engineer of record">
+          {pkg.engineer?.name ?? <span className="text-ink-soft">Not assigned</span>}
+        </Fact>
         <Fact label="Independent check">
-          {pkg.worstStatus ? <CheckStatusMark status={pkg.worstStatus} /> : <span className="text-ink-soft">Not run yet</span>}
+          {pkg.worstStatus ? (
+            <CheckStatusMark status={pkg.worstStatus} />
+          ) : (
+            <span className="text-ink-soft">Not run yet</span>
+          )}
         </Fact>
       </dl>
     </section>

@@ -39,10 +39,19 @@ export function PackageListView({
   return (
     <section aria-label={caption}>
       {data && !nothingYet && (
-        <StatusCounts counts={data.countsByStatus} active={filters.status} onSelect={(status) => update({ status })} />
+        <StatusCounts
+          counts={data.countsByStatus}
+          active={filters.status}
+          onSelect={(status) => update({ status })}
+        />
       )}
       {!nothingYet && (
-        <PackageFilters q={filters.q} status={filters.status} onSearch={onSearch} onStatus={(status) => update({ status })} />
+        <PackageFilters
+          q={filters.q}
+          status={filters.status}
+          onSearch={onSearch}
+          onStatus={(status) => update({ status })}
+        />
       )}
 
       {query.isPending && <PageLoading label="Loading packages" />}
@@ -50,7 +59,9 @@ export function PackageListView({
       {query.isError && (
         <ErrorPanel
           title="The package list could not be loaded"
-          message={isApiError(query.error) ? query.error.message : 'Something went wrong while loading the list.'}
+          message={
+            isApiError(query.error) ? query.error.message : 'Something went wrong while loading the list.'
+          }
           action={
             <Button size="sm" onClick={() => query.refetch()}>
               Try again

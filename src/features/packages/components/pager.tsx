@@ -21,8 +21,11 @@ export function Pager({
   return (
     <nav aria-label="Pages" className="mt-2 flex flex-wrap items-center justify-between gap-3 text-[13px]">
       <p className="tabular text-ink-soft" aria-live="polite">
-        Rows <strong className="text-ink">{first}–{last}</strong> of <strong className="text-ink">{total}</strong> · page{' '}
-        {page} of {pages}
+        Rows{' '}
+        <strong className="text-ink">
+          {first}–{last}
+        </strong>{' '}
+        of <strong className="text-ink">{total}</strong> · page {page} of {pages}
       </p>
       <div className="flex items-center gap-2">
         <label className="flex items-center gap-1.5 text-ink-soft">

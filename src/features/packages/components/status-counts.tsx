@@ -31,8 +31,17 @@ export function StatusCounts({
     }`;
 
   return (
-    <div role="group" aria-label="Packages by status" className="mb-3 flex flex-wrap border border-rule bg-sheet">
-      <button type="button" aria-pressed={active === undefined} onClick={() => onSelect(undefined)} className={tile(active === undefined)}>
+    <div
+      role="group"
+      aria-label="Packages by status"
+      className="mb-3 flex flex-wrap border border-rule bg-sheet"
+    >
+      <button
+        type="button"
+        aria-pressed={active === undefined}
+        onClick={() => onSelect(undefined)}
+        className={tile(active === undefined)}
+      >
         <span className="text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft">All</span>
         <span className="text-[22px] font-black leading-none tabular">{total}</span>
       </button>
@@ -44,7 +53,9 @@ export function StatusCounts({
           onClick={() => onSelect(active === status ? undefined : status)}
           className={tile(active === status)}
         >
-          <span className={`inline-flex items-center gap-1 whitespace-nowrap text-[12px] font-bold ${INK[status]}`}>
+          <span
+            className={`inline-flex items-center gap-1 whitespace-nowrap text-[12px] font-bold ${INK[status]}`}
+          >
             <StatusShape status={status} />
             {PACKAGE_STATUS_LABELS[status]}
           </span>

@@ -18,7 +18,10 @@ export function waitingOn(pkg: PackageSummary, role: Role): WaitingOn {
     case 'checking':
       return { text: 'Independent check running', onYou: false };
     case 'ready_for_review':
-      return { text: role === 'reviewer' ? 'You: triage and assign' : 'Reviewer: triage', onYou: role === 'reviewer' };
+      return {
+        text: role === 'reviewer' ? 'You: triage and assign' : 'Reviewer: triage',
+        onYou: role === 'reviewer',
+      };
     case 'with_engineer':
       return {
         text: role === 'engineer' ? 'You: review and decide' : `Engineer: ${pkg.engineer?.name ?? 'review'}`,
