@@ -20,6 +20,7 @@ import { tandemCheck } from './checks/tandem';
 import { computeWind, windCheck } from './checks/wind';
 import { compareStated } from './discrepancies';
 import { si } from './units';
+import { edgeBalance, planModel } from './crane-model';
 import type { CheckResult, Fix, LiftFigures, LiftResult, UnitSystem } from './types';
 
 export const RESULT_VERSION = 1 as const;
@@ -136,4 +137,37 @@ export function checkLift(raw: unknown, policy?: SitePolicyInput | null, options
     };
   }
   return { ok: true, input: parsed.data, result: evaluateLift(parsed.data, pol.data, options) };
+}
+
+/**
+ * Moment balance about each tipping line of a mobile crane for a slew angle (for the crane
+ * schematic plot and for tests): overturning and resisting moments (N·m) and their ratio per edge.
+ * Null for a gantry or when the crane weights or supports are missing.
+ */
+export function tippingBalance(
+  input: LiftInput,
+  slewDeg: number,
+  policy?: Partial<SitePolicy> | null,
+): { edge: string; overturning: number; resisting: number; ratio: number }[] | null {
+  const parts = grossLoadParts(input);
+  const geometry = computeGeometry(input);
+  if (geometry.radius === null) return null;
+  const ctx: Ctx = {
+    input,
+    policy: resolvePolicy(policy),
+    system: 'metric',
+    gross: parts.gross,
+    belowHook: parts.belowHook,
+    geometry,
+    chart: { capacity: null, method: '', outside: null, radiusUsed: null, boomLengthUsed: null },
+    rows: [],
+    wind: null,
+  };
+  ctx.wind = computeWind(ctx);
+  const m = planModel(ctx, geometry.radius);
+  if (!m) return null;
+  return m.edges.map((e, i) => {
+    const b = edgeBalance(m, slewDeg, i);
+    return { edge: e.label, overturning: b.overturning, resisting: b.resisting, ratio: b.ratio };
+  });
 }
