@@ -61,7 +61,8 @@ export function capacityCheck(ctx: Ctx, fixes: Fix[]): CheckResult {
       message: 'Capacity read from the chart rows entered, never interpolated upward.',
     }),
   );
-  const status = pct > maxUse || pct > 100 ? 'fail' : pct > policy.criticalThresholdPct ? 'caution' : 'pass';
+  // 1e-9 %: unit conversions must not push an exact 75% or 85% over its limit
+  const status = pct - maxUse > 1e-9 || pct - 100 > 1e-9 ? 'fail' : pct - policy.criticalThresholdPct > 1e-9 ? 'caution' : 'pass';
   items.push(
     item(ctx, {
       id: 'capacity.use',

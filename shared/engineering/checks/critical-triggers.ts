@@ -16,7 +16,7 @@ export function criticalTriggers(ctx: Ctx): CriticalTrigger[] {
   const s = input.site ?? {};
   if (chart.capacity !== null && chart.capacity > 0) {
     const pct = (gross / chart.capacity) * 100;
-    if (pct > policy.criticalThresholdPct)
+    if (pct - policy.criticalThresholdPct > 1e-9) // a hair over from rounding of unit conversions is not over
       out.push({
         id: 'capacity-threshold',
         reason: `Gross load is ${pct.toFixed(1)}% of the chart capacity, over the ${policy.criticalThresholdPct}% threshold.`,
