@@ -77,6 +77,11 @@ export interface ItemSpec {
 
 export function item(ctx: Ctx, s: ItemSpec): CheckItem {
   const formula = s.formula ?? [];
+  // Results are stored as JSON: an unbounded term (e.g. no overturning moment) is written as words.
+  for (let i = 0; i < formula.length; i++) {
+    const p = formula[i];
+    if (typeof p !== 'string' && !Number.isFinite(p.v)) formula[i] = Number.isNaN(p.v) ? '—' : p.v > 0 ? '∞' : '−∞';
+  }
   return {
     id: s.id,
     label: s.label,

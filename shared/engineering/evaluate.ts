@@ -108,7 +108,7 @@ export function evaluateLift(input: LiftInput, policy?: Partial<SitePolicy> | nu
     checks,
     critical: { isCritical: triggers.length > 0, triggers },
     discrepancies,
-    fixes,
+    fixes: fixes.filter((fx) => Number.isFinite(fx.value) && fx.value >= 0),
     policy: pol,
     figures,
     cautions: [...CAUTIONS],

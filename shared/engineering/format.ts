@@ -24,6 +24,7 @@ export function sig3(x: number): string {
   if (!Number.isFinite(x)) return x > 0 ? '∞' : x < 0 ? '−∞' : '—';
   if (x === 0) return '0';
   const a = Math.abs(x);
+  if (a < 1e-4 || a >= 1e15) return x.toExponential(2).replace('-', '−');
   let d = Math.floor(Math.log10(a));
   let r = Math.round(a / 10 ** (d - 2)) * 10 ** (d - 2);
   if (r >= 10 ** (d + 1)) d += 1;
