@@ -15,6 +15,7 @@ import { adminRoutes } from './modules/admin/routes';
 import { authRoutes } from './modules/auth/routes';
 import { healthRoutes } from './modules/health/routes';
 import { packageRoutes } from './modules/packages/routes';
+import { siteRoutes } from './modules/sites/routes';
 import './openapi-routes';
 
 export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
@@ -46,6 +47,7 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   app.use('/api', authRoutes(ctx));
   app.use('/api', packageRoutes(ctx));
   app.use('/api', adminRoutes(ctx));
+  app.use('/api', siteRoutes(ctx));
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApiDocument());
   });

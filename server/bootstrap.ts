@@ -7,6 +7,8 @@ import { loadConfig, type Config } from './config';
 import { createDataSource } from './db/data-source';
 import { createQueues } from './lib/queues';
 import { createRedis } from './lib/redis';
+import { LocalFolderStorage } from './lib/storage';
+import path from 'node:path';
 import { createPassport } from './modules/auth/passport';
 
 export class StartupError extends Error {
@@ -55,6 +57,7 @@ export async function connect(config: Config = loadConfig()): Promise<AppContext
     redis,
     queues,
     passport: passport as unknown as AppContext['passport'],
+    storage: new LocalFolderStorage(path.join(config.DATA_DIR, 'files')),
     async close() {
       await queues.close().catch(() => undefined);
       queueConnection.disconnect();

@@ -4,6 +4,7 @@ import type { PassportStatic } from 'passport';
 import type { DataSource } from 'typeorm';
 import type { Config } from './config';
 import type { Queues } from './lib/queues';
+import type { Storage } from './lib/storage';
 
 export interface AppContext {
   config: Config;
@@ -11,5 +12,6 @@ export interface AppContext {
   redis: Redis;
   queues: Queues;
   passport: PassportStatic;
+  storage: Storage;
   close?: () => Promise<void>;
 }

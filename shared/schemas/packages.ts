@@ -43,3 +43,87 @@ export const PackageListResponse = z.object({
   countsByStatus: z.record(z.string(), z.number().int()),
 });
 export type PackageListResponse = z.infer<typeof PackageListResponse>;
+
+/** A new lift package (contractors). It starts as a draft with an empty revision 1. */
+export const CreatePackageBody = z.object({
+  title: z.string().trim().min(3, 'title must be at least 3 characters').max(200, 'title must be at most 200 characters'),
+  siteId: z.uuid({ message: 'siteId must be the id of a site' }),
+  plannedLiftDate: z.iso.date({ message: 'plannedLiftDate must be a date (YYYY-MM-DD)' }).nullable().optional(),
+});
+export type CreatePackageBody = z.infer<typeof CreatePackageBody>;
+
+/**
+ * Autosave of a draft. `inputs` is the lift as typed so far: it may be incomplete (the
+ * full LiftInput schema is enforced on submit), but it must be a JSON object under the
+ * size limit. `baseUpdatedAt` guards against a stale tab overwriting newer work (409).
+ */
+export const SaveDraftBody = z.object({
+  title: z.string().trim().min(3, 'title must be at least 3 characters').max(200, 'title must be at most 200 characters').optional(),
+  siteId: z.uuid({ message: 'siteId must be the id of a site' }).optional(),
+  plannedLiftDate: z.iso.date({ message: 'plannedLiftDate must be a date (YYYY-MM-DD)' }).nullable().optional(),
+  inputs: z.record(z.string(), z.unknown()).optional(),
+  baseUpdatedAt: z.string().optional(),
+});
+export type SaveDraftBody = z.infer<typeof SaveDraftBody>;
+
+export const FILE_KINDS = ['lift_plan', 'supporting'] as const;
+export const FileKind = z.enum(FILE_KINDS);
+export type FileKind = z.infer<typeof FileKind>;
+
+export const UploadFileFields = z.object({
+  kind: z.enum(FILE_KINDS, { message: "kind must be 'lift_plan' or 'supporting'" }).default('supporting'),
+});
+
+export const FileSummary = z.object({
+  id: z.uuid(),
+  kind: FileKind,
+  originalName: z.string(),
+  sha256: z.string(),
+  sizeBytes: z.number().int(),
+  pages: z.number().int(),
+  createdAt: z.string(),
+});
+export type FileSummary = z.infer<typeof FileSummary>;
+
+export const CHECK_RUN_STATES = ['none', 'queued', 'running', 'done', 'invalid', 'failed'] as const;
+
+export const RevisionDetail = z.object({
+  id: z.uuid(),
+  number: z.number().int(),
+  state: z.enum(['draft', 'submitted']),
+  inputs: z.record(z.string(), z.unknown()),
+  submittedAt: z.string().nullable(),
+  updatedAt: z.string(),
+  check: z.object({
+    status: z.enum(CHECK_RUN_STATES),
+    progress: z.number().int(),
+    error: z.string().nullable(),
+    resultVersion: z.number().int().nullable(),
+    checkedAt: z.string().nullable(),
+  }),
+  /** The engine's LiftResult (see shared/engineering/types.ts) once the check has run. */
+  results: z.record(z.string(), z.unknown()).nullable(),
+  files: z.array(FileSummary),
+});
+export type RevisionDetail = z.infer<typeof RevisionDetail>;
+
+export const PackageDetail = z.object({
+  package: PackageSummary.extend({ version: z.number().int() }),
+  revisions: z.array(
+    z.object({
+      id: z.uuid(),
+      number: z.number().int(),
+      state: z.enum(['draft', 'submitted']),
+      submittedAt: z.string().nullable(),
+      checkStatus: z.enum(CHECK_RUN_STATES),
+    }),
+  ),
+  current: RevisionDetail,
+  events: z.array(z.object({ id: z.uuid(), action: z.string(), actor: z.string().nullable(), at: z.string(), detail: z.record(z.string(), z.unknown()) })),
+});
+export type PackageDetail = z.infer<typeof PackageDetail>;
+
+export const SiteList = z.object({
+  items: z.array(z.object({ id: z.uuid(), name: z.string(), code: z.string(), owner: z.string() })),
+});
+export type SiteList = z.infer<typeof SiteList>;

@@ -5,10 +5,10 @@ import { Organisation } from '../../modules/organisations/organisation.entity';
 import { Site, SiteMember } from '../../modules/sites/site.entity';
 import { User } from '../../modules/users/user.entity';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
-import { seedPackages } from './packages';
+import { finishSeededPackages, seedPackages } from './packages';
 
 export async function seedScenario(dataSource: DataSource, filesDir: string, opts: { hash: (p: string) => string }) {
-  await dataSource.transaction(async (m) => {
+  const { seeded, people, reviewer } = await dataSource.transaction(async (m) => {
     const orgs = new Map<string, Organisation>();
     for (const [name, kind] of [
       ['Tamsin Ridge Energy', 'owner'],
@@ -49,6 +49,8 @@ export async function seedScenario(dataSource: DataSource, filesDir: string, opt
     });
     const reviewer = people.get('rhea.okafor@tamsin-ridge.example')!;
     for (const site of [refinery, wharf]) await m.getRepository(SiteMember).save({ siteId: site.id, userId: reviewer.id });
-    await seedPackages(m, filesDir, { orgs, people, sites: { refinery, wharf } });
+    const seeded = await seedPackages(m, filesDir, { orgs, people, sites: { refinery, wharf } });
+    return { seeded, people, reviewer };
   });
+  await finishSeededPackages(dataSource, seeded, people, reviewer);
 }

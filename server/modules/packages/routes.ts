@@ -1,25 +1,113 @@
-// Lift package routes. Thin: validate, call the service, answer.
-import { Router } from 'express';
+// Lift package routes. Thin: check the role, validate, call the service, answer.
+import { Router, type NextFunction, type Request, type Response } from 'express';
+import multer from 'multer';
 import { z } from 'zod';
-import { PackageListQuery } from '@shared/schemas/packages';
+import { CreatePackageBody, PackageListQuery, SaveDraftBody, UploadFileFields } from '@shared/schemas/packages';
 import type { AppContext } from '../../context';
-import { currentUser, requireAuth } from '../../middleware/auth';
+import { AppError, fromZod } from '../../lib/app-error';
+import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
-import { getPackage, listPackages } from './service';
+import { addFile, readFile, removeFile } from '../files/service';
+import { createPackage, duplicatePackage, saveDraft, submitPackage } from './drafts';
+import { getPackage, getRevision, listPackages, packageDetail } from './service';
 
 export const PackageIdParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }) });
+export const FileParams = PackageIdParams.extend({ fileId: z.uuid({ message: 'fileId must be a UUID' }) });
+export const RevisionParams = PackageIdParams.extend({
+  number: z.coerce.number().int().min(1, 'number must be 1 or more').max(1000, 'number must be at most 1000'),
+});
 
 export function packageRoutes(ctx: AppContext): Router {
   const router = Router();
+  const { dataSource: ds } = ctx;
+  const contractorOnly = requireRole('contractor');
   router.use('/packages', requireAuth(ctx.passport));
 
   router.get('/packages', validate({ query: PackageListQuery }), async (req, res) => {
-    res.json(await listPackages(ctx.dataSource, currentUser(req), valid(req, 'query', PackageListQuery)));
+    res.json(await listPackages(ds, currentUser(req), valid(req, 'query', PackageListQuery)));
+  });
+
+  router.post('/packages', contractorOnly, validate({ body: CreatePackageBody }), async (req, res) => {
+    const id = await createPackage(ds, currentUser(req), valid(req, 'body', CreatePackageBody));
+    res.status(201).json(await packageDetail(ds, id));
   });
 
   router.get('/packages/:id', validate({ params: PackageIdParams }), async (req, res) => {
+    res.json(await getPackage(ds, currentUser(req), valid(req, 'params', PackageIdParams).id));
+  });
+
+  router.get('/packages/:id/revisions/:number', validate({ params: RevisionParams }), async (req, res) => {
+    const { id, number } = valid(req, 'params', RevisionParams);
+    res.json(await getRevision(ds, currentUser(req), id, number));
+  });
+
+  router.put('/packages/:id/draft', contractorOnly, validate({ params: PackageIdParams, body: SaveDraftBody }), async (req, res) => {
     const { id } = valid(req, 'params', PackageIdParams);
-    res.json(await getPackage(ctx.dataSource, currentUser(req), id));
+    await saveDraft(ds, currentUser(req), id, valid(req, 'body', SaveDraftBody));
+    res.json(await packageDetail(ds, id));
+  });
+
+  router.post('/packages/:id/duplicate', contractorOnly, validate({ params: PackageIdParams }), async (req, res) => {
+    const newId = await duplicatePackage(ds, currentUser(req), valid(req, 'params', PackageIdParams).id);
+    res.status(201).json(await packageDetail(ds, newId));
+  });
+
+  router.post('/packages/:id/submit', contractorOnly, validate({ params: PackageIdParams }), async (req, res) => {
+    const { id } = valid(req, 'params', PackageIdParams);
+    await submitPackage(ds, ctx.queues, currentUser(req), id);
+    res.status(202).json(await packageDetail(ds, id));
+  });
+
+  const upload = multer({
+    storage: multer.memoryStorage(),
+    preservePath: true,
+    limits: { fileSize: ctx.config.UPLOAD_MAX_BYTES, files: 1, fields: 5 },
+  }).single('file');
+  const receive = (req: Request, res: Response, next: NextFunction) =>
+    upload(req, res, (err: unknown) => {
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') {
+          const mb = Math.round((ctx.config.UPLOAD_MAX_BYTES / 1024 / 1024) * 10) / 10;
+          return next(
+            new AppError(413, 'file_too_large', `The file is larger than the limit of ${mb} MB.`, [
+              { path: 'file', message: `file must be at most ${mb} MB` },
+            ]),
+          );
+        }
+        return next(new AppError(400, 'bad_upload', `The upload was refused: ${err.message}.`, [{ path: err.field ?? 'file', message: err.message }]));
+      }
+      next(err);
+    });
+
+  router.post('/packages/:id/files', contractorOnly, validate({ params: PackageIdParams }), receive, async (req, res) => {
+    const { id } = valid(req, 'params', PackageIdParams);
+    const fields = UploadFileFields.safeParse(req.body ?? {});
+    if (!fields.success) throw fromZod(fields.error);
+    if (!req.file) throw AppError.badRequest('Attach one PDF in the form field "file".', [{ path: 'file', message: 'file is required' }]);
+    const summary = await addFile(
+      ds,
+      ctx.storage,
+      currentUser(req),
+      id,
+      { originalName: Buffer.from(req.file.originalname, 'latin1').toString('utf8'), bytes: new Uint8Array(req.file.buffer), kind: fields.data.kind },
+      { maxPages: ctx.config.UPLOAD_MAX_PAGES },
+    );
+    res.status(201).json(summary);
+  });
+
+  router.delete('/packages/:id/files/:fileId', contractorOnly, validate({ params: FileParams }), async (req, res) => {
+    const { id, fileId } = valid(req, 'params', FileParams);
+    await removeFile(ds, ctx.storage, currentUser(req), id, fileId);
+    res.status(204).end();
+  });
+
+  router.get('/packages/:id/files/:fileId', validate({ params: FileParams }), async (req, res) => {
+    const { id, fileId } = valid(req, 'params', FileParams);
+    const { file, bytes } = await readFile(ds, ctx.storage, currentUser(req), id, fileId);
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `inline; filename="${encodeURIComponent(file.originalName)}"`);
+    res.setHeader('X-Content-SHA256', file.sha256);
+    res.end(Buffer.from(bytes));
   });
 
   return router;

@@ -1,8 +1,13 @@
-// Reading lift packages: the list behind the contractor's desk, the reviewer's queue and
-// the engineer's assignments (server-side filter, sort and paging), and one package.
+// Lift packages: the scoped list (contractor's desk, reviewer's queue, engineer's
+// assignments) and one package with its current revision, files and audit trail.
 import type { DataSource } from 'typeorm';
-import type { PackageListQuery, PackageListResponse, PackageSummary } from '@shared/schemas/packages';
-import { Revision, type LiftPackage } from './package.entity';
+import type { PackageDetail, PackageListQuery, PackageListResponse, PackageSummary, RevisionDetail } from '@shared/schemas/packages';
+import { AppError } from '../../lib/app-error';
+import { AuditEvent } from '../audit/audit-event.entity';
+import { UploadedFile } from '../files/file.entity';
+import { toFileSummary } from '../files/service';
+import { User } from '../users/user.entity';
+import { LiftPackage, Revision } from './package.entity';
 import { findScopedPackage, scopedPackages } from './package-scope';
 
 const SORT_COLUMNS: Record<string, string> = {
@@ -35,8 +40,7 @@ export async function listPackages(
   user: Express.User,
   query: PackageListQuery,
 ): Promise<PackageListResponse> {
-  const manager = dataSource.manager;
-  const filtered = scopedPackages(manager, user)
+  const filtered = scopedPackages(dataSource.manager, user)
     .leftJoinAndSelect('p.site', 'site')
     .leftJoinAndSelect('p.contractor', 'contractor')
     .leftJoinAndSelect('p.assignedEngineer', 'engineer');
@@ -55,7 +59,7 @@ export async function listPackages(
   const desc = query.sort.startsWith('-');
   const column = SORT_COLUMNS[query.sort.replace(/^-/, '')];
   filtered
-    .orderBy(column, desc ? 'DESC' : 'ASC', desc ? 'NULLS LAST' : 'NULLS LAST')
+    .orderBy(column, desc ? 'DESC' : 'ASC', 'NULLS LAST')
     .addOrderBy('p.reference', 'ASC')
     .skip((query.page - 1) * query.pageSize)
     .take(query.pageSize);
@@ -69,28 +73,71 @@ export async function listPackages(
   };
 }
 
-export async function getPackage(dataSource: DataSource, user: Express.User, id: string) {
-  const found = await findScopedPackage(dataSource.manager, user, id);
-  const full = await dataSource.getRepository(found.constructor as typeof LiftPackage).findOneOrFail({
-    where: { id: found.id },
-    relations: { site: true, contractor: true, assignedEngineer: true },
-  });
-  const revisions = await dataSource.getRepository(Revision).find({
-    where: { packageId: id },
-    order: { number: 'DESC' },
+export async function revisionDetail(dataSource: DataSource, revision: Revision): Promise<RevisionDetail> {
+  const files = await dataSource.getRepository(UploadedFile).find({
+    where: { revisionId: revision.id },
+    order: { kind: 'ASC', createdAt: 'ASC' },
   });
   return {
-    package: toSummary(full),
+    id: revision.id,
+    number: revision.number,
+    state: revision.state,
+    inputs: revision.inputs ?? {},
+    submittedAt: revision.submittedAt?.toISOString() ?? null,
+    updatedAt: revision.updatedAt.toISOString(),
+    check: {
+      status: revision.checkStatus as RevisionDetail['check']['status'],
+      progress: revision.checkProgress,
+      error: revision.checkError,
+      resultVersion: revision.resultVersion,
+      checkedAt: revision.checkedAt?.toISOString() ?? null,
+    },
+    results: revision.results,
+    files: files.map(toFileSummary),
+  };
+}
+
+/** The detail of a package already known to be in the user's scope. */
+export async function packageDetail(dataSource: DataSource, packageId: string): Promise<PackageDetail> {
+  const full = await dataSource.getRepository(LiftPackage).findOneOrFail({
+    where: { id: packageId },
+    relations: { site: true, contractor: true, assignedEngineer: true },
+  });
+  const revisions = await dataSource.getRepository(Revision).find({ where: { packageId }, order: { number: 'DESC' } });
+  const current = revisions.find((r) => r.number === full.currentRevision);
+  if (!current) throw new AppError(500, 'internal', `package ${full.reference} has no revision ${full.currentRevision}`);
+  const events = await dataSource
+    .getRepository(AuditEvent)
+    .createQueryBuilder('e')
+    .leftJoin(User, 'u', 'u.id = e.actor_id')
+    .select(['e.id AS id', 'e.action AS action', 'e.detail AS detail', 'e.created_at AS at', 'u.name AS actor'])
+    .where('e.package_id = :packageId', { packageId })
+    .orderBy('e.created_at', 'DESC')
+    .limit(200)
+    .getRawMany<{ id: string; action: string; detail: Record<string, unknown>; at: Date; actor: string | null }>();
+  return {
+    package: { ...toSummary(full), version: full.version },
     revisions: revisions.map((r) => ({
       id: r.id,
       number: r.number,
       state: r.state,
       submittedAt: r.submittedAt?.toISOString() ?? null,
-      checkStatus: r.checkStatus,
-      checkProgress: r.checkProgress,
-      checkError: r.checkError,
-      resultVersion: r.resultVersion,
+      checkStatus: r.checkStatus as RevisionDetail['check']['status'],
     })),
-    latestResults: revisions.find((r) => r.results)?.results ?? null,
+    current: await revisionDetail(dataSource, current),
+    events: events.map((e) => ({ ...e, at: new Date(e.at).toISOString() })),
   };
+}
+
+export async function getPackage(dataSource: DataSource, user: Express.User, id: string): Promise<PackageDetail> {
+  const found = await findScopedPackage(dataSource.manager, user, id);
+  return packageDetail(dataSource, found.id);
+}
+
+export async function getRevision(dataSource: DataSource, user: Express.User, id: string, number: number) {
+  const found = await findScopedPackage(dataSource.manager, user, id);
+  const revision = await dataSource.getRepository(Revision).findOneBy({ packageId: found.id, number });
+  if (!revision) throw AppError.notFound('revision');
+  if (revision.state === 'draft' && user.role !== 'contractor') throw AppError.notFound('revision');
+  return revisionDetail(dataSource, revision);
 }

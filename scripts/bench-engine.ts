@@ -1,0 +1,69 @@
+// Benchmark of the calculation engine: 10,000 varied inputs, mean and p99 time per evaluation,
+// parse + evaluate and evaluate only. Target: under 0.2 ms each (live preview on every keystroke).
+//   npm run bench:engine [-- --n 10000]
+import { readFileSync } from 'node:fs';
+import { LiftInput, type LiftInputRaw } from '../shared/schemas/lift-input';
+import { evaluateLift } from '../shared/engineering/evaluate';
+
+const nArg = process.argv.indexOf('--n');
+const N = nArg > 0 ? Number(process.argv[nArg + 1]) : 10_000;
+const dir = new URL('../shared/engineering/examples/', import.meta.url);
+const names = [
+  'pass-outriggers.json',
+  'pass-crawler.json',
+  'pass-gantry-a-frame.json',
+  'fail-stability.json',
+  'fail-capacity.json',
+  'caution-discrepancies.json',
+  'fail-tandem.json',
+  'fail-personnel.json',
+];
+const bases = names.map((n) => JSON.parse(readFileSync(new URL(n, dir), 'utf8')) as LiftInputRaw);
+
+// Deterministic pseudo-random variation so runs are comparable.
+let seed = 12345;
+const rnd = () => ((seed = (seed * 1103515245 + 12345) & 0x7fffffff) / 0x7fffffff);
+
+const inputs: LiftInputRaw[] = [];
+for (let i = 0; i < N; i++) {
+  const x = structuredClone(bases[i % bases.length]);
+  x.load.weight = { value: x.load.weight.value * (0.5 + rnd()), unit: x.load.weight.unit };
+  if (x.crane.radius) x.crane.radius = { value: x.crane.radius.value * (0.8 + 0.5 * rnd()), unit: x.crane.radius.unit };
+  if (rnd() < 0.5) delete x.crane.slewAngle;
+  else x.crane.slewAngle = { value: rnd() * 360, unit: 'deg' };
+  if (x.environment?.windSpeed) x.environment.windSpeed = { value: rnd() * 15, unit: 'm/s' };
+  inputs.push(x);
+}
+
+function stats(times: number[]) {
+  const s = [...times].sort((a, b) => a - b);
+  const mean = times.reduce((a, b) => a + b, 0) / times.length;
+  return { mean, p50: s[Math.floor(s.length * 0.5)], p99: s[Math.floor(s.length * 0.99)], max: s[s.length - 1] };
+}
+
+// warm-up
+for (let i = 0; i < 2000; i++) evaluateLift(LiftInput.parse(inputs[i % inputs.length]));
+
+const parsed = new Array(N);
+const tParse: number[] = new Array(N);
+for (let i = 0; i < N; i++) {
+  const t0 = performance.now();
+  parsed[i] = LiftInput.parse(inputs[i]);
+  evaluateLift(parsed[i]);
+  tParse[i] = performance.now() - t0;
+}
+const tEval: number[] = new Array(N);
+let fails = 0;
+for (let i = 0; i < N; i++) {
+  const t0 = performance.now();
+  const r = evaluateLift(parsed[i]);
+  tEval[i] = performance.now() - t0;
+  if (r.overallStatus === 'fail') fails++;
+}
+const fmt = (x: number) => `${(x * 1000).toFixed(1)} µs`;
+const a = stats(tParse);
+const b = stats(tEval);
+console.log(`engine benchmark: ${N} varied inputs (${names.length} example families; ${fails} evaluate to fail)`);
+console.log(`parse + evaluate: mean ${fmt(a.mean)}  p50 ${fmt(a.p50)}  p99 ${fmt(a.p99)}  max ${fmt(a.max)}`);
+console.log(`evaluate only:    mean ${fmt(b.mean)}  p50 ${fmt(b.p50)}  p99 ${fmt(b.p99)}  max ${fmt(b.max)}`);
+console.log(`target: under 200 µs per evaluation — ${a.mean < 0.2 && a.p99 < 0.2 ? 'met' : 'NOT met'} (mean and p99, parse + evaluate)`);

@@ -1,0 +1,73 @@
+// What the start and dev commands share: PostgreSQL and Redis (embedded unless
+// DATABASE_URL / REDIS_URL are set), migrations, the demo seed, and the environment the
+// API and the worker run with.
+import path from 'node:path';
+import { runMigrations } from './migrate';
+import { localSecret } from './secret';
+import { ensurePackages, startPostgres, startRedis, type PostgresHandle, type RedisHandle } from './services';
+
+export interface Stack {
+  env: NodeJS.ProcessEnv;
+  embedded: boolean;
+  stop(): void;
+}
+
+export async function prepareStack(opts: {
+  dataDir: string;
+  root: string;
+  say: (message: string) => void;
+  /** Registers the handles as soon as each server is up, so a later failure still stops them. */
+  onStarted: (stop: () => void) => void;
+}): Promise<Stack> {
+  const { dataDir, root, say } = opts;
+  let postgres: PostgresHandle | null = null;
+  let redis: RedisHandle | null = null;
+  const stop = () => {
+    redis?.stop();
+    postgres?.stop();
+  };
+  opts.onStarted(stop);
+
+  let databaseUrl = process.env.DATABASE_URL;
+  let redisUrl = process.env.REDIS_URL;
+  if (!databaseUrl || !redisUrl) ensurePackages({ postgres: !databaseUrl, redis: !redisUrl });
+  if (!databaseUrl) {
+    postgres = await startPostgres(path.join(dataDir, 'pg'), Number(process.env.CP_PG_PORT ?? 54329), 'counterpoise');
+    databaseUrl = postgres.url;
+    say(`PostgreSQL on 127.0.0.1:${postgres.port} (data in ${path.relative(root, postgres.dataDir)})`);
+  }
+  if (!redisUrl) {
+    redis = await startRedis(path.join(dataDir, 'redis'), Number(process.env.CP_REDIS_PORT ?? 56379), { persist: true });
+    redisUrl = redis.url;
+    say(`Redis on 127.0.0.1:${redis.port}`);
+  }
+
+  const applied = await withStep('run migrations', () => runMigrations(databaseUrl!));
+  say(applied.length ? `applied migrations: ${applied.join(', ')}` : 'database schema is up to date');
+
+  const { seedDemoOnce } = await import('../../server/db/seed/seed');
+  const seeded = await withStep('seed the demo scenario', () => seedDemoOnce(databaseUrl!, path.join(dataDir, 'files')));
+  say(seeded ? 'demo scenario seeded' : 'demo data already present, reused');
+
+  return {
+    embedded: Boolean(postgres || redis),
+    stop,
+    env: {
+      ...process.env,
+      DATABASE_URL: databaseUrl,
+      REDIS_URL: redisUrl,
+      JWT_SECRET: process.env.JWT_SECRET ?? localSecret(dataDir),
+      DATA_DIR: dataDir,
+    },
+  };
+}
+
+async function withStep<T>(step: string, fn: () => Promise<T>): Promise<T> {
+  try {
+    return await fn();
+  } catch (error) {
+    const e = error as Error & { step?: string };
+    e.step = e.step ?? step;
+    throw e;
+  }
+}

@@ -1,0 +1,111 @@
+// Uploaded PDFs of a draft revision: checked, hashed, stored behind the storage
+// interface, recorded. A refused upload leaves nothing on disk or in the database.
+import { randomUUID } from 'node:crypto';
+import type { DataSource } from 'typeorm';
+import type { FileKind, FileSummary } from '@shared/schemas/packages';
+import { AppError } from '../../lib/app-error';
+import { sha256, type Storage } from '../../lib/storage';
+import { AuditEvent } from '../audit/audit-event.entity';
+import { Revision } from '../packages/package.entity';
+import { findScopedPackage } from '../packages/package-scope';
+import { UploadedFile } from './file.entity';
+import { checkFileName, inspectPdf } from './pdf-check';
+
+export function toFileSummary(f: UploadedFile): FileSummary {
+  return {
+    id: f.id,
+    kind: f.kind,
+    originalName: f.originalName,
+    sha256: f.sha256,
+    sizeBytes: Number(f.sizeBytes),
+    pages: f.pages,
+    createdAt: f.createdAt.toISOString(),
+  };
+}
+
+async function currentDraft(ds: DataSource, user: Express.User, packageId: string) {
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  const revision = await ds.getRepository(Revision).findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
+  if (revision.state !== 'draft') {
+    throw new AppError(409, 'already_submitted', `Revision ${revision.number} is submitted; its files can no longer change.`);
+  }
+  return { pkg, revision };
+}
+
+export async function addFile(
+  ds: DataSource,
+  storage: Storage,
+  user: Express.User,
+  packageId: string,
+  upload: { originalName: string; bytes: Uint8Array; kind: FileKind },
+  limits: { maxPages: number },
+): Promise<FileSummary> {
+  const { pkg, revision } = await currentDraft(ds, user, packageId);
+  const originalName = checkFileName(upload.originalName);
+  const { pages } = await inspectPdf(upload.bytes, limits);
+  const id = randomUUID();
+  const storageKey = `revisions/${revision.id}/${id}.pdf`;
+  await storage.put(storageKey, upload.bytes);
+  try {
+    const saved = await ds.transaction(async (m) => {
+      let replaced: UploadedFile | null = null;
+      if (upload.kind === 'lift_plan') {
+        replaced = await m.getRepository(UploadedFile).findOneBy({ revisionId: revision.id, kind: 'lift_plan' });
+        if (replaced) await m.getRepository(UploadedFile).delete(replaced.id);
+      }
+      const file = await m.getRepository(UploadedFile).save({
+        id,
+        revisionId: revision.id,
+        kind: upload.kind,
+        originalName,
+        sha256: sha256(upload.bytes),
+        sizeBytes: String(upload.bytes.byteLength),
+        pages,
+        storageKey,
+        uploadedById: user.id,
+      });
+      await m.getRepository(AuditEvent).save({
+        packageId: pkg.id,
+        actorId: user.id,
+        organisationId: user.organisationId,
+        action: 'file.added',
+        detail: { revision: revision.number, name: originalName, kind: upload.kind, pages, replaced: replaced?.originalName ?? null },
+      });
+      return { file, replaced };
+    });
+    if (saved.replaced) await storage.delete(saved.replaced.storageKey).catch(() => undefined);
+    return toFileSummary(saved.file);
+  } catch (error) {
+    await storage.delete(storageKey).catch(() => undefined);
+    throw error;
+  }
+}
+
+export async function removeFile(ds: DataSource, storage: Storage, user: Express.User, packageId: string, fileId: string) {
+  const { pkg, revision } = await currentDraft(ds, user, packageId);
+  const file = await ds.getRepository(UploadedFile).findOneBy({ id: fileId, revisionId: revision.id });
+  if (!file) throw AppError.notFound('file');
+  await ds.transaction(async (m) => {
+    await m.getRepository(UploadedFile).delete(file.id);
+    await m.getRepository(AuditEvent).save({
+      packageId: pkg.id,
+      actorId: user.id,
+      organisationId: user.organisationId,
+      action: 'file.removed',
+      detail: { revision: revision.number, name: file.originalName },
+    });
+  });
+  await storage.delete(file.storageKey).catch(() => undefined);
+}
+
+export async function readFile(ds: DataSource, storage: Storage, user: Express.User, packageId: string, fileId: string) {
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  const file = await ds
+    .getRepository(UploadedFile)
+    .createQueryBuilder('f')
+    .innerJoin(Revision, 'r', 'r.id = f.revision_id')
+    .where('f.id = :fileId AND r.package_id = :packageId', { fileId, packageId: pkg.id })
+    .getOne();
+  if (!file) throw AppError.notFound('file');
+  return { file, bytes: await storage.get(file.storageKey) };
+}

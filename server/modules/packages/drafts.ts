@@ -1,0 +1,139 @@
+// The contractor's side of a package: create, autosave the draft, duplicate, submit.
+// Submitting freezes the revision (a database trigger refuses later changes to its
+// inputs) and queues its check run under a job id derived from the revision.
+import type { DataSource, EntityManager } from 'typeorm';
+import { LiftInput } from '@shared/schemas/lift-input';
+import type { CreatePackageBody, SaveDraftBody } from '@shared/schemas/packages';
+import { AppError, zodFields } from '../../lib/app-error';
+import { checkRunJobId, type Queues } from '../../lib/queues';
+import { AuditEvent } from '../audit/audit-event.entity';
+import { UploadedFile } from '../files/file.entity';
+import { Site } from '../sites/site.entity';
+import { LiftPackage, Revision } from './package.entity';
+import { findScopedPackage } from './package-scope';
+
+function requireContractor(user: Express.User) {
+  if (user.role !== 'contractor') throw AppError.forbidden('Only a contractor prepares and submits lift packages.');
+}
+
+async function audit(m: EntityManager, user: Express.User, packageId: string, action: string, detail: Record<string, unknown>) {
+  await m.getRepository(AuditEvent).save({ packageId, actorId: user.id, organisationId: user.organisationId, action, detail });
+}
+
+async function siteOr400(m: EntityManager, siteId: string) {
+  const site = await m.getRepository(Site).findOneBy({ id: siteId });
+  if (!site) throw AppError.badRequest('siteId: no such site', [{ path: 'siteId', message: 'siteId must be the id of a site' }]);
+  return site;
+}
+
+/** The next reference of a site, e.g. TRR-0013; serialised per site with an advisory lock. */
+async function nextReference(m: EntityManager, site: Site): Promise<string> {
+  await m.query('SELECT pg_advisory_xact_lock(hashtext($1))', [site.id]);
+  const [row] = await m.query(
+    `SELECT coalesce(max(substring(reference from '([0-9]+)$')::int), 0) + 1 AS n FROM lift_packages WHERE site_id = $1`,
+    [site.id],
+  );
+  return `${site.code}-${String(row.n).padStart(4, '0')}`;
+}
+
+export async function createPackage(ds: DataSource, user: Express.User, body: CreatePackageBody, inputs: Record<string, unknown> = {}) {
+  requireContractor(user);
+  return ds.transaction(async (m) => {
+    const site = await siteOr400(m, body.siteId);
+    const pkg = await m.getRepository(LiftPackage).save({
+      reference: await nextReference(m, site),
+      title: body.title,
+      contractorOrganisationId: user.organisationId,
+      siteId: site.id,
+      createdById: user.id,
+      status: 'draft',
+      plannedLiftDate: body.plannedLiftDate ?? null,
+      currentRevision: 1,
+    });
+    await m.getRepository(Revision).save({ packageId: pkg.id, number: 1, state: 'draft', inputs });
+    await audit(m, user, pkg.id, 'package.created', { reference: pkg.reference, revision: 1 });
+    return pkg.id;
+  });
+}
+
+export async function saveDraft(ds: DataSource, user: Express.User, packageId: string, body: SaveDraftBody) {
+  requireContractor(user);
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  await ds.transaction(async (m) => {
+    const revision = await m
+      .getRepository(Revision)
+      .createQueryBuilder('r')
+      .setLock('pessimistic_write')
+      .where('r.package_id = :id AND r.number = :n', { id: pkg.id, n: pkg.currentRevision })
+      .getOneOrFail();
+    if (revision.state !== 'draft') {
+      throw new AppError(409, 'already_submitted', `Revision ${revision.number} is submitted and can no longer change.`);
+    }
+    if (body.baseUpdatedAt && new Date(body.baseUpdatedAt).getTime() < revision.updatedAt.getTime()) {
+      throw new AppError(
+        409,
+        'stale_draft',
+        `This draft was saved elsewhere at ${revision.updatedAt.toISOString()} after the copy you edited. Reload it, or save again to keep yours.`,
+      );
+    }
+    if (body.siteId) await siteOr400(m, body.siteId);
+    const packageChanges: { title?: string; siteId?: string; plannedLiftDate?: string | null } = {};
+    if (body.title !== undefined) packageChanges.title = body.title;
+    if (body.siteId !== undefined && revision.number === 1) packageChanges.siteId = body.siteId;
+    if (body.plannedLiftDate !== undefined) packageChanges.plannedLiftDate = body.plannedLiftDate;
+    if (Object.keys(packageChanges).length) await m.getRepository(LiftPackage).update(pkg.id, packageChanges);
+    // Always touch the revision so updated_at moves on and a stale tab is detected.
+    await m.getRepository(Revision).update(revision.id, { inputs: (body.inputs ?? revision.inputs) as never, updatedAt: new Date() });
+  });
+}
+
+export async function duplicatePackage(ds: DataSource, user: Express.User, packageId: string) {
+  requireContractor(user);
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  const revision = await ds.getRepository(Revision).findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
+  const title = `${pkg.title} (copy)`.slice(0, 200);
+  return createPackage(ds, user, { title, siteId: pkg.siteId, plannedLiftDate: pkg.plannedLiftDate }, revision.inputs);
+}
+
+export async function submitPackage(ds: DataSource, queues: Queues, user: Express.User, packageId: string) {
+  requireContractor(user);
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  const revisionId = await ds.transaction(async (m) => {
+    const revision = await m
+      .getRepository(Revision)
+      .createQueryBuilder('r')
+      .setLock('pessimistic_write')
+      .where('r.package_id = :id AND r.number = :n', { id: pkg.id, n: pkg.currentRevision })
+      .getOneOrFail();
+    if (revision.state !== 'draft') {
+      throw new AppError(409, 'already_submitted', `Revision ${revision.number} was already submitted.`);
+    }
+    const parsed = LiftInput.safeParse(revision.inputs);
+    if (!parsed.success) {
+      const fields = zodFields(parsed.error, 'inputs');
+      throw new AppError(400, 'invalid_input', `The lift data is not complete: ${fields[0].path}: ${fields[0].message}`, fields);
+    }
+    const plan = await m.getRepository(UploadedFile).findOneBy({ revisionId: revision.id, kind: 'lift_plan' });
+    if (!plan) {
+      throw new AppError(400, 'lift_plan_missing', 'Upload the lift plan PDF before submitting.', [
+        { path: 'files.lift_plan', message: 'a lift plan PDF is required' },
+      ]);
+    }
+    await m.getRepository(Revision).update(revision.id, {
+      state: 'submitted',
+      submittedAt: new Date(),
+      submittedById: user.id,
+      checkStatus: 'queued',
+      checkProgress: 0,
+    });
+    await m.getRepository(LiftPackage).update(pkg.id, { status: 'checking' });
+    await audit(m, user, pkg.id, 'revision.submitted', { revision: revision.number });
+    return revision.id;
+  });
+  await enqueueCheck(queues, revisionId);
+}
+
+/** Queues a revision's check run; the job id makes a repeat of this call harmless. */
+export async function enqueueCheck(queues: Queues, revisionId: string) {
+  await queues.checkRun.add('check-run', { revisionId }, { jobId: checkRunJobId(revisionId) });
+}
