@@ -134,7 +134,8 @@ export function governing(m: PlanModel, slewDeg: number): EdgeBalance {
   let best = edgeBalance(m, slewDeg, 0);
   for (let e = 1; e < m.edges.length; e++) {
     const b = edgeBalance(m, slewDeg, e);
-    if (b.ratio < best.ratio) best = b;
+    // ties (within rounding of unit conversions) keep the first, so either unit system picks the same edge
+    if (b.ratio < best.ratio * (1 - 1e-9)) best = b;
   }
   return best;
 }
@@ -153,7 +154,7 @@ export function worstSlew(ctx: Ctx, m: PlanModel): { slewDeg: number; balance: E
   for (let i = 1; i < SLEW_SWEEP.length + extra.length; i++) {
     const t = i < SLEW_SWEEP.length ? SLEW_SWEEP[i] : extra[i - SLEW_SWEEP.length];
     const b = governing(m, t);
-    if (b.ratio < best.ratio) {
+    if (b.ratio < best.ratio * (1 - 1e-9)) {
       best = b;
       slew = t;
     }

@@ -154,7 +154,7 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
       R = threeSupportReactions(r.V, ex, r.ey, m.a, m.b, minI);
     }
     const mx = Math.max(R[0], R[1], R[2], R[3]);
-    if (mx > worst.max) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
+    if (mx > worst.max * (1 + 1e-9)) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
   }
   figures.supportReactions = m.supports.map((s, i) => ({ label: s.label, x: s.x, y: s.y, reaction: worst.R[i] }));
   figures.maxSupportReaction = worst.max;
@@ -204,7 +204,7 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
     const VR = (r.V * (m.b - r.ey)) / (2 * m.b);
     for (const Vt of [VL, VR]) {
       const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
-      if (tp.p > worst.p) worst = { p: tp.p, Vt: Math.min(Math.max(Vt, 0), r.V), e, slew: t, shape: tp.shape };
+      if (tp.p > worst.p * (1 + 1e-9) || worst.p === -Infinity) worst = { p: tp.p, Vt: Math.min(Math.max(Vt, 0), r.V), e, slew: t, shape: tp.shape };
     }
   }
   const area = w * L;
