@@ -13,6 +13,7 @@ import { openApiDocument } from './lib/openapi';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { adminRoutes } from './modules/admin/routes';
 import { authRoutes } from './modules/auth/routes';
+import { calculationRoutes } from './modules/calculations/routes';
 import { healthRoutes } from './modules/health/routes';
 import { packageRoutes } from './modules/packages/routes';
 import { siteRoutes } from './modules/sites/routes';
@@ -48,6 +49,7 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   app.use('/api', packageRoutes(ctx));
   app.use('/api', adminRoutes(ctx));
   app.use('/api', siteRoutes(ctx));
+  app.use('/api', calculationRoutes(ctx));
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApiDocument());
   });
