@@ -16,6 +16,19 @@ const QueueRoute = lazy(() => import('./routes/queue'));
 const AssignedRoute = lazy(() => import('./routes/assigned'));
 const AdminRoute = lazy(() => import('./routes/admin'));
 const PackageDetailRoute = lazy(() => import('./routes/package-detail'));
+const PackageNewRoute = lazy(() => import('./routes/package-new'));
+const PackageEditRoute = lazy(() => import('./routes/package-edit'));
+
+function contractorOnly(path: string, element: ReactNode): RouteObject {
+  return {
+    path,
+    element: (
+      <RequireRole roles={['contractor']}>
+        <Page>{element}</Page>
+      </RequireRole>
+    ),
+  };
+}
 
 function Page({ children }: { children: ReactNode }) {
   return <Suspense fallback={<PageLoading label="Opening the page" />}>{children}</Suspense>;
@@ -48,6 +61,8 @@ export const routes: RouteObject[] = [
       guarded('/queue', <QueueRoute />),
       guarded('/assigned', <AssignedRoute />),
       guarded('/admin', <AdminRoute />),
+      contractorOnly('/packages/new', <PackageNewRoute />),
+      contractorOnly('/packages/:id/edit', <PackageEditRoute />),
       {
         path: '/packages/:id',
         element: (

@@ -121,4 +121,30 @@ export const api = {
     request(path, { ...options, method: 'GET' }, schema),
   post: <T>(path: string, body?: unknown, schema?: z.ZodType<T>) =>
     request(path, { method: 'POST', body }, schema),
+  put: <T>(path: string, body?: unknown, schema?: z.ZodType<T>) =>
+    request(path, { method: 'PUT', body }, schema),
+  delete: <T = void>(path: string) => request<T>(path, { method: 'DELETE' }),
 };
+
+/** Turns an upload's error answer (JSON or not) into an ApiError, as `request` does. */
+export function apiErrorFrom(status: number, text: string): ApiError {
+  let payload: unknown = undefined;
+  try {
+    payload = JSON.parse(text);
+  } catch {
+    // Not JSON: fall back to a plain message below.
+  }
+  const parsed = ErrorBody.safeParse(payload);
+  if (parsed.success) {
+    const { code, message, fields } = parsed.data.error;
+    return new ApiError(status, code, message, fields ?? []);
+  }
+  return new ApiError(
+    status,
+    status === 0 ? 'network_error' : `http_${status}`,
+    status === 0
+      ? 'Could not reach the Counterpoise server. Check your connection and try again.'
+      : (FALLBACK_MESSAGES[status] ??
+          `The server answered ${status}. Try again; if it persists, tell the desk administrator.`),
+  );
+}

@@ -23,6 +23,10 @@ export const packageKeys = {
   detail: (id: string) => [...packageKeys.details(), id] as const,
 };
 
+export const siteKeys = {
+  all: ['sites'] as const,
+};
+
 export const healthKeys = {
   all: ['health'] as const,
 };

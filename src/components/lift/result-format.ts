@@ -1,0 +1,38 @@
+// Values of a check in the reader's unit system: 3 significant figures, and a percentage
+// of a limit as "82% of 16.0 t" rather than a bare ratio.
+import { formatPercent, formatPercentOf, formatQuantity } from '@shared/engineering/format';
+import type { CheckItem, LiftResult, UnitSystem } from '@shared/engineering/types';
+
+export function formatCheckValue(
+  item: Pick<CheckItem, 'value' | 'unit'> & { id: string },
+  result: LiftResult,
+  system: UnitSystem,
+): string {
+  if (item.value === null) return '—';
+  if (item.unit === 'percent' && item.id.startsWith('capacity') && result.figures.chartCapacity !== null) {
+    return formatPercentOf(item.value, result.figures.chartCapacity, 'weight', system);
+  }
+  if (item.unit === 'percent') return formatPercent(item.value);
+  return formatQuantity(item.value, item.unit, system);
+}
+
+export function formatCheckLimit(
+  item: Pick<CheckItem, 'limit' | 'limitType' | 'unit'>,
+  system: UnitSystem,
+): string {
+  if (item.limit === null) return '—';
+  const text =
+    item.unit === 'percent' ? formatPercent(item.limit) : formatQuantity(item.limit, item.unit, system);
+  if (item.limitType === 'max') return `≤ ${text}`;
+  if (item.limitType === 'min') return `≥ ${text}`;
+  return text;
+}
+
+export const SOURCE_KIND_LABELS: Record<string, string> = {
+  standard: 'Standard',
+  site_policy: 'Site policy',
+  common_practice: 'Common practice',
+  from_memory: 'Reference value',
+  input: 'Your input',
+  computed: 'Computed',
+};
