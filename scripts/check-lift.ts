@@ -7,7 +7,8 @@ import { checkLift } from '../shared/engineering/evaluate';
 import { formatQuantity } from '../shared/engineering/format';
 import type { CheckStatus, LiftResult, UnitSystem } from '../shared/engineering/types';
 
-const USAGE = 'usage: npm run check-lift -- <input.json> [--units imperial|metric] [--format json|table] [--policy policy.json]';
+const USAGE =
+  'usage: npm run check-lift -- <input.json> [--units imperial|metric] [--format json|table] [--policy policy.json]';
 
 function fail(code: number, msg: string): never {
   process.stderr.write(msg.endsWith('\n') ? msg : msg + '\n');
@@ -61,7 +62,12 @@ function readJson(path: string, what: string): unknown {
   }
 }
 
-const MARK: Record<CheckStatus, string> = { pass: 'pass', caution: 'CAUTION', fail: 'FAIL', not_applicable: 'n/a' };
+const MARK: Record<CheckStatus, string> = {
+  pass: 'pass',
+  caution: 'CAUTION',
+  fail: 'FAIL',
+  not_applicable: 'n/a',
+};
 
 function pad(s: string, n: number) {
   return s.length >= n ? s : s + ' '.repeat(n - s.length);
@@ -74,7 +80,9 @@ function table(r: LiftResult, units: UnitSystem): string {
       rows.push([
         `${c.label}: ${it.label}`,
         formatQuantity(it.value, it.unit, units),
-        it.limit === null ? '' : `${it.limitType === 'min' ? '≥ ' : '≤ '}${formatQuantity(it.limit, it.unit, units)}`,
+        it.limit === null
+          ? ''
+          : `${it.limitType === 'min' ? '≥ ' : '≤ '}${formatQuantity(it.limit, it.unit, units)}`,
         MARK[it.status],
         it.source.text,
       ]);
@@ -86,9 +94,13 @@ function table(r: LiftResult, units: UnitSystem): string {
   lines.splice(1, 0, w.map((n) => '-'.repeat(n)).join('  ') + '  ------');
   let out = `Overall: ${MARK[r.overallStatus]}\n\n${lines.join('\n')}\n`;
   out += '\nFormulas:\n';
-  for (const c of r.checks) for (const it of c.items) if (it.formulaText) out += `  [${it.id}] ${it.formulaText}\n`;
+  for (const c of r.checks)
+    for (const it of c.items) if (it.formulaText) out += `  [${it.id}] ${it.formulaText}\n`;
   out += '\nDiscrepancies (stated vs recomputed):\n';
-  out += r.discrepancies.length ? r.discrepancies.map((d) => `  ${d.status === 'discrepancy' ? '!!' : 'ok'} ${d.message}`).join('\n') + '\n' : '  none stated\n';
+  out += r.discrepancies.length
+    ? r.discrepancies.map((d) => `  ${d.status === 'discrepancy' ? '!!' : 'ok'} ${d.message}`).join('\n') +
+      '\n'
+    : '  none stated\n';
   out += `\nCritical lift: ${r.critical.isCritical ? 'yes' : 'no'}\n`;
   for (const t of r.critical.triggers) out += `  - ${t.reason} (${t.source.text})\n`;
   if (r.fixes.length) {
@@ -104,7 +116,13 @@ const raw = readJson(args.file, 'input file');
 const policy = args.policy ? readJson(args.policy, 'policy file') : undefined;
 const outcome = checkLift(raw, policy as never, { units: args.units });
 if (!outcome.ok) {
-  fail(2, `invalid input (${outcome.issues.length} issue${outcome.issues.length === 1 ? '' : 's'}):\n` + outcome.issues.map((i) => `  ${i.path}: ${i.message}`).join('\n'));
+  fail(
+    2,
+    `invalid input (${outcome.issues.length} issue${outcome.issues.length === 1 ? '' : 's'}):\n` +
+      outcome.issues.map((i) => `  ${i.path}: ${i.message}`).join('\n'),
+  );
 }
-process.stdout.write(args.format === 'json' ? JSON.stringify(outcome.result, null, 2) + '\n' : table(outcome.result, args.units));
+process.stdout.write(
+  args.format === 'json' ? JSON.stringify(outcome.result, null, 2) + '\n' : table(outcome.result, args.units),
+);
 process.exit(outcome.result.overallStatus === 'fail' ? 1 : 0);

@@ -46,7 +46,13 @@ interface ColumnRead {
 
 export function readColumn(rows: readonly ChartRowSI[], radius: number): ColumnRead {
   const n = rows.length;
-  if (n === 0) return { capacity: null, interpolated: false, outside: 'no chart rows for this boom length', radiusUsed: null };
+  if (n === 0)
+    return {
+      capacity: null,
+      interpolated: false,
+      outside: 'no chart rows for this boom length',
+      radiusUsed: null,
+    };
   if (radius < rows[0].radius && !same(radius, rows[0].radius))
     return {
       capacity: null,
@@ -57,7 +63,13 @@ export function readColumn(rows: readonly ChartRowSI[], radius: number): ColumnR
   for (let i = 0; i < n; i++) {
     const r = rows[i];
     if (same(r.radius, radius))
-      return { capacity: r.capacity, interpolated: false, allowsInterp: r.interpolationAllowed, outside: null, radiusUsed: r.radius };
+      return {
+        capacity: r.capacity,
+        interpolated: false,
+        allowsInterp: r.interpolationAllowed,
+        outside: null,
+        radiusUsed: r.radius,
+      };
     if (r.radius > radius) {
       const lo = rows[i - 1];
       if (lo.interpolationAllowed && r.interpolationAllowed) {
@@ -83,7 +95,11 @@ export function readColumn(rows: readonly ChartRowSI[], radius: number): ColumnR
   };
 }
 
-export function lookupCapacity(rows: readonly ChartRowSI[], boomLength: number | null, radius: number): ChartLookup {
+export function lookupCapacity(
+  rows: readonly ChartRowSI[],
+  boomLength: number | null,
+  radius: number,
+): ChartLookup {
   const cols = columns(rows);
   if (cols.length === 0)
     return { capacity: null, method: '', outside: 'no chart rows', radiusUsed: null, boomLengthUsed: null };
@@ -94,9 +110,23 @@ export function lookupCapacity(rows: readonly ChartRowSI[], boomLength: number |
       const r = readColumn(c.rows, radius);
       if (r.capacity === null) continue;
       if (!best || r.capacity < best.capacity!)
-        best = { capacity: r.capacity, method: 'lowest capacity listed at this radius', outside: null, radiusUsed: r.radiusUsed, boomLengthUsed: c.boomLength };
+        best = {
+          capacity: r.capacity,
+          method: 'lowest capacity listed at this radius',
+          outside: null,
+          radiusUsed: r.radiusUsed,
+          boomLengthUsed: c.boomLength,
+        };
     }
-    return best ?? { capacity: null, method: '', outside: 'outside chart: radius not covered by the rows listed', radiusUsed: null, boomLengthUsed: null };
+    return (
+      best ?? {
+        capacity: null,
+        method: '',
+        outside: 'outside chart: radius not covered by the rows listed',
+        radiusUsed: null,
+        boomLengthUsed: null,
+      }
+    );
   }
   let longer: Column | undefined;
   let shorter: Column | undefined;
@@ -117,7 +147,13 @@ export function lookupCapacity(rows: readonly ChartRowSI[], boomLength: number |
     };
   const read = readColumn(longer.rows, radius);
   if (read.capacity === null)
-    return { capacity: null, method: '', outside: read.outside, radiusUsed: null, boomLengthUsed: longer.boomLength };
+    return {
+      capacity: null,
+      method: '',
+      outside: read.outside,
+      radiusUsed: null,
+      boomLengthUsed: longer.boomLength,
+    };
   const exactBoom = same(longer.boomLength, boomLength);
   if (!exactBoom && shorter && read.allowsInterp) {
     const s = readColumn(shorter.rows, radius);

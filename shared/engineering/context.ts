@@ -9,7 +9,16 @@
 import type { LiftInput } from '../schemas/lift-input';
 import type { SitePolicy } from '../schemas/site-policy';
 import { formatFormula } from './format';
-import type { CheckId, CheckItem, CheckResult, CheckStatus, FormulaPart, Source, UnitKind, UnitSystem } from './types';
+import type {
+  CheckId,
+  CheckItem,
+  CheckResult,
+  CheckStatus,
+  FormulaPart,
+  Source,
+  UnitKind,
+  UnitSystem,
+} from './types';
 
 export interface Geometry {
   radius: number | null;
@@ -80,7 +89,8 @@ export function item(ctx: Ctx, s: ItemSpec): CheckItem {
   // Results are stored as JSON: an unbounded term (e.g. no overturning moment) is written as words.
   for (let i = 0; i < formula.length; i++) {
     const p = formula[i];
-    if (typeof p !== 'string' && !Number.isFinite(p.v)) formula[i] = Number.isNaN(p.v) ? '—' : p.v > 0 ? '∞' : '−∞';
+    if (typeof p !== 'string' && !Number.isFinite(p.v))
+      formula[i] = Number.isNaN(p.v) ? '—' : p.v > 0 ? '∞' : '−∞';
   }
   return {
     id: s.id,

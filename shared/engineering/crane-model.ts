@@ -100,7 +100,21 @@ export function planModel(ctx: Ctx, radius: number): PlanModel | null {
         { label: 'right rear', x: x0 + a, y: -b },
       ]
     : [];
-  return { kind: box ? 'outriggers' : 'crawler', labels, w, s, carrierW, carrierX, edges, windMoment, supports, x0, a, b, cwIndex };
+  return {
+    kind: box ? 'outriggers' : 'crawler',
+    labels,
+    w,
+    s,
+    carrierW,
+    carrierX,
+    edges,
+    windMoment,
+    supports,
+    x0,
+    a,
+    b,
+    cwIndex,
+  };
 }
 
 export interface EdgeBalance {
@@ -144,7 +158,10 @@ export function governing(m: PlanModel, slewDeg: number): EdgeBalance {
 export const SLEW_SWEEP: readonly number[] = Array.from({ length: 72 }, (_, i) => i * 5);
 
 /** The slew angle entered, or the least favourable one of the sweep (and the corner directions). */
-export function worstSlew(ctx: Ctx, m: PlanModel): { slewDeg: number; balance: EdgeBalance; entered: boolean } {
+export function worstSlew(
+  ctx: Ctx,
+  m: PlanModel,
+): { slewDeg: number; balance: EdgeBalance; entered: boolean } {
   const entered = ctx.input.crane.slewAngle;
   if (entered) return { slewDeg: entered.value, balance: governing(m, entered.value), entered: true };
   let slew = 0;

@@ -72,7 +72,12 @@ function computedValue(f: LiftFigures, fig: StatedFigure): number | null {
   }
 }
 
-export function compareStated(input: LiftInput, figures: LiftFigures, policy: SitePolicy, system: UnitSystem): Discrepancy[] {
+export function compareStated(
+  input: LiftInput,
+  figures: LiftFigures,
+  policy: SitePolicy,
+  system: UnitSystem,
+): Discrepancy[] {
   const stated = input.stated;
   if (!stated) return [];
   const tol = policy.discrepancyTolerancePct;
@@ -115,6 +120,7 @@ export function compareStated(input: LiftInput, figures: LiftFigures, policy: Si
     });
   }
   // discrepancies first, unsafe ones before the rest
-  const rank = (d: Discrepancy) => (d.status === 'discrepancy' ? (d.unsafeSide ? 0 : 1) : d.status === 'cannot_compare' ? 2 : 3);
+  const rank = (d: Discrepancy) =>
+    d.status === 'discrepancy' ? (d.unsafeSide ? 0 : 1) : d.status === 'cannot_compare' ? 2 : 3;
   return out.sort((a, b) => rank(a) - rank(b));
 }

@@ -47,7 +47,11 @@ export function resolvePolicy(policy?: Partial<SitePolicy> | null): SitePolicy {
   };
 }
 
-export function evaluateLift(input: LiftInput, policy?: Partial<SitePolicy> | null, options: EvaluateOptions = {}): LiftResult {
+export function evaluateLift(
+  input: LiftInput,
+  policy?: Partial<SitePolicy> | null,
+  options: EvaluateOptions = {},
+): LiftResult {
   const pol = resolvePolicy(policy);
   const system: UnitSystem = options.units ?? 'metric';
   const parts = grossLoadParts(input);
@@ -61,8 +65,22 @@ export function evaluateLift(input: LiftInput, policy?: Partial<SitePolicy> | nu
   const chart =
     geometry.radius === null
       ? { capacity: null, method: '', outside: 'no radius', radiusUsed: null, boomLengthUsed: null }
-      : lookupCapacity(rows, input.crane.type === 'gantry_a_frame' ? null : geometry.boomLength, geometry.radius);
-  const ctx: Ctx = { input, policy: pol, system, gross: parts.gross, belowHook: parts.belowHook, geometry, chart, rows, wind: null };
+      : lookupCapacity(
+          rows,
+          input.crane.type === 'gantry_a_frame' ? null : geometry.boomLength,
+          geometry.radius,
+        );
+  const ctx: Ctx = {
+    input,
+    policy: pol,
+    system,
+    gross: parts.gross,
+    belowHook: parts.belowHook,
+    geometry,
+    chart,
+    rows,
+    wind: null,
+  };
   ctx.wind = computeWind(ctx);
   const figures: LiftFigures = {
     grossLoad: parts.gross,
@@ -70,7 +88,8 @@ export function evaluateLift(input: LiftInput, policy?: Partial<SitePolicy> | nu
     boomAngleDeg: geometry.boomAngleDeg,
     tipHeight: geometry.tipHeight,
     chartCapacity: chart.capacity,
-    percentOfChart: chart.capacity !== null && chart.capacity > 0 ? (parts.gross / chart.capacity) * 100 : null,
+    percentOfChart:
+      chart.capacity !== null && chart.capacity > 0 ? (parts.gross / chart.capacity) * 100 : null,
     overturningMoment: null,
     resistingMoment: null,
     stabilityRatio: null,
@@ -120,20 +139,31 @@ export interface InputIssue {
   message: string;
 }
 
-export type CheckLiftOutcome = { ok: true; result: LiftResult; input: LiftInput } | { ok: false; issues: InputIssue[] };
+export type CheckLiftOutcome =
+  { ok: true; result: LiftResult; input: LiftInput } | { ok: false; issues: InputIssue[] };
 
 function issuesOf(err: { issues: { path: PropertyKey[]; message: string }[] }, prefix = ''): InputIssue[] {
-  return err.issues.map((i) => ({ path: prefix + (i.path.map(String).join('.') || '(root)'), message: i.message }));
+  return err.issues.map((i) => ({
+    path: prefix + (i.path.map(String).join('.') || '(root)'),
+    message: i.message,
+  }));
 }
 
 /** Parse unknown data (e.g. a request body) and evaluate it; never throws for bad input. */
-export function checkLift(raw: unknown, policy?: SitePolicyInput | null, options: EvaluateOptions = {}): CheckLiftOutcome {
+export function checkLift(
+  raw: unknown,
+  policy?: SitePolicyInput | null,
+  options: EvaluateOptions = {},
+): CheckLiftOutcome {
   const parsed = LiftInput.safeParse(raw);
   const pol = SitePolicy.safeParse(policy ?? {});
   if (!parsed.success || !pol.success) {
     return {
       ok: false,
-      issues: [...(parsed.success ? [] : issuesOf(parsed.error)), ...(pol.success ? [] : issuesOf(pol.error, 'policy.'))],
+      issues: [
+        ...(parsed.success ? [] : issuesOf(parsed.error)),
+        ...(pol.success ? [] : issuesOf(pol.error, 'policy.')),
+      ],
     };
   }
   return { ok: true, input: parsed.data, result: evaluateLift(parsed.data, pol.data, options) };

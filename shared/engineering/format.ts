@@ -19,21 +19,32 @@ function group(intPart: string): string {
   return out;
 }
 
+const POW10 = [1, 10, 100, 1000, 1e4, 1e5, 1e6, 1e7, 1e8];
+
 /** Three significant figures, no exponent, thousands grouped: 16.0, 0.613, 12,000. */
 export function sig3(x: number): string {
   if (!Number.isFinite(x)) return x > 0 ? '∞' : x < 0 ? '−∞' : '—';
   if (x === 0) return '0';
   const a = Math.abs(x);
   if (a < 1e-4 || a >= 1e15) return x.toExponential(2).replace('-', '−');
-  let d = Math.floor(Math.log10(a));
-  let r = Math.round(a / 10 ** (d - 2)) * 10 ** (d - 2);
-  if (r >= 10 ** (d + 1)) d += 1;
-  r = Math.round(a / 10 ** (d - 2)) * 10 ** (d - 2);
-  const decimals = Math.max(0, 2 - d);
-  const s = r.toFixed(decimals);
-  const dot = s.indexOf('.');
-  const body = dot < 0 ? group(s) : group(s.slice(0, dot)) + s.slice(dot);
-  return (x < 0 ? '−' : '') + body;
+  let d =
+    a >= 1 && a < 10 ? 0 : a >= 10 && a < 100 ? 1 : a >= 100 && a < 1000 ? 2 : Math.floor(Math.log10(a));
+  let decimals = 2 - d;
+  let r =
+    decimals >= 0
+      ? Math.round(a * POW10[decimals]) / POW10[decimals]
+      : Math.round(a / 10 ** -decimals) * 10 ** -decimals;
+  if (r >= 10 ** (d + 1)) {
+    d += 1;
+    decimals = 2 - d;
+    r =
+      decimals >= 0
+        ? Math.round(a * POW10[decimals]) / POW10[decimals]
+        : Math.round(a / 10 ** -decimals) * 10 ** -decimals;
+  }
+  const str = r.toFixed(decimals > 0 ? decimals : 0);
+  const body = r >= 1000 ? group(str) : str;
+  return x < 0 ? '−' + body : body;
 }
 
 /** A percentage: whole when it rounds to a whole number at one decimal, else one decimal. */

@@ -1,6 +1,14 @@
 // Public entry of the calculation engine (pure TypeScript: no I/O, no DOM, no Node APIs).
 // Import from '@shared/engineering' (server, worker, client) or relatively inside shared/.
-export { evaluateLift, checkLift, tippingBalance, resolvePolicy, CAUTIONS, RESULT_VERSION, ENGINE_VERSION } from './evaluate';
+export {
+  evaluateLift,
+  checkLift,
+  tippingBalance,
+  resolvePolicy,
+  CAUTIONS,
+  RESULT_VERSION,
+  ENGINE_VERSION,
+} from './evaluate';
 export type { EvaluateOptions, CheckLiftOutcome, InputIssue } from './evaluate';
 export { liftInputJsonSchema, sitePolicyJsonSchema } from './json-schema';
 export { formatQuantity, formatPercent, formatPercentOf, formatFormula, toDisplay, sig3 } from './format';

@@ -13,27 +13,44 @@ export const SOURCES = {
   } as Source,
   oshaPersonnel: std('OSHA 29 CFR 1926.1431 (hoisting personnel: 50% of rated capacity)'),
   oshaPersonnelWind: std('OSHA 29 CFR 1926.1431 (above 20 mph a qualified person decides whether to lift)'),
-  asmeTipping: std('ASME B30.5 §5-1.1.1 / SAE J765: rated load ≤ 85% of tipping load on outriggers, 75% on crawlers'),
+  asmeTipping: std(
+    'ASME B30.5 §5-1.1.1 / SAE J765: rated load ≤ 85% of tipping load on outriggers, 75% on crawlers',
+  ),
   slingAngle: std('Rigging handbooks, ASME B30.9 practice: leg tension = share ÷ sin(angle from horizontal)'),
   slingMinAngle: std('Rigging handbooks: leg angles below 30° from horizontal are not used'),
-  chokerWire: std('Rigging handbooks: choker hitch ≈ 75% of vertical rating for wire rope (choke angle ≥ 120°)'),
-  chokerSynthetic: { kind: 'from_memory', text: 'Choker hitch 80% of vertical rating for synthetic slings (from memory)' } as Source,
-  chokerChain: { kind: 'from_memory', text: 'Choker hitch 80% of vertical rating for chain slings (from memory)' } as Source,
+  chokerWire: std(
+    'Rigging handbooks: choker hitch ≈ 75% of vertical rating for wire rope (choke angle ≥ 120°)',
+  ),
+  chokerSynthetic: {
+    kind: 'from_memory',
+    text: 'Choker hitch 80% of vertical rating for synthetic slings (from memory)',
+  } as Source,
+  chokerChain: {
+    kind: 'from_memory',
+    text: 'Choker hitch 80% of vertical rating for chain slings (from memory)',
+  } as Source,
   basket: std('Rigging handbooks: basket hitch with vertical legs = 2 × vertical rating'),
   ibc1806: std('International Building Code Table 1806.2 (2012), presumptive load-bearing values'),
-  wrumSheave: std('Wire Rope Users Manual, 4th ed.: sheave bearing constant 1.09 plain (bronze-bushed), 1.04 roller'),
+  wrumSheave: std(
+    'Wire Rope Users Manual, 4th ed.: sheave bearing constant 1.09 plain (bronze-bushed), 1.04 roller',
+  ),
   wrumFormula: {
     kind: 'from_memory',
     text: 'Lead-line factor K^S(K−1)/(K^N−1) (from memory; reproduces the Wire Rope Users Manual tabulated values)',
   } as Source,
   ropeRunning: std('ASME B30.6 / B30.22 (B30.5 from memory): design factor 3.5 for running rope'),
-  ropeRotationResistant: std('ASME B30.6 / B30.22 (B30.5 from memory): design factor 5 for rotation-resistant rope'),
+  ropeRotationResistant: std(
+    'ASME B30.6 / B30.22 (B30.5 from memory): design factor 5 for rotation-resistant rope',
+  ),
   windPressure: std('Dynamic pressure q = ½ρv², ρ = 1.225 kg/m³ (q = 0.613 v² Pa; 0.00256 V² psf)'),
   queenslandTandem: std('Queensland Mobile Crane Code of Practice 2006 §14.3.2 (tandem margins 20/33/50%)'),
   tandemShare: std('Load sharing, hoist lines plumb: share A = W · d_B / (d_A + d_B)'),
   usaceCritical: std('USACE EM 385-1-1 §16.H (critical lift criteria)'),
   doeCritical: std('DOE-STD-1090 (critical lift by consequence)'),
-  chartRule: { kind: 'common_practice', text: 'Common practice, no source: never interpolate a load chart upward' } as Source,
+  chartRule: {
+    kind: 'common_practice',
+    text: 'Common practice, no source: never interpolate a load chart upward',
+  } as Source,
   rigidBase: {
     kind: 'common_practice',
     text: 'Statics of a rigid base on four supports of equal stiffness (common practice, no source)',

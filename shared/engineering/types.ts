@@ -19,7 +19,8 @@ export type UnitSystem = 'metric' | 'imperial';
 
 export type CheckStatus = 'pass' | 'caution' | 'fail' | 'not_applicable';
 
-export type SourceKind = 'standard' | 'site_policy' | 'common_practice' | 'from_memory' | 'input' | 'computed';
+export type SourceKind =
+  'standard' | 'site_policy' | 'common_practice' | 'from_memory' | 'input' | 'computed';
 
 export interface Source {
   kind: SourceKind;

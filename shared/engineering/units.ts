@@ -28,14 +28,7 @@ export type AngleUnit = (typeof ANGLE_UNITS)[number];
 export type VoltageUnit = (typeof VOLTAGE_UNITS)[number];
 export type MomentUnit = (typeof MOMENT_UNITS)[number];
 export type AnyUnit =
-  | LengthUnit
-  | WeightUnit
-  | PressureUnit
-  | SpeedUnit
-  | AreaUnit
-  | AngleUnit
-  | VoltageUnit
-  | MomentUnit;
+  LengthUnit | WeightUnit | PressureUnit | SpeedUnit | AreaUnit | AngleUnit | VoltageUnit | MomentUnit;
 
 /** Multiply a value in the given unit by this factor to get SI (degrees stay degrees). */
 export const TO_SI: Readonly<Record<AnyUnit, number>> = {

@@ -86,7 +86,10 @@ export const WeightQ = weight('weight');
 export type WeightQ = z.infer<typeof WeightQ>;
 
 const UpperMass = (label: string) =>
-  z.object({ weight: weight(`${label}.weight`), cgBehindRotation: signedLength(`${label}.cgBehindRotation`) });
+  z.object({
+    weight: weight(`${label}.weight`),
+    cgBehindRotation: signedLength(`${label}.cgBehindRotation`),
+  });
 
 export const CRANE_TYPES = ['mobile_outriggers', 'mobile_crawler', 'gantry_a_frame'] as const;
 
@@ -116,7 +119,10 @@ export const Crane = z
     upperWorks: UpperMass('crane.upperWorks').optional(),
     counterweight: UpperMass('crane.counterweight').optional(),
     carrier: z
-      .object({ weight: weight('crane.carrier.weight'), cgRearOfRotation: signedLength('crane.carrier.cgRearOfRotation') })
+      .object({
+        weight: weight('crane.carrier.weight'),
+        cgRearOfRotation: signedLength('crane.carrier.cgRearOfRotation'),
+      })
       .optional(),
     boom: z
       .object({
@@ -144,11 +150,19 @@ export const Crane = z
   .superRefine((c, ctx) => {
     if (c.type === 'gantry_a_frame') {
       if (!c.gantry)
-        ctx.addIssue({ code: 'custom', path: ['gantry'], message: 'crane.gantry is required for a gantry or A-frame' });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['gantry'],
+          message: 'crane.gantry is required for a gantry or A-frame',
+        });
       return;
     }
     if (!c.boomLength)
-      ctx.addIssue({ code: 'custom', path: ['boomLength'], message: 'crane.boomLength is required for a mobile crane' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['boomLength'],
+        message: 'crane.boomLength is required for a mobile crane',
+      });
     if (!c.boomAngle && !c.radius)
       ctx.addIssue({
         code: 'custom',
@@ -172,7 +186,10 @@ export const Chart = z.object(
       .min(1, { error: 'chart.rows must list at least 1 row of the load chart' })
       .max(2000, { error: 'chart.rows must list at most 2000 rows' }),
   },
-  { error: (iss) => (iss.input === undefined ? 'chart is required (the load chart rows used)' : 'chart must be an object') },
+  {
+    error: (iss) =>
+      iss.input === undefined ? 'chart is required (the load chart rows used)' : 'chart must be an object',
+  },
 );
 
 export const SLING_MATERIALS = ['wire', 'synthetic', 'chain'] as const;
@@ -190,27 +207,34 @@ export const SlingLeg = z
       ctx.addIssue({
         code: 'custom',
         path: ['angle'],
-        message: 'rigging.slings.legs[]: give the leg angle, or its length and horizontal distance from the hook',
+        message:
+          'rigging.slings.legs[]: give the leg angle, or its length and horizontal distance from the hook',
       });
   });
 
 export const SlingSet = z.object({
   name,
-  material: z.enum(SLING_MATERIALS, { error: `rigging.slings.material must be one of ${SLING_MATERIALS.join(', ')}` }),
+  material: z.enum(SLING_MATERIALS, {
+    error: `rigging.slings.material must be one of ${SLING_MATERIALS.join(', ')}`,
+  }),
   hitch: z.enum(HITCHES, { error: `rigging.slings.hitch must be one of ${HITCHES.join(', ')}` }),
   ratedLoadVertical: positiveWeight('rigging.slings.ratedLoadVertical (per leg)'),
   weight: weight('rigging.slings.weight').optional(),
   legs: z
     .array(SlingLeg)
     .min(1, { error: 'rigging.slings.legs must list 1 or 2 legs' })
-    .max(2, { error: 'rigging.slings.legs must list 1 or 2 legs (for more legs enter the two that carry the load)' }),
+    .max(2, {
+      error: 'rigging.slings.legs must list 1 or 2 legs (for more legs enter the two that carry the load)',
+    }),
 });
 
 export const Hardware = z.object({
   name,
   wll: positiveWeight('rigging.hardware[].wll'),
   weight: weight('rigging.hardware[].weight').optional(),
-  carries: z.enum(['total', 'leg'], { error: "rigging.hardware[].carries must be 'total' or 'leg'" }).optional(),
+  carries: z
+    .enum(['total', 'leg'], { error: "rigging.hardware[].carries must be 'total' or 'leg'" })
+    .optional(),
 });
 
 export const Rigging = z.object({
@@ -238,7 +262,9 @@ export const Reeving = z.object({
   hoistLinePull: positiveWeight('reeving.hoistLinePull').optional(),
   ropeRatedLoad: positiveWeight('reeving.ropeRatedLoad').optional(),
   ropeBreakingStrength: positiveWeight('reeving.ropeBreakingStrength').optional(),
-  ropeType: z.enum(ROPE_TYPES, { error: "reeving.ropeType must be 'running' or 'rotation_resistant'" }).optional(),
+  ropeType: z
+    .enum(ROPE_TYPES, { error: "reeving.ropeType must be 'running' or 'rotation_resistant'" })
+    .optional(),
 });
 
 export const SOIL_CLASSES = [
@@ -260,7 +286,9 @@ export const Ground = z.object({
     })
     .optional(),
   allowableBearing: pressure('ground.allowableBearing').optional(),
-  soilClass: z.enum(SOIL_CLASSES, { error: `ground.soilClass must be one of ${SOIL_CLASSES.join(', ')}` }).optional(),
+  soilClass: z
+    .enum(SOIL_CLASSES, { error: `ground.soilClass must be one of ${SOIL_CLASSES.join(', ')}` })
+    .optional(),
 });
 
 export const PowerLine = z.object({

@@ -21,7 +21,10 @@ export const POLICY_DEFAULTS = {
   maxChartUsePct: {
     value: 85,
     label: 'Maximum chart use (% of chart capacity)',
-    source: { kind: 'common_practice', text: 'Common practice, no source: many owners cap lifts at 85–90% of chart' },
+    source: {
+      kind: 'common_practice',
+      text: 'Common practice, no source: many owners cap lifts at 85–90% of chart',
+    },
   },
   minStabilityRatio: {
     value: 1.5,
@@ -36,7 +39,10 @@ export const POLICY_DEFAULTS = {
   personnelLimitPct: {
     value: 50,
     label: 'Personnel platform load limit (% of rated capacity)',
-    source: { kind: 'standard', text: 'OSHA 29 CFR 1926.1431: platform, rigging and occupants ≤ 50% of rated capacity' },
+    source: {
+      kind: 'standard',
+      text: 'OSHA 29 CFR 1926.1431: platform, rigging and occupants ≤ 50% of rated capacity',
+    },
   },
   windLimitMps: {
     value: 8.9408,
@@ -49,12 +55,18 @@ export const POLICY_DEFAULTS = {
   personnelWindLimitMps: {
     value: 8.9408,
     label: 'Wind speed limit for personnel lifts (m/s)',
-    source: { kind: 'standard', text: 'OSHA 29 CFR 1926.1431: above 20 mph a qualified person decides whether to lift' },
+    source: {
+      kind: 'standard',
+      text: 'OSHA 29 CFR 1926.1431: above 20 mph a qualified person decides whether to lift',
+    },
   },
   minSlingAngleDeg: {
     value: 30,
     label: 'Minimum sling angle from horizontal (degrees)',
-    source: { kind: 'standard', text: 'Rigging handbooks: leg angles below 30° from horizontal are not used' },
+    source: {
+      kind: 'standard',
+      text: 'Rigging handbooks: leg angles below 30° from horizontal are not used',
+    },
   },
   discrepancyTolerancePct: {
     value: 5,

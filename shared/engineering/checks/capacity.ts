@@ -62,7 +62,12 @@ export function capacityCheck(ctx: Ctx, fixes: Fix[]): CheckResult {
     }),
   );
   // 1e-9 %: unit conversions must not push an exact 75% or 85% over its limit
-  const status = pct - maxUse > 1e-9 || pct - 100 > 1e-9 ? 'fail' : pct - policy.criticalThresholdPct > 1e-9 ? 'caution' : 'pass';
+  const status =
+    pct - maxUse > 1e-9 || pct - 100 > 1e-9
+      ? 'fail'
+      : pct - policy.criticalThresholdPct > 1e-9
+        ? 'caution'
+        : 'pass';
   items.push(
     item(ctx, {
       id: 'capacity.use',
@@ -76,7 +81,9 @@ export function capacityCheck(ctx: Ctx, fixes: Fix[]): CheckResult {
         pct,
         'percent',
       )} (limit ${term(maxUse, 'percent')} = ${term(allowed, 'weight')}; critical above ${term(policy.criticalThresholdPct, 'percent')})`,
-      source: SOURCES.policy(`maximum chart use ${maxUse}%; critical threshold ${policy.criticalThresholdPct}%`),
+      source: SOURCES.policy(
+        `maximum chart use ${maxUse}%; critical threshold ${policy.criticalThresholdPct}%`,
+      ),
       message:
         status === 'fail'
           ? `Gross load is ${pct.toFixed(1)}% of the chart capacity, above the ${maxUse}% allowed.`
@@ -95,7 +102,9 @@ export function capacityCheck(ctx: Ctx, fixes: Fix[]): CheckResult {
       message: `Reduce the gross load to at most ${formatQuantity(allowed, 'weight', ctx.system)} at this radius.`,
       text: '',
     });
-    const col = columns(ctx.rows).find((c) => chart.boomLengthUsed !== null && Math.abs(c.boomLength - chart.boomLengthUsed) < 1e-6);
+    const col = columns(ctx.rows).find(
+      (c) => chart.boomLengthUsed !== null && Math.abs(c.boomLength - chart.boomLengthUsed) < 1e-6,
+    );
     const r = col ? largestRadiusFor(col.rows, (gross * 100) / maxUse, geometry.radius) : null;
     if (r !== null && r < geometry.radius) {
       fixes.push({

@@ -16,18 +16,36 @@ export function criticalTriggers(ctx: Ctx): CriticalTrigger[] {
   const s = input.site ?? {};
   if (chart.capacity !== null && chart.capacity > 0) {
     const pct = (gross / chart.capacity) * 100;
-    if (pct - policy.criticalThresholdPct > 1e-9) // a hair over from rounding of unit conversions is not over
+    if (pct - policy.criticalThresholdPct > 1e-9)
+      // a hair over from rounding of unit conversions is not over
       out.push({
         id: 'capacity-threshold',
         reason: `Gross load is ${pct.toFixed(1)}% of the chart capacity, over the ${policy.criticalThresholdPct}% threshold.`,
-        source: SOURCES.policy(`critical threshold ${policy.criticalThresholdPct}% (default: ${SOURCES.usaceCritical.text})`),
+        source: SOURCES.policy(
+          `critical threshold ${policy.criticalThresholdPct}% (default: ${SOURCES.usaceCritical.text})`,
+        ),
       });
   }
-  if (input.tandem) out.push({ id: 'tandem', reason: `More than one crane (${input.tandem.cranes.length}) lifts the load.`, source: SOURCES.usaceCritical });
-  if (input.personnel) out.push({ id: 'personnel', reason: 'Personnel are hoisted.', source: SOURCES.usaceCritical });
-  if (s.overOccupiedArea) out.push({ id: 'over-occupied-area', reason: 'The load passes over an occupied area.', source: SOURCES.policy('lifts over occupied areas are critical') });
+  if (input.tandem)
+    out.push({
+      id: 'tandem',
+      reason: `More than one crane (${input.tandem.cranes.length}) lifts the load.`,
+      source: SOURCES.usaceCritical,
+    });
+  if (input.personnel)
+    out.push({ id: 'personnel', reason: 'Personnel are hoisted.', source: SOURCES.usaceCritical });
+  if (s.overOccupiedArea)
+    out.push({
+      id: 'over-occupied-area',
+      reason: 'The load passes over an occupied area.',
+      source: SOURCES.policy('lifts over occupied areas are critical'),
+    });
   if (s.overOperatingPlant)
-    out.push({ id: 'over-operating-plant', reason: 'The load passes over operating plant or equipment.', source: SOURCES.policy('lifts over operating plant are critical') });
+    out.push({
+      id: 'over-operating-plant',
+      reason: 'The load passes over operating plant or equipment.',
+      source: SOURCES.policy('lifts over operating plant are critical'),
+    });
   const lines = input.environment?.powerLines ?? [];
   for (const l of lines) {
     const kV = si(l.voltage)! / 1000;
@@ -42,12 +60,30 @@ export function criticalTriggers(ctx: Ctx): CriticalTrigger[] {
       break;
     }
   }
-  if (s.loadOutOfOperatorView) out.push({ id: 'load-out-of-view', reason: "The load is out of the operator's view.", source: SOURCES.usaceCritical });
-  if (s.nonRoutineRigging) out.push({ id: 'non-routine-rigging', reason: 'The rigging is non-routine.', source: SOURCES.usaceCritical });
+  if (s.loadOutOfOperatorView)
+    out.push({
+      id: 'load-out-of-view',
+      reason: "The load is out of the operator's view.",
+      source: SOURCES.usaceCritical,
+    });
+  if (s.nonRoutineRigging)
+    out.push({
+      id: 'non-routine-rigging',
+      reason: 'The rigging is non-routine.',
+      source: SOURCES.usaceCritical,
+    });
   if (s.hazardousOrIrreplaceableLoad)
-    out.push({ id: 'consequence', reason: 'The load is hazardous or irreplaceable.', source: SOURCES.doeCritical });
+    out.push({
+      id: 'consequence',
+      reason: 'The load is hazardous or irreplaceable.',
+      source: SOURCES.doeCritical,
+    });
   if (s.declaredCritical)
-    out.push({ id: 'declared', reason: 'The operator or supervisor considers the lift critical.', source: SOURCES.usaceCritical });
+    out.push({
+      id: 'declared',
+      reason: 'The operator or supervisor considers the lift critical.',
+      source: SOURCES.usaceCritical,
+    });
   if (policy.criticalGrossLoadN !== null && gross >= policy.criticalGrossLoadN)
     out.push({
       id: 'site-gross-load',

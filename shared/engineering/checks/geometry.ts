@@ -15,17 +15,35 @@ export function gantryFrame(input: LiftInput) {
   const half = siOr(g.legSpread, 0) / 2;
   const frameHeight = Math.sqrt(Math.max(0, leg * leg - half * half));
   const inc = g.legInclination.value * DEG;
-  return { leg, frameHeight, inclination: inc, outreach: frameHeight * Math.sin(inc), apexHeight: frameHeight * Math.cos(inc) };
+  return {
+    leg,
+    frameHeight,
+    inclination: inc,
+    outreach: frameHeight * Math.sin(inc),
+    apexHeight: frameHeight * Math.cos(inc),
+  };
 }
 
-export function computeGeometry(input: LiftInput): Geometry & { radiusFromAngle: number | null; radiusEntered: number | null } {
+export function computeGeometry(
+  input: LiftInput,
+): Geometry & { radiusFromAngle: number | null; radiusEntered: number | null } {
   const c = input.crane;
   const pivotOffset = siOr(c.pivotOffset, 0);
   const pivotHeight = siOr(c.pivotHeight, 0);
   const radiusEntered = si(c.radius) ?? null;
   if (c.type === 'gantry_a_frame') {
     if (!c.gantry)
-      return { radius: radiusEntered, boomAngleDeg: null, tipHeight: null, boomLength: null, pivotOffset, pivotHeight, unreachable: false, radiusFromAngle: null, radiusEntered };
+      return {
+        radius: radiusEntered,
+        boomAngleDeg: null,
+        tipHeight: null,
+        boomLength: null,
+        pivotOffset,
+        pivotHeight,
+        unreachable: false,
+        radiusFromAngle: null,
+        radiusEntered,
+      };
     const g = gantryFrame(input);
     return {
       radius: Math.max(g.outreach, radiusEntered ?? 0),
@@ -41,7 +59,17 @@ export function computeGeometry(input: LiftInput): Geometry & { radiusFromAngle:
   }
   const L = si(c.boomLength);
   if (L === undefined)
-    return { radius: radiusEntered, boomAngleDeg: null, tipHeight: null, boomLength: null, pivotOffset, pivotHeight, unreachable: false, radiusFromAngle: null, radiusEntered };
+    return {
+      radius: radiusEntered,
+      boomAngleDeg: null,
+      tipHeight: null,
+      boomLength: null,
+      pivotOffset,
+      pivotHeight,
+      unreachable: false,
+      radiusFromAngle: null,
+      radiusEntered,
+    };
   const radiusFromAngle = c.boomAngle ? pivotOffset + L * Math.cos(c.boomAngle.value * DEG) : null;
   let radius: number;
   let angleDeg: number;
@@ -79,7 +107,9 @@ export function riggingHeight(input: LiftInput): number {
       const len = si(l.length);
       if (len === undefined) continue;
       const hd = si(l.horizontalDistance);
-      const v = l.angle ? len * Math.sin(l.angle.value * DEG) : Math.sqrt(Math.max(0, len * len - (hd ?? 0) ** 2));
+      const v = l.angle
+        ? len * Math.sin(l.angle.value * DEG)
+        : Math.sqrt(Math.max(0, len * len - (hd ?? 0) ** 2));
       if (v > h) h = v;
     }
   return h;
@@ -180,7 +210,9 @@ export function geometryCheck(ctx: Ctx, g: ReturnType<typeof computeGeometry>): 
               'angle',
             )}) = ${term(g.tipHeight, 'length')}`,
         source: SOURCES.statics,
-        message: gantry ? 'Height of the apex above the leg feet.' : 'Height of the boom tip above the ground.',
+        message: gantry
+          ? 'Height of the apex above the leg feet.'
+          : 'Height of the boom tip above the ground.',
       }),
     );
     const lift = si(input.requiredLiftHeight);

@@ -46,7 +46,14 @@ export function fourSupportReactions(V: number, ex: number, ey: number, a: numbe
 }
 
 /** Reactions with support `off` lifted: three-support statics (ΣV, ΣM about both axes). */
-export function threeSupportReactions(V: number, ex: number, ey: number, a: number, b: number, off: number): number[] {
+export function threeSupportReactions(
+  V: number,
+  ex: number,
+  ey: number,
+  a: number,
+  b: number,
+  off: number,
+): number[] {
   const px = [-a, -a, a, a];
   const py = [-b, b, b, -b];
   const idx = [0, 1, 2, 3].filter((i) => i !== off);
@@ -72,7 +79,12 @@ export function threeSupportReactions(V: number, ex: number, ey: number, a: numb
 }
 
 /** Peak bearing pressure under a track carrying Vt with eccentricity e along its length L, width w. */
-export function trackPeakPressure(Vt: number, e: number, L: number, w: number): { p: number; shape: 'uniform' | 'trapezoidal' | 'triangular' | 'tipping' } {
+export function trackPeakPressure(
+  Vt: number,
+  e: number,
+  L: number,
+  w: number,
+): { p: number; shape: 'uniform' | 'trapezoidal' | 'triangular' | 'tipping' } {
   const ae = Math.abs(e);
   if (ae === 0) return { p: Vt / (w * L), shape: 'uniform' };
   if (ae <= L / 6) return { p: (Vt / (w * L)) * (1 + (6 * ae) / L), shape: 'trapezoidal' };
@@ -84,7 +96,11 @@ function allowable(ctx: Ctx): { value: number | null; source: Source; message: s
   const g = ctx.input.ground;
   const entered = si(g?.allowableBearing);
   if (entered !== undefined)
-    return { value: entered, source: { kind: 'input', text: 'allowable bearing pressure as entered (geotechnical value)' }, message: '' };
+    return {
+      value: entered,
+      source: { kind: 'input', text: 'allowable bearing pressure as entered (geotechnical value)' },
+      message: '',
+    };
   if (g?.soilClass) {
     const psf = IBC_1806_2_PSF[g.soilClass];
     if (psf === null)
@@ -95,14 +111,29 @@ function allowable(ctx: Ctx): { value: number | null; source: Source; message: s
       };
     return {
       value: psf * TO_SI.psf,
-      source: { kind: 'standard', text: `${SOURCES.ibc1806.text}: ${SOIL_WORDS[g.soilClass]} ${psf.toLocaleString('en-US')} psf` },
+      source: {
+        kind: 'standard',
+        text: `${SOURCES.ibc1806.text}: ${SOIL_WORDS[g.soilClass]} ${psf.toLocaleString('en-US')} psf`,
+      },
       message: '',
     };
   }
-  return { value: null, source: SOURCES.input, message: 'No allowable bearing pressure or soil class entered.' };
+  return {
+    value: null,
+    source: SOURCES.input,
+    message: 'No allowable bearing pressure or soil class entered.',
+  };
 }
 
-function pressureItem(ctx: Ctx, p: number, area: number, R: number, what: string, items: CheckItem[], figures: LiftFigures) {
+function pressureItem(
+  ctx: Ctx,
+  p: number,
+  area: number,
+  R: number,
+  what: string,
+  items: CheckItem[],
+  figures: LiftFigures,
+) {
   figures.groundPressure = p;
   const al = allowable(ctx);
   const formula = f`pressure = ${what} ${term(R, 'force')} ÷ bearing area ${term(area, 'area')} = ${term(p, 'pressure')}`;
@@ -133,7 +164,10 @@ function pressureItem(ctx: Ctx, p: number, area: number, R: number, what: string
       unit: 'pressure',
       formula: [...formula, ' against allowable ', term(al.value, 'pressure')],
       source: al.source,
-      message: p > al.value ? 'Pressure under the mats exceeds the allowable bearing pressure.' : 'Pressure under the mats against the allowable bearing pressure.',
+      message:
+        p > al.value
+          ? 'Pressure under the mats exceeds the allowable bearing pressure.'
+          : 'Pressure under the mats against the allowable bearing pressure.',
     }),
   );
 }
@@ -156,7 +190,12 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
     const mx = Math.max(R[0], R[1], R[2], R[3]);
     if (mx > worst.max * (1 + 1e-9)) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
   }
-  figures.supportReactions = m.supports.map((s, i) => ({ label: s.label, x: s.x, y: s.y, reaction: worst.R[i] }));
+  figures.supportReactions = m.supports.map((s, i) => ({
+    label: s.label,
+    x: s.x,
+    y: s.y,
+    reaction: worst.R[i],
+  }));
   figures.maxSupportReaction = worst.max;
   const L = 2 * m.a;
   const B = 2 * m.b;
@@ -204,7 +243,8 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
     const VR = (r.V * (m.b - r.ey)) / (2 * m.b);
     for (const Vt of [VL, VR]) {
       const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
-      if (tp.p > worst.p * (1 + 1e-9) || worst.p === -Infinity) worst = { p: tp.p, Vt: Math.min(Math.max(Vt, 0), r.V), e, slew: t, shape: tp.shape };
+      if (tp.p > worst.p * (1 + 1e-9) || worst.p === -Infinity)
+        worst = { p: tp.p, Vt: Math.min(Math.max(Vt, 0), r.V), e, slew: t, shape: tp.shape };
     }
   }
   const area = w * L;
@@ -217,7 +257,13 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
     tipping ? 'unbounded' : ''
   }${tipping ? '' : term(worst.p, 'pressure')}`;
   const al = allowable(ctx);
-  const status = tipping ? 'fail' : al.value === null ? (ctx.input.ground?.soilClass === 'mud_organic_fill' ? 'fail' : 'caution') : statusMax(worst.p, al.value, ctx.policy);
+  const status = tipping
+    ? 'fail'
+    : al.value === null
+      ? ctx.input.ground?.soilClass === 'mud_organic_fill'
+        ? 'fail'
+        : 'caution'
+      : statusMax(worst.p, al.value, ctx.policy);
   items.push(
     item(ctx, {
       id: 'ground-bearing.pressure',
@@ -245,7 +291,13 @@ export function groundBearingCheck(ctx: Ctx, figures: LiftFigures): CheckResult 
     const mat = ctx.input.ground?.mat;
     if (!gs || !mat) return na(ctx, 'Enter the mat size under each gantry foot.');
     const Wf = si(ctx.input.crane.gantry!.frameWeight)!;
-    const foot = (gs.frameCompression * Math.cos(Math.asin(Math.min(1, gs.outreach / Math.max(1e-9, Math.hypot(gs.outreach, gs.apexHeight))))) + Wf / 2) / 2;
+    const foot =
+      (gs.frameCompression *
+        Math.cos(
+          Math.asin(Math.min(1, gs.outreach / Math.max(1e-9, Math.hypot(gs.outreach, gs.apexHeight)))),
+        ) +
+        Wf / 2) /
+      2;
     const area = si(mat.length)! * si(mat.width)! * (mat.perSupport ?? 1);
     items.push(
       item(ctx, {
@@ -285,7 +337,14 @@ export function groundBearingCheck(ctx: Ctx, figures: LiftFigures): CheckResult 
 
 function na(ctx: Ctx, message: string): CheckResult {
   return check('ground-bearing', 'Support reactions and ground bearing', [
-    item(ctx, { id: 'ground-bearing.pressure', label: 'Ground bearing pressure', status: 'not_applicable', value: null, unit: 'pressure', source: SOURCES.input, message }),
+    item(ctx, {
+      id: 'ground-bearing.pressure',
+      label: 'Ground bearing pressure',
+      status: 'not_applicable',
+      value: null,
+      unit: 'pressure',
+      source: SOURCES.input,
+      message,
+    }),
   ]);
 }
-

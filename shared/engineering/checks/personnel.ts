@@ -10,7 +10,15 @@ export function personnelCheck(ctx: Ctx): CheckResult {
   const p = ctx.input.personnel;
   if (!p)
     return check('personnel', 'Personnel lift', [
-      item(ctx, { id: 'personnel.load', label: 'Personnel platform load', status: 'not_applicable', value: null, unit: 'weight', source: SOURCES.input, message: 'Not a personnel lift.' }),
+      item(ctx, {
+        id: 'personnel.load',
+        label: 'Personnel platform load',
+        status: 'not_applicable',
+        value: null,
+        unit: 'weight',
+        source: SOURCES.input,
+        message: 'Not a personnel lift.',
+      }),
     ]);
   const platform = si(p.platformWeight)!;
   const rig = siOr(p.riggingWeight, 0);
@@ -48,7 +56,10 @@ export function personnelCheck(ctx: Ctx): CheckResult {
           'weight',
         )} = ${term(total, 'weight')} against ${term(pct, 'percent')} of ${term(cap, 'weight')} = ${term(limit, 'weight')}`,
         source: SOURCES.policy(`personnel limit ${pct}% (default: ${SOURCES.oshaPersonnel.text})`),
-        message: total > limit ? `Platform load is over ${pct}% of the rated capacity.` : `Platform load within ${pct}% of the rated capacity.`,
+        message:
+          total > limit
+            ? `Platform load is over ${pct}% of the rated capacity.`
+            : `Platform load within ${pct}% of the rated capacity.`,
       }),
     );
   }

@@ -52,7 +52,8 @@ export function powerLineCheck(ctx: Ctx): CheckResult {
         unit: 'length',
         formula: f`${term(volts, 'voltage')} is over 1,000 kV: minimum clearance set by the utility or a registered professional engineer`,
         source: SOURCES.oshaTableA,
-        message: 'Over 1,000 kV: the clearance must be set by the utility/owner or a registered professional engineer; enter it as a site rule.',
+        message:
+          'Over 1,000 kV: the clearance must be set by the utility/owner or a registered professional engineer; enter it as a site rule.',
       });
     const lim = ft * TO_SI.ft;
     return item(ctx, {
@@ -65,7 +66,10 @@ export function powerLineCheck(ctx: Ctx): CheckResult {
       unit: 'length',
       formula: f`closest approach ${term(dist, 'length')} against ${ft} ft (${term(lim, 'length')}) for ${term(volts, 'voltage')}`,
       source: SOURCES.oshaTableA,
-      message: dist < lim ? 'Closer than the minimum clearance for this voltage.' : 'Clearance against OSHA Table A.',
+      message:
+        dist < lim
+          ? 'Closer than the minimum clearance for this voltage.'
+          : 'Clearance against OSHA Table A.',
     });
   });
   return check('power-line', 'Power-line clearance', items);

@@ -58,7 +58,12 @@ export function reevingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
       unit: 'weight',
       formula: hoist !== undefined ? [...base, ' against hoist line pull ', term(hoist, 'weight')] : base,
       source: hoist !== undefined ? SOURCES.wrumFormula : SOURCES.wrumSheave,
-      message: hoist === undefined ? 'No hoist line pull rating entered.' : pull > hoist ? 'Line pull exceeds the hoist rating: add parts of line.' : 'Line pull against the hoist rating.',
+      message:
+        hoist === undefined
+          ? 'No hoist line pull rating entered.'
+          : pull > hoist
+            ? 'Line pull exceeds the hoist rating: add parts of line.'
+            : 'Line pull against the hoist rating.',
     }),
   );
   const type = rv.ropeType ?? 'running';
@@ -83,8 +88,16 @@ export function reevingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
                 ropeLimit,
                 'weight',
               )}`,
-        source: rated !== undefined ? SOURCES.input : type === 'running' ? SOURCES.ropeRunning : SOURCES.ropeRotationResistant,
-        message: pull > ropeLimit ? 'Line pull exceeds the rope rated load.' : 'Line pull against the rope rated load.',
+        source:
+          rated !== undefined
+            ? SOURCES.input
+            : type === 'running'
+              ? SOURCES.ropeRunning
+              : SOURCES.ropeRotationResistant,
+        message:
+          pull > ropeLimit
+            ? 'Line pull exceeds the rope rated load.'
+            : 'Line pull against the rope rated load.',
       }),
     );
   }

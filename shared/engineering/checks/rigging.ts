@@ -23,7 +23,11 @@ export function twoLegTensions(W: number, thetaA: number, thetaB: number): [numb
   return [(W * Math.cos(b)) / s, (W * Math.cos(a)) / s];
 }
 
-type Leg = NonNullable<LiftInput['rigging']>['slings'] extends infer S ? (S extends { legs: (infer L)[] } ? L : never) : never;
+type Leg = NonNullable<LiftInput['rigging']>['slings'] extends infer S
+  ? S extends { legs: (infer L)[] }
+    ? L
+    : never
+  : never;
 
 export function legAngleDeg(leg: Leg): number {
   if (leg.angle) return leg.angle.value;
@@ -33,7 +37,10 @@ export function legAngleDeg(leg: Leg): number {
   return Math.acos(c) / DEG;
 }
 
-export function hitchFactor(hitch: 'vertical' | 'choker' | 'basket', material: 'wire' | 'synthetic' | 'chain'): { factor: number; source: Source } {
+export function hitchFactor(
+  hitch: 'vertical' | 'choker' | 'basket',
+  material: 'wire' | 'synthetic' | 'chain',
+): { factor: number; source: Source } {
   if (hitch === 'vertical') return { factor: 1, source: SOURCES.slingAngle };
   if (hitch === 'basket') return { factor: 2, source: SOURCES.basket };
   if (material === 'wire') return { factor: 0.75, source: SOURCES.chokerWire };
@@ -93,7 +100,10 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
             term(cap, 'weight'),
           ],
           source: hf.source,
-          message: T > cap ? `Sling ${legName} is overloaded in a ${sl.hitch} hitch.` : `Sling ${legName} tension against its ${sl.hitch} hitch capacity.`,
+          message:
+            T > cap
+              ? `Sling ${legName} is overloaded in a ${sl.hitch} hitch.`
+              : `Sling ${legName} tension against its ${sl.hitch} hitch capacity.`,
         }),
       );
       const ang = angles[i];
@@ -110,8 +120,11 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
             policy.minSlingAngleDeg,
             'angle',
           )}`,
-          source: SOURCES.policy(`minimum sling angle ${policy.minSlingAngleDeg}° (default: ${SOURCES.slingMinAngle.text})`),
-          message: ang < policy.minSlingAngleDeg ? 'Sling leg flatter than the minimum angle.' : 'Sling leg angle.',
+          source: SOURCES.policy(
+            `minimum sling angle ${policy.minSlingAngleDeg}° (default: ${SOURCES.slingMinAngle.text})`,
+          ),
+          message:
+            ang < policy.minSlingAngleDeg ? 'Sling leg flatter than the minimum angle.' : 'Sling leg angle.',
         }),
       );
     }
@@ -133,7 +146,10 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
           unit: 'weight',
           formula: f`${leg ? 'largest leg tension' : 'load below the hook'} ${term(load, 'weight')} against WLL ${term(wll, 'weight')}`,
           source: { kind: 'input', text: 'working load limit as marked on the hardware (entered)' },
-          message: load > wll ? `${name} is loaded beyond its working load limit.` : `${name} against its working load limit.`,
+          message:
+            load > wll
+              ? `${name} is loaded beyond its working load limit.`
+              : `${name} against its working load limit.`,
         }),
       );
     });

@@ -109,7 +109,8 @@ export function stabilityCheck(ctx: Ctx, fixes: Fix[], figures: LiftFigures): Ch
   const items: CheckItem[] = [];
   if (ctx.input.crane.type === 'gantry_a_frame') {
     const gs = gantryStatics(ctx);
-    if (!gs) return check('stability', 'Stability', [na(ctx, 'Enter the gantry legs, backstay and ballast.')]);
+    if (!gs)
+      return check('stability', 'Stability', [na(ctx, 'Enter the gantry legs, backstay and ballast.')]);
     figures.overturningMoment = gs.overturning;
     figures.resistingMoment = gs.resisting;
     figures.stabilityRatio = gs.ratio;
@@ -152,7 +153,8 @@ export function stabilityCheck(ctx: Ctx, fixes: Fix[], figures: LiftFigures): Ch
         unit: 'force',
         formula: f`apex equilibrium, backstay at ${term(gs.backstayAngleDeg, 'angle')}: T = ${term(gs.backstayTension, 'force')}`,
         source: tieLimit !== undefined ? SOURCES.input : SOURCES.statics,
-        message: tieLimit !== undefined ? 'Backstay tension against its rated load.' : 'No backstay rating entered.',
+        message:
+          tieLimit !== undefined ? 'Backstay tension against its rated load.' : 'No backstay rating entered.',
       }),
     );
     const legLimit = si(g.legRatedCompression);
@@ -306,7 +308,8 @@ export function stabilityCheck(ctx: Ctx, fixes: Fix[], figures: LiftFigures): Ch
       );
     }
   }
-  if (status === 'fail') stabilityFixes(ctx, fixes, m, slewDeg, balance.edge, balance.overturning, balance.resisting);
+  if (status === 'fail')
+    stabilityFixes(ctx, fixes, m, slewDeg, balance.edge, balance.overturning, balance.resisting);
   return check('stability', 'Stability', items, 'stability.ratio');
 }
 
@@ -314,7 +317,15 @@ function pushFix(ctx: Ctx, fixes: Fix[], fx: Omit<Fix, 'text'>) {
   fixes.push({ ...fx, text: `${fx.message} (${formatFormula(fx.formula, ctx.system)})` });
 }
 
-function stabilityFixes(ctx: Ctx, fixes: Fix[], m: PlanModel, slew: number, e: number, ovt: number, res: number) {
+function stabilityFixes(
+  ctx: Ctx,
+  fixes: Fix[],
+  m: PlanModel,
+  slew: number,
+  e: number,
+  ovt: number,
+  res: number,
+) {
   const minR = ctx.policy.minStabilityRatio;
   const E = m.edges[e];
   const ux = Math.cos(slew * DEG);
@@ -358,7 +369,7 @@ function stabilityFixes(ctx: Ctx, fixes: Fix[], m: PlanModel, slew: number, e: n
   let lo = Math.max(0, g.pivotOffset);
   let hi = g.radius!;
   if (ratioAtRadius(ctx, slew, lo) >= minR) {
-    for (let i = 0; i < 60; i++) {
+    for (let i = 0; i < 40; i++) {
       const mid = (lo + hi) / 2;
       if (ratioAtRadius(ctx, slew, mid) >= minR) lo = mid;
       else hi = mid;

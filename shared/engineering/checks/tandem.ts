@@ -26,7 +26,15 @@ export function tandemCheck(ctx: Ctx): CheckResult {
   const t = ctx.input.tandem;
   const na = (message: string) =>
     check('tandem', 'Tandem lift', [
-      item(ctx, { id: 'tandem.crane-1', label: 'Tandem share', status: 'not_applicable', value: null, unit: 'weight', source: SOURCES.input, message }),
+      item(ctx, {
+        id: 'tandem.crane-1',
+        label: 'Tandem share',
+        status: 'not_applicable',
+        value: null,
+        unit: 'weight',
+        source: SOURCES.input,
+        message,
+      }),
     ]);
   if (!t) return na('Single-crane lift.');
   const n = t.cranes.length;
@@ -52,7 +60,10 @@ export function tandemCheck(ctx: Ctx): CheckResult {
         unit: 'weight',
         formula: f`sum of shares ${term(sum, 'weight')} against load below the hooks ${term(W, 'weight')}`,
         source: SOURCES.policy('discrepancy tolerance'),
-        message: diff * 100 > ctx.policy.discrepancyTolerancePct ? 'The shares entered do not add up to the load.' : 'Shares add up to the load.',
+        message:
+          diff * 100 > ctx.policy.discrepancyTolerancePct
+            ? 'The shares entered do not add up to the load.'
+            : 'Shares add up to the load.',
       }),
     );
   } else {
@@ -91,7 +102,9 @@ export function tandemCheck(ctx: Ctx): CheckResult {
             'percent',
           )}) = ${term(allowed, 'weight')}`,
         ],
-        source: SOURCES.policy(`tandem margin ${margin}% for ${n} cranes (default: ${SOURCES.queenslandTandem.text})`),
+        source: SOURCES.policy(
+          `tandem margin ${margin}% for ${n} cranes (default: ${SOURCES.queenslandTandem.text})`,
+        ),
         message:
           demand > allowed
             ? `Capacity does not exceed the share by the ${margin}% tandem margin.`

@@ -63,9 +63,12 @@ export function windCheck(ctx: Ctx): CheckResult {
       limitType: 'max',
       unit: 'speed',
       formula: f`wind ${term(v, 'speed')} against limit ${term(limit, 'speed')}${personnel ? ' (personnel lift)' : ''}`,
-      source: personnel && policy.personnelWindLimitMps <= policy.windLimitMps
-        ? SOURCES.policy(`personnel wind limit (default: ${SOURCES.oshaPersonnelWind.text})`)
-        : SOURCES.policy("wind limit (default 20 mph, common practice, no source; the manufacturer's chart governs when lower)"),
+      source:
+        personnel && policy.personnelWindLimitMps <= policy.windLimitMps
+          ? SOURCES.policy(`personnel wind limit (default: ${SOURCES.oshaPersonnelWind.text})`)
+          : SOURCES.policy(
+              "wind limit (default 20 mph, common practice, no source; the manufacturer's chart governs when lower)",
+            ),
       message: v > limit ? 'Wind above the limit: do not lift.' : 'Wind speed against the site limit.',
     }),
     item(ctx, {

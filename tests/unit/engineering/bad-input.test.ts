@@ -31,19 +31,29 @@ describe('bad input', () => {
 
   it('when a sling angle is negative, then the issue names the sling leg angle and 0..90', () => {
     const lift = outriggerLift();
-    lift.rigging = { slings: { material: 'wire', hitch: 'vertical', ratedLoadVertical: q(5, 't'), legs: [{ angle: q(-5, 'deg') }] } };
+    lift.rigging = {
+      slings: {
+        material: 'wire',
+        hitch: 'vertical',
+        ratedLoadVertical: q(5, 't'),
+        legs: [{ angle: q(-5, 'deg') }],
+      },
+    };
     const is = issues(lift);
     expect(is[0].path).toBe('rigging.slings.legs.0.angle.value');
     expect(is[0].message).toMatch(/legs\[\]\.angle.*between 0 and 90 degrees/);
   });
 
-  it.each([NaN, Infinity, -Infinity])('when a weight is %s, then the issue says it must be a finite number', (v) => {
-    const lift = outriggerLift();
-    lift.crane.counterweight!.weight = q(v, 't');
-    const is = issues(lift);
-    expect(is[0].path).toBe('crane.counterweight.weight.value');
-    expect(is[0].message).toBe('crane.counterweight.weight must be a finite number');
-  });
+  it.each([NaN, Infinity, -Infinity])(
+    'when a weight is %s, then the issue says it must be a finite number',
+    (v) => {
+      const lift = outriggerLift();
+      lift.crane.counterweight!.weight = q(v, 't');
+      const is = issues(lift);
+      expect(is[0].path).toBe('crane.counterweight.weight.value');
+      expect(is[0].message).toBe('crane.counterweight.weight must be a finite number');
+    },
+  );
 
   it('when a unit is unknown, then the issue names the field and lists the units it accepts', () => {
     const lift = outriggerLift() as unknown as { crane: { boomLength: { unit: string } } };
@@ -56,7 +66,10 @@ describe('bad input', () => {
   it('when the chart has no rows or is missing, then the issue names chart.rows / chart', () => {
     const lift = outriggerLift();
     lift.chart.rows = [];
-    expect(issues(lift)[0]).toEqual({ path: 'chart.rows', message: 'chart.rows must list at least 1 row of the load chart' });
+    expect(issues(lift)[0]).toEqual({
+      path: 'chart.rows',
+      message: 'chart.rows must list at least 1 row of the load chart',
+    });
     const { chart: _c, ...noChart } = outriggerLift();
     expect(issues(noChart)[0].path).toBe('chart');
     expect(issues(noChart)[0].message).toMatch(/chart is required/);
@@ -71,7 +84,11 @@ describe('bad input', () => {
   it('when the policy is out of range, then the issue is prefixed with policy.', () => {
     const out = checkLift(outriggerLift(), { minStabilityRatio: 0.5 });
     expect(out.ok).toBe(false);
-    if (!out.ok) expect(out.issues[0]).toEqual({ path: 'policy.minStabilityRatio', message: 'minStabilityRatio must be between 1 and 5' });
+    if (!out.ok)
+      expect(out.issues[0]).toEqual({
+        path: 'policy.minStabilityRatio',
+        message: 'minStabilityRatio must be between 1 and 5',
+      });
   });
 
   it('when the input is not an object at all, then there are issues and no exception', () => {
@@ -124,9 +141,22 @@ describe('bad input', () => {
           lift.crane.radius = q(v.radius, 'm');
           lift.crane.slewAngle = q(v.slew, 'deg');
           lift.hookBlock = { weight: q(v.block, 'kg') };
-          lift.ground = { mat: { length: q(v.mat, 'm'), width: q(v.mat, 'm') }, allowableBearing: q(200, 'kPa') };
-          lift.environment = { windSpeed: q(v.wind, 'm/s'), powerLines: [{ voltage: q(v.wind * 30 + 0.1, 'kV'), distance: q(v.radius, 'm') }] };
-          lift.rigging = { slings: { material: 'synthetic', hitch: 'choker', ratedLoadVertical: q(1, 't'), legs: [{ angle: q(v.legDeg, 'deg') }, { angle: q(90 - v.legDeg / 2, 'deg') }] } };
+          lift.ground = {
+            mat: { length: q(v.mat, 'm'), width: q(v.mat, 'm') },
+            allowableBearing: q(200, 'kPa'),
+          };
+          lift.environment = {
+            windSpeed: q(v.wind, 'm/s'),
+            powerLines: [{ voltage: q(v.wind * 30 + 0.1, 'kV'), distance: q(v.radius, 'm') }],
+          };
+          lift.rigging = {
+            slings: {
+              material: 'synthetic',
+              hitch: 'choker',
+              ratedLoadVertical: q(1, 't'),
+              legs: [{ angle: q(v.legDeg, 'deg') }, { angle: q(90 - v.legDeg / 2, 'deg') }],
+            },
+          };
           lift.reeving = { partsOfLine: 3, sheavesPassed: 3, bearing: 'plain' };
           const out = checkLift(lift);
           expect(out.ok).toBe(true);

@@ -11,7 +11,12 @@ import { checkLift } from '@shared/engineering/evaluate';
 import { POLICY_DEFAULTS, SitePolicy } from '@shared/schemas/site-policy';
 import { badNumbers, example, exampleNames, G, EXAMPLES_DIR } from './support';
 
-const row = (radius: number, capacity: number, boomLength = 30, interpolationAllowed = false): ChartRowSI => ({ radius, boomLength, capacity, interpolationAllowed });
+const row = (
+  radius: number,
+  capacity: number,
+  boomLength = 30,
+  interpolationAllowed = false,
+): ChartRowSI => ({ radius, boomLength, capacity, interpolationAllowed });
 
 describe('chart reading (common practice, no source: never interpolate upward)', () => {
   const rows = [row(10, 20), row(12, 16), row(14, 12), row(10, 18, 36), row(12, 14, 36), row(14, 11, 36)];
@@ -22,7 +27,10 @@ describe('chart reading (common practice, no source: never interpolate upward)',
     expect(lookupCapacity(rows, 33, 12).capacity).toBe(14);
   });
   it('when both rows allow interpolation, then the capacity is linear between them', () => {
-    expect(lookupCapacity([row(10, 20, 30, true), row(12, 16, 30, true)], 30, 11).capacity).toBeCloseTo(18, 12);
+    expect(lookupCapacity([row(10, 20, 30, true), row(12, 16, 30, true)], 30, 11).capacity).toBeCloseTo(
+      18,
+      12,
+    );
   });
   it('when only one of the bracketing rows allows interpolation, then no interpolation', () => {
     expect(lookupCapacity([row(10, 20, 30, true), row(12, 16, 30, false)], 30, 11).capacity).toBe(16);
@@ -92,15 +100,18 @@ describe('example inputs', () => {
   it('when the examples folder is listed, then every example has an expectation here', () => {
     expect(exampleNames().sort()).toEqual(Object.keys(expected).sort());
   });
-  it.each(Object.entries(expected))('when %s is checked, then the outcome is as its name says', (name, exp) => {
-    const out = checkLift(example(name));
-    expect(out.ok).toBe(true);
-    if (!out.ok) return;
-    expect(out.result.overallStatus).toBe(exp.overall);
-    if (exp.check) expect(out.result.checks.find((c) => c.id === exp.check![0])!.status).toBe(exp.check[1]);
-    expect(badNumbers(out.result)).toEqual([]);
-    expect(out.result.cautions.join(' ')).toMatch(/does not replace the crane manufacturer/);
-  });
+  it.each(Object.entries(expected))(
+    'when %s is checked, then the outcome is as its name says',
+    (name, exp) => {
+      const out = checkLift(example(name));
+      expect(out.ok).toBe(true);
+      if (!out.ok) return;
+      expect(out.result.overallStatus).toBe(exp.overall);
+      if (exp.check) expect(out.result.checks.find((c) => c.id === exp.check![0])!.status).toBe(exp.check[1]);
+      expect(badNumbers(out.result)).toEqual([]);
+      expect(out.result.cautions.join(' ')).toMatch(/does not replace the crane manufacturer/);
+    },
+  );
   it('when the discrepancy example is checked, then the understated gross load is flagged on the unsafe side', () => {
     const out = checkLift(example('caution-discrepancies.json'));
     if (!out.ok) throw new Error('invalid');
@@ -113,7 +124,11 @@ describe('example inputs', () => {
     const st = checkLift(example('fail-stability.json'));
     if (!cap.ok || !st.ok) throw new Error('invalid');
     expect(cap.result.fixes.map((f) => f.kind)).toContain('max_radius');
-    expect(st.result.fixes.map((f) => f.kind).sort()).toEqual(['counterweight_arm', 'extra_counterweight', 'max_radius']);
+    expect(st.result.fixes.map((f) => f.kind).sort()).toEqual([
+      'counterweight_arm',
+      'extra_counterweight',
+      'max_radius',
+    ]);
   });
 });
 
@@ -126,9 +141,14 @@ describe('JSON Schema', () => {
 });
 
 describe('command line', () => {
-  const cli = (...args: string[]) => spawnSync('npx', ['tsx', 'scripts/check-lift.ts', ...args], { encoding: 'utf8' });
+  const cli = (...args: string[]) =>
+    spawnSync('npx', ['tsx', 'scripts/check-lift.ts', ...args], { encoding: 'utf8' });
   it('when a passing example is checked in imperial units, then it prints the table and exits 0', () => {
-    const out = execFileSync('npx', ['tsx', 'scripts/check-lift.ts', EXAMPLES_DIR + 'pass-outriggers.json', '--units', 'imperial'], { encoding: 'utf8' });
+    const out = execFileSync(
+      'npx',
+      ['tsx', 'scripts/check-lift.ts', EXAMPLES_DIR + 'pass-outriggers.json', '--units', 'imperial'],
+      { encoding: 'utf8' },
+    );
     expect(out).toMatch(/Overall: pass/);
     expect(out).toMatch(/kip/);
     expect(out).toMatch(/does not replace/);
@@ -143,7 +163,10 @@ describe('command line', () => {
     expect(missing.status).toBe(3);
     expect(missing.stderr).toMatch(/file not found/);
     const dir = mkdtempSync(join(tmpdir(), 'lift-'));
-    writeFileSync(join(dir, 'bad.json'), JSON.stringify({ ...example('pass-outriggers.json'), load: { weight: { value: -2, unit: 't' } } }));
+    writeFileSync(
+      join(dir, 'bad.json'),
+      JSON.stringify({ ...example('pass-outriggers.json'), load: { weight: { value: -2, unit: 't' } } }),
+    );
     const invalid = cli(join(dir, 'bad.json'));
     expect(invalid.status).toBe(2);
     expect(invalid.stderr).toMatch(/load\.weight\.value: load\.weight must be 0 or more/);

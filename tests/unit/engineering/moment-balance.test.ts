@@ -181,7 +181,12 @@ function gantryLift(): LiftInputRaw {
         ballastWeight: q(15, 't'),
       },
     },
-    chart: { rows: [{ radius: q(0, 'm'), boomLength: q(10, 'm'), capacity: q(30, 't') }, { radius: q(3, 'm'), boomLength: q(10, 'm'), capacity: q(30, 't') }] },
+    chart: {
+      rows: [
+        { radius: q(0, 'm'), boomLength: q(10, 'm'), capacity: q(30, 't') },
+        { radius: q(3, 'm'), boomLength: q(10, 'm'), capacity: q(30, 't') },
+      ],
+    },
     load: { weight: q(20, 't') },
   };
 }

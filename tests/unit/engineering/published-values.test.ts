@@ -4,7 +4,11 @@ import { describe, expect, it } from 'vitest';
 import { minimumClearanceFt } from '@shared/engineering/checks/power-line';
 import { angleFactor, hitchFactor, twoLegTensions } from '@shared/engineering/checks/rigging';
 import { IBC_1806_2_PSF } from '@shared/engineering/checks/ground-bearing';
-import { leadLineFactor, SHEAVE_BEARING_CONSTANT, ROPE_DESIGN_FACTOR } from '@shared/engineering/checks/reeving';
+import {
+  leadLineFactor,
+  SHEAVE_BEARING_CONSTANT,
+  ROPE_DESIGN_FACTOR,
+} from '@shared/engineering/checks/reeving';
 import { dynamicPressure } from '@shared/engineering/checks/wind';
 import { twoCraneShares, tandemMarginPct } from '@shared/engineering/checks/tandem';
 import { DEFAULT_POLICY, POLICY_DEFAULTS } from '@shared/schemas/site-policy';
@@ -12,8 +16,21 @@ import { checkOf, findItem, G, outriggerLift, q, run } from './support';
 
 describe('power-line clearance — OSHA 29 CFR 1926.1408 Table A (read)', () => {
   it.each([
-    [0.12, 10], [11, 10], [50, 10], [50.1, 15], [132, 15], [200, 15], [200.1, 20], [345, 20], [350, 20],
-    [350.1, 25], [500, 25], [500.1, 35], [750, 35], [750.1, 45], [1000, 45],
+    [0.12, 10],
+    [11, 10],
+    [50, 10],
+    [50.1, 15],
+    [132, 15],
+    [200, 15],
+    [200.1, 20],
+    [345, 20],
+    [350, 20],
+    [350.1, 25],
+    [500, 25],
+    [500.1, 35],
+    [750, 35],
+    [750.1, 45],
+    [1000, 45],
   ])('when the line is %s kV, then the minimum clearance is %s ft', (kV, ft) => {
     expect(minimumClearanceFt(kV)).toBe(ft);
   });
@@ -52,7 +69,12 @@ describe('personnel — OSHA 29 CFR 1926.1431: platform, rigging and occupants �
   it('when platform + rigging + occupants is 50% of the 24 t rated capacity, then it passes the limit; just over 50% fails', () => {
     // chart capacity at 10 m = 24 t; 50% = 12 t
     const lift = outriggerLift();
-    lift.personnel = { platformWeight: q(11000, 'kg'), riggingWeight: q(500, 'kg'), occupants: 5, occupantWeight: q(100, 'kg') };
+    lift.personnel = {
+      platformWeight: q(11000, 'kg'),
+      riggingWeight: q(500, 'kg'),
+      occupants: 5,
+      occupantWeight: q(100, 'kg'),
+    };
     const at = findItem(run(lift), 'personnel.load');
     expect(at.value! / G).toBeCloseTo(12000, 6);
     expect(at.limit! / G).toBeCloseTo(12000, 6);
@@ -73,7 +95,13 @@ describe('personnel — OSHA 29 CFR 1926.1431: platform, rigging and occupants �
 
 describe('sling angle factor 1/sin θ — rigging handbooks, ASME B30.9 practice (read)', () => {
   it.each([
-    [90, 1.0], [75, 1.035], [60, 1.155], [50, 1.305], [45, 1.414], [40, 1.555], [30, 2.0],
+    [90, 1.0],
+    [75, 1.035],
+    [60, 1.155],
+    [50, 1.305],
+    [45, 1.414],
+    [40, 1.555],
+    [30, 2.0],
   ])('when the leg is at %s° from horizontal, then the factor is %s', (deg, factor) => {
     // the table prints three decimals (1/sin 40° = 1.5557 is printed 1.555)
     expect(Math.abs(angleFactor(deg) - factor)).toBeLessThan(0.001);
@@ -83,9 +111,16 @@ describe('sling angle factor 1/sin θ — rigging handbooks, ASME B30.9 practice
     expect(b).toBeCloseTo(a, 9);
   });
 
-  it('when the legs are at 25° (below the handbooks\' 30° minimum), then the angle item fails', () => {
+  it("when the legs are at 25° (below the handbooks' 30° minimum), then the angle item fails", () => {
     const lift = outriggerLift();
-    lift.rigging = { slings: { material: 'wire', hitch: 'vertical', ratedLoadVertical: q(50, 't'), legs: [{ angle: q(25, 'deg') }, { angle: q(25, 'deg') }] } };
+    lift.rigging = {
+      slings: {
+        material: 'wire',
+        hitch: 'vertical',
+        ratedLoadVertical: q(50, 't'),
+        legs: [{ angle: q(25, 'deg') }, { angle: q(25, 'deg') }],
+      },
+    };
     expect(findItem(run(lift), 'rigging.angle-1').status).toBe('fail');
     lift.rigging.slings!.legs = [{ angle: q(30, 'deg') }, { angle: q(30, 'deg') }];
     expect(findItem(run(lift), 'rigging.angle-1').status).toBe('pass');
@@ -143,7 +178,13 @@ describe('reeving — Wire Rope Users Manual, 4th ed. (sheave constants read; cl
   });
 
   it.each([
-    [1.09, 1, 1], [1.09, 4, 4], [1.09, 4, 6], [1.09, 8, 9], [1.04, 2, 2], [1.04, 6, 7], [1.04, 12, 14],
+    [1.09, 1, 1],
+    [1.09, 4, 4],
+    [1.09, 4, 6],
+    [1.09, 8, 9],
+    [1.04, 2, 2],
+    [1.04, 6, 7],
+    [1.04, 12, 14],
   ])('when K = %s, N = %s, S = %s, then the closed form equals the part-by-part tension sum', (K, N, S) => {
     expect(leadLineFactor(K, N, S)).toBeCloseTo(partByPart(K, N, S), 12);
   });
@@ -162,7 +203,13 @@ describe('reeving — Wire Rope Users Manual, 4th ed. (sheave constants read; cl
   it('when the rope is rotation-resistant, then the design factor is 5; running rope 3.5 (ASME B30.6/B30.22, read)', () => {
     expect(ROPE_DESIGN_FACTOR).toEqual({ running: 3.5, rotation_resistant: 5 });
     const lift = outriggerLift();
-    lift.reeving = { partsOfLine: 4, sheavesPassed: 4, bearing: 'plain', ropeBreakingStrength: q(25, 't'), ropeType: 'rotation_resistant' };
+    lift.reeving = {
+      partsOfLine: 4,
+      sheavesPassed: 4,
+      bearing: 'plain',
+      ropeBreakingStrength: q(25, 't'),
+      ropeType: 'rotation_resistant',
+    };
     expect(findItem(run(lift), 'reeving.rope').limit! / G).toBeCloseTo(5000, 6);
   });
 });
@@ -198,9 +245,17 @@ describe('rated load against tipping load — ASME B30.5 §5-1.1.1 / SAE J765 (r
     // (resisting 275 t·m − boom 8 t·m) ÷ load arm 7 m = 38.142857 t
     const tipping = (275 - 8) / 7;
     const lift = outriggerLift();
-    lift.chart.rows = [q(8, 'm'), q(10, 'm')].map((r) => ({ radius: r, boomLength: q(20, 'm'), capacity: q(0.86 * tipping, 't') }));
+    lift.chart.rows = [q(8, 'm'), q(10, 'm')].map((r) => ({
+      radius: r,
+      boomLength: q(20, 'm'),
+      capacity: q(0.86 * tipping, 't'),
+    }));
     expect(findItem(run(lift), 'stability.rated-vs-tipping').status).toBe('caution');
-    lift.chart.rows = [q(8, 'm'), q(10, 'm')].map((r) => ({ radius: r, boomLength: q(20, 'm'), capacity: q(0.84 * tipping, 't') }));
+    lift.chart.rows = [q(8, 'm'), q(10, 'm')].map((r) => ({
+      radius: r,
+      boomLength: q(20, 'm'),
+      capacity: q(0.84 * tipping, 't'),
+    }));
     const it84 = findItem(run(lift), 'stability.rated-vs-tipping');
     expect(it84.value).toBeCloseTo(84, 6);
     expect(it84.status).toBe('pass');
@@ -221,7 +276,12 @@ describe('tandem — share A = W·d_B/(d_A+d_B) (read) and margins 20/33/50% (Qu
   it('when crane A capacity is exactly 1.2 × its share, then it is at the limit; below fails', () => {
     // load 10 t (no rigging), d_A 4 m, d_B 6 m → share A 6 t, required capacity 7.2 t
     const lift = outriggerLift();
-    lift.tandem = { cranes: [{ pickPointDistance: q(4, 'm'), chartCapacity: q(7.2, 't') }, { pickPointDistance: q(6, 'm'), chartCapacity: q(20, 't') }] };
+    lift.tandem = {
+      cranes: [
+        { pickPointDistance: q(4, 'm'), chartCapacity: q(7.2, 't') },
+        { pickPointDistance: q(6, 'm'), chartCapacity: q(20, 't') },
+      ],
+    };
     const a = findItem(run(lift), 'tandem.crane-1');
     expect(a.value! / G).toBeCloseTo(6000, 6);
     expect(a.limit! / G).toBeCloseTo(6000, 6);
@@ -247,7 +307,12 @@ describe('critical lift — USACE EM 385-1-1 §16.H (read) and site policy', () 
     const lift = outriggerLift();
     lift.site = { loadOutOfOperatorView: true, nonRoutineRigging: true };
     lift.personnel = { platformWeight: q(500, 'kg') };
-    lift.tandem = { cranes: [{ share: q(5, 't'), chartCapacity: q(20, 't') }, { share: q(5, 't'), chartCapacity: q(20, 't') }] };
+    lift.tandem = {
+      cranes: [
+        { share: q(5, 't'), chartCapacity: q(20, 't') },
+        { share: q(5, 't'), chartCapacity: q(20, 't') },
+      ],
+    };
     const t = run(lift).critical.triggers;
     for (const id of ['load-out-of-view', 'non-routine-rigging', 'personnel', 'tandem']) {
       const found = t.find((x) => x.id === id);

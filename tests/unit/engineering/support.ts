@@ -33,14 +33,22 @@ export function outriggerLift(): LiftInputRaw {
       outriggers: { longitudinalSpread: q(6, 'm'), transverseSpread: q(6, 'm') },
     },
     chart: {
-      rows: [8, 10, 12, 14].map((r, i) => ({ radius: q(r, 'm'), boomLength: q(20, 'm'), capacity: q([30, 24, 20, 16][i], 't') })),
+      rows: [8, 10, 12, 14].map((r, i) => ({
+        radius: q(r, 'm'),
+        boomLength: q(20, 'm'),
+        capacity: q([30, 24, 20, 16][i], 't'),
+      })),
     },
     load: { weight: q(10, 't') },
     hookBlock: { weight: q(0.5, 't') },
   };
 }
 
-export function run(raw: LiftInputRaw, policy?: Parameters<typeof evaluateLift>[1], units: 'metric' | 'imperial' = 'metric'): LiftResult {
+export function run(
+  raw: LiftInputRaw,
+  policy?: Parameters<typeof evaluateLift>[1],
+  units: 'metric' | 'imperial' = 'metric',
+): LiftResult {
   return evaluateLift(LiftInput.parse(raw), policy, { units });
 }
 
@@ -62,6 +70,7 @@ export function badNumbers(v: unknown, path = '', out: string[] = []): string[] 
   } else if (typeof v === 'string') {
     if (v.includes('NaN') || v.includes('undefined')) out.push(`${path}="${v}"`);
   } else if (Array.isArray(v)) v.forEach((x, i) => badNumbers(x, `${path}[${i}]`, out));
-  else if (v && typeof v === 'object') for (const [k, x] of Object.entries(v)) badNumbers(x, path ? `${path}.${k}` : k, out);
+  else if (v && typeof v === 'object')
+    for (const [k, x] of Object.entries(v)) badNumbers(x, path ? `${path}.${k}` : k, out);
   return out;
 }
