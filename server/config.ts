@@ -17,6 +17,7 @@ const Env = z.object({
   UPLOAD_MAX_PAGES: z.coerce.number().int().min(1).default(500),
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().min(0.01).default(15),
+  QUEUE_PREFIX: z.string().regex(/^[a-z0-9-]{1,40}$/, 'QUEUE_PREFIX must be 1 to 40 of a-z, 0-9 and -').default('cp'),
   CHECK_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
   SMTP_URL: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),

@@ -18,9 +18,10 @@ export interface Queues {
   close(): Promise<void>;
 }
 
-export function createQueues(connection: Redis): Queues {
+export function createQueues(connection: Redis, prefix: string): Queues {
   const checkRun = new Queue<CheckRunJob>(QUEUE_NAMES.checkRun, {
     connection,
+    prefix,
     defaultJobOptions: {
       attempts: 5,
       backoff: { type: 'exponential', delay: 2000 },

@@ -1,4 +1,5 @@
 // Builds the real Express app against the test command's PostgreSQL and Redis, in-process.
+import { randomUUID } from 'node:crypto';
 import type { Express } from 'express';
 import supertest from 'supertest';
 import { createApp } from '@server/app';
@@ -13,7 +14,8 @@ export interface TestApp {
 }
 
 export async function startTestApp(overrides: Partial<Config> = {}): Promise<TestApp> {
-  const config = { ...loadConfig(), ...overrides };
+  // Each test app gets its own queue prefix, so parallel test files never share jobs.
+  const config = { ...loadConfig(), QUEUE_PREFIX: `t-${randomUUID().slice(0, 8)}`, ...overrides };
   const ctx = await connect(config);
   const app = createApp(ctx, { clientDir: '/nonexistent' });
   return { ctx, app, close: async () => ctx.close?.() };

@@ -7,7 +7,12 @@ import type { AppContext } from '../../server/context';
 import { QUEUE_NAMES, type CheckRunJob } from '../../server/lib/queues';
 import { InvalidLiftData, runCheck } from '../../server/modules/check-runs/service';
 
-export function startCheckRunWorker(ctx: AppContext, connection: Redis, concurrency: number) {
+export function startCheckRunWorker(
+  ctx: AppContext,
+  connection: Redis,
+  concurrency: number,
+  timing: { stalledInterval?: number; lockDuration?: number } = {},
+) {
   return new Worker<CheckRunJob>(
     QUEUE_NAMES.checkRun,
     async (job) => {
@@ -21,6 +26,13 @@ export function startCheckRunWorker(ctx: AppContext, connection: Redis, concurre
         throw error;
       }
     },
-    { connection, concurrency, stalledInterval: 15_000, maxStalledCount: 2, lockDuration: 30_000 },
+    {
+      connection,
+      prefix: ctx.config.QUEUE_PREFIX,
+      concurrency,
+      stalledInterval: timing.stalledInterval ?? 15_000,
+      lockDuration: timing.lockDuration ?? 30_000,
+      maxStalledCount: 2,
+    },
   );
 }
