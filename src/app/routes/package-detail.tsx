@@ -1,18 +1,33 @@
-// /packages/:id: the package's summary. The review workspace (inputs, recomputed checks,
-// findings, markups, revisions side by side) is built on this page by the next feature.
-import { Link, useParams } from 'react-router-dom';
+// /packages/:id: the package for every role (read-only but for the contractor's draft
+// actions): its facts, the check run live while it runs, the recomputed results with the
+// discrepancies first, the plots, the files and the revision history.
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import type { LiftResult } from '@shared/engineering/types';
 import { homeFor, useCurrentUser } from '@/lib/auth';
 import { isApiError } from '@/lib/api-client';
 import { PageHeader } from '@/components/layouts/page-header';
 import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
 import { PageLoading } from '@/components/ui/page-loading';
+import { Button, buttonClasses } from '@/components/ui/button';
 import { usePackage } from '@/features/packages/api/get-package';
+import { useDuplicatePackage } from '@/features/packages/api/duplicate-package';
 import { PackageHeading } from '@/features/packages/components/package-heading';
+import { CheckProgress } from '@/features/packages/components/detail/check-progress';
+import { RevisionTimeline } from '@/features/packages/components/detail/revision-timeline';
+import { PackageResults } from '@/features/packages/components/detail/package-results';
+import { FileRow } from '@/features/packages/components/editor/documents-step';
+
+function isLiftResult(value: unknown): value is LiftResult {
+  const v = value as Partial<LiftResult> | null;
+  return Boolean(v && Array.isArray(v.checks) && Array.isArray(v.discrepancies) && v.figures && v.policy);
+}
 
 export default function PackageDetailRoute() {
   const { id = '' } = useParams();
+  const navigate = useNavigate();
   const { data: user } = useCurrentUser();
   const detail = usePackage(id);
+  const duplicate = useDuplicatePackage();
   if (!user) return null;
 
   const back = (
@@ -42,15 +57,82 @@ export default function PackageDetailRoute() {
     );
   }
 
+  const data = detail.data;
+  const current = data.current;
+  const contractor = user.role === 'contractor';
+  const editable = contractor && current.state === 'draft';
+  const result = isLiftResult(current.results) ? current.results : null;
+  const plan = current.files.filter((file) => file.kind === 'lift_plan');
+  const supporting = current.files.filter((file) => file.kind === 'supporting');
+
   return (
     <>
-      <PackageHeading pkg={detail.data.package} />
-      <EmptyState title="The review workspace arrives with the next feature">
-        <p>
-          This page will show the lift inputs beside the recomputed checks, the plan pages with markups, the
-          findings and the differences between revisions. {back}.
-        </p>
-      </EmptyState>
+      <PackageHeading pkg={data.package} />
+      {contractor && (
+        <div className="-mt-2 mb-3 flex flex-wrap items-center gap-2">
+          {editable && (
+            <Link to={`/packages/${id}/edit`} className={buttonClasses('primary', 'sm')}>
+              Continue editing revision {current.number}
+            </Link>
+          )}
+          <Button
+            size="sm"
+            disabled={duplicate.isPending}
+            onClick={() =>
+              duplicate.mutate(id, { onSuccess: (copy) => navigate(`/packages/${copy.package.id}/edit`) })
+            }
+          >
+            {duplicate.isPending ? 'Duplicating…' : 'Duplicate as a new draft'}
+          </Button>
+          {duplicate.isError && (
+            <span role="alert" className="text-[13px] font-bold text-fail-ink">
+              {isApiError(duplicate.error) ? duplicate.error.message : 'The package could not be duplicated.'}
+            </span>
+          )}
+        </div>
+      )}
+
+      <CheckProgress check={current.check} />
+
+      <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_20rem]">
+        <div className="flex min-w-0 flex-col gap-4">
+          {result ? (
+            <PackageResults result={result} inputs={current.inputs} system={user.unitSystem} />
+          ) : current.check.status === 'queued' || current.check.status === 'running' ? null : (
+            <EmptyState title={current.state === 'draft' ? 'Not submitted yet' : 'No check results yet'}>
+              <p>
+                {current.state === 'draft'
+                  ? editable
+                    ? 'The independent check runs when you submit this revision; the editor shows a live check while you type.'
+                    : 'The contractor has not submitted this revision yet. The independent check runs on submit.'
+                  : 'The results appear here when the check run has finished.'}
+              </p>
+            </EmptyState>
+          )}
+        </div>
+        <aside className="flex flex-col gap-4">
+          <section aria-labelledby="files-title" className="border border-rule bg-sheet">
+            <h2 id="files-title" className="border-b border-rule px-3 py-2 text-[14px] font-bold">
+              Documents of revision {current.number}
+            </h2>
+            {current.files.length === 0 ? (
+              <p className="px-3 py-3 text-[13px] text-ink-soft">
+                No documents yet.{editable && ' Add the lift plan PDF in the editor’s Documents step.'}
+              </p>
+            ) : (
+              <ul className="text-[13px]">
+                {plan.map((file) => (
+                  <FileRow key={file.id} packageId={id} file={file} />
+                ))}
+                {supporting.map((file) => (
+                  <FileRow key={file.id} packageId={id} file={file} />
+                ))}
+              </ul>
+            )}
+          </section>
+          <RevisionTimeline detail={data} />
+        </aside>
+      </div>
     </>
   );
 }

@@ -1,0 +1,99 @@
+// The package's history: each revision with its state and check, and the events (created,
+// saved, submitted, checked, assigned, decided…) in time order, newest first.
+import type { PackageDetail } from '@shared/schemas/packages';
+import { formatDateTime } from '@/lib/format';
+
+const ACTION_WORDS: Record<string, string> = {
+  created: 'Package started',
+  'package.created': 'Package started',
+  duplicated: 'Started as a copy',
+  'package.duplicated': 'Started as a copy',
+  submitted: 'Revision submitted',
+  'package.submitted': 'Revision submitted',
+  'revision.submitted': 'Revision submitted',
+  'check.queued': 'Check queued',
+  'check.started': 'Check started',
+  'check.completed': 'Check completed',
+  'check.done': 'Check completed',
+  'check.invalid': 'Check could not run',
+  'check.failed': 'Check failed',
+  'file.uploaded': 'File added',
+  'file.deleted': 'File removed',
+  'draft.saved': 'Draft saved',
+  assigned: 'Engineer assigned',
+  decided: 'Decision recorded',
+  returned: 'Returned',
+};
+
+export function actionWords(action: string): string {
+  return ACTION_WORDS[action] ?? action.replace(/[._]/g, ' ').replace(/^\w/, (c) => c.toUpperCase());
+}
+
+const CHECK_WORDS: Record<string, string> = {
+  none: 'not run',
+  queued: 'queued',
+  running: 'running',
+  done: 'done',
+  invalid: 'could not run',
+  failed: 'failed',
+};
+
+function detailText(detail: Record<string, unknown>): string {
+  const parts: string[] = [];
+  for (const key of ['revision', 'number', 'fileName', 'name', 'originalName', 'reason', 'message']) {
+    const value = detail[key];
+    if (typeof value === 'string' || typeof value === 'number')
+      parts.push(key === 'revision' || key === 'number' ? `revision ${value}` : String(value));
+  }
+  return parts.join(' · ');
+}
+
+export function RevisionTimeline({ detail }: { detail: PackageDetail }) {
+  const events = [...detail.events].sort((a, b) => b.at.localeCompare(a.at));
+  return (
+    <section aria-labelledby="timeline-title" className="border border-rule bg-sheet">
+      <h2 id="timeline-title" className="border-b border-rule px-3 py-2 text-[14px] font-bold">
+        Revisions and history
+      </h2>
+      <ol className="flex flex-col">
+        {[...detail.revisions]
+          .sort((a, b) => b.number - a.number)
+          .map((revision) => (
+            <li
+              key={revision.id}
+              className="flex items-baseline gap-2 border-b border-rule px-3 py-1.5 text-[13px]"
+            >
+              <span className="font-mono font-bold">R{revision.number}</span>
+              <span className={revision.state === 'draft' ? 'text-ink-soft' : 'font-bold'}>
+                {revision.state === 'draft' ? 'Draft' : `Submitted ${formatDateTime(revision.submittedAt)}`}
+              </span>
+              <span className="ml-auto text-[12px] text-ink-soft">
+                check {CHECK_WORDS[revision.checkStatus]}
+              </span>
+            </li>
+          ))}
+      </ol>
+      {events.length > 0 && (
+        <ol className="relative flex max-h-[22rem] flex-col overflow-y-auto px-3 py-2" aria-label="Events">
+          {events.map((event) => {
+            const extra = detailText(event.detail);
+            return (
+              <li key={event.id} className="relative border-l-2 border-rule pb-2 pl-3 text-[13px] last:pb-0">
+                <span
+                  className="absolute -left-[5px] top-1.5 size-2 rounded-full border-2 border-ink bg-sheet"
+                  aria-hidden="true"
+                />
+                <span className="font-bold">{actionWords(event.action)}</span>
+                {extra && <span className="text-ink-soft"> · {extra}</span>}
+                <span className="block text-[12px] text-ink-soft">
+                  {formatDateTime(event.at)}
+                  {event.actor && <> · {event.actor}</>}
+                </span>
+              </li>
+            );
+          })}
+        </ol>
+      )}
+    </section>
+  );
+}
