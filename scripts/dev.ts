@@ -30,7 +30,10 @@ async function main() {
   const tsx = path.join(root, 'node_modules/tsx/dist/cli.mjs');
   children = [
     startProcess('api', process.execPath, [tsx, 'watch', 'server/index.ts'], { ...env, CP_SERVICE: 'api' }),
-    startProcess('worker', process.execPath, [tsx, 'watch', 'worker/index.ts'], { ...env, CP_SERVICE: 'worker' }),
+    startProcess('worker', process.execPath, [tsx, 'watch', 'worker/index.ts'], {
+      ...env,
+      CP_SERVICE: 'worker',
+    }),
     startProcess('vite', process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js')], env),
   ];
   say('Vite on http://127.0.0.1:5173 (proxying /api to the API on port ' + env.PORT + ')');

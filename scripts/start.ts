@@ -39,10 +39,17 @@ async function main() {
 
   if (process.env.SKIP_CLIENT_BUILD !== '1') {
     say('building the client…');
-    const r = spawnSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], {
-      stdio: ['ignore', 'inherit', 'inherit'],
-    });
-    if (r.status !== 0) throw Object.assign(new Error('vite build failed (see the output above)'), { step: 'build the client' });
+    const r = spawnSync(
+      process.execPath,
+      [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'],
+      {
+        stdio: ['ignore', 'inherit', 'inherit'],
+      },
+    );
+    if (r.status !== 0)
+      throw Object.assign(new Error('vite build failed (see the output above)'), {
+        step: 'build the client',
+      });
   }
 
   const stack = await prepareStack({ dataDir, root, say, onStarted: (stop) => (stopServices = stop) });
@@ -54,26 +61,43 @@ async function main() {
   };
   const tsx = ['--import', 'tsx'];
   children = [
-    startProcess('api', process.execPath, [...tsx, 'server/index.ts'], { ...env, CP_SERVICE: 'api' }, path.join(logDir, 'api.log')),
-    startProcess('worker', process.execPath, [...tsx, 'worker/index.ts'], { ...env, CP_SERVICE: 'worker' }, path.join(logDir, 'worker.log')),
+    startProcess(
+      'api',
+      process.execPath,
+      [...tsx, 'server/index.ts'],
+      { ...env, CP_SERVICE: 'api' },
+      path.join(logDir, 'api.log'),
+    ),
+    startProcess(
+      'worker',
+      process.execPath,
+      [...tsx, 'worker/index.ts'],
+      { ...env, CP_SERVICE: 'worker' },
+      path.join(logDir, 'worker.log'),
+    ),
   ];
   for (const c of children) {
     c.child.once('exit', (code, signal) => {
       if (stopping) return;
-      process.stderr.write(`[counterpoise] ${c.name} exited (${signal ?? code}). See ${path.relative(root, c.logFile ?? '')}.\n`);
+      process.stderr.write(
+        `[counterpoise] ${c.name} exited (${signal ?? code}). See ${path.relative(root, c.logFile ?? '')}.\n`,
+      );
       void shutdown(1);
     });
   }
   const address = `http://${host}:${port}`;
   try {
-    await waitForHealth(`${address}/api/health`, 60_000, () => children.every((c) => c.child.exitCode === null));
+    await waitForHealth(`${address}/api/health`, 60_000, () =>
+      children.every((c) => c.child.exitCode === null),
+    );
   } catch (error) {
     throw Object.assign(error as Error, { step: 'start the API', logFile: path.join(logDir, 'api.log') });
   }
   say(`ready: ${address}`);
   say(`logs: ${path.relative(root, logDir)}/api.log and worker.log`);
   say(`demo accounts (password "${DEMO_PASSWORD}"):`);
-  for (const a of DEMO_ACCOUNTS) say(`  ${a.role.padEnd(10)} ${a.email.padEnd(40)} ${a.name}, ${a.organisation}`);
+  for (const a of DEMO_ACCOUNTS)
+    say(`  ${a.role.padEnd(10)} ${a.email.padEnd(40)} ${a.name}, ${a.organisation}`);
   say(`Ctrl-C stops the API, the worker${stack.embedded ? ', PostgreSQL and Redis' : ''}.`);
 }
 

@@ -6,7 +6,14 @@ import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { ensurePackages, freePort, startPostgres, startRedis, type PostgresHandle, type RedisHandle } from './lib/services';
+import {
+  ensurePackages,
+  freePort,
+  startPostgres,
+  startRedis,
+  type PostgresHandle,
+  type RedisHandle,
+} from './lib/services';
 
 const root = process.cwd();
 const outDir = path.join(root, 'test-output');
@@ -75,15 +82,36 @@ async function main(): Promise<number> {
   // `npm test -- <filter>` runs only the matching test files, without the static checks.
   const filters = process.argv.slice(2);
   if (!filters.length) {
-  results.push(['format', run('format (prettier --check)', [bin('prettier/bin/prettier.cjs'), '--check', '--log-level', 'warn', '.'], env)]);
-  results.push(['lint', run('lint (eslint)', [bin('eslint/bin/eslint.js'), '--max-warnings', '0', '.'], env)]);
-  results.push(['types', run('types (tsc)', [bin('typescript/bin/tsc'), '-p', 'tsconfig.json'], env)]);
+    results.push([
+      'format',
+      run(
+        'format (prettier --check)',
+        [bin('prettier/bin/prettier.cjs'), '--check', '--log-level', 'warn', '.'],
+        env,
+      ),
+    ]);
+    results.push([
+      'lint',
+      run('lint (eslint)', [bin('eslint/bin/eslint.js'), '--max-warnings', '0', '.'], env),
+    ]);
+    results.push(['types', run('types (tsc)', [bin('typescript/bin/tsc'), '-p', 'tsconfig.json'], env)]);
   }
   const reportFile = path.join(outDir, 'vitest.json');
   fs.rmSync(reportFile, { force: true });
   results.push([
     'tests',
-    run('tests (vitest)', [bin('vitest/vitest.mjs'), 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...filters], env),
+    run(
+      'tests (vitest)',
+      [
+        bin('vitest/vitest.mjs'),
+        'run',
+        '--reporter=default',
+        '--reporter=json',
+        `--outputFile.json=${reportFile}`,
+        ...filters,
+      ],
+      env,
+    ),
   ]);
   let passed = 0;
   let failed = 0;

@@ -41,7 +41,10 @@ export async function connect(config: Config = loadConfig()): Promise<AppContext
   try {
     await dataSource.initialize();
   } catch (error) {
-    throw new StartupError('connect to PostgreSQL', `${redact(config.DATABASE_URL)}: ${(error as Error).message}`);
+    throw new StartupError(
+      'connect to PostgreSQL',
+      `${redact(config.DATABASE_URL)}: ${(error as Error).message}`,
+    );
   }
   const redis = createRedis(config.REDIS_URL);
   redis.on('error', () => undefined);

@@ -8,16 +8,29 @@ const Env = z.object({
   HOST: z.string().default('127.0.0.1'),
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
   APP_URL: z.url().optional(),
-  DATABASE_URL: z.string().min(1, 'DATABASE_URL is required (the start command sets it for the embedded server)'),
+  DATABASE_URL: z
+    .string()
+    .min(1, 'DATABASE_URL is required (the start command sets it for the embedded server)'),
   REDIS_URL: z.string().min(1, 'REDIS_URL is required (the start command sets it for the embedded server)'),
   JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters'),
-  SESSION_HOURS: z.coerce.number().min(0.01).max(24 * 30).default(10),
+  SESSION_HOURS: z.coerce
+    .number()
+    .min(0.01)
+    .max(24 * 30)
+    .default(10),
   DATA_DIR: z.string().default(path.resolve('.data')),
-  UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).default(100 * 1024 * 1024),
+  UPLOAD_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1024)
+    .default(100 * 1024 * 1024),
   UPLOAD_MAX_PAGES: z.coerce.number().int().min(1).default(500),
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().min(0.01).default(15),
-  QUEUE_PREFIX: z.string().regex(/^[a-z0-9-]{1,40}$/, 'QUEUE_PREFIX must be 1 to 40 of a-z, 0-9 and -').default('cp'),
+  QUEUE_PREFIX: z
+    .string()
+    .regex(/^[a-z0-9-]{1,40}$/, 'QUEUE_PREFIX must be 1 to 40 of a-z, 0-9 and -')
+    .default('cp'),
   CHECK_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
   SMTP_URL: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),

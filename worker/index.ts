@@ -23,7 +23,9 @@ async function main() {
   }
   // Revisions submitted while Redis was unreachable (or seeded) wait in 'queued': queue them
   // again. The job id derived from the revision makes this harmless when they are queued.
-  const waiting = await ctx.dataSource.getRepository(Revision).find({ where: { state: 'submitted', checkStatus: 'queued' } });
+  const waiting = await ctx.dataSource
+    .getRepository(Revision)
+    .find({ where: { state: 'submitted', checkStatus: 'queued' } });
   for (const r of waiting) await enqueueCheck(ctx.queues, r.id);
   logger.info(
     { queues: workers.map((w) => w.name), concurrency: config.CHECK_CONCURRENCY, requeued: waiting.length },

@@ -56,7 +56,8 @@ export function ensurePackages(needs: { postgres?: boolean; redis?: boolean; chr
   const update = spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
   if (update.status !== 0) throw new StepError('install packages', 'apt-get update failed');
   const install = spawnSync('apt-get', ['install', '-y', '-qq', ...missing], { stdio: 'inherit', env });
-  if (install.status !== 0) throw new StepError('install packages', `apt-get install ${missing.join(' ')} failed`);
+  if (install.status !== 0)
+    throw new StepError('install packages', `apt-get install ${missing.join(' ')} failed`);
 }
 
 export async function isPortFree(port: number): Promise<boolean> {
@@ -115,23 +116,44 @@ function postmasterPid(dataDir: string): number | null {
 }
 
 /** Starts (initialising when new) a PostgreSQL cluster in dataDir on 127.0.0.1:port. */
-export async function startPostgres(dataDir: string, port: number, database: string): Promise<PostgresHandle> {
+export async function startPostgres(
+  dataDir: string,
+  port: number,
+  database: string,
+): Promise<PostgresHandle> {
   const bin = findPostgresBin();
-  if (!bin) throw new StepError('start PostgreSQL', 'PostgreSQL binaries not found under /usr/lib/postgresql');
+  if (!bin)
+    throw new StepError('start PostgreSQL', 'PostgreSQL binaries not found under /usr/lib/postgresql');
   fs.mkdirSync(dataDir, { recursive: true });
   const logFile = path.join(dataDir, 'server.log');
   if (isRoot) execFileSync('chown', ['-R', 'postgres:postgres', dataDir]);
   if (!fs.existsSync(path.join(dataDir, 'PG_VERSION'))) {
     log(`initialising PostgreSQL data in ${path.relative(process.cwd(), dataDir) || dataDir}`);
-    asPostgres(path.join(bin, 'initdb'), ['-D', dataDir, '-U', 'app', '--auth=trust', '-E', 'UTF8'], { logFile });
+    asPostgres(path.join(bin, 'initdb'), ['-D', dataDir, '-U', 'app', '--auth=trust', '-E', 'UTF8'], {
+      logFile,
+    });
   }
   if (!postmasterPid(dataDir)) {
     if (!(await isPortFree(port))) {
-      throw new StepError('start PostgreSQL', `port ${port} on 127.0.0.1 is taken; set CP_PG_PORT to another port`);
+      throw new StepError(
+        'start PostgreSQL',
+        `port ${port} on 127.0.0.1 is taken; set CP_PG_PORT to another port`,
+      );
     }
     asPostgres(
       path.join(bin, 'pg_ctl'),
-      ['-D', dataDir, '-l', logFile, '-o', `-h 127.0.0.1 -p ${port} -k ${dataDir}`, '-w', '-t', '60', 'start'],
+      [
+        '-D',
+        dataDir,
+        '-l',
+        logFile,
+        '-o',
+        `-h 127.0.0.1 -p ${port} -k ${dataDir}`,
+        '-w',
+        '-t',
+        '60',
+        'start',
+      ],
       { logFile },
     );
   }
@@ -166,7 +188,11 @@ async function createDatabaseIfMissing(adminUrl: string, database: string, logFi
     const found = await client.query('SELECT 1 FROM pg_database WHERE datname = $1', [database]);
     if (found.rowCount === 0) await client.query(`CREATE DATABASE "${database.replace(/"/g, '')}"`);
   } catch (error) {
-    throw new StepError('create database', `could not create database ${database}: ${(error as Error).message}`, logFile);
+    throw new StepError(
+      'create database',
+      `could not create database ${database}: ${(error as Error).message}`,
+      logFile,
+    );
   } finally {
     await client.end().catch(() => undefined);
   }
@@ -179,7 +205,11 @@ export interface RedisHandle {
 }
 
 /** Starts redis-server on 127.0.0.1:port with its files in dir. */
-export async function startRedis(dir: string, port: number, opts: { persist: boolean }): Promise<RedisHandle> {
+export async function startRedis(
+  dir: string,
+  port: number,
+  opts: { persist: boolean },
+): Promise<RedisHandle> {
   const bin = which('redis-server');
   if (!bin) throw new StepError('start Redis', 'redis-server not found');
   fs.mkdirSync(dir, { recursive: true });
@@ -188,17 +218,34 @@ export async function startRedis(dir: string, port: number, opts: { persist: boo
   const running = readPid(pidFile);
   if (!running) {
     if (!(await isPortFree(port))) {
-      throw new StepError('start Redis', `port ${port} on 127.0.0.1 is taken; set CP_REDIS_PORT to another port`);
+      throw new StepError(
+        'start Redis',
+        `port ${port} on 127.0.0.1 is taken; set CP_REDIS_PORT to another port`,
+      );
     }
     const args = [
-      '--port', String(port), '--bind', '127.0.0.1', '--protected-mode', 'yes',
-      '--daemonize', 'yes', '--pidfile', pidFile, '--logfile', logFile, '--dir', dir,
-      '--maxmemory-policy', 'noeviction',
+      '--port',
+      String(port),
+      '--bind',
+      '127.0.0.1',
+      '--protected-mode',
+      'yes',
+      '--daemonize',
+      'yes',
+      '--pidfile',
+      pidFile,
+      '--logfile',
+      logFile,
+      '--dir',
+      dir,
+      '--maxmemory-policy',
+      'noeviction',
       ...(opts.persist ? ['--appendonly', 'yes', '--save', '60 1'] : ['--appendonly', 'no', '--save', '']),
     ];
     const r = spawnSync(bin, args, { encoding: 'utf8' });
-    if (r.status !== 0) throw new StepError('start Redis', `redis-server failed: ${r.stderr || r.stdout}`, logFile);
-    await waitFor(() => readPid(pidFile) !== null && !(isPortFreeSync(port)), 10_000, 'start Redis', logFile);
+    if (r.status !== 0)
+      throw new StepError('start Redis', `redis-server failed: ${r.stderr || r.stdout}`, logFile);
+    await waitFor(() => readPid(pidFile) !== null && !isPortFreeSync(port), 10_000, 'start Redis', logFile);
   }
   return {
     url: `redis://127.0.0.1:${port}`,

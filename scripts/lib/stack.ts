@@ -32,12 +32,18 @@ export async function prepareStack(opts: {
   let redisUrl = process.env.REDIS_URL;
   if (!databaseUrl || !redisUrl) ensurePackages({ postgres: !databaseUrl, redis: !redisUrl });
   if (!databaseUrl) {
-    postgres = await startPostgres(path.join(dataDir, 'pg'), Number(process.env.CP_PG_PORT ?? 54329), 'counterpoise');
+    postgres = await startPostgres(
+      path.join(dataDir, 'pg'),
+      Number(process.env.CP_PG_PORT ?? 54329),
+      'counterpoise',
+    );
     databaseUrl = postgres.url;
     say(`PostgreSQL on 127.0.0.1:${postgres.port} (data in ${path.relative(root, postgres.dataDir)})`);
   }
   if (!redisUrl) {
-    redis = await startRedis(path.join(dataDir, 'redis'), Number(process.env.CP_REDIS_PORT ?? 56379), { persist: true });
+    redis = await startRedis(path.join(dataDir, 'redis'), Number(process.env.CP_REDIS_PORT ?? 56379), {
+      persist: true,
+    });
     redisUrl = redis.url;
     say(`Redis on 127.0.0.1:${redis.port}`);
   }
@@ -46,7 +52,9 @@ export async function prepareStack(opts: {
   say(applied.length ? `applied migrations: ${applied.join(', ')}` : 'database schema is up to date');
 
   const { seedDemoOnce } = await import('../../server/db/seed/seed');
-  const seeded = await withStep('seed the demo scenario', () => seedDemoOnce(databaseUrl!, path.join(dataDir, 'files')));
+  const seeded = await withStep('seed the demo scenario', () =>
+    seedDemoOnce(databaseUrl!, path.join(dataDir, 'files')),
+  );
   say(seeded ? 'demo scenario seeded' : 'demo data already present, reused');
 
   return {

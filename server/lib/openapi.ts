@@ -65,7 +65,11 @@ let cachedDoc: unknown = null;
 
 export function openApiDocument() {
   if (cachedDoc) return cachedDoc;
-  registry.registerComponent('securitySchemes', 'cookieAuth', { type: 'apiKey', in: 'cookie', name: 'cp_session' });
+  registry.registerComponent('securitySchemes', 'cookieAuth', {
+    type: 'apiKey',
+    in: 'cookie',
+    name: 'cp_session',
+  });
   cachedDoc = new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: '3.1.0',
     info: {

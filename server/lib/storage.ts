@@ -14,7 +14,8 @@ export class LocalFolderStorage implements Storage {
   constructor(private readonly root: string) {}
 
   private resolve(key: string): string {
-    if (!/^[a-z0-9][a-z0-9/_.-]*$/i.test(key) || key.includes('..')) throw new Error(`bad storage key ${key}`);
+    if (!/^[a-z0-9][a-z0-9/_.-]*$/i.test(key) || key.includes('..'))
+      throw new Error(`bad storage key ${key}`);
     return path.join(this.root, key);
   }
 

@@ -7,17 +7,25 @@ import { AppError } from '../lib/app-error';
 
 export function requireAuth(passport: PassportStatic): RequestHandler {
   return (req: Request, res: Response, next: NextFunction) => {
-    passport.authenticate('jwt', { session: false }, (err: unknown, user: Express.User | false, info?: Error) => {
-      if (err) return next(err);
-      if (!user) {
-        const expired = info?.name === 'TokenExpiredError';
-        return next(
-          new AppError(401, expired ? 'session_expired' : 'unauthenticated', expired ? 'Your session has expired. Sign in again.' : 'Sign in to continue.'),
-        );
-      }
-      req.user = user;
-      next();
-    })(req, res, next);
+    passport.authenticate(
+      'jwt',
+      { session: false },
+      (err: unknown, user: Express.User | false, info?: Error) => {
+        if (err) return next(err);
+        if (!user) {
+          const expired = info?.name === 'TokenExpiredError';
+          return next(
+            new AppError(
+              401,
+              expired ? 'session_expired' : 'unauthenticated',
+              expired ? 'Your session has expired. Sign in again.' : 'Sign in to continue.',
+            ),
+          );
+        }
+        req.user = user;
+        next();
+      },
+    )(req, res, next);
   };
 }
 
@@ -25,7 +33,11 @@ export function requireRole(...roles: Role[]): RequestHandler {
   return (req, _res, next) => {
     if (!req.user) return next(AppError.unauthorised());
     if (!roles.includes(req.user.role)) {
-      return next(AppError.forbidden(`This needs the role ${roles.join(' or ')}; you are signed in as ${req.user.role}.`));
+      return next(
+        AppError.forbidden(
+          `This needs the role ${roles.join(' or ')}; you are signed in as ${req.user.role}.`,
+        ),
+      );
     }
     next();
   };

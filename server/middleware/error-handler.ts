@@ -16,9 +16,15 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   else if (err?.type === 'entity.parse.failed') {
     error = new AppError(400, 'invalid_json', `The request body is not valid JSON: ${err.message}`);
   } else if (err?.type === 'entity.too.large') {
-    error = new AppError(413, 'too_large', `The request body is larger than the limit of ${err.limit} bytes.`);
+    error = new AppError(
+      413,
+      'too_large',
+      `The request body is larger than the limit of ${err.limit} bytes.`,
+    );
   } else if (err?.code === 'LIMIT_FILE_SIZE') {
-    error = new AppError(413, 'file_too_large', err.message, [{ path: err.field ?? 'file', message: err.message }]);
+    error = new AppError(413, 'file_too_large', err.message, [
+      { path: err.field ?? 'file', message: err.message },
+    ]);
   } else {
     (req.log ?? logger).error({ err }, 'unhandled error');
     error = new AppError(500, 'internal', 'Something went wrong on our side. The error has been logged.');

@@ -26,6 +26,10 @@ export function validate(schemas: Schemas) {
 }
 
 /** The parsed value of one part, typed by its schema. */
-export function valid<S extends ZodType>(req: Request, part: 'body' | 'query' | 'params', _schema: S): z.infer<S> {
+export function valid<S extends ZodType>(
+  req: Request,
+  part: 'body' | 'query' | 'params',
+  _schema: S,
+): z.infer<S> {
   return (req.valid as Record<string, unknown>)[part] as z.infer<S>;
 }

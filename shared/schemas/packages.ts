@@ -5,7 +5,14 @@ import { Decision, PackageStatus, PACKAGE_STATUSES } from './common';
 export const CheckStatus = z.enum(['pass', 'caution', 'fail', 'not_applicable']);
 export type CheckStatus = z.infer<typeof CheckStatus>;
 
-export const PACKAGE_SORTS = ['plannedLiftDate', '-plannedLiftDate', 'updatedAt', '-updatedAt', 'reference', '-reference'] as const;
+export const PACKAGE_SORTS = [
+  'plannedLiftDate',
+  '-plannedLiftDate',
+  'updatedAt',
+  '-updatedAt',
+  'reference',
+  '-reference',
+] as const;
 
 export const PackageListQuery = z.object({
   status: z.enum(PACKAGE_STATUSES).optional(),
@@ -46,9 +53,16 @@ export type PackageListResponse = z.infer<typeof PackageListResponse>;
 
 /** A new lift package (contractors). It starts as a draft with an empty revision 1. */
 export const CreatePackageBody = z.object({
-  title: z.string().trim().min(3, 'title must be at least 3 characters').max(200, 'title must be at most 200 characters'),
+  title: z
+    .string()
+    .trim()
+    .min(3, 'title must be at least 3 characters')
+    .max(200, 'title must be at most 200 characters'),
   siteId: z.uuid({ message: 'siteId must be the id of a site' }),
-  plannedLiftDate: z.iso.date({ message: 'plannedLiftDate must be a date (YYYY-MM-DD)' }).nullable().optional(),
+  plannedLiftDate: z.iso
+    .date({ message: 'plannedLiftDate must be a date (YYYY-MM-DD)' })
+    .nullable()
+    .optional(),
 });
 export type CreatePackageBody = z.infer<typeof CreatePackageBody>;
 
@@ -58,9 +72,17 @@ export type CreatePackageBody = z.infer<typeof CreatePackageBody>;
  * size limit. `baseUpdatedAt` guards against a stale tab overwriting newer work (409).
  */
 export const SaveDraftBody = z.object({
-  title: z.string().trim().min(3, 'title must be at least 3 characters').max(200, 'title must be at most 200 characters').optional(),
+  title: z
+    .string()
+    .trim()
+    .min(3, 'title must be at least 3 characters')
+    .max(200, 'title must be at most 200 characters')
+    .optional(),
   siteId: z.uuid({ message: 'siteId must be the id of a site' }).optional(),
-  plannedLiftDate: z.iso.date({ message: 'plannedLiftDate must be a date (YYYY-MM-DD)' }).nullable().optional(),
+  plannedLiftDate: z.iso
+    .date({ message: 'plannedLiftDate must be a date (YYYY-MM-DD)' })
+    .nullable()
+    .optional(),
   inputs: z.record(z.string(), z.unknown()).optional(),
   baseUpdatedAt: z.string().optional(),
 });
@@ -119,7 +141,15 @@ export const PackageDetail = z.object({
     }),
   ),
   current: RevisionDetail,
-  events: z.array(z.object({ id: z.uuid(), action: z.string(), actor: z.string().nullable(), at: z.string(), detail: z.record(z.string(), z.unknown()) })),
+  events: z.array(
+    z.object({
+      id: z.uuid(),
+      action: z.string(),
+      actor: z.string().nullable(),
+      at: z.string(),
+      detail: z.record(z.string(), z.unknown()),
+    }),
+  ),
 });
 export type PackageDetail = z.infer<typeof PackageDetail>;
 

@@ -16,7 +16,9 @@ describe('sign-in', () => {
     const org = await makeOrganisation(t.ctx.dataSource, 'contractor');
     const user = await makeUser(t.ctx.dataSource, org, 'contractor');
     const agent = supertest.agent(t.app);
-    const res = await agent.post('/api/auth/sign-in').send({ email: user.email.toUpperCase(), password: TEST_PASSWORD });
+    const res = await agent
+      .post('/api/auth/sign-in')
+      .send({ email: user.email.toUpperCase(), password: TEST_PASSWORD });
     expect(res.status).toBe(200);
     const cookie = String(res.headers['set-cookie']);
     expect(cookie).toMatch(/cp_session=/);
@@ -24,15 +26,23 @@ describe('sign-in', () => {
     expect(cookie).toMatch(/SameSite=Lax/i);
     const me = await agent.get('/api/me');
     expect(me.status).toBe(200);
-    expect(me.body.user).toMatchObject({ id: user.id, role: 'contractor', organisation: { id: org.id, kind: 'contractor' } });
+    expect(me.body.user).toMatchObject({
+      id: user.id,
+      role: 'contractor',
+      organisation: { id: org.id, kind: 'contractor' },
+    });
     expect(me.body.user.passwordHash).toBeUndefined();
   });
 
   it('when the password is wrong or the e-mail unknown, then both get the same generic 401', async () => {
     const org = await makeOrganisation(t.ctx.dataSource, 'contractor');
     const user = await makeUser(t.ctx.dataSource, org, 'contractor');
-    const wrong = await supertest(t.app).post('/api/auth/sign-in').send({ email: user.email, password: 'nope' });
-    const unknown = await supertest(t.app).post('/api/auth/sign-in').send({ email: 'nobody@test.example', password: 'nope' });
+    const wrong = await supertest(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: user.email, password: 'nope' });
+    const unknown = await supertest(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'nobody@test.example', password: 'nope' });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrong.body).toEqual(unknown.body);
@@ -40,7 +50,9 @@ describe('sign-in', () => {
   });
 
   it('when the body is invalid, then 400 names each field and its rule', async () => {
-    const res = await supertest(t.app).post('/api/auth/sign-in').send({ email: 'not-an-email', password: '' });
+    const res = await supertest(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'not-an-email', password: '' });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_input');
     const paths = res.body.error.fields.map((f: { path: string }) => f.path);
@@ -64,7 +76,9 @@ describe('sign-in', () => {
       const email = `limit-${Date.now()}@test.example`;
       const codes: number[] = [];
       for (let i = 0; i < 5; i++) {
-        codes.push((await supertest(limited.app).post('/api/auth/sign-in').send({ email, password: 'x' })).status);
+        codes.push(
+          (await supertest(limited.app).post('/api/auth/sign-in').send({ email, password: 'x' })).status,
+        );
       }
       expect(codes).toEqual([401, 401, 401, 429, 429]);
       const last = await supertest(limited.app).post('/api/auth/sign-in').send({ email, password: 'x' });
@@ -85,7 +99,10 @@ describe('sessions', () => {
   it('when the token has expired, then /api/me is 401 session_expired', async () => {
     const org = await makeOrganisation(t.ctx.dataSource, 'owner');
     const user = await makeUser(t.ctx.dataSource, org, 'reviewer');
-    const token = jwt.sign({ sub: user.id, tv: 0, exp: Math.floor(Date.now() / 1000) - 60 }, t.ctx.config.JWT_SECRET);
+    const token = jwt.sign(
+      { sub: user.id, tv: 0, exp: Math.floor(Date.now() / 1000) - 60 },
+      t.ctx.config.JWT_SECRET,
+    );
     const res = await supertest(t.app).get('/api/me').set('Cookie', `cp_session=${token}`);
     expect(res.status).toBe(401);
     expect(res.body.error.code).toBe('session_expired');

@@ -12,8 +12,16 @@ afterAll(async () => t.close());
 describe('organisation isolation', () => {
   it("when a contractor asks for another organisation's package, then the answer is 404", async () => {
     const w = await makeWorld(t.ctx.dataSource);
-    const theirs = await makePackage(t.ctx.dataSource, { contractor: w.contractorB, site: w.site, createdBy: w.plannerB });
-    const mine = await makePackage(t.ctx.dataSource, { contractor: w.contractorA, site: w.site, createdBy: w.plannerA });
+    const theirs = await makePackage(t.ctx.dataSource, {
+      contractor: w.contractorB,
+      site: w.site,
+      createdBy: w.plannerB,
+    });
+    const mine = await makePackage(t.ctx.dataSource, {
+      contractor: w.contractorA,
+      site: w.site,
+      createdBy: w.plannerA,
+    });
     const agent = await signedIn(t.app, w.plannerA.email);
     expect((await agent.get(`/api/packages/${theirs.id}`)).status).toBe(404);
     const own = await agent.get(`/api/packages/${mine.id}`);
@@ -27,10 +35,23 @@ describe('organisation isolation', () => {
 
   it("when a reviewer lists the queue, then it holds their site's submitted packages and no drafts", async () => {
     const w = await makeWorld(t.ctx.dataSource);
-    const submitted = await makePackage(t.ctx.dataSource, { contractor: w.contractorA, site: w.site, createdBy: w.plannerA });
-    const draft = await makePackage(t.ctx.dataSource, { contractor: w.contractorB, site: w.site, createdBy: w.plannerB, status: 'draft' });
+    const submitted = await makePackage(t.ctx.dataSource, {
+      contractor: w.contractorA,
+      site: w.site,
+      createdBy: w.plannerA,
+    });
+    const draft = await makePackage(t.ctx.dataSource, {
+      contractor: w.contractorB,
+      site: w.site,
+      createdBy: w.plannerB,
+      status: 'draft',
+    });
     const other = await makeWorld(t.ctx.dataSource);
-    const elsewhere = await makePackage(t.ctx.dataSource, { contractor: other.contractorA, site: other.site, createdBy: other.plannerA });
+    const elsewhere = await makePackage(t.ctx.dataSource, {
+      contractor: other.contractorA,
+      site: other.site,
+      createdBy: other.plannerA,
+    });
     const agent = await signedIn(t.app, w.reviewer.email);
     const list = await agent.get('/api/packages');
     expect(list.status).toBe(200);
@@ -44,11 +65,19 @@ describe('organisation isolation', () => {
   it('when an engineer lists packages, then only the ones assigned to them appear', async () => {
     const w = await makeWorld(t.ctx.dataSource);
     const assigned = await makePackage(t.ctx.dataSource, {
-      contractor: w.contractorA, site: w.site, createdBy: w.plannerA, status: 'with_engineer', engineer: w.engineer,
+      contractor: w.contractorA,
+      site: w.site,
+      createdBy: w.plannerA,
+      status: 'with_engineer',
+      engineer: w.engineer,
     });
     const otherEngineer = await makeUser(t.ctx.dataSource, w.owner, 'engineer');
     const notMine = await makePackage(t.ctx.dataSource, {
-      contractor: w.contractorA, site: w.site, createdBy: w.plannerA, status: 'with_engineer', engineer: otherEngineer,
+      contractor: w.contractorA,
+      site: w.site,
+      createdBy: w.plannerA,
+      status: 'with_engineer',
+      engineer: otherEngineer,
     });
     const agent = await signedIn(t.app, w.engineer.email);
     const ids = (await agent.get('/api/packages')).body.items.map((p: { id: string }) => p.id);
@@ -86,20 +115,28 @@ describe('roles', () => {
     const agent = await signedIn(t.app, w.reviewer.email);
     const res = await agent.get('/api/packages?pageSize=500');
     expect(res.status).toBe(400);
-    expect(res.body.error.fields).toEqual([{ path: 'query.pageSize', message: 'pageSize must be at most 100' }]);
+    expect(res.body.error.fields).toEqual([
+      { path: 'query.pageSize', message: 'pageSize must be at most 100' },
+    ]);
   });
 
   it('when the queue is paged, then the server pages and counts', async () => {
     const w = await makeWorld(t.ctx.dataSource);
     for (let i = 0; i < 5; i++) {
       await makePackage(t.ctx.dataSource, {
-        contractor: w.contractorA, site: w.site, createdBy: w.plannerA, plannedLiftDate: `2027-04-0${i + 1}`,
+        contractor: w.contractorA,
+        site: w.site,
+        createdBy: w.plannerA,
+        plannedLiftDate: `2027-04-0${i + 1}`,
       });
     }
     const agent = await signedIn(t.app, w.reviewer.email);
     const page2 = await agent.get('/api/packages?pageSize=2&page=2&sort=plannedLiftDate');
     expect(page2.body.total).toBe(5);
-    expect(page2.body.items.map((p: { plannedLiftDate: string }) => p.plannedLiftDate)).toEqual(['2027-04-03', '2027-04-04']);
+    expect(page2.body.items.map((p: { plannedLiftDate: string }) => p.plannedLiftDate)).toEqual([
+      '2027-04-03',
+      '2027-04-04',
+    ]);
   });
 });
 
@@ -134,6 +171,8 @@ describe('system routes', () => {
   it('when the OpenAPI document is asked for, then it lists the routes', async () => {
     const res = await supertest(t.app).get('/api/openapi.json');
     expect(res.status).toBe(200);
-    expect(Object.keys(res.body.paths)).toEqual(expect.arrayContaining(['/api/auth/sign-in', '/api/packages/{id}', '/api/health']));
+    expect(Object.keys(res.body.paths)).toEqual(
+      expect.arrayContaining(['/api/auth/sign-in', '/api/packages/{id}', '/api/health']),
+    );
   });
 });

@@ -31,12 +31,29 @@ describe('migrations', () => {
       expect(applied.map((m) => m.name)).toEqual(MIGRATIONS.map((m) => m.name));
       expect(await tables(ds)).toEqual(
         expect.arrayContaining([
-          'organisations', 'users', 'sites', 'site_members', 'lift_packages', 'revisions', 'uploaded_files',
-          'assignments', 'findings', 'markups', 'decisions', 'stamped_returns', 'audit_events',
+          'organisations',
+          'users',
+          'sites',
+          'site_members',
+          'lift_packages',
+          'revisions',
+          'uploaded_files',
+          'assignments',
+          'findings',
+          'markups',
+          'decisions',
+          'stamped_returns',
+          'audit_events',
         ]),
       );
       const indexCount = async () =>
-        Number((await ds.query(`SELECT count(*) AS n FROM pg_indexes WHERE indexname = 'lift_packages_site_status_idx'`))[0].n);
+        Number(
+          (
+            await ds.query(
+              `SELECT count(*) AS n FROM pg_indexes WHERE indexname = 'lift_packages_site_status_idx'`,
+            )
+          )[0].n,
+        );
       expect(await indexCount()).toBe(1);
       await ds.undoLastMigration();
       expect(await indexCount()).toBe(0);
@@ -52,14 +69,17 @@ describe('migrations', () => {
     const ds = createDataSource(base);
     await ds.initialize();
     try {
-      const [org] = await ds.query(`INSERT INTO organisations (name, kind) VALUES ('Freeze test', 'owner') RETURNING id`);
+      const [org] = await ds.query(
+        `INSERT INTO organisations (name, kind) VALUES ('Freeze test', 'owner') RETURNING id`,
+      );
       const [user] = await ds.query(
         `INSERT INTO users (organisation_id, email, name, role) VALUES ($1, $2, 'F', 'contractor') RETURNING id`,
         [org.id, `freeze-${randomUUID()}@test.example`],
       );
-      const [site] = await ds.query(`INSERT INTO sites (owner_organisation_id, name, code) VALUES ($1, 'S', $2) RETURNING id`, [
-        org.id, randomUUID().slice(0, 8),
-      ]);
+      const [site] = await ds.query(
+        `INSERT INTO sites (owner_organisation_id, name, code) VALUES ($1, 'S', $2) RETURNING id`,
+        [org.id, randomUUID().slice(0, 8)],
+      );
       const [pkg] = await ds.query(
         `INSERT INTO lift_packages (reference, title, contractor_organisation_id, site_id, created_by_id, status)
          VALUES ($1, 'T', $2, $3, $4, 'checking') RETURNING id`,
@@ -69,7 +89,9 @@ describe('migrations', () => {
         `INSERT INTO revisions (package_id, number, state, inputs) VALUES ($1, 1, 'submitted', '{"a":1}') RETURNING id`,
         [pkg.id],
       );
-      await expect(ds.query(`UPDATE revisions SET inputs = '{"a":2}' WHERE id = $1`, [rev.id])).rejects.toThrow(/cannot change/);
+      await expect(
+        ds.query(`UPDATE revisions SET inputs = '{"a":2}' WHERE id = $1`, [rev.id]),
+      ).rejects.toThrow(/cannot change/);
       await ds.query(`UPDATE revisions SET check_status = 'done' WHERE id = $1`, [rev.id]);
     } finally {
       await ds.destroy();

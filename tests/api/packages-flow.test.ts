@@ -20,7 +20,9 @@ afterAll(async () => t.close());
 async function newDraft() {
   const w = await makeWorld(t.ctx.dataSource);
   const agent = await signedIn(t.app, w.plannerA.email);
-  const res = await agent.post('/api/packages').send({ title: 'Set clarifier drive', siteId: w.site.id, plannedLiftDate: '2027-03-14' });
+  const res = await agent
+    .post('/api/packages')
+    .send({ title: 'Set clarifier drive', siteId: w.site.id, plannedLiftDate: '2027-03-14' });
   expect(res.status).toBe(201);
   return { w, agent, pkg: res.body };
 }
@@ -52,7 +54,9 @@ describe('drafts', () => {
   it('when the title is too short or the date malformed, then 400 names both fields', async () => {
     const w = await makeWorld(t.ctx.dataSource);
     const agent = await signedIn(t.app, w.plannerA.email);
-    const res = await agent.post('/api/packages').send({ title: 'x', siteId: w.site.id, plannedLiftDate: '14/03/2027' });
+    const res = await agent
+      .post('/api/packages')
+      .send({ title: 'x', siteId: w.site.id, plannedLiftDate: '14/03/2027' });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toEqual(
       expect.arrayContaining([
@@ -64,10 +68,14 @@ describe('drafts', () => {
 
   it('when a draft is saved, then the inputs come back; a stale copy gets 409 and loses nothing', async () => {
     const { agent, pkg } = await newDraft();
-    const first = await agent.put(`/api/packages/${pkg.package.id}/draft`).send({ inputs: { load: { weight: { value: 9, unit: 't' } } }, baseUpdatedAt: pkg.current.updatedAt });
+    const first = await agent
+      .put(`/api/packages/${pkg.package.id}/draft`)
+      .send({ inputs: { load: { weight: { value: 9, unit: 't' } } }, baseUpdatedAt: pkg.current.updatedAt });
     expect(first.status).toBe(200);
     expect(first.body.current.inputs).toEqual({ load: { weight: { value: 9, unit: 't' } } });
-    const stale = await agent.put(`/api/packages/${pkg.package.id}/draft`).send({ inputs: { other: true }, baseUpdatedAt: pkg.current.updatedAt });
+    const stale = await agent
+      .put(`/api/packages/${pkg.package.id}/draft`)
+      .send({ inputs: { other: true }, baseUpdatedAt: pkg.current.updatedAt });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('stale_draft');
     const after = await agent.get(`/api/packages/${pkg.package.id}`);
@@ -93,7 +101,14 @@ describe('drafts', () => {
     expect((await other.post(`/api/packages/${id}/submit`)).status).toBe(404);
     expect((await other.post(`/api/packages/${id}/duplicate`)).status).toBe(404);
     const pdf = await makePdf();
-    expect((await other.post(`/api/packages/${id}/files`).field('kind', 'lift_plan').attach('file', Buffer.from(pdf), 'plan.pdf')).status).toBe(404);
+    expect(
+      (
+        await other
+          .post(`/api/packages/${id}/files`)
+          .field('kind', 'lift_plan')
+          .attach('file', Buffer.from(pdf), 'plan.pdf')
+      ).status,
+    ).toBe(404);
   });
 });
 
@@ -101,10 +116,19 @@ describe('uploads', () => {
   it('when a real PDF is uploaded, then its sha-256, size and pages are recorded and it can be read back', async () => {
     const { agent, pkg } = await newDraft();
     const pdf = await makePdf(3);
-    const res = await agent.post(`/api/packages/${pkg.package.id}/files`).field('kind', 'lift_plan').attach('file', Buffer.from(pdf), 'plan.pdf');
+    const res = await agent
+      .post(`/api/packages/${pkg.package.id}/files`)
+      .field('kind', 'lift_plan')
+      .attach('file', Buffer.from(pdf), 'plan.pdf');
     expect(res.status).toBe(201);
     const { createHash } = await import('node:crypto');
-    expect(res.body).toMatchObject({ kind: 'lift_plan', originalName: 'plan.pdf', pages: 3, sizeBytes: pdf.byteLength, sha256: createHash('sha256').update(pdf).digest('hex') });
+    expect(res.body).toMatchObject({
+      kind: 'lift_plan',
+      originalName: 'plan.pdf',
+      pages: 3,
+      sizeBytes: pdf.byteLength,
+      sha256: createHash('sha256').update(pdf).digest('hex'),
+    });
     const back = await agent.get(`/api/packages/${pkg.package.id}/files/${res.body.id}`).buffer(true);
     expect(back.status).toBe(200);
     expect(back.headers['content-type']).toBe('application/pdf');
@@ -113,28 +137,81 @@ describe('uploads', () => {
 
   it('when a second lift plan is uploaded, then it replaces the first on disk and in the database', async () => {
     const { agent, pkg } = await newDraft();
-    const a = await agent.post(`/api/packages/${pkg.package.id}/files`).field('kind', 'lift_plan').attach('file', Buffer.from(await makePdf(1)), 'a.pdf');
-    const b = await agent.post(`/api/packages/${pkg.package.id}/files`).field('kind', 'lift_plan').attach('file', Buffer.from(await makePdf(2)), 'b.pdf');
+    const a = await agent
+      .post(`/api/packages/${pkg.package.id}/files`)
+      .field('kind', 'lift_plan')
+      .attach('file', Buffer.from(await makePdf(1)), 'a.pdf');
+    const b = await agent
+      .post(`/api/packages/${pkg.package.id}/files`)
+      .field('kind', 'lift_plan')
+      .attach('file', Buffer.from(await makePdf(2)), 'b.pdf');
     expect(b.status).toBe(201);
     expect(await fileCount(pkg.current.id)).toBe(1);
     expect(filesOnDisk(pkg.current.id)).toEqual([`${b.body.id}.pdf`]);
     expect(a.body.id).not.toBe(b.body.id);
   });
 
-  const refusals: Array<[string, () => Promise<{ bytes: Uint8Array; name: string }>, number, string, RegExp]> = [
-    ['a text file named .pdf', async () => ({ bytes: new TextEncoder().encode('hello, not a pdf'), name: 'plan.pdf' }), 415, 'not_pdf', /%PDF-/],
-    ['an empty file', async () => ({ bytes: new Uint8Array(), name: 'plan.pdf' }), 400, 'empty_file', /empty/],
-    ['a truncated PDF', async () => ({ bytes: truncate(await makePdf(2)), name: 'plan.pdf' }), 400, 'truncated_pdf', /%%EOF/],
-    ['an encrypted PDF', async () => ({ bytes: await makeEncryptedPdf(), name: 'plan.pdf' }), 400, 'encrypted_pdf', /password/],
-    ['a PDF over the page limit', async () => ({ bytes: await makePdf(6), name: 'plan.pdf' }), 400, 'too_many_pages', /limit is 5/],
-    ['a PDF over the size limit', async () => ({ bytes: new Uint8Array(250_000).fill(32), name: 'plan.pdf' }), 413, 'file_too_large', /0\.2 MB/],
-    ['a file name with folder parts', async () => ({ bytes: await makePdf(1), name: '../../etc/plan.pdf' }), 400, 'bad_file_name', /folder parts/],
+  const refusals: Array<
+    [string, () => Promise<{ bytes: Uint8Array; name: string }>, number, string, RegExp]
+  > = [
+    [
+      'a text file named .pdf',
+      async () => ({ bytes: new TextEncoder().encode('hello, not a pdf'), name: 'plan.pdf' }),
+      415,
+      'not_pdf',
+      /%PDF-/,
+    ],
+    [
+      'an empty file',
+      async () => ({ bytes: new Uint8Array(), name: 'plan.pdf' }),
+      400,
+      'empty_file',
+      /empty/,
+    ],
+    [
+      'a truncated PDF',
+      async () => ({ bytes: truncate(await makePdf(2)), name: 'plan.pdf' }),
+      400,
+      'truncated_pdf',
+      /%%EOF/,
+    ],
+    [
+      'an encrypted PDF',
+      async () => ({ bytes: await makeEncryptedPdf(), name: 'plan.pdf' }),
+      400,
+      'encrypted_pdf',
+      /password/,
+    ],
+    [
+      'a PDF over the page limit',
+      async () => ({ bytes: await makePdf(6), name: 'plan.pdf' }),
+      400,
+      'too_many_pages',
+      /limit is 5/,
+    ],
+    [
+      'a PDF over the size limit',
+      async () => ({ bytes: new Uint8Array(250_000).fill(32), name: 'plan.pdf' }),
+      413,
+      'file_too_large',
+      /0\.2 MB/,
+    ],
+    [
+      'a file name with folder parts',
+      async () => ({ bytes: await makePdf(1), name: '../../etc/plan.pdf' }),
+      400,
+      'bad_file_name',
+      /folder parts/,
+    ],
   ];
   for (const [what, make, status, code, message] of refusals) {
     it(`when ${what} is uploaded, then ${status} ${code} and nothing is stored`, async () => {
       const { agent, pkg } = await newDraft();
       const { bytes, name } = await make();
-      const res = await agent.post(`/api/packages/${pkg.package.id}/files`).field('kind', 'lift_plan').attach('file', Buffer.from(bytes), {
+      const res = await agent
+        .post(`/api/packages/${pkg.package.id}/files`)
+        .field('kind', 'lift_plan')
+        .attach('file', Buffer.from(bytes), {
           // form-data keeps folder parts only when the name is given as a file path.
           ...(name.includes('/') ? { filepath: name } : { filename: name }),
           contentType: 'application/pdf',
@@ -152,10 +229,14 @@ describe('uploads', () => {
 describe('submit', () => {
   it('when the lift data is incomplete, then 400 names the fields under inputs and nothing freezes', async () => {
     const { agent, pkg } = await newDraft();
-    await agent.put(`/api/packages/${pkg.package.id}/draft`).send({ inputs: { ...example, crane: { ...example.crane, boomLength: { value: -3, unit: 'm' } } } });
+    await agent
+      .put(`/api/packages/${pkg.package.id}/draft`)
+      .send({ inputs: { ...example, crane: { ...example.crane, boomLength: { value: -3, unit: 'm' } } } });
     const res = await agent.post(`/api/packages/${pkg.package.id}/submit`);
     expect(res.status).toBe(400);
-    expect(res.body.error.fields).toEqual(expect.arrayContaining([expect.objectContaining({ path: 'inputs.crane.boomLength.value' })]));
+    expect(res.body.error.fields).toEqual(
+      expect.arrayContaining([expect.objectContaining({ path: 'inputs.crane.boomLength.value' })]),
+    );
     expect((await agent.get(`/api/packages/${pkg.package.id}`)).body.current.state).toBe('draft');
   });
 
@@ -171,8 +252,14 @@ describe('submit', () => {
     const { agent, pkg } = await newDraft();
     const id = pkg.package.id;
     await agent.put(`/api/packages/${id}/draft`).send({ inputs: example });
-    await agent.post(`/api/packages/${id}/files`).field('kind', 'lift_plan').attach('file', Buffer.from(await makePdf()), 'plan.pdf');
-    const [a, b] = await Promise.all([agent.post(`/api/packages/${id}/submit`), agent.post(`/api/packages/${id}/submit`)]);
+    await agent
+      .post(`/api/packages/${id}/files`)
+      .field('kind', 'lift_plan')
+      .attach('file', Buffer.from(await makePdf()), 'plan.pdf');
+    const [a, b] = await Promise.all([
+      agent.post(`/api/packages/${id}/submit`),
+      agent.post(`/api/packages/${id}/submit`),
+    ]);
     expect([a.status, b.status].sort()).toEqual([202, 409]);
     const ok = a.status === 202 ? a : b;
     expect(ok.body.package.status).toBe('checking');
@@ -182,7 +269,10 @@ describe('submit', () => {
     const again = await agent.put(`/api/packages/${id}/draft`).send({ inputs: {} });
     expect(again.status).toBe(409);
     expect(again.body.error.code).toBe('already_submitted');
-    const upload = await agent.post(`/api/packages/${id}/files`).field('kind', 'supporting').attach('file', Buffer.from(await makePdf()), 'extra.pdf');
+    const upload = await agent
+      .post(`/api/packages/${id}/files`)
+      .field('kind', 'supporting')
+      .attach('file', Buffer.from(await makePdf()), 'extra.pdf');
     expect(upload.status).toBe(409);
     await job?.remove();
   });
@@ -191,7 +281,10 @@ describe('submit', () => {
     const { w, agent, pkg } = await newDraft();
     const id = pkg.package.id;
     await agent.put(`/api/packages/${id}/draft`).send({ inputs: example });
-    await agent.post(`/api/packages/${id}/files`).field('kind', 'lift_plan').attach('file', Buffer.from(await makePdf()), 'plan.pdf');
+    await agent
+      .post(`/api/packages/${id}/files`)
+      .field('kind', 'lift_plan')
+      .attach('file', Buffer.from(await makePdf()), 'plan.pdf');
     const sub = await agent.post(`/api/packages/${id}/submit`);
     const reviewer = await signedIn(t.app, w.reviewer.email);
     expect((await reviewer.get('/api/packages')).body.items.map((p: { id: string }) => p.id)).toContain(id);
@@ -205,13 +298,19 @@ describe('calculations', () => {
     const res = await agent.post('/api/calculations').send({ input: example, units: 'imperial' });
     expect(res.status).toBe(200);
     expect(res.body.resultVersion).toBe(1);
-    expect(res.body.checks.map((c: { id: string }) => c.id)).toEqual(expect.arrayContaining(['gross-load', 'capacity', 'stability', 'power-line']));
+    expect(res.body.checks.map((c: { id: string }) => c.id)).toEqual(
+      expect.arrayContaining(['gross-load', 'capacity', 'stability', 'power-line']),
+    );
     expect(res.body.units).toBe('imperial');
   });
 
   it('when the lift has a negative weight and an unknown unit, then 400 names both fields', async () => {
     const { agent } = await newDraft();
-    const bad = { ...example, load: { ...example.load, weight: { value: -1, unit: 't' } }, crane: { ...example.crane, radius: { value: 12, unit: 'furlong' } } };
+    const bad = {
+      ...example,
+      load: { ...example.load, weight: { value: -1, unit: 't' } },
+      crane: { ...example.crane, radius: { value: 12, unit: 'furlong' } },
+    };
     const res = await agent.post('/api/calculations').send({ input: bad });
     expect(res.status).toBe(400);
     const paths = res.body.error.fields.map((f: { path: string }) => f.path);
@@ -223,7 +322,9 @@ describe('calculations', () => {
     const { agent } = await newDraft();
     const schema = await agent.get('/api/calculations/schema');
     expect(schema.status).toBe(200);
-    expect(Object.keys(schema.body.properties)).toEqual(expect.arrayContaining(['crane', 'chart', 'load', 'stated']));
+    expect(Object.keys(schema.body.properties)).toEqual(
+      expect.arrayContaining(['crane', 'chart', 'load', 'stated']),
+    );
   });
 });
 
@@ -236,7 +337,9 @@ describe('the OpenAPI document', () => {
         const p = path.join(dir, entry.name);
         if (entry.isDirectory()) walk(p);
         else if (entry.name === 'routes.ts') {
-          for (const m of fs.readFileSync(p, 'utf8').matchAll(/router\.(get|post|put|patch|delete)\(\s*'([^']+)'/g)) {
+          for (const m of fs
+            .readFileSync(p, 'utf8')
+            .matchAll(/router\.(get|post|put|patch|delete)\(\s*'([^']+)'/g)) {
             declared.push(`${m[1]} /api${m[2].replace(/:(\w+)/g, '{$1}')}`);
           }
         }
@@ -244,7 +347,9 @@ describe('the OpenAPI document', () => {
     };
     walk('server/modules');
     expect(declared.length).toBeGreaterThan(10);
-    const documented = Object.entries(doc.paths as Record<string, Record<string, unknown>>).flatMap(([p, ops]) => Object.keys(ops).map((m) => `${m} ${p}`));
+    const documented = Object.entries(doc.paths as Record<string, Record<string, unknown>>).flatMap(
+      ([p, ops]) => Object.keys(ops).map((m) => `${m} ${p}`),
+    );
     expect(documented).toEqual(expect.arrayContaining(declared));
   });
 });

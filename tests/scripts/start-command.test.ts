@@ -35,7 +35,10 @@ async function start(ports: { http: number; pg: number; redis: number }): Promis
     SKIP_CLIENT_BUILD: '1',
     LOG_LEVEL: 'warn',
   });
-  const child = spawn(process.execPath, ['--import', 'tsx', 'scripts/start.ts'], { env, stdio: ['ignore', 'pipe', 'pipe'] });
+  const child = spawn(process.execPath, ['--import', 'tsx', 'scripts/start.ts'], {
+    env,
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
   running = child;
   let out = '';
   child.stdout!.on('data', (d) => (out += d));
@@ -106,7 +109,9 @@ describe('the start command', () => {
     expect(await signInAndCount(ports.http)).toBe(total);
     const again = new pg.Client({ connectionString: `postgres://app@127.0.0.1:${ports.pg}/counterpoise` });
     await again.connect();
-    const marker = await again.query(`SELECT count(*)::int AS n FROM audit_events WHERE action = 'test.marker'`);
+    const marker = await again.query(
+      `SELECT count(*)::int AS n FROM audit_events WHERE action = 'test.marker'`,
+    );
     await again.end();
     expect(marker.rows[0].n).toBe(1);
     expect(await stop(second)).toBe(0);
@@ -124,7 +129,13 @@ describe('the start command', () => {
     fs.chmodSync(otherDir, 0o755);
     try {
       const child = spawn(process.execPath, ['--import', 'tsx', 'scripts/start.ts'], {
-        env: { ...env, DATA_DIR: otherDir, CP_PG_PORT: String(taken), SKIP_CLIENT_BUILD: '1', PORT: String(await freePort()) },
+        env: {
+          ...env,
+          DATA_DIR: otherDir,
+          CP_PG_PORT: String(taken),
+          SKIP_CLIENT_BUILD: '1',
+          PORT: String(await freePort()),
+        },
         stdio: ['ignore', 'pipe', 'pipe'],
       });
       let out = '';

@@ -25,7 +25,8 @@ export async function startTestApp(overrides: Partial<Config> = {}): Promise<Tes
 export async function signedIn(app: Express, email: string, password = TEST_PASSWORD) {
   const agent = supertest.agent(app);
   const res = await agent.post('/api/auth/sign-in').send({ email, password });
-  if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  if (res.status !== 200)
+    throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;
 }
 

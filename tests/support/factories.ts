@@ -12,11 +12,20 @@ import { TEST_PASSWORD } from './app';
 const hash = bcrypt.hashSync(TEST_PASSWORD, 4);
 const tag = () => randomUUID().slice(0, 8);
 
-export async function makeOrganisation(ds: DataSource, kind: 'contractor' | 'owner', name = `${kind} ${tag()}`) {
+export async function makeOrganisation(
+  ds: DataSource,
+  kind: 'contractor' | 'owner',
+  name = `${kind} ${tag()}`,
+) {
   return ds.getRepository(Organisation).save({ name, kind });
 }
 
-export async function makeUser(ds: DataSource, organisation: Organisation, role: Role, extra: Partial<User> = {}) {
+export async function makeUser(
+  ds: DataSource,
+  organisation: Organisation,
+  role: Role,
+  extra: Partial<User> = {},
+) {
   return ds.getRepository(User).save({
     organisationId: organisation.id,
     email: `${role}-${tag()}@test.example`,
@@ -29,14 +38,23 @@ export async function makeUser(ds: DataSource, organisation: Organisation, role:
 }
 
 export async function makeSite(ds: DataSource, owner: Organisation, reviewers: User[] = []) {
-  const site = await ds.getRepository(Site).save({ ownerOrganisationId: owner.id, name: `Site ${tag()}`, code: tag() });
+  const site = await ds
+    .getRepository(Site)
+    .save({ ownerOrganisationId: owner.id, name: `Site ${tag()}`, code: tag() });
   for (const r of reviewers) await ds.getRepository(SiteMember).save({ siteId: site.id, userId: r.id });
   return site;
 }
 
 export async function makePackage(
   ds: DataSource,
-  opts: { contractor: Organisation; site: Site; createdBy: User; status?: PackageStatus; engineer?: User; plannedLiftDate?: string },
+  opts: {
+    contractor: Organisation;
+    site: Site;
+    createdBy: User;
+    status?: PackageStatus;
+    engineer?: User;
+    plannedLiftDate?: string;
+  },
 ) {
   const pkg = await ds.getRepository(LiftPackage).save({
     reference: `T-${tag()}`,

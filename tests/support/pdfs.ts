@@ -5,7 +5,8 @@ import { PDFDocument, PDFName, PDFString, StandardFonts } from 'pdf-lib';
 export async function makePdf(pages = 1, text = 'Test lift plan'): Promise<Uint8Array> {
   const doc = await PDFDocument.create();
   const font = await doc.embedFont(StandardFonts.Helvetica);
-  for (let i = 0; i < pages; i++) doc.addPage([595, 842]).drawText(`${text} — page ${i + 1}`, { x: 50, y: 780, size: 14, font });
+  for (let i = 0; i < pages; i++)
+    doc.addPage([595, 842]).drawText(`${text} — page ${i + 1}`, { x: 50, y: 780, size: 14, font });
   return doc.save();
 }
 

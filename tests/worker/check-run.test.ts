@@ -33,10 +33,19 @@ afterAll(async () => {
 
 async function submittedRevision(inputs: Record<string, unknown>) {
   const w = await makeWorld(t.ctx.dataSource);
-  const pkg = await makePackage(t.ctx.dataSource, { contractor: w.contractorA, site: w.site, createdBy: w.plannerA, status: 'checking' });
-  const revision = await t.ctx.dataSource.getRepository(Revision).findOneByOrFail({ packageId: pkg.id, number: 1 });
+  const pkg = await makePackage(t.ctx.dataSource, {
+    contractor: w.contractorA,
+    site: w.site,
+    createdBy: w.plannerA,
+    status: 'checking',
+  });
+  const revision = await t.ctx.dataSource
+    .getRepository(Revision)
+    .findOneByOrFail({ packageId: pkg.id, number: 1 });
   await t.ctx.dataSource.getRepository(Revision).update(revision.id, { inputs: inputs as never });
-  await t.ctx.dataSource.getRepository(Revision).update(revision.id, { state: 'submitted', checkStatus: 'queued', submittedAt: new Date() });
+  await t.ctx.dataSource
+    .getRepository(Revision)
+    .update(revision.id, { state: 'submitted', checkStatus: 'queued', submittedAt: new Date() });
   return { pkg, revisionId: revision.id };
 }
 
@@ -94,10 +103,9 @@ describe('the check-run worker', () => {
   it('when the same revision is queued twice, then one job runs and a repeat run changes nothing', async () => {
     const { pkg, revisionId } = await submittedRevision(example);
     const total = async () =>
-      Object.values(await t.ctx.queues.checkRun.getJobCounts('waiting', 'active', 'completed', 'failed', 'delayed')).reduce(
-        (a, b) => a + b,
-        0,
-      );
+      Object.values(
+        await t.ctx.queues.checkRun.getJobCounts('waiting', 'active', 'completed', 'failed', 'delayed'),
+      ).reduce((a, b) => a + b, 0);
     const before = await total();
     await enqueueCheck(t.ctx.queues, revisionId);
     await enqueueCheck(t.ctx.queues, revisionId);

@@ -82,7 +82,9 @@ export class InitialSchema1764633600000 implements MigrationInterface {
         END IF;
         RETURN NEW;
       END $$ LANGUAGE plpgsql`);
-    await q.query(`CREATE TRIGGER revisions_freeze BEFORE UPDATE ON revisions FOR EACH ROW EXECUTE FUNCTION revisions_freeze()`);
+    await q.query(
+      `CREATE TRIGGER revisions_freeze BEFORE UPDATE ON revisions FOR EACH ROW EXECUTE FUNCTION revisions_freeze()`,
+    );
     await q.query(`CREATE TABLE uploaded_files (
       id uuid PRIMARY KEY DEFAULT gen_random_uuid(),
       revision_id uuid NOT NULL REFERENCES revisions(id) ON DELETE CASCADE,

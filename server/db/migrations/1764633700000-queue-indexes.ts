@@ -6,7 +6,9 @@ export class QueueIndexes1764633700000 implements MigrationInterface {
 
   async up(q: QueryRunner): Promise<void> {
     await q.query(`CREATE INDEX lift_packages_contractor_idx ON lift_packages (contractor_organisation_id)`);
-    await q.query(`CREATE INDEX lift_packages_site_status_idx ON lift_packages (site_id, status, planned_lift_date)`);
+    await q.query(
+      `CREATE INDEX lift_packages_site_status_idx ON lift_packages (site_id, status, planned_lift_date)`,
+    );
     await q.query(`CREATE INDEX lift_packages_engineer_idx ON lift_packages (assigned_engineer_id)`);
     await q.query(`CREATE INDEX revisions_package_idx ON revisions (package_id, number DESC)`);
     await q.query(`CREATE INDEX findings_package_idx ON findings (package_id)`);

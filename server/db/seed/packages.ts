@@ -20,7 +20,10 @@ import type { Site } from '../../modules/sites/site.entity';
 import type { User } from '../../modules/users/user.entity';
 import { drawPlanPdf, type PlanSection } from './plan-pdf';
 
-const EXAMPLES = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../shared/engineering/examples');
+const EXAMPLES = path.resolve(
+  path.dirname(fileURLToPath(import.meta.url)),
+  '../../../shared/engineering/examples',
+);
 
 interface DemoPackage {
   site: 'refinery' | 'wharf';
@@ -34,7 +37,12 @@ interface DemoPackage {
   engineer?: 'dev' | 'ines';
   decision?: Decision;
   conditions?: string;
-  findings?: Array<{ checkId: string | null; text: string; severity: 'note' | 'minor' | 'major' | 'blocking'; page?: number }>;
+  findings?: Array<{
+    checkId: string | null;
+    text: string;
+    severity: 'note' | 'minor' | 'major' | 'blocking';
+    page?: number;
+  }>;
   /** A second revision in draft after a "Revise and resubmit". */
   revisingAfter?: boolean;
   /** Breaks the inputs so the check run refuses them (shows the check_failed state). */
@@ -42,20 +50,190 @@ interface DemoPackage {
 }
 
 const DEMO: DemoPackage[] = [
-  { site: 'refinery', contractor: 'brackwater', title: 'Set charge heater convection module', example: 'pass-outriggers', loadDescription: 'Convection module CM-2', craneName: 'Brackwater BL-60 all-terrain (fleet no. 14)', daysToLift: -5, status: 'returned', engineer: 'dev', decision: 'accepted' },
-  { site: 'refinery', contractor: 'brackwater', title: 'Lift reactor head onto R-301', example: 'caution-capacity-critical', loadDescription: 'Reactor head R-301', craneName: 'Brackwater BL-60 all-terrain (fleet no. 9)', daysToLift: 3, status: 'with_engineer', engineer: 'dev', findings: [{ checkId: 'capacity', text: 'Chart use over 75%: confirm the load weight from the fabricator’s weigh ticket, not the drawing.', severity: 'major', page: 1 }] },
-  { site: 'refinery', contractor: 'selsdon', title: 'Replace cooling tower fan gearbox', example: 'caution-discrepancies', loadDescription: 'Fan gearbox CT-4', craneName: 'S&H Titan 55 all-terrain', daysToLift: 6, status: 'ready_for_review' },
-  { site: 'refinery', contractor: 'brackwater', title: 'Pipe rack spool beside the 132 kV line', example: 'fail-power-line', loadDescription: 'Pipe spool PR-7-12', craneName: 'Brackwater BL-60 all-terrain (fleet no. 14)', daysToLift: 9, status: 'draft', engineer: 'ines', decision: 'revise_and_resubmit', revisingAfter: true, conditions: 'Move the crane or the pick point so the boom stays outside the minimum approach distance, or get the line de-energised and say so in the plan.', findings: [{ checkId: 'power-line', text: 'Boom tip passes inside the minimum approach distance of the 132 kV line.', severity: 'blocking', page: 1 }, { checkId: null, text: 'Add the spotter’s position to the site plan.', severity: 'minor', page: 2 }] },
-  { site: 'refinery', contractor: 'selsdon', title: 'Tandem set of column section C-12', example: 'caution-tandem', loadDescription: 'Column section C-12', craneName: 'S&H Titan 55 all-terrain', daysToLift: 12, status: 'with_engineer', engineer: 'ines' },
-  { site: 'refinery', contractor: 'selsdon', title: 'Personnel platform for flare tip inspection', example: 'fail-personnel', loadDescription: 'Personnel platform, 2 occupants', craneName: 'S&H Titan 55 all-terrain', daysToLift: 2, status: 'ready_for_review' },
-  { site: 'refinery', contractor: 'brackwater', title: 'Heat exchanger bundle pull, E-210', example: 'fail-ground-bearing', loadDescription: 'Tube bundle E-210', craneName: 'Brackwater BL-60 all-terrain (fleet no. 9)', daysToLift: 15, status: 'draft' },
-  { site: 'wharf', contractor: 'brackwater', title: 'Unload transformer from the barge', example: 'pass-crawler', loadDescription: 'Transformer T-3', craneName: 'Brackwater BC-150 crawler', daysToLift: 1, status: 'decided', engineer: 'dev', decision: 'accepted_as_noted', conditions: 'Lift director to confirm the barge is ballasted level before the pick; hold the lift if wind exceeds 9 m/s.' },
-  { site: 'wharf', contractor: 'selsdon', title: 'Lift loading arm onto berth 3', example: 'fail-stability', loadDescription: 'Loading arm LA-3', craneName: 'S&H Titan 55 all-terrain', daysToLift: 4, status: 'returned', engineer: 'ines', decision: 'rejected', conditions: 'The crane as configured cannot make this lift. Resubmit with the full counterweight or a larger crane.', findings: [{ checkId: 'stability', text: 'Stability ratio below the site minimum with the reduced counterweight entered.', severity: 'blocking', page: 1 }] },
-  { site: 'wharf', contractor: 'brackwater', title: 'Lower pump set through the pump house roof', example: 'pass-gantry-a-frame', loadDescription: 'Pump set P-2', craneName: 'Brackwater 25 t A-frame', daysToLift: 8, status: 'ready_for_review' },
-  { site: 'wharf', contractor: 'selsdon', title: 'Swap mooring winch on berth 2', example: 'pass-imperial-units', loadDescription: 'Mooring winch MW-2', craneName: 'S&H Titan 55 all-terrain', daysToLift: 5, status: 'with_engineer', engineer: 'dev' },
-  { site: 'wharf', contractor: 'brackwater', title: 'Replace fender panels, berth 1', example: 'fail-rigging', loadDescription: 'Fender panel', craneName: 'Brackwater BL-60 all-terrain (fleet no. 14)', daysToLift: 10, status: 'checking' },
-  { site: 'wharf', contractor: 'selsdon', title: 'Gangway tower section, afternoon window', example: 'fail-wind', loadDescription: 'Gangway tower section', craneName: 'S&H Titan 55 all-terrain', daysToLift: 7, status: 'check_failed', breakInputs: true },
-  { site: 'wharf', contractor: 'selsdon', title: 'Shore power cable reel', example: 'pass-outriggers', loadDescription: 'Cable reel', craneName: 'S&H Titan 55 all-terrain', daysToLift: 20, status: 'draft' },
+  {
+    site: 'refinery',
+    contractor: 'brackwater',
+    title: 'Set charge heater convection module',
+    example: 'pass-outriggers',
+    loadDescription: 'Convection module CM-2',
+    craneName: 'Brackwater BL-60 all-terrain (fleet no. 14)',
+    daysToLift: -5,
+    status: 'returned',
+    engineer: 'dev',
+    decision: 'accepted',
+  },
+  {
+    site: 'refinery',
+    contractor: 'brackwater',
+    title: 'Lift reactor head onto R-301',
+    example: 'caution-capacity-critical',
+    loadDescription: 'Reactor head R-301',
+    craneName: 'Brackwater BL-60 all-terrain (fleet no. 9)',
+    daysToLift: 3,
+    status: 'with_engineer',
+    engineer: 'dev',
+    findings: [
+      {
+        checkId: 'capacity',
+        text: 'Chart use over 75%: confirm the load weight from the fabricator’s weigh ticket, not the drawing.',
+        severity: 'major',
+        page: 1,
+      },
+    ],
+  },
+  {
+    site: 'refinery',
+    contractor: 'selsdon',
+    title: 'Replace cooling tower fan gearbox',
+    example: 'caution-discrepancies',
+    loadDescription: 'Fan gearbox CT-4',
+    craneName: 'S&H Titan 55 all-terrain',
+    daysToLift: 6,
+    status: 'ready_for_review',
+  },
+  {
+    site: 'refinery',
+    contractor: 'brackwater',
+    title: 'Pipe rack spool beside the 132 kV line',
+    example: 'fail-power-line',
+    loadDescription: 'Pipe spool PR-7-12',
+    craneName: 'Brackwater BL-60 all-terrain (fleet no. 14)',
+    daysToLift: 9,
+    status: 'draft',
+    engineer: 'ines',
+    decision: 'revise_and_resubmit',
+    revisingAfter: true,
+    conditions:
+      'Move the crane or the pick point so the boom stays outside the minimum approach distance, or get the line de-energised and say so in the plan.',
+    findings: [
+      {
+        checkId: 'power-line',
+        text: 'Boom tip passes inside the minimum approach distance of the 132 kV line.',
+        severity: 'blocking',
+        page: 1,
+      },
+      { checkId: null, text: 'Add the spotter’s position to the site plan.', severity: 'minor', page: 2 },
+    ],
+  },
+  {
+    site: 'refinery',
+    contractor: 'selsdon',
+    title: 'Tandem set of column section C-12',
+    example: 'caution-tandem',
+    loadDescription: 'Column section C-12',
+    craneName: 'S&H Titan 55 all-terrain',
+    daysToLift: 12,
+    status: 'with_engineer',
+    engineer: 'ines',
+  },
+  {
+    site: 'refinery',
+    contractor: 'selsdon',
+    title: 'Personnel platform for flare tip inspection',
+    example: 'fail-personnel',
+    loadDescription: 'Personnel platform, 2 occupants',
+    craneName: 'S&H Titan 55 all-terrain',
+    daysToLift: 2,
+    status: 'ready_for_review',
+  },
+  {
+    site: 'refinery',
+    contractor: 'brackwater',
+    title: 'Heat exchanger bundle pull, E-210',
+    example: 'fail-ground-bearing',
+    loadDescription: 'Tube bundle E-210',
+    craneName: 'Brackwater BL-60 all-terrain (fleet no. 9)',
+    daysToLift: 15,
+    status: 'draft',
+  },
+  {
+    site: 'wharf',
+    contractor: 'brackwater',
+    title: 'Unload transformer from the barge',
+    example: 'pass-crawler',
+    loadDescription: 'Transformer T-3',
+    craneName: 'Brackwater BC-150 crawler',
+    daysToLift: 1,
+    status: 'decided',
+    engineer: 'dev',
+    decision: 'accepted_as_noted',
+    conditions:
+      'Lift director to confirm the barge is ballasted level before the pick; hold the lift if wind exceeds 9 m/s.',
+  },
+  {
+    site: 'wharf',
+    contractor: 'selsdon',
+    title: 'Lift loading arm onto berth 3',
+    example: 'fail-stability',
+    loadDescription: 'Loading arm LA-3',
+    craneName: 'S&H Titan 55 all-terrain',
+    daysToLift: 4,
+    status: 'returned',
+    engineer: 'ines',
+    decision: 'rejected',
+    conditions:
+      'The crane as configured cannot make this lift. Resubmit with the full counterweight or a larger crane.',
+    findings: [
+      {
+        checkId: 'stability',
+        text: 'Stability ratio below the site minimum with the reduced counterweight entered.',
+        severity: 'blocking',
+        page: 1,
+      },
+    ],
+  },
+  {
+    site: 'wharf',
+    contractor: 'brackwater',
+    title: 'Lower pump set through the pump house roof',
+    example: 'pass-gantry-a-frame',
+    loadDescription: 'Pump set P-2',
+    craneName: 'Brackwater 25 t A-frame',
+    daysToLift: 8,
+    status: 'ready_for_review',
+  },
+  {
+    site: 'wharf',
+    contractor: 'selsdon',
+    title: 'Swap mooring winch on berth 2',
+    example: 'pass-imperial-units',
+    loadDescription: 'Mooring winch MW-2',
+    craneName: 'S&H Titan 55 all-terrain',
+    daysToLift: 5,
+    status: 'with_engineer',
+    engineer: 'dev',
+  },
+  {
+    site: 'wharf',
+    contractor: 'brackwater',
+    title: 'Replace fender panels, berth 1',
+    example: 'fail-rigging',
+    loadDescription: 'Fender panel',
+    craneName: 'Brackwater BL-60 all-terrain (fleet no. 14)',
+    daysToLift: 10,
+    status: 'checking',
+  },
+  {
+    site: 'wharf',
+    contractor: 'selsdon',
+    title: 'Gangway tower section, afternoon window',
+    example: 'fail-wind',
+    loadDescription: 'Gangway tower section',
+    craneName: 'S&H Titan 55 all-terrain',
+    daysToLift: 7,
+    status: 'check_failed',
+    breakInputs: true,
+  },
+  {
+    site: 'wharf',
+    contractor: 'selsdon',
+    title: 'Shore power cable reel',
+    example: 'pass-outriggers',
+    loadDescription: 'Cable reel',
+    craneName: 'S&H Titan 55 all-terrain',
+    daysToLift: 20,
+    status: 'draft',
+  },
 ];
 
 function isoDay(offsetDays: number): string {
@@ -84,7 +262,9 @@ function planSections(input: Record<string, any>): PlanSection[] {
         ...(crane.boomLength ? ([['Boom length', q(crane.boomLength)]] as [string, string][]) : []),
         ...(crane.radius ? ([['Working radius', q(crane.radius)]] as [string, string][]) : []),
         ...(crane.boomAngle ? ([['Boom angle', q(crane.boomAngle)]] as [string, string][]) : []),
-        ...(crane.counterweight ? ([['Counterweight', q(crane.counterweight.weight)]] as [string, string][]) : []),
+        ...(crane.counterweight
+          ? ([['Counterweight', q(crane.counterweight.weight)]] as [string, string][])
+          : []),
         ['Load chart used', String(input.chart?.name ?? '')],
       ],
     },
@@ -96,7 +276,10 @@ function planSections(input: Record<string, any>): PlanSection[] {
         ...(input.hookBlock ? ([['Hook block', q(input.hookBlock.weight)]] as [string, string][]) : []),
         ...(input.rigging?.slings
           ? ([
-              ['Slings', `${input.rigging.slings.name ?? ''} (${input.rigging.slings.hitch}, ${input.rigging.slings.material})`],
+              [
+                'Slings',
+                `${input.rigging.slings.name ?? ''} (${input.rigging.slings.hitch}, ${input.rigging.slings.material})`,
+              ],
               ['Sling rated load (vertical, per leg)', q(input.rigging.slings.ratedLoadVertical)],
             ] as [string, string][])
           : []),
@@ -110,14 +293,22 @@ function planSections(input: Record<string, any>): PlanSection[] {
     sections.push({
       heading: 'Ground and mats',
       rows: [
-        ...(input.ground.mat ? ([['Mat', `${q(input.ground.mat.length)} × ${q(input.ground.mat.width)}`]] as [string, string][]) : []),
-        ...(input.ground.allowableBearing ? ([['Allowable bearing', q(input.ground.allowableBearing)]] as [string, string][]) : []),
-        ...(input.ground.soilClass ? ([['Soil class', String(input.ground.soilClass).replace(/_/g, ' ')]] as [string, string][]) : []),
+        ...(input.ground.mat
+          ? ([['Mat', `${q(input.ground.mat.length)} × ${q(input.ground.mat.width)}`]] as [string, string][])
+          : []),
+        ...(input.ground.allowableBearing
+          ? ([['Allowable bearing', q(input.ground.allowableBearing)]] as [string, string][])
+          : []),
+        ...(input.ground.soilClass
+          ? ([['Soil class', String(input.ground.soilClass).replace(/_/g, ' ')]] as [string, string][])
+          : []),
       ],
     });
   }
   const stated = input.stated ?? {};
-  const statedRows = Object.entries(stated).map(([k, v]) => [k.replace(/([A-Z])/g, ' $1').toLowerCase(), q(v)] as [string, string]);
+  const statedRows = Object.entries(stated).map(
+    ([k, v]) => [k.replace(/([A-Z])/g, ' $1').toLowerCase(), q(v)] as [string, string],
+  );
   if (statedRows.length) sections.push({ heading: 'Figures stated in this plan', rows: statedRows });
   sections.push({
     heading: 'Sequence',
@@ -144,8 +335,14 @@ export async function seedPackages(
 ): Promise<Seeded[]> {
   const storage = new LocalFolderStorage(filesDir);
   const contractors = {
-    brackwater: { org: ctx.orgs.get('Brackwater Lifting Ltd')!, person: ctx.people.get('lena.brisk@brackwater-lifting.example')! },
-    selsdon: { org: ctx.orgs.get('Selsdon & Hale Crane Hire')!, person: ctx.people.get('tomas.hale@selsdon-hale.example')! },
+    brackwater: {
+      org: ctx.orgs.get('Brackwater Lifting Ltd')!,
+      person: ctx.people.get('lena.brisk@brackwater-lifting.example')!,
+    },
+    selsdon: {
+      org: ctx.orgs.get('Selsdon & Hale Crane Hire')!,
+      person: ctx.people.get('tomas.hale@selsdon-hale.example')!,
+    },
   };
   const counters = { refinery: 0, wharf: 0 };
   const seeded: Seeded[] = [];
@@ -168,7 +365,15 @@ export async function seedPackages(
       plannedLiftDate: isoDay(spec.daysToLift),
       currentRevision: 1,
     });
-    await m.getRepository(AuditEvent).save({ packageId: pkg.id, actorId: person.id, organisationId: org.id, action: 'package.created', detail: { reference, revision: 1 } });
+    await m
+      .getRepository(AuditEvent)
+      .save({
+        packageId: pkg.id,
+        actorId: person.id,
+        organisationId: org.id,
+        action: 'package.created',
+        detail: { reference, revision: 1 },
+      });
     const submitted = spec.status !== 'draft' || spec.revisingAfter === true;
     const revision = await m.getRepository(Revision).save({
       packageId: pkg.id,
@@ -208,7 +413,15 @@ export async function seedPackages(
         submittedById: person.id,
         checkStatus: 'queued',
       });
-      await m.getRepository(AuditEvent).save({ packageId: pkg.id, actorId: person.id, organisationId: org.id, action: 'revision.submitted', detail: { revision: 1 } });
+      await m
+        .getRepository(AuditEvent)
+        .save({
+          packageId: pkg.id,
+          actorId: person.id,
+          organisationId: org.id,
+          action: 'revision.submitted',
+          detail: { revision: 1 },
+        });
     }
     seeded.push({ spec, packageId: pkg.id, submittedRevisionId: submitted ? revision.id : null });
   }
@@ -216,8 +429,16 @@ export async function seedPackages(
 }
 
 /** After the packages are committed: run their checks, then lay the review state on top. */
-export async function finishSeededPackages(ds: DataSource, seeded: Seeded[], people: Map<string, User>, reviewer: User) {
-  const engineers = { dev: people.get('dev.marsh@tamsin-ridge.example')!, ines: people.get('ines.varga@tamsin-ridge.example')! };
+export async function finishSeededPackages(
+  ds: DataSource,
+  seeded: Seeded[],
+  people: Map<string, User>,
+  reviewer: User,
+) {
+  const engineers = {
+    dev: people.get('dev.marsh@tamsin-ridge.example')!,
+    ines: people.get('ines.varga@tamsin-ridge.example')!,
+  };
   for (const { spec, packageId, submittedRevisionId } of seeded) {
     // 'checking' packages stay queued: the worker picks them up when it starts.
     if (submittedRevisionId && spec.status !== 'checking') {
@@ -230,9 +451,18 @@ export async function finishSeededPackages(ds: DataSource, seeded: Seeded[], peo
     await ds.transaction(async (m) => {
       const engineer = spec.engineer ? engineers[spec.engineer] : null;
       if (engineer) {
-        await m.getRepository(Assignment).save({ packageId, engineerId: engineer.id, assignedById: reviewer.id });
+        await m
+          .getRepository(Assignment)
+          .save({ packageId, engineerId: engineer.id, assignedById: reviewer.id });
         await m.getRepository(LiftPackage).update(packageId, { assignedEngineerId: engineer.id });
-        await m.getRepository(AuditEvent).save({ packageId, actorId: reviewer.id, action: 'engineer.assigned', detail: { engineer: engineer.name } });
+        await m
+          .getRepository(AuditEvent)
+          .save({
+            packageId,
+            actorId: reviewer.id,
+            action: 'engineer.assigned',
+            detail: { engineer: engineer.name },
+          });
       }
       for (const f of spec.findings ?? []) {
         await m.getRepository(Finding).save({
@@ -254,13 +484,22 @@ export async function finishSeededPackages(ds: DataSource, seeded: Seeded[], peo
           engineerId: engineer.id,
         });
         await m.getRepository(LiftPackage).update(packageId, { decision: spec.decision });
-        await m.getRepository(AuditEvent).save({ packageId, actorId: engineer.id, action: 'decision.recorded', detail: { decision: spec.decision, revision: 1 } });
+        await m
+          .getRepository(AuditEvent)
+          .save({
+            packageId,
+            actorId: engineer.id,
+            action: 'decision.recorded',
+            detail: { decision: spec.decision, revision: 1 },
+          });
       }
       if (spec.revisingAfter) {
         const first = await m.getRepository(Revision).findOneByOrFail({ id: submittedRevisionId! });
         await m.getRepository(Revision).save({ packageId, number: 2, state: 'draft', inputs: first.inputs });
         await m.getRepository(LiftPackage).update(packageId, { currentRevision: 2, status: 'draft' });
-        await m.getRepository(AuditEvent).save({ packageId, actorId: null, action: 'revision.started', detail: { revision: 2 } });
+        await m
+          .getRepository(AuditEvent)
+          .save({ packageId, actorId: null, action: 'revision.started', detail: { revision: 2 } });
       } else if (spec.status !== 'checking' && spec.status !== 'check_failed') {
         await m.getRepository(LiftPackage).update(packageId, { status: spec.status });
       }
@@ -271,13 +510,26 @@ export async function finishSeededPackages(ds: DataSource, seeded: Seeded[], peo
 function sketchOf(input: Record<string, any>) {
   const c = input.crane ?? {};
   const toM = (x: { value: number; unit: string } | undefined) =>
-    x ? (x.unit === 'ft' ? x.value * 0.3048 : x.unit === 'in' ? x.value * 0.0254 : x.unit === 'mm' ? x.value / 1000 : x.value) : undefined;
+    x
+      ? x.unit === 'ft'
+        ? x.value * 0.3048
+        : x.unit === 'in'
+          ? x.value * 0.0254
+          : x.unit === 'mm'
+            ? x.value / 1000
+            : x.value
+      : undefined;
   const boom = toM(c.boomLength);
   const radius = toM(c.radius);
   if (!boom || !radius) return undefined;
   const offset = toM(c.pivotOffset) ?? 0;
   const angle = (Math.acos(Math.min(1, Math.max(0, (radius - offset) / boom))) * 180) / Math.PI;
-  return { boomLengthM: boom, boomAngleDeg: angle, radiusM: radius, counterweightArmM: toM(c.counterweight?.cgBehindRotation) ?? 3 };
+  return {
+    boomLengthM: boom,
+    boomAngleDeg: angle,
+    radiusM: radius,
+    counterweightArmM: toM(c.counterweight?.cgBehindRotation) ?? 3,
+  };
 }
 
 async function pageCount(pdf: Uint8Array) {

@@ -69,7 +69,13 @@ export async function drawPlanPdf(data: PlanPdfData): Promise<Uint8Array> {
     page = doc.addPage([595.28, 841.89]);
     pages.push(page);
     y = header(page, data, bold, regular);
-    page.drawText('Crane side view (not to scale for construction)', { x: 48, y, size: 12, font: bold, color: INK });
+    page.drawText('Crane side view (not to scale for construction)', {
+      x: 48,
+      y,
+      size: 12,
+      font: bold,
+      color: INK,
+    });
     drawSketch(page, data.sketch, regular, y - 30);
   }
 
@@ -90,13 +96,16 @@ function header(page: PDFPage, data: PlanPdfData, bold: PDFFont, regular: PDFFon
   page.drawText(data.contractor.toUpperCase(), { x: 48, y: top, size: 9, font: bold, color: MUTED });
   page.drawText('LIFT PLAN', { x: 470, y: top, size: 9, font: bold, color: MUTED });
   page.drawText(`${data.reference}  ${data.title}`, { x: 48, y: top - 22, size: 15, font: bold, color: INK });
-  page.drawText(`${data.site}   ·   planned ${data.plannedDate}   ·   revision ${data.revision}   ·   prepared by ${data.preparedBy}`, {
-    x: 48,
-    y: top - 40,
-    size: 9,
-    font: regular,
-    color: MUTED,
-  });
+  page.drawText(
+    `${data.site}   ·   planned ${data.plannedDate}   ·   revision ${data.revision}   ·   prepared by ${data.preparedBy}`,
+    {
+      x: 48,
+      y: top - 40,
+      size: 9,
+      font: regular,
+      color: MUTED,
+    },
+  );
   page.drawLine({ start: { x: 48, y: top - 50 }, end: { x: 547, y: top - 50 }, thickness: 1.2, color: INK });
   return top - 76;
 }
@@ -110,11 +119,47 @@ function drawSketch(page: PDFPage, s: NonNullable<PlanPdfData['sketch']>, font: 
   const tipX = pivotX + Math.cos(angle) * s.boomLengthM * scale;
   const tipY = pivotY + Math.sin(angle) * s.boomLengthM * scale;
   page.drawLine({ start: { x: 60, y: groundY }, end: { x: 540, y: groundY }, thickness: 1, color: INK });
-  page.drawRectangle({ x: pivotX - 3 * scale, y: groundY, width: 7 * scale, height: 2.2 * scale, borderColor: INK, borderWidth: 1 });
-  page.drawRectangle({ x: pivotX - s.counterweightArmM * scale - scale, y: pivotY - scale, width: 2 * scale, height: 2 * scale, color: MUTED });
+  page.drawRectangle({
+    x: pivotX - 3 * scale,
+    y: groundY,
+    width: 7 * scale,
+    height: 2.2 * scale,
+    borderColor: INK,
+    borderWidth: 1,
+  });
+  page.drawRectangle({
+    x: pivotX - s.counterweightArmM * scale - scale,
+    y: pivotY - scale,
+    width: 2 * scale,
+    height: 2 * scale,
+    color: MUTED,
+  });
   page.drawLine({ start: { x: pivotX, y: pivotY }, end: { x: tipX, y: tipY }, thickness: 3, color: INK });
-  page.drawLine({ start: { x: tipX, y: tipY }, end: { x: tipX, y: groundY + 2 * scale }, thickness: 0.8, color: INK, dashArray: [4, 3] });
-  page.drawRectangle({ x: tipX - scale, y: groundY + scale, width: 2 * scale, height: scale, borderColor: INK, borderWidth: 1 });
-  page.drawText(`radius ${s.radiusM.toFixed(1)} m`, { x: (pivotX + tipX) / 2 - 20, y: groundY - 16, size: 9, font });
-  page.drawText(`boom ${s.boomLengthM.toFixed(1)} m at ${s.boomAngleDeg.toFixed(0)}°`, { x: (pivotX + tipX) / 2 + 10, y: (pivotY + tipY) / 2, size: 9, font });
+  page.drawLine({
+    start: { x: tipX, y: tipY },
+    end: { x: tipX, y: groundY + 2 * scale },
+    thickness: 0.8,
+    color: INK,
+    dashArray: [4, 3],
+  });
+  page.drawRectangle({
+    x: tipX - scale,
+    y: groundY + scale,
+    width: 2 * scale,
+    height: scale,
+    borderColor: INK,
+    borderWidth: 1,
+  });
+  page.drawText(`radius ${s.radiusM.toFixed(1)} m`, {
+    x: (pivotX + tipX) / 2 - 20,
+    y: groundY - 16,
+    size: 9,
+    font,
+  });
+  page.drawText(`boom ${s.boomLengthM.toFixed(1)} m at ${s.boomAngleDeg.toFixed(0)}°`, {
+    x: (pivotX + tipX) / 2 + 10,
+    y: (pivotY + tipY) / 2,
+    size: 9,
+    font,
+  });
 }

@@ -7,7 +7,11 @@ import { User } from '../../modules/users/user.entity';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
 import { finishSeededPackages, seedPackages } from './packages';
 
-export async function seedScenario(dataSource: DataSource, filesDir: string, opts: { hash: (p: string) => string }) {
+export async function seedScenario(
+  dataSource: DataSource,
+  filesDir: string,
+  opts: { hash: (p: string) => string },
+) {
   const { seeded, people, reviewer } = await dataSource.transaction(async (m) => {
     const orgs = new Map<string, Organisation>();
     for (const [name, kind] of [
@@ -25,7 +29,10 @@ export async function seedScenario(dataSource: DataSource, filesDir: string, opt
         email: a.email,
         name: a.name,
         role: a.role,
-        unitSystem: a.organisation === 'Selsdon & Hale Crane Hire' || a.email.startsWith('dev.') ? 'imperial' : 'metric',
+        unitSystem:
+          a.organisation === 'Selsdon & Hale Crane Hire' || a.email.startsWith('dev.')
+            ? 'imperial'
+            : 'metric',
         passwordHash,
       });
       people.set(a.email, user);
@@ -48,7 +55,8 @@ export async function seedScenario(dataSource: DataSource, filesDir: string, opt
       reviewPolicy: { maxChartUsePct: 80, minStabilityRatio: 1.6 },
     });
     const reviewer = people.get('rhea.okafor@tamsin-ridge.example')!;
-    for (const site of [refinery, wharf]) await m.getRepository(SiteMember).save({ siteId: site.id, userId: reviewer.id });
+    for (const site of [refinery, wharf])
+      await m.getRepository(SiteMember).save({ siteId: site.id, userId: reviewer.id });
     const seeded = await seedPackages(m, filesDir, { orgs, people, sites: { refinery, wharf } });
     return { seeded, people, reviewer };
   });

@@ -9,7 +9,14 @@ import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
 
 export const OrganisationList = z.object({
-  items: z.array(z.object({ id: z.uuid(), name: z.string(), kind: z.enum(['contractor', 'owner']), people: z.number().int() })),
+  items: z.array(
+    z.object({
+      id: z.uuid(),
+      name: z.string(),
+      kind: z.enum(['contractor', 'owner']),
+      people: z.number().int(),
+    }),
+  ),
 });
 
 export function adminRoutes(ctx: AppContext): Router {

@@ -11,7 +11,9 @@ import { valid, validate } from '../../middleware/validate';
 
 let schemaCache: Record<string, unknown> | null = null;
 
-export const LiftResultShape = z.object({ resultVersion: z.number(), overallStatus: z.string(), checks: z.array(z.unknown()) }).passthrough();
+export const LiftResultShape = z
+  .object({ resultVersion: z.number(), overallStatus: z.string(), checks: z.array(z.unknown()) })
+  .passthrough();
 
 export function calculationRoutes(ctx: AppContext): Router {
   const router = Router();

@@ -19,7 +19,11 @@ export function sitePolicy(site: Site) {
   return SitePolicy.parse(site.reviewPolicy ?? {});
 }
 
-export async function runCheck(dataSource: DataSource, revisionId: string, progress: ProgressFn = () => undefined) {
+export async function runCheck(
+  dataSource: DataSource,
+  revisionId: string,
+  progress: ProgressFn = () => undefined,
+) {
   const revision = await dataSource.getRepository(Revision).findOneBy({ id: revisionId });
   if (!revision) throw new InvalidLiftData(`revision ${revisionId} does not exist`);
   if (revision.checkStatus === 'done' && revision.results) return { skipped: true as const };
@@ -36,7 +40,13 @@ export async function runCheck(dataSource: DataSource, revisionId: string, progr
       .map((i) => `${i.path.join('.')}: ${i.message}`)
       .join('; ');
     await dataSource.transaction(async (m) => {
-      await m.getRepository(Revision).update(revision.id, { checkStatus: 'invalid', checkError: reason.slice(0, 500), checkProgress: 100 });
+      await m
+        .getRepository(Revision)
+        .update(revision.id, {
+          checkStatus: 'invalid',
+          checkError: reason.slice(0, 500),
+          checkProgress: 100,
+        });
       await m.getRepository(LiftPackage).update(pkg.id, { status: 'check_failed' });
       await audit(m, pkg.id, 'check.invalid', { revision: revision.number, reason });
     });
@@ -63,13 +73,22 @@ export async function runCheck(dataSource: DataSource, revisionId: string, progr
     const isCurrentRevision = current.currentRevision === revision.number;
     if (isCurrentRevision) {
       await m.getRepository(LiftPackage).update(pkg.id, {
-        status: current.status === 'checking' || current.status === 'check_failed' ? (current.assignedEngineerId ? 'with_engineer' : 'ready_for_review') : current.status,
+        status:
+          current.status === 'checking' || current.status === 'check_failed'
+            ? current.assignedEngineerId
+              ? 'with_engineer'
+              : 'ready_for_review'
+            : current.status,
         critical: result.critical.isCritical,
         worstStatus,
         openDiscrepancies,
       });
     }
-    await audit(m, pkg.id, 'check.completed', { revision: revision.number, overallStatus: worstStatus, openDiscrepancies });
+    await audit(m, pkg.id, 'check.completed', {
+      revision: revision.number,
+      overallStatus: worstStatus,
+      openDiscrepancies,
+    });
   });
   await progress(100, 'done');
   return { skipped: false as const, result };

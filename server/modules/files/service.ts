@@ -25,9 +25,15 @@ export function toFileSummary(f: UploadedFile): FileSummary {
 
 async function currentDraft(ds: DataSource, user: Express.User, packageId: string) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
-  const revision = await ds.getRepository(Revision).findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
+  const revision = await ds
+    .getRepository(Revision)
+    .findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
   if (revision.state !== 'draft') {
-    throw new AppError(409, 'already_submitted', `Revision ${revision.number} is submitted; its files can no longer change.`);
+    throw new AppError(
+      409,
+      'already_submitted',
+      `Revision ${revision.number} is submitted; its files can no longer change.`,
+    );
   }
   return { pkg, revision };
 }
@@ -50,7 +56,9 @@ export async function addFile(
     const saved = await ds.transaction(async (m) => {
       let replaced: UploadedFile | null = null;
       if (upload.kind === 'lift_plan') {
-        replaced = await m.getRepository(UploadedFile).findOneBy({ revisionId: revision.id, kind: 'lift_plan' });
+        replaced = await m
+          .getRepository(UploadedFile)
+          .findOneBy({ revisionId: revision.id, kind: 'lift_plan' });
         if (replaced) await m.getRepository(UploadedFile).delete(replaced.id);
       }
       const file = await m.getRepository(UploadedFile).save({
@@ -69,7 +77,13 @@ export async function addFile(
         actorId: user.id,
         organisationId: user.organisationId,
         action: 'file.added',
-        detail: { revision: revision.number, name: originalName, kind: upload.kind, pages, replaced: replaced?.originalName ?? null },
+        detail: {
+          revision: revision.number,
+          name: originalName,
+          kind: upload.kind,
+          pages,
+          replaced: replaced?.originalName ?? null,
+        },
       });
       return { file, replaced };
     });
@@ -81,7 +95,13 @@ export async function addFile(
   }
 }
 
-export async function removeFile(ds: DataSource, storage: Storage, user: Express.User, packageId: string, fileId: string) {
+export async function removeFile(
+  ds: DataSource,
+  storage: Storage,
+  user: Express.User,
+  packageId: string,
+  fileId: string,
+) {
   const { pkg, revision } = await currentDraft(ds, user, packageId);
   const file = await ds.getRepository(UploadedFile).findOneBy({ id: fileId, revisionId: revision.id });
   if (!file) throw AppError.notFound('file');
@@ -98,7 +118,13 @@ export async function removeFile(ds: DataSource, storage: Storage, user: Express
   await storage.delete(file.storageKey).catch(() => undefined);
 }
 
-export async function readFile(ds: DataSource, storage: Storage, user: Express.User, packageId: string, fileId: string) {
+export async function readFile(
+  ds: DataSource,
+  storage: Storage,
+  user: Express.User,
+  packageId: string,
+  fileId: string,
+) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const file = await ds
     .getRepository(UploadedFile)

@@ -13,16 +13,28 @@ import { LiftPackage, Revision } from './package.entity';
 import { findScopedPackage } from './package-scope';
 
 function requireContractor(user: Express.User) {
-  if (user.role !== 'contractor') throw AppError.forbidden('Only a contractor prepares and submits lift packages.');
+  if (user.role !== 'contractor')
+    throw AppError.forbidden('Only a contractor prepares and submits lift packages.');
 }
 
-async function audit(m: EntityManager, user: Express.User, packageId: string, action: string, detail: Record<string, unknown>) {
-  await m.getRepository(AuditEvent).save({ packageId, actorId: user.id, organisationId: user.organisationId, action, detail });
+async function audit(
+  m: EntityManager,
+  user: Express.User,
+  packageId: string,
+  action: string,
+  detail: Record<string, unknown>,
+) {
+  await m
+    .getRepository(AuditEvent)
+    .save({ packageId, actorId: user.id, organisationId: user.organisationId, action, detail });
 }
 
 async function siteOr400(m: EntityManager, siteId: string) {
   const site = await m.getRepository(Site).findOneBy({ id: siteId });
-  if (!site) throw AppError.badRequest('siteId: no such site', [{ path: 'siteId', message: 'siteId must be the id of a site' }]);
+  if (!site)
+    throw AppError.badRequest('siteId: no such site', [
+      { path: 'siteId', message: 'siteId must be the id of a site' },
+    ]);
   return site;
 }
 
@@ -36,7 +48,12 @@ async function nextReference(m: EntityManager, site: Site): Promise<string> {
   return `${site.code}-${String(row.n).padStart(4, '0')}`;
 }
 
-export async function createPackage(ds: DataSource, user: Express.User, body: CreatePackageBody, inputs: Record<string, unknown> = {}) {
+export async function createPackage(
+  ds: DataSource,
+  user: Express.User,
+  body: CreatePackageBody,
+  inputs: Record<string, unknown> = {},
+) {
   requireContractor(user);
   return ds.transaction(async (m) => {
     const site = await siteOr400(m, body.siteId);
@@ -67,7 +84,11 @@ export async function saveDraft(ds: DataSource, user: Express.User, packageId: s
       .where('r.package_id = :id AND r.number = :n', { id: pkg.id, n: pkg.currentRevision })
       .getOneOrFail();
     if (revision.state !== 'draft') {
-      throw new AppError(409, 'already_submitted', `Revision ${revision.number} is submitted and can no longer change.`);
+      throw new AppError(
+        409,
+        'already_submitted',
+        `Revision ${revision.number} is submitted and can no longer change.`,
+      );
     }
     if (body.baseUpdatedAt && new Date(body.baseUpdatedAt).getTime() < revision.updatedAt.getTime()) {
       throw new AppError(
@@ -83,16 +104,25 @@ export async function saveDraft(ds: DataSource, user: Express.User, packageId: s
     if (body.plannedLiftDate !== undefined) packageChanges.plannedLiftDate = body.plannedLiftDate;
     if (Object.keys(packageChanges).length) await m.getRepository(LiftPackage).update(pkg.id, packageChanges);
     // Always touch the revision so updated_at moves on and a stale tab is detected.
-    await m.getRepository(Revision).update(revision.id, { inputs: (body.inputs ?? revision.inputs) as never, updatedAt: new Date() });
+    await m
+      .getRepository(Revision)
+      .update(revision.id, { inputs: (body.inputs ?? revision.inputs) as never, updatedAt: new Date() });
   });
 }
 
 export async function duplicatePackage(ds: DataSource, user: Express.User, packageId: string) {
   requireContractor(user);
   const pkg = await findScopedPackage(ds.manager, user, packageId);
-  const revision = await ds.getRepository(Revision).findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
+  const revision = await ds
+    .getRepository(Revision)
+    .findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
   const title = `${pkg.title} (copy)`.slice(0, 200);
-  return createPackage(ds, user, { title, siteId: pkg.siteId, plannedLiftDate: pkg.plannedLiftDate }, revision.inputs);
+  return createPackage(
+    ds,
+    user,
+    { title, siteId: pkg.siteId, plannedLiftDate: pkg.plannedLiftDate },
+    revision.inputs,
+  );
 }
 
 export async function submitPackage(ds: DataSource, queues: Queues, user: Express.User, packageId: string) {
@@ -111,9 +141,16 @@ export async function submitPackage(ds: DataSource, queues: Queues, user: Expres
     const parsed = LiftInput.safeParse(revision.inputs);
     if (!parsed.success) {
       const fields = zodFields(parsed.error, 'inputs');
-      throw new AppError(400, 'invalid_input', `The lift data is not complete: ${fields[0].path}: ${fields[0].message}`, fields);
+      throw new AppError(
+        400,
+        'invalid_input',
+        `The lift data is not complete: ${fields[0].path}: ${fields[0].message}`,
+        fields,
+      );
     }
-    const plan = await m.getRepository(UploadedFile).findOneBy({ revisionId: revision.id, kind: 'lift_plan' });
+    const plan = await m
+      .getRepository(UploadedFile)
+      .findOneBy({ revisionId: revision.id, kind: 'lift_plan' });
     if (!plan) {
       throw new AppError(400, 'lift_plan_missing', 'Upload the lift plan PDF before submitting.', [
         { path: 'files.lift_plan', message: 'a lift plan PDF is required' },

@@ -7,7 +7,11 @@ import type { EntityManager, SelectQueryBuilder } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import { LiftPackage } from './package.entity';
 
-export function scopedPackages(manager: EntityManager, user: Express.User, alias = 'p'): SelectQueryBuilder<LiftPackage> {
+export function scopedPackages(
+  manager: EntityManager,
+  user: Express.User,
+  alias = 'p',
+): SelectQueryBuilder<LiftPackage> {
   const qb = manager.getRepository(LiftPackage).createQueryBuilder(alias);
   switch (user.role) {
     case 'contractor':
@@ -32,7 +36,11 @@ export function scopedPackages(manager: EntityManager, user: Express.User, alias
 }
 
 /** One package the user may see, or a 404. */
-export async function findScopedPackage(manager: EntityManager, user: Express.User, id: string): Promise<LiftPackage> {
+export async function findScopedPackage(
+  manager: EntityManager,
+  user: Express.User,
+  id: string,
+): Promise<LiftPackage> {
   const found = await scopedPackages(manager, user).andWhere('p.id = :id', { id }).getOne();
   if (!found) throw AppError.notFound('lift package');
   return found;

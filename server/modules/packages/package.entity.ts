@@ -38,7 +38,8 @@ export class LiftPackage {
   @JoinColumn({ name: 'assigned_engineer_id' })
   assignedEngineer?: User | null;
   @Column({ type: 'boolean', default: false }) critical: boolean;
-  @Column({ type: 'varchar', length: 20, name: 'worst_status', nullable: true }) worstStatus: CheckStatus | null;
+  @Column({ type: 'varchar', length: 20, name: 'worst_status', nullable: true })
+  worstStatus: CheckStatus | null;
   @Column({ type: 'int', name: 'open_discrepancies', default: 0 }) openDiscrepancies: number;
   @Column({ type: 'varchar', length: 30, nullable: true }) decision: Decision | null;
   @VersionColumn({ type: 'int' }) version: number;

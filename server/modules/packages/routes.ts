@@ -2,7 +2,12 @@
 import { Router, type NextFunction, type Request, type Response } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
-import { CreatePackageBody, PackageListQuery, SaveDraftBody, UploadFileFields } from '@shared/schemas/packages';
+import {
+  CreatePackageBody,
+  PackageListQuery,
+  SaveDraftBody,
+  UploadFileFields,
+} from '@shared/schemas/packages';
 import type { AppContext } from '../../context';
 import { AppError, fromZod } from '../../lib/app-error';
 import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
@@ -41,22 +46,37 @@ export function packageRoutes(ctx: AppContext): Router {
     res.json(await getRevision(ds, currentUser(req), id, number));
   });
 
-  router.put('/packages/:id/draft', contractorOnly, validate({ params: PackageIdParams, body: SaveDraftBody }), async (req, res) => {
-    const { id } = valid(req, 'params', PackageIdParams);
-    await saveDraft(ds, currentUser(req), id, valid(req, 'body', SaveDraftBody));
-    res.json(await packageDetail(ds, id));
-  });
+  router.put(
+    '/packages/:id/draft',
+    contractorOnly,
+    validate({ params: PackageIdParams, body: SaveDraftBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      await saveDraft(ds, currentUser(req), id, valid(req, 'body', SaveDraftBody));
+      res.json(await packageDetail(ds, id));
+    },
+  );
 
-  router.post('/packages/:id/duplicate', contractorOnly, validate({ params: PackageIdParams }), async (req, res) => {
-    const newId = await duplicatePackage(ds, currentUser(req), valid(req, 'params', PackageIdParams).id);
-    res.status(201).json(await packageDetail(ds, newId));
-  });
+  router.post(
+    '/packages/:id/duplicate',
+    contractorOnly,
+    validate({ params: PackageIdParams }),
+    async (req, res) => {
+      const newId = await duplicatePackage(ds, currentUser(req), valid(req, 'params', PackageIdParams).id);
+      res.status(201).json(await packageDetail(ds, newId));
+    },
+  );
 
-  router.post('/packages/:id/submit', contractorOnly, validate({ params: PackageIdParams }), async (req, res) => {
-    const { id } = valid(req, 'params', PackageIdParams);
-    await submitPackage(ds, ctx.queues, currentUser(req), id);
-    res.status(202).json(await packageDetail(ds, id));
-  });
+  router.post(
+    '/packages/:id/submit',
+    contractorOnly,
+    validate({ params: PackageIdParams }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      await submitPackage(ds, ctx.queues, currentUser(req), id);
+      res.status(202).json(await packageDetail(ds, id));
+    },
+  );
 
   const upload = multer({
     storage: multer.memoryStorage(),
@@ -74,32 +94,54 @@ export function packageRoutes(ctx: AppContext): Router {
             ]),
           );
         }
-        return next(new AppError(400, 'bad_upload', `The upload was refused: ${err.message}.`, [{ path: err.field ?? 'file', message: err.message }]));
+        return next(
+          new AppError(400, 'bad_upload', `The upload was refused: ${err.message}.`, [
+            { path: err.field ?? 'file', message: err.message },
+          ]),
+        );
       }
       next(err);
     });
 
-  router.post('/packages/:id/files', contractorOnly, validate({ params: PackageIdParams }), receive, async (req, res) => {
-    const { id } = valid(req, 'params', PackageIdParams);
-    const fields = UploadFileFields.safeParse(req.body ?? {});
-    if (!fields.success) throw fromZod(fields.error);
-    if (!req.file) throw AppError.badRequest('Attach one PDF in the form field "file".', [{ path: 'file', message: 'file is required' }]);
-    const summary = await addFile(
-      ds,
-      ctx.storage,
-      currentUser(req),
-      id,
-      { originalName: Buffer.from(req.file.originalname, 'latin1').toString('utf8'), bytes: new Uint8Array(req.file.buffer), kind: fields.data.kind },
-      { maxPages: ctx.config.UPLOAD_MAX_PAGES },
-    );
-    res.status(201).json(summary);
-  });
+  router.post(
+    '/packages/:id/files',
+    contractorOnly,
+    validate({ params: PackageIdParams }),
+    receive,
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      const fields = UploadFileFields.safeParse(req.body ?? {});
+      if (!fields.success) throw fromZod(fields.error);
+      if (!req.file)
+        throw AppError.badRequest('Attach one PDF in the form field "file".', [
+          { path: 'file', message: 'file is required' },
+        ]);
+      const summary = await addFile(
+        ds,
+        ctx.storage,
+        currentUser(req),
+        id,
+        {
+          originalName: Buffer.from(req.file.originalname, 'latin1').toString('utf8'),
+          bytes: new Uint8Array(req.file.buffer),
+          kind: fields.data.kind,
+        },
+        { maxPages: ctx.config.UPLOAD_MAX_PAGES },
+      );
+      res.status(201).json(summary);
+    },
+  );
 
-  router.delete('/packages/:id/files/:fileId', contractorOnly, validate({ params: FileParams }), async (req, res) => {
-    const { id, fileId } = valid(req, 'params', FileParams);
-    await removeFile(ds, ctx.storage, currentUser(req), id, fileId);
-    res.status(204).end();
-  });
+  router.delete(
+    '/packages/:id/files/:fileId',
+    contractorOnly,
+    validate({ params: FileParams }),
+    async (req, res) => {
+      const { id, fileId } = valid(req, 'params', FileParams);
+      await removeFile(ds, ctx.storage, currentUser(req), id, fileId);
+      res.status(204).end();
+    },
+  );
 
   router.get('/packages/:id/files/:fileId', validate({ params: FileParams }), async (req, res) => {
     const { id, fileId } = valid(req, 'params', FileParams);

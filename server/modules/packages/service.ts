@@ -1,7 +1,13 @@
 // Lift packages: the scoped list (contractor's desk, reviewer's queue, engineer's
 // assignments) and one package with its current revision, files and audit trail.
 import type { DataSource } from 'typeorm';
-import type { PackageDetail, PackageListQuery, PackageListResponse, PackageSummary, RevisionDetail } from '@shared/schemas/packages';
+import type {
+  PackageDetail,
+  PackageListQuery,
+  PackageListResponse,
+  PackageSummary,
+  RevisionDetail,
+} from '@shared/schemas/packages';
 import { AppError } from '../../lib/app-error';
 import { AuditEvent } from '../audit/audit-event.entity';
 import { UploadedFile } from '../files/file.entity';
@@ -46,7 +52,9 @@ export async function listPackages(
     .leftJoinAndSelect('p.assignedEngineer', 'engineer');
   if (query.siteId) filtered.andWhere('p.site_id = :siteId', { siteId: query.siteId });
   if (query.q) {
-    filtered.andWhere('(p.reference ILIKE :q OR p.title ILIKE :q)', { q: `%${query.q.replace(/[%_\\]/g, '\\$&')}%` });
+    filtered.andWhere('(p.reference ILIKE :q OR p.title ILIKE :q)', {
+      q: `%${query.q.replace(/[%_\\]/g, '\\$&')}%`,
+    });
   }
   const counts = await filtered
     .clone()
@@ -103,18 +111,33 @@ export async function packageDetail(dataSource: DataSource, packageId: string): 
     where: { id: packageId },
     relations: { site: true, contractor: true, assignedEngineer: true },
   });
-  const revisions = await dataSource.getRepository(Revision).find({ where: { packageId }, order: { number: 'DESC' } });
+  const revisions = await dataSource
+    .getRepository(Revision)
+    .find({ where: { packageId }, order: { number: 'DESC' } });
   const current = revisions.find((r) => r.number === full.currentRevision);
-  if (!current) throw new AppError(500, 'internal', `package ${full.reference} has no revision ${full.currentRevision}`);
+  if (!current)
+    throw new AppError(500, 'internal', `package ${full.reference} has no revision ${full.currentRevision}`);
   const events = await dataSource
     .getRepository(AuditEvent)
     .createQueryBuilder('e')
     .leftJoin(User, 'u', 'u.id = e.actor_id')
-    .select(['e.id AS id', 'e.action AS action', 'e.detail AS detail', 'e.created_at AS at', 'u.name AS actor'])
+    .select([
+      'e.id AS id',
+      'e.action AS action',
+      'e.detail AS detail',
+      'e.created_at AS at',
+      'u.name AS actor',
+    ])
     .where('e.package_id = :packageId', { packageId })
     .orderBy('e.created_at', 'DESC')
     .limit(200)
-    .getRawMany<{ id: string; action: string; detail: Record<string, unknown>; at: Date; actor: string | null }>();
+    .getRawMany<{
+      id: string;
+      action: string;
+      detail: Record<string, unknown>;
+      at: Date;
+      actor: string | null;
+    }>();
   return {
     package: { ...toSummary(full), version: full.version },
     revisions: revisions.map((r) => ({
@@ -129,7 +152,11 @@ export async function packageDetail(dataSource: DataSource, packageId: string): 
   };
 }
 
-export async function getPackage(dataSource: DataSource, user: Express.User, id: string): Promise<PackageDetail> {
+export async function getPackage(
+  dataSource: DataSource,
+  user: Express.User,
+  id: string,
+): Promise<PackageDetail> {
   const found = await findScopedPackage(dataSource.manager, user, id);
   return packageDetail(dataSource, found.id);
 }

@@ -1,6 +1,13 @@
 // The review's records: engineer assignments, findings, markups on PDF pages, decisions
 // and the stamped returns issued from them.
-import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn, VersionColumn } from 'typeorm';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
+  VersionColumn,
+} from 'typeorm';
 import type { Decision } from '@shared/schemas/common';
 
 @Entity({ name: 'assignments' })

@@ -9,14 +9,20 @@ export function siteRoutes(ctx: AppContext): Router {
   const router = Router();
   router.get('/sites', requireAuth(ctx.passport), async (req, res) => {
     const user = currentUser(req);
-    const qb = ctx.dataSource.getRepository(Site).createQueryBuilder('s').leftJoinAndSelect('s.owner', 'o').orderBy('s.name');
+    const qb = ctx.dataSource
+      .getRepository(Site)
+      .createQueryBuilder('s')
+      .leftJoinAndSelect('s.owner', 'o')
+      .orderBy('s.name');
     if (user.role === 'reviewer') {
       qb.where('s.id IN (SELECT sm.site_id FROM site_members sm WHERE sm.user_id = :u)', { u: user.id });
     } else if (user.role !== 'contractor') {
       qb.where('s.owner_organisation_id = :org', { org: user.organisationId });
     }
     const sites = await qb.getMany();
-    res.json({ items: sites.map((s) => ({ id: s.id, name: s.name, code: s.code, owner: s.owner?.name ?? '' })) });
+    res.json({
+      items: sites.map((s) => ({ id: s.id, name: s.name, code: s.code, owner: s.owner?.name ?? '' })),
+    });
   });
   return router;
 }

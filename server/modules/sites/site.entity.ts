@@ -1,6 +1,14 @@
 // A site belongs to an owner organisation and holds its review policy (overrides of the
 // engine's defaults). Reviewers are attached to sites through site_members.
-import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryColumn, PrimaryGeneratedColumn } from 'typeorm';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  JoinColumn,
+  ManyToOne,
+  PrimaryColumn,
+  PrimaryGeneratedColumn,
+} from 'typeorm';
 import { Organisation } from '../organisations/organisation.entity';
 import { User } from '../users/user.entity';
 
@@ -15,7 +23,10 @@ export class Site {
   @Column({ type: 'varchar', length: 20 }) code: string;
   @Column({ type: 'varchar', length: 300, default: '' }) address: string;
   @Column({ type: 'varchar', length: 60, name: 'time_zone', default: 'UTC' }) timeZone: string;
-  @Column({ type: 'jsonb', name: 'review_policy', default: () => "'{}'::jsonb" }) reviewPolicy: Record<string, unknown>;
+  @Column({ type: 'jsonb', name: 'review_policy', default: () => "'{}'::jsonb" }) reviewPolicy: Record<
+    string,
+    unknown
+  >;
   @Column({ type: 'int', name: 'policy_version', default: 1 }) policyVersion: number;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }

@@ -1,5 +1,13 @@
 // A person who signs in. token_version ends every session of a person when it changes.
-import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
+} from 'typeorm';
 import type { Role, UnitSystem } from '@shared/schemas/common';
 import { Organisation } from '../organisations/organisation.entity';
 
@@ -14,7 +22,8 @@ export class User {
   @Column({ type: 'varchar', length: 200 }) name: string;
   @Column({ type: 'varchar', length: 20 }) role: Role;
   @Column({ type: 'varchar', length: 10, name: 'unit_system', default: 'metric' }) unitSystem: UnitSystem;
-  @Column({ type: 'varchar', length: 100, name: 'password_hash', nullable: true }) passwordHash: string | null;
+  @Column({ type: 'varchar', length: 100, name: 'password_hash', nullable: true }) passwordHash:
+    string | null;
   @Column({ type: 'boolean', default: true }) active: boolean;
   @Column({ type: 'int', name: 'token_version', default: 0 }) tokenVersion: number;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
