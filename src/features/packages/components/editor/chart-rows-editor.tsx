@@ -9,7 +9,7 @@ import { parseChartRows } from '../../lib/chart-paste';
 import { defaultUnit, unitLabel, UNITS_BY_KIND } from '../../lib/input-units';
 import { NumberText } from './number-text';
 import { ErrorText } from './lift-field';
-import { errorAt } from './field-errors';
+import { useFieldError } from './field-errors';
 
 type Row = {
   radius?: { value: number; unit: string };
@@ -97,7 +97,8 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
   }
 
   const node = get(errors, 'chart.rows') as { message?: string; root?: { message?: string } } | undefined;
-  const listError = node?.message ?? node?.root?.message ?? errorAt(errors, 'chart');
+  const chartError = useFieldError('chart');
+  const listError = node?.message ?? node?.root?.message ?? (fields.length === 0 ? chartError : undefined);
 
   return (
     <section aria-labelledby={`${baseId}-title`} className="col-span-full flex flex-col gap-2">
@@ -184,31 +185,15 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
                 <td className="px-2 py-1 tabular text-ink-soft">{index + 1}</td>
                 {COLUMNS.map((column) => {
                   const name = `chart.rows.${index}.${column.key}`;
-                  const message = errorAt(errors, name);
                   const id = `${baseId}-${index}-${column.key}`;
                   return (
                     <td key={column.key} className="px-2 py-1">
-                      <Controller
-                        control={control}
+                      <ChartCell
                         name={name}
-                        render={({ field }) => (
-                          <NumberText
-                            id={id}
-                            aria-label={`Row ${index + 1} ${column.label.toLowerCase()} (${unitLabel(units[column.key])})`}
-                            value={(field.value as { value: number } | undefined)?.value}
-                            onValue={(value) =>
-                              field.onChange(
-                                value === undefined ? undefined : { value, unit: units[column.key] },
-                              )
-                            }
-                            onBlur={field.onBlur}
-                            aria-invalid={message ? true : undefined}
-                            aria-describedby={message ? `${id}-error` : undefined}
-                            className="w-24"
-                          />
-                        )}
+                        id={id}
+                        label={`Row ${index + 1} ${column.label.toLowerCase()} (${unitLabel(units[column.key])})`}
+                        unit={units[column.key]}
                       />
-                      <ErrorText id={`${id}-error`} message={message} />
                     </td>
                   );
                 })}
@@ -254,5 +239,31 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
         )}
       </div>
     </section>
+  );
+}
+
+function ChartCell({ name, id, label, unit }: { name: string; id: string; label: string; unit: string }) {
+  const { control } = useFormContext<FieldValues>();
+  const message = useFieldError(name);
+  return (
+    <>
+      <Controller
+        control={control}
+        name={name}
+        render={({ field }) => (
+          <NumberText
+            id={id}
+            aria-label={label}
+            value={(field.value as { value: number } | undefined)?.value}
+            onValue={(value) => field.onChange(value === undefined ? undefined : { value, unit })}
+            onBlur={field.onBlur}
+            aria-invalid={message ? true : undefined}
+            aria-describedby={message ? `${id}-error` : undefined}
+            className="w-24"
+          />
+        )}
+      />
+      <ErrorText id={`${id}-error`} message={message} />
+    </>
   );
 }

@@ -1,6 +1,7 @@
 // Reading react-hook-form's error tree: a quantity's error sits on its `.value` or on the
 // quantity itself, a list's on the list or on a row — the first message found is shown.
-import { get, type FieldErrors, type FieldValues } from 'react-hook-form';
+import { createContext, useContext } from 'react';
+import { get, useFormContext, type FieldErrors, type FieldValues } from 'react-hook-form';
 
 export function firstMessage(node: unknown, depth = 0): string | undefined {
   if (!node || typeof node !== 'object' || depth > 6) return undefined;
@@ -28,4 +29,32 @@ export function errorPaths(node: unknown, prefix = '', out: string[] = [], depth
     errorPaths(child, prefix ? `${prefix}.${key}` : key, out, depth + 1);
   }
   return out;
+}
+
+/**
+ * The schema's issues for the lift as it stands, by path ('crane.boomAngle.value'). The
+ * form shows a field's issue once the field has been touched, or every issue after the
+ * person tried to submit, beside react-hook-form's own errors (server errors, submit).
+ */
+export type Issues = { byPath: Map<string, string>; showAll: boolean };
+
+export const IssuesContext = createContext<Issues>({ byPath: new Map(), showAll: false });
+
+export function issueUnder(byPath: Map<string, string>, path: string): string | undefined {
+  const exact = byPath.get(path);
+  if (exact) return exact;
+  for (const [key, message] of byPath) if (key.startsWith(`${path}.`)) return message;
+  return undefined;
+}
+
+/** The message to show under a field: react-hook-form's, else the schema's once touched. */
+export function useFieldError(path: string): string | undefined {
+  const { byPath, showAll } = useContext(IssuesContext);
+  const {
+    formState: { errors, touchedFields },
+  } = useFormContext<FieldValues>();
+  const own = errorAt(errors, path);
+  if (own) return own;
+  if (showAll || get(touchedFields, path)) return issueUnder(byPath, path);
+  return undefined;
 }

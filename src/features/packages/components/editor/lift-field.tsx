@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import type { FieldDef } from '../../lib/lift-steps';
 import { QuantityInput, type QuantityValue } from './quantity-input';
 import { NumberText } from './number-text';
-import { errorAt } from './field-errors';
+import { useFieldError } from './field-errors';
 
 const textInput =
   'h-8 w-full min-w-0 rounded-[3px] border border-rule-strong bg-sheet px-2 text-[14px] text-ink aria-[invalid=true]:border-2 aria-[invalid=true]:border-failed-ink';
@@ -134,6 +134,37 @@ function FieldInput({
   );
 }
 
+function CellField({
+  column,
+  name,
+  id,
+  system,
+  label,
+}: {
+  column: Exclude<FieldDef, { kind: 'list' }>;
+  name: string;
+  id: string;
+  system: UnitSystem;
+  label: string;
+}) {
+  const message = useFieldError(name);
+  return (
+    <>
+      <FieldInput
+        def={column}
+        name={name}
+        id={id}
+        system={system}
+        errorId={`${id}-error`}
+        invalid={Boolean(message)}
+        label={label}
+        compact
+      />
+      <ErrorText id={`${id}-error`} message={message} />
+    </>
+  );
+}
+
 function ListField({ def, system }: { def: Extract<FieldDef, { kind: 'list' }>; system: UnitSystem }) {
   const {
     control,
@@ -142,8 +173,8 @@ function ListField({ def, system }: { def: Extract<FieldDef, { kind: 'list' }>; 
   const { fields, append, remove } = useFieldArray({ control, name: def.path });
   const baseId = useId();
   const node = get(errors, def.path) as { message?: string; root?: { message?: string } } | undefined;
-  const listError =
-    node?.message ?? node?.root?.message ?? (fields.length === 0 ? errorAt(errors, def.path) : undefined);
+  const schemaError = useFieldError(def.path);
+  const listError = node?.message ?? node?.root?.message ?? (fields.length === 0 ? schemaError : undefined);
   return (
     <fieldset className="col-span-full flex flex-col gap-1.5">
       <legend className="mb-1 text-[13px] font-bold">{def.label}</legend>
@@ -173,21 +204,16 @@ function ListField({ def, system }: { def: Extract<FieldDef, { kind: 'list' }>; 
                   {def.columns.map((column) => {
                     if (column.kind === 'list') return null;
                     const name = `${def.path}.${index}.${column.path}`;
-                    const message = errorAt(errors, name);
                     const id = `${baseId}-${index}-${column.path}`;
                     return (
                       <td key={column.path} className="px-2 py-1.5">
-                        <FieldInput
-                          def={column}
+                        <CellField
+                          column={column}
                           name={name}
                           id={id}
                           system={system}
-                          errorId={`${id}-error`}
-                          invalid={Boolean(message)}
                           label={`${def.label}, row ${index + 1}: ${column.label}`}
-                          compact
                         />
-                        <ErrorText id={`${id}-error`} message={message} />
                       </td>
                     );
                   })}
@@ -218,12 +244,9 @@ function ListField({ def, system }: { def: Extract<FieldDef, { kind: 'list' }>; 
 }
 
 export function LiftField({ def, system }: { def: FieldDef; system: UnitSystem }) {
-  const {
-    formState: { errors },
-  } = useFormContext<FieldValues>();
   const id = useId();
+  const message = useFieldError(def.path);
   if (def.kind === 'list') return <ListField def={def} system={system} />;
-  const message = errorAt(errors, def.path);
   const errorId = `${id}-error`;
   if (def.kind === 'checkbox') {
     return (

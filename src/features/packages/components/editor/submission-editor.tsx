@@ -21,7 +21,7 @@ import { ChartRowsEditor } from './chart-rows-editor';
 import { LiveCheckPanel } from './live-check-panel';
 import { DocumentsStep } from './documents-step';
 import { ConflictChoice, SaveIndicator } from './save-indicator';
-import { errorPaths } from './field-errors';
+import { errorPaths, IssuesContext } from './field-errors';
 
 const zod = zodResolver(LiftInput);
 
@@ -80,6 +80,18 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
     [form, schedule],
   );
 
+  const [showAll, setShowAll] = useState(false);
+  const issues = useMemo(() => {
+    const byPath = new Map<string, string>();
+    const parsed = LiftInput.safeParse(prune(values) ?? {});
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) {
+        const path = issue.path.map(String).join('.');
+        if (!byPath.has(path)) byPath.set(path, issue.message);
+      }
+    }
+    return { byPath, showAll };
+  }, [values, showAll]);
   const [serverProblems, setServerProblems] = useState<Problem[]>([]);
   const [planMissing, setPlanMissing] = useState(false);
   const [confirming, setConfirming] = useState(false);
@@ -89,10 +101,13 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
   const errorSteps = useMemo(() => {
     const steps = new Set<StepId>();
     for (const path of errorPaths(formState.errors)) steps.add(stepOfPath(path));
+    for (const path of issues.byPath.keys()) {
+      if (issues.showAll || isTouched(formState.touchedFields, path)) steps.add(stepOfPath(path));
+    }
     for (const problem of serverProblems) steps.add(problem.step);
     if (planMissing) steps.add('documents');
     return steps;
-  }, [formState, serverProblems, planMissing]);
+  }, [formState, serverProblems, planMissing, issues]);
 
   function goTo(id: StepId) {
     setParams(
@@ -107,6 +122,7 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
 
   async function startSubmit() {
     setSubmitMessage(null);
+    setShowAll(true);
     const valid = await trigger();
     const hasPlan = detail.current.files.some((file) => file.kind === 'lift_plan');
     setPlanMissing(!hasPlan);
@@ -168,195 +184,210 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
 
   return (
     <FormProvider {...form}>
-      <header className="mb-3 flex flex-wrap items-end justify-between gap-3 border-b-2 border-ink pb-2.5">
-        <div className="min-w-0">
-          <p className="font-mono text-[13px] font-bold text-ink-soft">
-            {detail.package.reference} · revision {detail.current.number} · {detail.package.site.name}
-          </p>
-          <h1 className="truncate text-[22px] font-black leading-tight">{title || detail.package.title}</h1>
-        </div>
-        <div className="flex items-center gap-3">
-          <StatusBadge status={detail.package.status} />
-          <SaveIndicator state={autosave.state} onRetry={() => void autosave.retry()} />
-          <Link
-            to={`/packages/${packageId}`}
-            className="text-[13px] font-bold text-verdigris underline underline-offset-2"
-          >
-            Package page
-          </Link>
-        </div>
-      </header>
-
-      {autosave.state.kind === 'conflict' && (
-        <ConflictChoice
-          onReload={() => void autosave.reloadSaved()}
-          onKeepMine={() => void autosave.keepMine()}
-        />
-      )}
-      {autosave.state.kind === 'frozen' && (
-        <div
-          role="alert"
-          className="mb-3 border border-rule border-l-4 border-l-ink bg-sheet px-4 py-3 text-[13px]"
-        >
-          <strong>This revision has been submitted and can no longer change.</strong> Your last edits here
-          were not saved.{' '}
-          <Link to={`/packages/${packageId}`} className="font-bold text-verdigris underline">
-            Open the package
-          </Link>
-          .
-        </div>
-      )}
-      {autosave.state.kind === 'error' && (
-        <div
-          role="alert"
-          className="mb-3 border border-failed-edge border-l-4 bg-failed-tint px-4 py-2 text-[13px]"
-        >
-          <strong className="text-failed-ink">Not saved.</strong> {autosave.state.message} Your changes stay
-          in this tab; use Retry beside the save state.
-        </div>
-      )}
-
-      <div className="grid items-start gap-4 lg:grid-cols-[12.5rem_minmax(0,1fr)] 2xl:grid-cols-[12.5rem_minmax(0,1fr)_22rem]">
-        <nav aria-label="Steps" className="lg:sticky lg:top-4">
-          <ol className="flex flex-col border border-rule bg-sheet">
-            {STEPS.map((s, i) => {
-              const active = s.id === step;
-              const bad = errorSteps.has(s.id);
-              return (
-                <li key={s.id}>
-                  <button
-                    type="button"
-                    onClick={() => goTo(s.id)}
-                    aria-current={active ? 'step' : undefined}
-                    className={`flex w-full items-center gap-2 border-l-4 px-2.5 py-2 text-left text-[13.5px] ${
-                      active
-                        ? 'border-ink bg-sheet-alt font-black'
-                        : 'border-transparent font-bold hover:bg-sheet-alt'
-                    }`}
-                  >
-                    <span className="w-4 tabular text-ink-soft">{i + 1}</span>
-                    <span className="flex-1">{s.title}</span>
-                    {bad && (
-                      <span
-                        className="inline-flex items-center gap-0.5 text-[12px] font-bold text-fail-ink"
-                        data-testid={`step-error-${s.id}`}
-                      >
-                        <span aria-hidden="true">✕</span>
-                        <span className="sr-only">has errors</span>
-                      </span>
-                    )}
-                  </button>
-                </li>
-              );
-            })}
-          </ol>
-        </nav>
-
-        <section aria-labelledby="step-title" className="min-w-0 border border-rule bg-sheet px-4 py-3">
-          <h2 id="step-title" className="mb-3 text-[17px] font-black">
-            {index + 1}. {current.title}
-          </h2>
-          {current.groups
-            .filter((group) => !group.when || group.when(live))
-            .map((group) => (
-              <fieldset key={group.title} className="mb-4 border-t border-rule pt-2">
-                <legend className="pr-2 text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft">
-                  {group.title}
-                </legend>
-                {group.note && <p className="mb-2 text-[12.5px] text-ink-soft">{group.note}</p>}
-                <div className="grid grid-cols-[repeat(auto-fill,minmax(13.5rem,1fr))] gap-x-4 gap-y-3">
-                  {group.fields.map((def) => (
-                    <LiftField key={def.path} def={def} system={system} />
-                  ))}
-                </div>
-              </fieldset>
-            ))}
-          {step === 'chart' && <ChartRowsEditor system={system} />}
-          {step === 'documents' && (
-            <DocumentsStep detail={detail} onFilesChanged={autosave.adopt} planMissing={planMissing} />
-          )}
-          {step === 'review' && (
-            <ReviewStep
-              title={title}
-              onTitle={(value) => {
-                setTitle(value);
-                meta.current = { ...meta.current, title: value };
-                schedule();
-              }}
-              plannedLiftDate={plannedLiftDate}
-              onPlannedLiftDate={(value) => {
-                setPlannedLiftDate(value);
-                meta.current = { ...meta.current, plannedLiftDate: value };
-                schedule();
-              }}
-              problems={[
-                ...errorPaths(formState.errors).map((path) => ({
-                  step: stepOfPath(path),
-                  label: labelOfPath(path),
-                  message: '',
-                })),
-              ]}
-              planMissing={planMissing}
-              revision={detail.current.number}
-              onGoTo={goTo}
-            />
-          )}
-
-          {submitMessage && (
-            <p
-              role="alert"
-              className="mt-3 border-l-4 border-failed-ink bg-failed-tint px-3 py-2 text-[13px] font-bold text-failed-ink"
-            >
-              {submitMessage}
+      <IssuesContext.Provider value={issues}>
+        <header className="mb-3 flex flex-wrap items-end justify-between gap-3 border-b-2 border-ink pb-2.5">
+          <div className="min-w-0">
+            <p className="font-mono text-[13px] font-bold text-ink-soft">
+              {detail.package.reference} · revision {detail.current.number} · {detail.package.site.name}
             </p>
-          )}
-          {confirming ? (
-            <div
-              role="alertdialog"
-              aria-labelledby="confirm-title"
-              className="mt-3 border-2 border-ink bg-sheet-alt px-4 py-3"
+            <h1 className="truncate text-[22px] font-black leading-tight">{title || detail.package.title}</h1>
+          </div>
+          <div className="flex items-center gap-3">
+            <StatusBadge status={detail.package.status} />
+            <SaveIndicator state={autosave.state} onRetry={() => void autosave.retry()} />
+            <Link
+              to={`/packages/${packageId}`}
+              className="text-[13px] font-bold text-verdigris underline underline-offset-2"
             >
-              <h3 id="confirm-title" className="text-[15px] font-black">
-                Submit revision {detail.current.number}?
-              </h3>
-              <p className="mt-1 text-[13px]">
-                Submitting freezes this revision: its lift data and files can no longer change. The
-                independent check runs and the package goes to the site’s coordinator. Changes after that need
-                a new revision.
-              </p>
-              <div className="mt-2 flex gap-2">
-                <Button variant="primary" onClick={() => void confirmSubmit()} disabled={submit.isPending}>
-                  {submit.isPending && <Spinner />}
-                  {submit.isPending ? 'Submitting…' : `Submit and freeze revision ${detail.current.number}`}
-                </Button>
-                <Button onClick={() => setConfirming(false)} disabled={submit.isPending}>
-                  Keep editing
-                </Button>
-              </div>
-            </div>
-          ) : (
-            <div className="mt-4 flex flex-wrap items-center justify-between gap-2 border-t border-rule pt-3">
-              <div className="flex gap-2">
-                {index > 0 && (
-                  <Button onClick={() => goTo(STEPS[index - 1].id)}>‹ {STEPS[index - 1].title}</Button>
-                )}
-                {index < STEPS.length - 1 && (
-                  <Button onClick={() => goTo(STEPS[index + 1].id)}>{STEPS[index + 1].title} ›</Button>
-                )}
-              </div>
-              <Button variant="primary" onClick={() => void startSubmit()}>
-                Submit revision {detail.current.number}…
-              </Button>
-            </div>
-          )}
-        </section>
+              Package page
+            </Link>
+          </div>
+        </header>
 
-        <div className="lg:col-start-2 2xl:sticky 2xl:top-4 2xl:col-start-3 2xl:row-start-1">
-          <LiveCheckPanel values={values} system={system} />
+        {autosave.state.kind === 'conflict' && (
+          <ConflictChoice
+            onReload={() => void autosave.reloadSaved()}
+            onKeepMine={() => void autosave.keepMine()}
+          />
+        )}
+        {autosave.state.kind === 'frozen' && (
+          <div
+            role="alert"
+            className="mb-3 border border-rule border-l-4 border-l-ink bg-sheet px-4 py-3 text-[13px]"
+          >
+            <strong>This revision has been submitted and can no longer change.</strong> Your last edits here
+            were not saved.{' '}
+            <Link to={`/packages/${packageId}`} className="font-bold text-verdigris underline">
+              Open the package
+            </Link>
+            .
+          </div>
+        )}
+        {autosave.state.kind === 'error' && (
+          <div
+            role="alert"
+            className="mb-3 border border-failed-edge border-l-4 bg-failed-tint px-4 py-2 text-[13px]"
+          >
+            <strong className="text-failed-ink">Not saved.</strong> {autosave.state.message} Your changes stay
+            in this tab; use Retry beside the save state.
+          </div>
+        )}
+
+        <div className="grid items-start gap-4 lg:grid-cols-[12.5rem_minmax(0,1fr)] 2xl:grid-cols-[12.5rem_minmax(0,1fr)_22rem]">
+          <nav aria-label="Steps" className="lg:sticky lg:top-4">
+            <ol className="flex flex-col border border-rule bg-sheet">
+              {STEPS.map((s, i) => {
+                const active = s.id === step;
+                const bad = errorSteps.has(s.id);
+                return (
+                  <li key={s.id}>
+                    <button
+                      type="button"
+                      onClick={() => goTo(s.id)}
+                      aria-current={active ? 'step' : undefined}
+                      className={`flex w-full items-center gap-2 border-l-4 px-2.5 py-2 text-left text-[13.5px] ${
+                        active
+                          ? 'border-ink bg-sheet-alt font-black'
+                          : 'border-transparent font-bold hover:bg-sheet-alt'
+                      }`}
+                    >
+                      <span className="w-4 tabular text-ink-soft">{i + 1}</span>
+                      <span className="flex-1">{s.title}</span>
+                      {bad && (
+                        <span
+                          className="inline-flex items-center gap-0.5 text-[12px] font-bold text-fail-ink"
+                          data-testid={`step-error-${s.id}`}
+                        >
+                          <span aria-hidden="true">✕</span>
+                          <span className="sr-only">has errors</span>
+                        </span>
+                      )}
+                    </button>
+                  </li>
+                );
+              })}
+            </ol>
+          </nav>
+
+          <section aria-labelledby="step-title" className="min-w-0 border border-rule bg-sheet px-4 py-3">
+            <h2 id="step-title" className="mb-3 text-[17px] font-black">
+              {index + 1}. {current.title}
+            </h2>
+            {current.groups
+              .filter((group) => !group.when || group.when(live))
+              .map((group) => (
+                <fieldset key={group.title} className="mb-4 border-t border-rule pt-2">
+                  <legend className="pr-2 text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft">
+                    {group.title}
+                  </legend>
+                  {group.note && <p className="mb-2 text-[12.5px] text-ink-soft">{group.note}</p>}
+                  <div className="grid grid-cols-[repeat(auto-fill,minmax(13.5rem,1fr))] gap-x-4 gap-y-3">
+                    {group.fields.map((def) => (
+                      <LiftField key={def.path} def={def} system={system} />
+                    ))}
+                  </div>
+                </fieldset>
+              ))}
+            {step === 'chart' && <ChartRowsEditor system={system} />}
+            {step === 'documents' && (
+              <DocumentsStep detail={detail} onFilesChanged={autosave.adopt} planMissing={planMissing} />
+            )}
+            {step === 'review' && (
+              <ReviewStep
+                title={title}
+                onTitle={(value) => {
+                  setTitle(value);
+                  meta.current = { ...meta.current, title: value };
+                  schedule();
+                }}
+                plannedLiftDate={plannedLiftDate}
+                onPlannedLiftDate={(value) => {
+                  setPlannedLiftDate(value);
+                  meta.current = { ...meta.current, plannedLiftDate: value };
+                  schedule();
+                }}
+                problems={[
+                  ...new Set([
+                    ...errorPaths(formState.errors),
+                    ...[...issues.byPath.keys()].filter(
+                      (path) => issues.showAll || isTouched(formState.touchedFields, path),
+                    ),
+                  ]),
+                ].map((path) => ({ step: stepOfPath(path), label: labelOfPath(path), message: '' }))}
+                planMissing={planMissing}
+                revision={detail.current.number}
+                onGoTo={goTo}
+              />
+            )}
+
+            {submitMessage && (
+              <p
+                role="alert"
+                className="mt-3 border-l-4 border-failed-ink bg-failed-tint px-3 py-2 text-[13px] font-bold text-failed-ink"
+              >
+                {submitMessage}
+              </p>
+            )}
+            {confirming ? (
+              <div
+                role="alertdialog"
+                aria-labelledby="confirm-title"
+                className="mt-3 border-2 border-ink bg-sheet-alt px-4 py-3"
+              >
+                <h3 id="confirm-title" className="text-[15px] font-black">
+                  Submit revision {detail.current.number}?
+                </h3>
+                <p className="mt-1 text-[13px]">
+                  Submitting freezes this revision: its lift data and files can no longer change. The
+                  independent check runs and the package goes to the site’s coordinator. Changes after that
+                  need a new revision.
+                </p>
+                <div className="mt-2 flex gap-2">
+                  <Button variant="primary" onClick={() => void confirmSubmit()} disabled={submit.isPending}>
+                    {submit.isPending && <Spinner />}
+                    {submit.isPending ? 'Submitting…' : `Submit and freeze revision ${detail.current.number}`}
+                  </Button>
+                  <Button onClick={() => setConfirming(false)} disabled={submit.isPending}>
+                    Keep editing
+                  </Button>
+                </div>
+              </div>
+            ) : (
+              <div className="mt-4 flex flex-wrap items-center justify-between gap-2 border-t border-rule pt-3">
+                <div className="flex gap-2">
+                  {index > 0 && (
+                    <Button onClick={() => goTo(STEPS[index - 1].id)}>‹ {STEPS[index - 1].title}</Button>
+                  )}
+                  {index < STEPS.length - 1 && (
+                    <Button onClick={() => goTo(STEPS[index + 1].id)}>{STEPS[index + 1].title} ›</Button>
+                  )}
+                </div>
+                <Button variant="primary" onClick={() => void startSubmit()}>
+                  Submit revision {detail.current.number}…
+                </Button>
+              </div>
+            )}
+          </section>
+
+          <div className="lg:col-start-2 2xl:sticky 2xl:top-4 2xl:col-start-3 2xl:row-start-1">
+            <LiveCheckPanel values={values} system={system} />
+          </div>
         </div>
-      </div>
+      </IssuesContext.Provider>
     </FormProvider>
   );
+}
+
+/** A touched field, or any field under a touched group ('crane.upperWorks' touched covers its weight). */
+function isTouched(touched: unknown, path: string): boolean {
+  const parts = path.split('.');
+  let node: unknown = touched;
+  for (const part of parts) {
+    if (node === true) return true;
+    if (!node || typeof node !== 'object') return false;
+    node = (node as Record<string, unknown>)[part];
+  }
+  return Boolean(node);
 }
 
 function mapFieldErrors(fields: FieldError[]): Problem[] {
