@@ -1,0 +1,184 @@
+// Burns the engineer's markups into a page of the return as vector drawing, in their colour,
+// at their stored coordinates: outlines for rectangles, ellipses and clouds (a scalloped
+// outline of arcs), an arrow with a filled head, free text, and numbered pins (a filled disc
+// with the number in white). Called inside the page's display frame (page-frame-pdf.ts).
+import type { PDFPage } from 'pdf-lib';
+import { MARKUP_COLOURS } from '@shared/schemas/reviews';
+import { markupToDisplay, type PageFrame } from './page-frame-pdf';
+import { fitText, hexColour, safeText, WHITE, wrapText, type Fonts } from './text-pdf';
+
+export interface MarkupToDraw {
+  kind: 'rectangle' | 'ellipse' | 'cloud' | 'arrow' | 'text' | 'pin';
+  geometry: Record<string, number>;
+  colour: 'rust' | 'cobalt' | 'verdigris' | 'graphite';
+  text: string | null;
+  number: number | null;
+}
+
+const STROKE = 1.6;
+const PIN_RADIUS = 8;
+const HEAD_LENGTH = 11;
+const HEAD_HALF_WIDTH = 4.5;
+const LABEL_SIZE = 8;
+const LABEL_WIDTH = 180;
+
+const num = (g: Record<string, number>, k: string, dflt = 0) =>
+  typeof g[k] === 'number' && Number.isFinite(g[k]) ? g[k] : dflt;
+
+/** A stored box as a box in the display frame (a quarter turn swaps width and height). */
+function boxInFrame(f: PageFrame, g: Record<string, number>) {
+  const x = num(g, 'x');
+  const y = num(g, 'y');
+  const w = Math.max(num(g, 'width', 1), 1);
+  const h = Math.max(num(g, 'height', 1), 1);
+  const [u1, v1] = markupToDisplay(f, x, y);
+  const [u2, v2] = markupToDisplay(f, x + w, y + h);
+  return {
+    x: Math.min(u1, u2),
+    y: Math.min(v1, v2),
+    width: Math.abs(u2 - u1),
+    height: Math.abs(v2 - v1),
+  };
+}
+
+/**
+ * A scalloped outline round a box as an SVG path (y down, origin at the box's top-left):
+ * arcs bulging outwards along each edge, traversed clockwise on paper.
+ */
+export function cloudPath(width: number, height: number): string {
+  const bump = Math.max(6, Math.min(14, Math.min(width, height) / 3));
+  const corners: [number, number][] = [
+    [0, 0],
+    [width, 0],
+    [width, height],
+    [0, height],
+  ];
+  let d = `M0 0`;
+  for (let i = 0; i < 4; i++) {
+    const [x0, y0] = corners[i];
+    const [x1, y1] = corners[(i + 1) % 4];
+    const len = Math.hypot(x1 - x0, y1 - y0);
+    const n = Math.max(2, Math.round(len / (bump * 1.6)));
+    const r = len / n / 2;
+    for (let k = 1; k <= n; k++) {
+      const px = x0 + ((x1 - x0) * k) / n;
+      const py = y0 + ((y1 - y0) * k) / n;
+      d += ` A${r.toFixed(2)} ${r.toFixed(2)} 0 0 1 ${px.toFixed(2)} ${py.toFixed(2)}`;
+    }
+  }
+  return d + ' Z';
+}
+
+function drawLabel(
+  page: PDFPage,
+  fonts: Fonts,
+  text: string,
+  x: number,
+  y: number,
+  colour: ReturnType<typeof hexColour>,
+) {
+  const lines = wrapText(text, fonts.bold, LABEL_SIZE, LABEL_WIDTH).slice(0, 3);
+  if (lines.length === 0 || (lines.length === 1 && lines[0] === '')) return;
+  if (wrapText(text, fonts.bold, LABEL_SIZE, LABEL_WIDTH).length > 3)
+    lines[2] = fitText(lines[2] + '…', fonts.bold, LABEL_SIZE, LABEL_WIDTH);
+  const lh = LABEL_SIZE * 1.2;
+  const w = Math.max(...lines.map((l) => fonts.bold.widthOfTextAtSize(l, LABEL_SIZE)));
+  page.drawRectangle({
+    x: x - 2,
+    y: y - (lines.length - 1) * lh - 2.5,
+    width: w + 4,
+    height: lines.length * lh + 2,
+    color: WHITE,
+    opacity: 0.85,
+  });
+  lines.forEach((line, i) =>
+    page.drawText(line, { x, y: y - i * lh, size: LABEL_SIZE, font: fonts.bold, color: colour }),
+  );
+}
+
+/** Draw one page's markups. Must run inside inDisplayFrame for that page. */
+export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDraw[], fonts: Fonts) {
+  for (const m of markups) {
+    const colour = hexColour(MARKUP_COLOURS[m.colour] ?? MARKUP_COLOURS.rust);
+    const g = m.geometry;
+    const note = m.text && m.text.trim() ? m.text.trim() : null;
+    switch (m.kind) {
+      case 'rectangle': {
+        const b = boxInFrame(frame, g);
+        page.drawRectangle({ ...b, borderColor: colour, borderWidth: STROKE });
+        if (note) drawLabel(page, fonts, note, b.x, b.y + b.height + 4, colour);
+        break;
+      }
+      case 'ellipse': {
+        const b = boxInFrame(frame, g);
+        page.drawEllipse({
+          x: b.x + b.width / 2,
+          y: b.y + b.height / 2,
+          xScale: b.width / 2,
+          yScale: b.height / 2,
+          borderColor: colour,
+          borderWidth: STROKE,
+        });
+        if (note) drawLabel(page, fonts, note, b.x, b.y + b.height + 4, colour);
+        break;
+      }
+      case 'cloud': {
+        const b = boxInFrame(frame, g);
+        // drawSvgPath puts the path's origin at (x, y) with its y axis pointing down.
+        page.drawSvgPath(cloudPath(b.width, b.height), {
+          x: b.x,
+          y: b.y + b.height,
+          borderColor: colour,
+          borderWidth: STROKE,
+        });
+        if (note) drawLabel(page, fonts, note, b.x, b.y + b.height + 14, colour);
+        break;
+      }
+      case 'arrow': {
+        const [x1, y1] = markupToDisplay(frame, num(g, 'x1'), num(g, 'y1'));
+        const [x2, y2] = markupToDisplay(frame, num(g, 'x2'), num(g, 'y2'));
+        const len = Math.hypot(x2 - x1, y2 - y1);
+        if (len < 0.5) break;
+        const ux = (x2 - x1) / len;
+        const uy = (y2 - y1) / len;
+        const head = Math.min(HEAD_LENGTH, len * 0.6);
+        const bx = x2 - ux * head;
+        const by = y2 - uy * head;
+        page.drawLine({
+          start: { x: x1, y: y1 },
+          end: { x: bx + ux * 0.5, y: by + uy * 0.5 },
+          thickness: STROKE,
+          color: colour,
+          lineCap: 1,
+        });
+        const hw = (HEAD_HALF_WIDTH * head) / HEAD_LENGTH;
+        const p = (x: number, y: number) => `${x.toFixed(2)} ${(-y).toFixed(2)}`;
+        page.drawSvgPath(
+          `M${p(x2, y2)} L${p(bx - uy * hw, by + ux * hw)} L${p(bx + uy * hw, by - ux * hw)} Z`,
+          { x: 0, y: 0, color: colour },
+        );
+        if (note) drawLabel(page, fonts, note, x1 + 3, y1 + (uy > 0 ? -10 : 5), colour);
+        break;
+      }
+      case 'text': {
+        const size = Math.min(72, Math.max(4, num(g, 'fontSize', 11)));
+        const [x, y] = markupToDisplay(frame, num(g, 'x'), num(g, 'y'));
+        const lines = safeText(m.text ?? '', fonts.bold, true).split('\n');
+        lines.forEach((line, i) =>
+          page.drawText(line, { x, y: y - i * size * 1.2, size, font: fonts.bold, color: colour }),
+        );
+        break;
+      }
+      case 'pin': {
+        const [x, y] = markupToDisplay(frame, num(g, 'x'), num(g, 'y'));
+        page.drawCircle({ x, y, size: PIN_RADIUS, color: colour, borderColor: WHITE, borderWidth: 1 });
+        const label = m.number != null ? String(m.number) : '';
+        const size = label.length > 2 ? 7 : 9;
+        const w = fonts.black.widthOfTextAtSize(label, size);
+        page.drawText(label, { x: x - w / 2, y: y - size * 0.35, size, font: fonts.black, color: WHITE });
+        if (note) drawLabel(page, fonts, note, x + PIN_RADIUS + 3, y + 3, colour);
+        break;
+      }
+    }
+  }
+}

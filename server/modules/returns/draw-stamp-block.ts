@@ -1,0 +1,222 @@
+// The stamp block on the first page of the return: a compact white panel (230 × 150 pt) in
+// the top-right corner that reads over drawings — the decision in large type with its shape,
+// package reference, revision and title, engineer of record, reviewer, decision and issue
+// dates, the conditions (cut short with a pointer to the calculation sheet), the
+// verification code with a QR code of the verification address drawn as vector squares,
+// and the caution. Also the small "REF rev N — page n of m" footer every page carries.
+import { concatTransformationMatrix, popGraphicsState, pushGraphicsState, type PDFPage } from 'pdf-lib';
+import QRCode from 'qrcode';
+import { DECISION_LABELS } from '@shared/schemas/common';
+import type { PageFrame } from './page-frame-pdf';
+import {
+  drawStatusShape,
+  fitText,
+  GRAPHITE,
+  INK,
+  INK_SOFT,
+  RULE,
+  tradeDate,
+  widthOf,
+  WHITE,
+  wrapText,
+  type Fonts,
+  type StatusKey,
+} from './text-pdf';
+
+export const STAMP_WIDTH = 230;
+export const STAMP_HEIGHT = 150;
+export const SHORT_CAUTION =
+  "Checks arithmetic and consistency only; does not replace the manufacturer's chart, a qualified person or local codes.";
+
+export type DecisionKey = 'accepted' | 'accepted_as_noted' | 'revise_and_resubmit' | 'rejected';
+
+/** The decision's shape borrows the check-status family so it reads the same in greyscale. */
+export const DECISION_SHAPES: Record<DecisionKey, StatusKey> = {
+  accepted: 'pass',
+  accepted_as_noted: 'pass',
+  revise_and_resubmit: 'caution',
+  rejected: 'fail',
+};
+
+export interface StampBlockData {
+  decision: DecisionKey;
+  reference: string;
+  title: string;
+  revision: number;
+  engineer: string;
+  reviewer: string;
+  decidedAt: string;
+  issuedAt: string;
+  timeZone: string;
+  conditions: string;
+  verificationCode: string;
+  verificationUrl: string;
+}
+
+/** The QR code of `text` as one SVG path of module-high runs, in module units (y down). */
+export function qrPath(text: string): { path: string; size: number } {
+  const qr = QRCode.create(text, { errorCorrectionLevel: 'M' });
+  const n = qr.modules.size;
+  const dark = (r: number, c: number) => Boolean(qr.modules.data[r * n + c]);
+  let path = '';
+  for (let r = 0; r < n; r++) {
+    let c = 0;
+    while (c < n) {
+      if (!dark(r, c)) {
+        c++;
+        continue;
+      }
+      const start = c;
+      while (c < n && dark(r, c)) c++;
+      path += `M${start} ${r} H${c} V${r + 1} H${start} Z `;
+    }
+  }
+  return { path: path.trim(), size: n };
+}
+
+/** Conditions cut to `maxLines`, the last line ending with a pointer to the full text. */
+function conditionLines(text: string, fonts: Fonts, size: number, width: number, maxLines: number) {
+  const lines = wrapText(text, fonts.regular, size, width);
+  if (lines.length <= maxLines) return lines;
+  const tail = '… see calculation sheet';
+  let last = lines[maxLines - 1];
+  while (last.length > 0 && widthOf(last + tail, fonts.regular, size) > width) last = last.slice(0, -1);
+  return [...lines.slice(0, maxLines - 1), last.trimEnd() + tail];
+}
+
+/** Draw the stamp block; must run inside the first page's display frame. */
+export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s: StampBlockData) {
+  const W = STAMP_WIDTH;
+  const H = STAMP_HEIGHT;
+  const margin = Math.min(18, frame.width * 0.04, frame.height * 0.04);
+  const k = Math.min(1, (frame.width - 2 * margin) / W, (frame.height - 2 * margin) / H);
+  const ox = frame.width - margin - W * k;
+  const oy = frame.height - margin - H * k;
+  page.pushOperators(pushGraphicsState(), concatTransformationMatrix(k, 0, 0, k, ox, oy));
+
+  const pad = 7;
+  const band = 15;
+  page.drawRectangle({ x: 0, y: 0, width: W, height: H, color: WHITE, borderColor: INK, borderWidth: 1.4 });
+  page.drawRectangle({ x: 0, y: H - band, width: W, height: band, color: GRAPHITE });
+  page.drawText('REVIEW STAMP', {
+    x: pad,
+    y: H - band + 4.6,
+    size: 6.5,
+    font: fonts.black,
+    color: WHITE,
+  });
+  const issued = `issued ${tradeDate(s.issuedAt, s.timeZone)}`;
+  page.drawText(issued, {
+    x: W - pad - widthOf(issued, fonts.bold, 6.5),
+    y: H - band + 4.6,
+    size: 6.5,
+    font: fonts.bold,
+    color: WHITE,
+  });
+
+  // QR code, top right under the band.
+  const qrSide = 58;
+  const qrX = W - pad - qrSide;
+  const qrTop = H - band - 5;
+  const qr = qrPath(s.verificationUrl);
+  page.drawSvgPath(qr.path, { x: qrX, y: qrTop, scale: qrSide / qr.size, color: INK });
+
+  // Left column: decision and who/when.
+  const colW = qrX - pad - 6;
+  const label = DECISION_LABELS[s.decision] ?? s.decision;
+  let dSize = 15;
+  while (dSize > 9 && widthOf(label, fonts.black, dSize) > colW - 17) dSize -= 0.5;
+  let y = H - band - 19;
+  drawStatusShape(page, DECISION_SHAPES[s.decision] ?? 'caution', pad, y - 1.5, 13);
+  page.drawText(fitText(label, fonts.black, dSize, colW - 17), {
+    x: pad + 17,
+    y,
+    size: dSize,
+    font: fonts.black,
+    color: INK,
+  });
+  y -= 13;
+  page.drawText(fitText(`${s.reference} · revision ${s.revision}`, fonts.bold, 7.5, colW), {
+    x: pad,
+    y,
+    size: 7.5,
+    font: fonts.bold,
+    color: INK,
+  });
+  y -= 9;
+  page.drawText(fitText(s.title, fonts.regular, 6.5, colW), {
+    x: pad,
+    y,
+    size: 6.5,
+    font: fonts.regular,
+    color: INK,
+  });
+  const rows: [string, string][] = [
+    ['Engineer of record', s.engineer],
+    ['Reviewer', s.reviewer],
+    ['Decided', tradeDate(s.decidedAt, s.timeZone)],
+  ];
+  y -= 3;
+  for (const [k2, v] of rows) {
+    y -= 9;
+    page.drawText(k2, { x: pad, y, size: 6, font: fonts.regular, color: INK_SOFT });
+    page.drawText(fitText(v, fonts.bold, 6.5, colW - 58), {
+      x: pad + 58,
+      y,
+      size: 6.5,
+      font: fonts.bold,
+      color: INK,
+    });
+  }
+
+  // Full width: conditions, verification code, caution.
+  const fullW = W - 2 * pad;
+  y = Math.min(y, qrTop - qrSide) - 6;
+  page.drawLine({ start: { x: pad, y: y + 4 }, end: { x: W - pad, y: y + 4 }, thickness: 0.6, color: RULE });
+  y -= 4;
+  page.drawText('Conditions', { x: pad, y, size: 6, font: fonts.bold, color: INK });
+  const cond = s.conditions.trim() || 'None.';
+  const condLines = conditionLines(cond, fonts, 6.3, fullW - 38, 3);
+  condLines.forEach((line, i) =>
+    page.drawText(line, { x: pad + 38, y: y - i * 7.4, size: 6.3, font: fonts.regular, color: INK }),
+  );
+  y -= condLines.length * 7.4 + 3;
+  page.drawText('Verify', { x: pad, y, size: 6, font: fonts.bold, color: INK });
+  page.drawText(fitText(s.verificationCode, fonts.black, 7.5, fullW - 38), {
+    x: pad + 38,
+    y,
+    size: 7.5,
+    font: fonts.black,
+    color: INK,
+  });
+  y -= 7;
+  page.drawText(fitText(s.verificationUrl, fonts.regular, 5.5, fullW - 38), {
+    x: pad + 38,
+    y,
+    size: 5.5,
+    font: fonts.regular,
+    color: INK_SOFT,
+  });
+  const caution = wrapText(SHORT_CAUTION, fonts.bold, 5.6, fullW);
+  caution.forEach((line, i) =>
+    page.drawText(line, {
+      x: pad,
+      y: 4.5 + (caution.length - 1 - i) * 6.6,
+      size: 5.6,
+      font: fonts.bold,
+      color: INK_SOFT,
+    }),
+  );
+  page.pushOperators(popGraphicsState());
+}
+
+/** "REF rev N — page n of m", small, bottom right, on a white backing. Inside the display frame. */
+export function drawFooter(page: PDFPage, frame: PageFrame, fonts: Fonts, text: string) {
+  const size = 7;
+  const t = fitText(text, fonts.bold, size, frame.width - 24);
+  const w = widthOf(t, fonts.bold, size);
+  const x = frame.width - 14 - w;
+  const y = 9;
+  page.drawRectangle({ x: x - 3, y: y - 2.5, width: w + 6, height: size + 4, color: WHITE, opacity: 0.9 });
+  page.drawText(t, { x, y, size, font: fonts.bold, color: INK });
+}

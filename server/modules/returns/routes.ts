@@ -1,0 +1,50 @@
+// Stamped returns: the reviewer issues one (a job builds it), anyone on the package
+// follows its progress and downloads it when ready.
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../../context';
+import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
+import { valid, validate } from '../../middleware/validate';
+import { PackageIdParams } from '../packages/routes';
+import { issueReturn, listReturns, readReturn } from './service';
+
+export const ReturnParams = PackageIdParams.extend({
+  returnId: z.uuid({ message: 'returnId must be a UUID' }),
+});
+
+export function returnRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const ds = ctx.dataSource;
+  const auth = requireAuth(ctx.passport);
+
+  router.post(
+    '/packages/:id/returns',
+    auth,
+    requireRole('reviewer'),
+    validate({ params: PackageIdParams }),
+    async (req, res) => {
+      res
+        .status(202)
+        .json(await issueReturn(ds, ctx.queues, currentUser(req), valid(req, 'params', PackageIdParams).id));
+    },
+  );
+
+  router.get('/packages/:id/returns', auth, validate({ params: PackageIdParams }), async (req, res) => {
+    res.json(await listReturns(ds, currentUser(req), valid(req, 'params', PackageIdParams).id));
+  });
+
+  router.get(
+    '/packages/:id/returns/:returnId/file',
+    auth,
+    validate({ params: ReturnParams }),
+    async (req, res) => {
+      const { id, returnId } = valid(req, 'params', ReturnParams);
+      const { ret, reference, bytes } = await readReturn(ds, ctx.storage, currentUser(req), id, returnId);
+      res.setHeader('Content-Type', 'application/pdf');
+      res.setHeader('Content-Disposition', `inline; filename="${reference}-stamped-return.pdf"`);
+      res.setHeader('X-Content-SHA256', ret.sha256 ?? '');
+      res.end(Buffer.from(bytes));
+    },
+  );
+  return router;
+}

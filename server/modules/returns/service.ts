@@ -1,0 +1,225 @@
+// The stamped return: a reviewer issues it for the recorded decision; the stamp job
+// builds the PDF (original pages with markups burned in, the stamp block, the calculation
+// sheet), stores it with its sha-256 and marks the package returned. One return per
+// decision: issuing twice or retrying the job gives the same single return.
+import { randomBytes } from 'node:crypto';
+import type { DataSource } from 'typeorm';
+import { DECISION_LABELS } from '@shared/schemas/common';
+import { AppError } from '../../lib/app-error';
+import { QUEUE_NAMES, type Queues } from '../../lib/queues';
+import { sha256, type Storage } from '../../lib/storage';
+import { AuditEvent } from '../audit/audit-event.entity';
+import { UploadedFile } from '../files/file.entity';
+import { Organisation } from '../organisations/organisation.entity';
+import { LiftPackage, Revision } from '../packages/package.entity';
+import { findScopedPackage } from '../packages/package-scope';
+import { Finding, Markup, StampedReturn } from '../reviews/review.entity';
+import { latestDecision } from '../reviews/service';
+import { Site } from '../sites/site.entity';
+import { User } from '../users/user.entity';
+import { buildStampedReturn } from './stamp-pdf';
+
+const BASE32 = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ234567';
+
+/** 24 base-32 characters: 120 random bits, too many to guess. */
+export function newVerificationCode(): string {
+  const bytes = randomBytes(24);
+  return Array.from(bytes, (b) => BASE32[b & 31]).join('');
+}
+
+export function stampJobId(decisionId: string) {
+  return `stamp-${decisionId}`;
+}
+
+function toReturn(r: StampedReturn) {
+  return {
+    id: r.id,
+    revisionId: r.revisionId,
+    state: r.state,
+    progress: r.progress,
+    error: r.error,
+    sha256: r.sha256,
+    pages: r.pages,
+    verificationCode: r.verificationCode,
+    createdAt: r.createdAt.toISOString(),
+    readyAt: r.readyAt?.toISOString() ?? null,
+  };
+}
+
+export async function issueReturn(ds: DataSource, queues: Queues, user: Express.User, packageId: string) {
+  if (user.role !== 'reviewer') throw AppError.forbidden('Only a reviewer issues the stamped return.');
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  const decision = await latestDecision(ds.manager, pkg.id);
+  if (!decision || !['decided', 'returned'].includes(pkg.status)) {
+    throw new AppError(
+      409,
+      'no_decision',
+      'The engineer of record has not recorded a decision on this revision yet.',
+    );
+  }
+  let ret = await ds.getRepository(StampedReturn).findOneBy({ decisionId: decision.id });
+  if (!ret) {
+    ret = await ds.transaction(async (m) => {
+      await m.query(
+        `INSERT INTO stamped_returns (decision_id, package_id, revision_id, verification_code, issued_by_id)
+         VALUES ($1, $2, $3, $4, $5) ON CONFLICT (decision_id) DO NOTHING`,
+        [decision.id, pkg.id, decision.revisionId, newVerificationCode(), user.id],
+      );
+      await m.getRepository(AuditEvent).save({
+        packageId: pkg.id,
+        actorId: user.id,
+        organisationId: user.organisationId,
+        action: 'return.requested',
+        detail: { decision: decision.decision },
+      });
+      return m.getRepository(StampedReturn).findOneByOrFail({ decisionId: decision.id });
+    });
+  }
+  if (ret.state !== 'ready') {
+    await queues.stamp.add('stamp-return', { returnId: ret.id }, { jobId: stampJobId(decision.id) });
+  }
+  return toReturn(ret);
+}
+
+export async function listReturns(ds: DataSource, user: Express.User, packageId: string) {
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  const rows = await ds
+    .getRepository(StampedReturn)
+    .find({ where: { packageId: pkg.id }, order: { createdAt: 'DESC' } });
+  return { items: rows.map(toReturn) };
+}
+
+export async function readReturn(
+  ds: DataSource,
+  storage: Storage,
+  user: Express.User,
+  packageId: string,
+  returnId: string,
+) {
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  const ret = await ds.getRepository(StampedReturn).findOneBy({ id: returnId, packageId: pkg.id });
+  if (!ret || ret.state !== 'ready' || !ret.storageKey) throw AppError.notFound('stamped return');
+  return { ret, reference: pkg.reference, bytes: await storage.get(ret.storageKey) };
+}
+
+export type ProgressFn = (percent: number, step: string) => Promise<void> | void;
+
+/** The stamp job's work. Safe to run again: a ready return is left as it is. */
+export async function buildReturn(
+  ds: DataSource,
+  storage: Storage,
+  returnId: string,
+  appUrl: string,
+  progress: ProgressFn = () => undefined,
+) {
+  const ret = await ds.getRepository(StampedReturn).findOneBy({ id: returnId });
+  if (!ret) throw new Error(`stamped return ${returnId} does not exist`);
+  if (ret.state === 'ready') return { skipped: true as const };
+  const step = async (percent: number, name: string) => {
+    await ds.getRepository(StampedReturn).update(ret.id, { progress: percent });
+    await progress(percent, name);
+  };
+  await step(5, 'reading the review');
+  const pkg = await ds.getRepository(LiftPackage).findOneByOrFail({ id: ret.packageId });
+  const revision = await ds.getRepository(Revision).findOneByOrFail({ id: ret.revisionId });
+  const decision = (await latestDecision(ds.manager, pkg.id))!;
+  const site = await ds.getRepository(Site).findOneByOrFail({ id: pkg.siteId });
+  const contractor = await ds
+    .getRepository(Organisation)
+    .findOneByOrFail({ id: pkg.contractorOrganisationId });
+  const engineer = await ds.getRepository(User).findOneByOrFail({ id: decision.engineerId });
+  const reviewer = await ds.getRepository(User).findOneByOrFail({ id: ret.issuedById });
+  const files = await ds
+    .getRepository(UploadedFile)
+    .find({ where: { revisionId: revision.id }, order: { kind: 'ASC', createdAt: 'ASC' } });
+  const markups = await ds
+    .getRepository(Markup)
+    .find({ where: { revisionId: revision.id }, order: { createdAt: 'ASC' } });
+  const findings = await ds
+    .getRepository(Finding)
+    .find({ where: { packageId: pkg.id }, order: { createdAt: 'ASC' } });
+  await step(20, 'reading the original pages');
+  const documents = [];
+  for (const f of files)
+    documents.push({ fileId: f.id, name: f.originalName, bytes: await storage.get(f.storageKey) });
+  await step(40, 'burning in markups and the stamp');
+  const pdf = await buildStampedReturn({
+    documents,
+    markups: markups.map((mk) => ({
+      fileId: mk.fileId,
+      pageNumber: mk.pageNumber,
+      kind: mk.kind,
+      geometry: mk.geometry as Record<string, number>,
+      colour: mk.colour as 'rust',
+      text: mk.text,
+      number: mk.number,
+    })),
+    stamp: {
+      decision: decision.decision,
+      reference: pkg.reference,
+      title: pkg.title,
+      revision: revision.number,
+      site: site.name,
+      contractor: contractor.name,
+      engineer: engineer.name,
+      reviewer: reviewer.name,
+      decidedAt: decision.createdAt.toISOString(),
+      issuedAt: ret.createdAt.toISOString(),
+      timeZone: site.timeZone,
+      conditions: decision.conditions,
+      verificationCode: ret.verificationCode,
+      verificationUrl: `${appUrl}/verify/${ret.verificationCode}`,
+    },
+    calculation: {
+      inputs: revision.inputs,
+      result: revision.results as never,
+      units: engineer.unitSystem,
+      findings: findings.map((f) => ({
+        text: f.text,
+        severity: f.severity,
+        state: f.state,
+        response: f.response,
+        checkId: f.checkId,
+        pageNumber: f.pageNumber,
+      })),
+      acceptedFigures: (revision.acceptedFigures ?? []).map((a) => ({
+        figure: a.figure,
+        reason: a.reason,
+        engineer: a.engineer,
+      })),
+    },
+  });
+  await step(85, 'storing the return');
+  const storageKey = `returns/${pkg.id}/${ret.id}.pdf`;
+  await storage.put(storageKey, pdf);
+  const { PDFDocument } = await import('pdf-lib');
+  const pages = (await PDFDocument.load(pdf, { updateMetadata: false })).getPageCount();
+  await ds.transaction(async (m) => {
+    const updated = await m
+      .createQueryBuilder()
+      .update(StampedReturn)
+      .set({
+        state: 'ready',
+        sha256: sha256(pdf),
+        storageKey,
+        pages,
+        progress: 100,
+        readyAt: new Date(),
+        error: null,
+      })
+      .where('id = :id AND state <> :ready', { id: ret.id, ready: 'ready' })
+      .execute();
+    if (!updated.affected) return;
+    await m.getRepository(LiftPackage).update(pkg.id, { status: 'returned' });
+    await m.getRepository(AuditEvent).save({
+      packageId: pkg.id,
+      actorId: ret.issuedById,
+      action: 'return.issued',
+      detail: { decision: DECISION_LABELS[decision.decision], revision: revision.number, pages },
+    });
+  });
+  await progress(100, 'done');
+  return { skipped: false as const, pages };
+}
+
+export const STAMP_QUEUE = QUEUE_NAMES.stamp;

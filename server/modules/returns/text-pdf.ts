@@ -1,0 +1,261 @@
+// Type, colour and small drawing helpers shared by the stamped return's parts: Lato embedded
+// from @fontsource/lato's .woff files (the .woff2 files embed without error but render
+// invisible), text made safe for the embedded glyph set, word wrapping measured with the
+// font, trade-style dates, and the check-status shapes that keep a status readable in
+// greyscale print.
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import fontkit from '@pdf-lib/fontkit';
+import { rgb, type Color, type PDFDocument, type PDFFont, type PDFPage } from 'pdf-lib';
+
+export interface Fonts {
+  regular: PDFFont;
+  bold: PDFFont;
+  black: PDFFont;
+}
+
+const require = createRequire(import.meta.url);
+const fontCache = new Map<string, Uint8Array>();
+
+function latoBytes(weight: 400 | 700 | 900): Uint8Array {
+  const key = `lato-latin-${weight}-normal.woff`;
+  let bytes = fontCache.get(key);
+  if (!bytes) {
+    bytes = new Uint8Array(readFileSync(require.resolve(`@fontsource/lato/files/${key}`)));
+    fontCache.set(key, bytes);
+  }
+  return bytes;
+}
+
+/** Embed the three Lato weights, subset, with fixed names so two builds write the same fonts. */
+export async function embedLato(doc: PDFDocument): Promise<Fonts> {
+  doc.registerFontkit(fontkit);
+  const embed = (weight: 400 | 700 | 900, name: string) =>
+    doc.embedFont(latoBytes(weight), { subset: true, customName: name });
+  // One after the other so the object numbers come out the same on every build.
+  const regular = await embed(400, 'CPLato-Regular');
+  const bold = await embed(700, 'CPLato-Bold');
+  const black = await embed(900, 'CPLato-Black');
+  return { regular, bold, black };
+}
+
+// Characters the Latin subset of Lato lacks but people type into findings and conditions.
+const REPLACEMENTS: Record<string, string> = {
+  '≤': '<=',
+  '≥': '>=',
+  '≠': '!=',
+  '≈': '~',
+  '→': '->',
+  '←': '<-',
+  '⇒': '=>',
+  '√': 'sqrt',
+  '∑': 'sum',
+  Σ: 'sum',
+  Δ: 'delta',
+  δ: 'delta',
+  π: 'pi',
+  ρ: 'rho',
+  ₓ: '_x',
+  ᵧ: '_y',
+  θ: 'theta',
+  α: 'alpha',
+  β: 'beta',
+  γ: 'gamma',
+  μ: 'u',
+  Ω: 'ohm',
+  '∞': 'infinity',
+  '✓': 'yes',
+  '✔': 'yes',
+  '✗': 'x',
+  '✘': 'x',
+  '³': '3',
+  '⁴': '4',
+  '•': '-',
+};
+
+const charsetCache = new WeakMap<PDFFont, Set<number>>();
+function charset(font: PDFFont): Set<number> {
+  let s = charsetCache.get(font);
+  if (!s) {
+    s = new Set(font.getCharacterSet());
+    charsetCache.set(font, s);
+  }
+  return s;
+}
+
+/**
+ * Text the font can draw: control characters become spaces (newlines are kept for the
+ * caller to split on), known symbols become words, accented letters the subset lacks lose
+ * their accent, anything else becomes "?". drawText never meets a glyph it cannot show.
+ */
+export function safeText(text: string, font: PDFFont, keepNewlines = false): string {
+  const set = charset(font);
+  let out = '';
+  for (const ch of text.normalize('NFC')) {
+    const cp = ch.codePointAt(0)!;
+    if (ch === '\n' && keepNewlines) {
+      out += ch;
+      continue;
+    }
+    if (cp < 0x20 || (cp >= 0x7f && cp < 0xa0) || cp === 0x2028 || cp === 0x2029) {
+      out += ' ';
+      continue;
+    }
+    if (set.has(cp)) {
+      out += ch;
+      continue;
+    }
+    const rep = REPLACEMENTS[ch];
+    if (rep !== undefined) {
+      out += rep;
+      continue;
+    }
+    const bare = ch.normalize('NFD').replace(/\p{M}/gu, '');
+    out += bare && [...bare].every((c) => set.has(c.codePointAt(0)!)) ? bare : '?';
+  }
+  return out;
+}
+
+export function widthOf(text: string, font: PDFFont, size: number): number {
+  return font.widthOfTextAtSize(text, size);
+}
+
+/** Break text (already safe) into lines no wider than `width`; long words break by character. */
+export function wrapText(text: string, font: PDFFont, size: number, width: number): string[] {
+  const lines: string[] = [];
+  for (const para of safeText(text, font, true).split('\n')) {
+    const words = para.split(/ +/).filter((w) => w.length > 0);
+    if (words.length === 0) {
+      lines.push('');
+      continue;
+    }
+    let line = '';
+    for (let word of words) {
+      const candidate = line ? `${line} ${word}` : word;
+      if (widthOf(candidate, font, size) <= width) {
+        line = candidate;
+        continue;
+      }
+      if (line) lines.push(line);
+      line = '';
+      while (widthOf(word, font, size) > width) {
+        let cut = word.length - 1;
+        while (cut > 1 && widthOf(word.slice(0, cut), font, size) > width) cut--;
+        lines.push(word.slice(0, cut));
+        word = word.slice(cut);
+      }
+      line = word;
+    }
+    lines.push(line);
+  }
+  return lines;
+}
+
+/** Shorten one line of text to fit `width`, ending in an ellipsis when cut. */
+export function fitText(text: string, font: PDFFont, size: number, width: number): string {
+  const t = safeText(text, font);
+  if (widthOf(t, font, size) <= width) return t;
+  let cut = t.length;
+  while (cut > 0 && widthOf(t.slice(0, cut).trimEnd() + '…', font, size) > width) cut--;
+  return t.slice(0, cut).trimEnd() + '…';
+}
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+function zoned(iso: string, timeZone: string): Record<string, string> | null {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return null;
+  let fmt: Intl.DateTimeFormat;
+  try {
+    fmt = new Intl.DateTimeFormat('en-US', {
+      timeZone,
+      year: 'numeric',
+      month: 'numeric',
+      day: 'numeric',
+      hour: '2-digit',
+      minute: '2-digit',
+      hourCycle: 'h23',
+    });
+  } catch {
+    return zoned(iso, 'UTC');
+  }
+  return Object.fromEntries(fmt.formatToParts(d).map((p) => [p.type, p.value]));
+}
+
+/** "14 Mar 2027" in the site's time zone (UTC when the zone is unknown). */
+export function tradeDate(iso: string, timeZone: string): string {
+  const p = zoned(iso, timeZone);
+  if (!p) return '—';
+  return `${Number(p.day)} ${MONTHS[Number(p.month) - 1]} ${p.year}`;
+}
+
+/** "14 Mar 2027 16:05" in the site's time zone. */
+export function tradeDateTime(iso: string, timeZone: string): string {
+  const p = zoned(iso, timeZone);
+  if (!p) return '—';
+  return `${tradeDate(iso, timeZone)} ${p.hour}:${p.minute}`;
+}
+
+/** Ink and paper: greyscale-safe, the hierarchy carried by weight and size, not hue. */
+export const INK = rgb(0.086, 0.098, 0.11); // #16191c
+export const INK_SOFT = rgb(0.29, 0.31, 0.333); // #4a4f55
+export const RULE = rgb(0.851, 0.835, 0.796); // #d9d5cb
+export const RULE_STRONG = rgb(0.561, 0.541, 0.494); // #8f8a7e
+export const PAPER_ALT = rgb(0.98, 0.976, 0.965); // #faf9f6
+export const GRAPHITE = rgb(0.11, 0.133, 0.149); // #1c2226
+export const WHITE = rgb(1, 1, 1);
+
+export function hexColour(hex: string): Color {
+  const n = parseInt(hex.replace('#', ''), 16);
+  return rgb(((n >> 16) & 255) / 255, ((n >> 8) & 255) / 255, (n & 255) / 255);
+}
+
+export type StatusKey = 'pass' | 'caution' | 'fail' | 'not_applicable';
+export const STATUS_WORDS: Record<StatusKey, string> = {
+  pass: 'PASS',
+  caution: 'CAUTION',
+  fail: 'FAIL',
+  not_applicable: 'N/A',
+};
+
+/**
+ * The status shape, the same family as the screens: a tick in a circle (pass), an
+ * exclamation in a triangle (caution), a cross in a filled octagon (fail), a dash in a
+ * dotted circle (not applicable). (x, y) is the lower-left corner of a `size`-point square.
+ */
+export function drawStatusShape(page: PDFPage, status: StatusKey, x: number, y: number, size: number) {
+  const s = size / 14;
+  const at = { x, y: y + size, scale: s };
+  const stroke = { borderColor: INK, borderWidth: 1.5, borderLineCap: 1 as const };
+  switch (status) {
+    case 'pass':
+      page.drawCircle({ x: x + 7 * s, y: y + 7 * s, size: 5.8 * s, ...stroke, borderWidth: 1.4 * s });
+      page.drawSvgPath('M4.3 7.2 L6.2 9 L9.8 5', { ...at, ...stroke, borderWidth: 1.6 });
+      break;
+    case 'caution':
+      page.drawSvgPath('M7 1.4 L12.8 11.8 H1.2 Z', { ...at, ...stroke, borderWidth: 1.4 });
+      page.drawSvgPath('M7 5.2 V8', { ...at, ...stroke, borderWidth: 1.6 });
+      page.drawCircle({ x: x + 7 * s, y: y + 4 * s, size: 0.8 * s, color: INK });
+      break;
+    case 'fail':
+      page.drawSvgPath('M4.6 1.2 H9.4 L12.8 4.6 V9.4 L9.4 12.8 H4.6 L1.2 9.4 V4.6 Z', { ...at, color: INK });
+      page.drawSvgPath('M5 5 L9 9 M9 5 L5 9', {
+        ...at,
+        borderColor: WHITE,
+        borderWidth: 1.6,
+        borderLineCap: 1,
+      });
+      break;
+    case 'not_applicable':
+      page.drawCircle({
+        x: x + 7 * s,
+        y: y + 7 * s,
+        size: 5.8 * s,
+        borderColor: INK_SOFT,
+        borderWidth: 1.2 * s,
+        borderDashArray: [1.6 * s, 1.6 * s],
+      });
+      page.drawSvgPath('M4.5 7 H9.5', { ...at, borderColor: INK_SOFT, borderWidth: 1.4, borderLineCap: 1 });
+      break;
+  }
+}
