@@ -93,7 +93,7 @@ export function CapacityPlot({
     <figure className="flex flex-col gap-1">
       <svg
         viewBox={`0 0 ${W} ${H}`}
-        className="w-full max-w-[760px] text-ink"
+        className="w-full max-w-[900px] text-ink"
         role="img"
         aria-label={`Chart capacity against radius for ${formatQuantity(column.boomLength, 'length', system)} boom, with the lift at ${formatQuantity(f.radius, 'length', system)} and ${formatQuantity(f.grossLoad, 'weight', system)}`}
       >

@@ -28,7 +28,10 @@ function Row({
       className={`border-b border-rule align-top ${sub ? 'bg-sheet-alt text-[12.5px]' : ''}`}
       data-testid={sub ? undefined : 'check-row'}
     >
-      <th scope="row" className={`px-2 py-1.5 text-left ${sub ? 'pl-7 font-normal' : 'font-bold'}`}>
+      <th
+        scope="row"
+        className={`min-w-[15rem] px-2 py-1.5 text-left ${sub ? 'pl-7 font-normal' : 'font-bold'}`}
+      >
         {item.label}
         {item.message && (
           <p className="mt-0.5 max-w-[34rem] text-[12px] font-normal leading-snug text-ink-soft">

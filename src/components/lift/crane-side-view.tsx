@@ -56,8 +56,8 @@ export function tippingDistance(inputs: unknown): number | null {
 }
 
 const W = 680;
-const H = 360;
-const M = { left: 54, right: 16, top: 16, bottom: 92 };
+const H = 470;
+const M = { left: 54, right: 16, top: 16, bottom: 110 };
 
 export function CraneSideView({
   inputs,
@@ -111,14 +111,14 @@ export function CraneSideView({
   const loadArm = radius - fulcrum;
   const cwArm = cw !== null ? cw + fulcrum : null;
   const len = (m: number) => formatQuantity(m, 'length', system);
-  const dimY1 = ground + 30;
-  const dimY2 = ground + 56;
+  const dimY1 = ground + 48;
+  const dimY2 = ground + 76;
 
   return (
     <figure className="flex flex-col gap-1">
       <svg
         viewBox={`0 0 ${W} ${H}`}
-        className="w-full max-w-[820px] text-ink"
+        className="w-full max-w-[900px] text-ink"
         role="img"
         aria-label={`Side view to scale: tipping line ${len(fulcrum)} from the centre of rotation, load arm ${len(loadArm)} beyond it${cwArm !== null ? `, counterweight arm ${len(cwArm)} behind it` : ''}`}
       >
@@ -163,6 +163,9 @@ export function CraneSideView({
         {xt.map((v) => (
           <g key={`x${v}`}>
             <line x1={X(v / lu.value)} x2={X(v / lu.value)} y1={M.top} y2={ground} stroke="#eeebe3" />
+            <text x={X(v / lu.value)} y={ground + 24} textAnchor="middle" fontSize="11" fill="currentColor">
+              {Number(v.toPrecision(6))}
+            </text>
           </g>
         ))}
         {yt.map((v) => (
@@ -225,19 +228,28 @@ export function CraneSideView({
           x1={X(0)}
           x2={X(0)}
           y1={ground + 8}
-          y2={Y(pivotHeight + 2)}
+          y2={Y(pivotHeight + 6)}
           stroke="#16191c"
           strokeDasharray="10 3 2 3"
         />
-        <text x={X(0) + 4} y={Y(pivotHeight + 2) - 2} fontSize="11" fill="currentColor">
+        <text
+          x={X(0) - 4}
+          y={Y(pivotHeight + 6) + 4}
+          textAnchor="end"
+          fontSize="11"
+          fill="currentColor"
+          paintOrder="stroke"
+          stroke="#fff"
+          strokeWidth="3"
+        >
           centre of rotation
         </text>
         {/* tipping line */}
         <line
           x1={X(fulcrum)}
           x2={X(fulcrum)}
-          y1={ground + 64}
-          y2={Y(pivotHeight + 3)}
+          y1={ground + 84}
+          y2={Y(pivotHeight + 4.5)}
           stroke="#9b1c1c"
           strokeWidth="1.6"
           strokeDasharray="6 3"
@@ -245,10 +257,13 @@ export function CraneSideView({
         <path d={`M ${X(fulcrum)} ${ground - 1} l -6 10 h 12 Z`} fill="#9b1c1c" />
         <text
           x={X(fulcrum) + 4}
-          y={Y(pivotHeight + 3) - 2}
+          y={Y(pivotHeight + 4.5) + 4}
           fontSize="11"
           fontWeight="700"
           fill="currentColor"
+          paintOrder="stroke"
+          stroke="#fff"
+          strokeWidth="3"
         >
           tipping line
         </text>
@@ -315,7 +330,7 @@ export function CraneSideView({
         {cw !== null && cwWeight !== null && (
           <text
             x={X(-cw)}
-            y={Y(pivotHeight + 1.9)}
+            y={Y(pivotHeight + 2.4)}
             textAnchor="middle"
             fontSize="11"
             fill="currentColor"

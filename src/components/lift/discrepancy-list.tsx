@@ -3,6 +3,11 @@ import { formatPercent, formatQuantity } from '@shared/engineering/format';
 import type { Discrepancy, UnitSystem } from '@shared/engineering/types';
 import { sortDiscrepancies } from './result-order';
 
+/** The engine's message starts with the figure's name, already shown beside it. */
+export function withoutLabel(d: Discrepancy): string {
+  return d.message.startsWith(`${d.label}: `) ? d.message.slice(d.label.length + 2) : d.message;
+}
+
 function value(si: number | null, d: Discrepancy, system: UnitSystem) {
   if (si === null) return '—';
   return d.unit === 'percent' ? formatPercent(si) : formatQuantity(si, d.unit, system);

@@ -65,7 +65,7 @@ export function PackageResults({
           </section>
         )}
       </div>
-      <div className="grid gap-3 2xl:grid-cols-2">
+      <div className="grid gap-3">
         <section aria-labelledby="plot-capacity" className="border border-rule bg-sheet px-3 py-2">
           <h3 id="plot-capacity" className="mb-1 text-[14px] font-bold">
             Chart capacity against radius

@@ -10,6 +10,7 @@ import { CheckStatusMark } from '@/components/ui/check-status-mark';
 import { sortChecks, sortDiscrepancies } from '@/components/lift/result-order';
 import { formatCheckLimit, formatCheckValue } from '@/components/lift/result-format';
 import { FixList, ResultCautions } from '@/components/lift/fixes-and-triggers';
+import { withoutLabel } from '@/components/lift/discrepancy-list';
 import { prune } from '../../lib/prune';
 import { labelOfPath } from '../../lib/lift-steps';
 
@@ -107,7 +108,7 @@ function LiveResult({ result, system }: { result: LiftResult; system: UnitSystem
           <ul>
             {disagreements.map((d) => (
               <li key={d.figure} className="text-[12.5px]">
-                <span className="font-bold">{d.label}:</span> {d.message}
+                <span className="font-bold">{d.label}:</span> {withoutLabel(d)}
               </li>
             ))}
           </ul>
