@@ -16,7 +16,10 @@ import { authRoutes } from './modules/auth/routes';
 import { calculationRoutes } from './modules/calculations/routes';
 import { healthRoutes } from './modules/health/routes';
 import { packageRoutes } from './modules/packages/routes';
+import { returnRoutes } from './modules/returns/routes';
+import { reviewRoutes } from './modules/reviews/routes';
 import { siteRoutes } from './modules/sites/routes';
+import { verifyRoutes } from './modules/verify/routes';
 import './openapi-routes';
 
 export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
@@ -50,6 +53,9 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   app.use('/api', adminRoutes(ctx));
   app.use('/api', siteRoutes(ctx));
   app.use('/api', calculationRoutes(ctx));
+  app.use('/api', reviewRoutes(ctx));
+  app.use('/api', returnRoutes(ctx));
+  app.use('/api', verifyRoutes(ctx));
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApiDocument());
   });

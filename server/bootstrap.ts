@@ -52,7 +52,7 @@ export async function connect(config: Config = loadConfig()): Promise<AppContext
   const queueConnection = createRedis(config.REDIS_URL, { forWorker: true });
   void queueConnection.connect().catch(() => undefined);
   queueConnection.on('error', () => undefined);
-  const queues = createQueues(queueConnection, config.QUEUE_PREFIX);
+  const queues = createQueues(queueConnection, config.REDIS_PREFIX);
   const passport = createPassport(dataSource, config.JWT_SECRET);
   return {
     config,

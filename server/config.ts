@@ -26,10 +26,11 @@ const Env = z.object({
     .default(100 * 1024 * 1024),
   UPLOAD_MAX_PAGES: z.coerce.number().int().min(1).default(500),
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
+  VERIFY_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(30),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().min(0.01).default(15),
-  QUEUE_PREFIX: z
+  REDIS_PREFIX: z
     .string()
-    .regex(/^[a-z0-9-]{1,40}$/, 'QUEUE_PREFIX must be 1 to 40 of a-z, 0-9 and -')
+    .regex(/^[a-z0-9-]{1,40}$/, 'REDIS_PREFIX must be 1 to 40 of a-z, 0-9 and -')
     .default('cp'),
   CHECK_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
   SMTP_URL: z.string().optional(),

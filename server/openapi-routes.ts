@@ -12,10 +12,23 @@ import {
   SaveDraftBody,
   SiteList,
 } from '@shared/schemas/packages';
+import {
+  AcceptFigureBody,
+  AssignBody,
+  DecisionBody,
+  Finding,
+  FindingBody,
+  FindingUpdateBody,
+  Markup,
+  MarkupBody,
+  Verification,
+} from '@shared/schemas/reviews';
 import { describeRoute } from './lib/openapi';
 import { OrganisationList } from './modules/admin/routes';
 import { LiftResultShape } from './modules/calculations/routes';
 import { FileParams, PackageIdParams, RevisionParams } from './modules/packages/routes';
+import { ReturnParams } from './modules/returns/routes';
+import { CompareQuery, FindingParams, MarkupParams, MarkupQuery } from './modules/reviews/routes';
 
 const Upload = z.object({
   kind: z.enum(['lift_plan', 'supporting']),
@@ -181,4 +194,155 @@ describeRoute({
   path: '/admin/sites',
   summary: 'Sites your organisation owns (admin)',
   tags: ['admin'],
+});
+
+const Findings = z.object({ items: z.array(Finding) });
+const StampedReturn = z.object({
+  id: z.uuid(),
+  revisionId: z.uuid(),
+  state: z.enum(['pending', 'ready', 'failed']),
+  progress: z.number().int(),
+  error: z.string().nullable(),
+  sha256: z.string().nullable(),
+  pages: z.number().int().nullable(),
+  verificationCode: z.string(),
+  createdAt: z.string(),
+  readyAt: z.string().nullable(),
+});
+describeRoute({
+  method: 'get',
+  path: '/engineers',
+  summary: 'Engineers of your organisation with their open packages (reviewer, admin)',
+  tags: ['review'],
+});
+describeRoute({
+  method: 'post',
+  path: '/assignments',
+  summary: 'Assign or reassign an engineer to one or many packages (reviewer)',
+  tags: ['review'],
+  body: AssignBody,
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/markups',
+  summary: 'Markups of a revision, in PDF page coordinates',
+  tags: ['review'],
+  params: PackageIdParams,
+  query: MarkupQuery,
+  response: z.object({ items: z.array(Markup) }),
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/markups',
+  summary: 'Add a markup (assigned engineer)',
+  tags: ['review'],
+  params: PackageIdParams,
+  body: MarkupBody,
+  response: Markup,
+  status: 201,
+});
+describeRoute({
+  method: 'delete',
+  path: '/packages/:id/markups/:markupId',
+  summary: 'Remove a markup (assigned engineer)',
+  tags: ['review'],
+  params: MarkupParams,
+  status: 204,
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/findings',
+  summary: 'Findings of every revision with their state',
+  tags: ['review'],
+  params: PackageIdParams,
+  response: Findings,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/findings',
+  summary: 'Raise a finding on a page, a markup or a check (assigned engineer)',
+  tags: ['review'],
+  params: PackageIdParams,
+  body: FindingBody,
+  response: Findings,
+  status: 201,
+});
+describeRoute({
+  method: 'patch',
+  path: '/packages/:id/findings/:findingId',
+  summary: 'Answer (contractor) or close/reopen (engineer) a finding',
+  tags: ['review'],
+  params: FindingParams,
+  body: FindingUpdateBody,
+  response: Findings,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/accepted-figures',
+  summary: 'Accept a stated figure that differs, with a reason (assigned engineer)',
+  tags: ['review'],
+  params: PackageIdParams,
+  body: AcceptFigureBody,
+  response: PackageDetail,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/decision',
+  summary: 'Record the decision (assigned engineer); 409 when the package changed since baseVersion',
+  tags: ['review'],
+  params: PackageIdParams,
+  body: DecisionBody,
+  response: PackageDetail,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/revisions',
+  summary: 'Start the next revision after Revise and resubmit or Rejected (contractor)',
+  tags: ['review'],
+  params: PackageIdParams,
+  response: PackageDetail,
+  status: 201,
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/compare',
+  summary: 'Inputs and check results that differ between two revisions',
+  tags: ['review'],
+  params: PackageIdParams,
+  query: CompareQuery,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/returns',
+  summary: 'Issue the stamped return for the recorded decision (reviewer)',
+  tags: ['returns'],
+  params: PackageIdParams,
+  response: StampedReturn,
+  status: 202,
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/returns',
+  summary: 'Stamped returns of the package with their progress',
+  tags: ['returns'],
+  params: PackageIdParams,
+  response: z.object({ items: z.array(StampedReturn) }),
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/returns/:returnId/file',
+  summary: 'The stamped PDF',
+  tags: ['returns'],
+  params: ReturnParams,
+  responseContentType: 'application/pdf',
+  response: z.string(),
+});
+describeRoute({
+  method: 'get',
+  path: '/verify/:code',
+  summary: 'Public: is this stamped return the current accepted revision? (rate-limited)',
+  tags: ['verify'],
+  public: true,
+  params: z.object({ code: z.string() }),
+  response: Verification,
 });

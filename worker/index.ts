@@ -10,12 +10,16 @@ import { createRedis } from '../server/lib/redis';
 import { enqueueCheck } from '../server/modules/packages/drafts';
 import { Revision } from '../server/modules/packages/package.entity';
 import { startCheckRunWorker } from './tasks/check-run-task';
+import { startStampWorker } from './tasks/stamp-return-task';
 
 async function main() {
   const config = loadConfig();
   const ctx = await connect(config);
   const connection = createRedis(config.REDIS_URL, { forWorker: true });
-  const workers: Worker[] = [startCheckRunWorker(ctx, connection, config.CHECK_CONCURRENCY)];
+  const workers: Worker[] = [
+    startCheckRunWorker(ctx, connection, config.CHECK_CONCURRENCY),
+    startStampWorker(ctx, connection, 1),
+  ];
   for (const w of workers) {
     w.on('error', (err) => logger.error({ err, queue: w.name }, 'worker error'));
     w.on('failed', (job, err) => logger.warn({ err, queue: w.name, jobId: job?.id }, 'job failed'));

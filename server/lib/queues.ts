@@ -13,26 +13,40 @@ export interface CheckRunJob {
   revisionId: string;
 }
 
+export interface StampJob {
+  returnId: string;
+}
+
 export interface Queues {
   checkRun: Queue<CheckRunJob>;
+  stamp: Queue<StampJob>;
   close(): Promise<void>;
 }
+
+/** Transient faults retry with backoff; finished jobs are kept a while for the record. */
+const JOB_DEFAULTS = {
+  attempts: 5,
+  backoff: { type: 'exponential', delay: 2000 },
+  removeOnComplete: { age: 7 * 24 * 3600, count: 10_000 },
+  removeOnFail: { age: 30 * 24 * 3600 },
+} as const;
 
 export function createQueues(connection: Redis, prefix: string): Queues {
   const checkRun = new Queue<CheckRunJob>(QUEUE_NAMES.checkRun, {
     connection,
     prefix,
-    defaultJobOptions: {
-      attempts: 5,
-      backoff: { type: 'exponential', delay: 2000 },
-      removeOnComplete: { age: 7 * 24 * 3600, count: 10_000 },
-      removeOnFail: { age: 30 * 24 * 3600 },
-    },
+    defaultJobOptions: JOB_DEFAULTS,
+  });
+  const stamp = new Queue<StampJob>(QUEUE_NAMES.stamp, {
+    connection,
+    prefix,
+    defaultJobOptions: JOB_DEFAULTS,
   });
   return {
     checkRun,
+    stamp,
     async close() {
-      await checkRun.close();
+      await Promise.all([checkRun.close(), stamp.close()]);
     },
   };
 }

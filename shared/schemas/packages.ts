@@ -12,13 +12,38 @@ export const PACKAGE_SORTS = [
   '-updatedAt',
   'reference',
   '-reference',
+  'openDiscrepancies',
+  '-openDiscrepancies',
+  'revision',
+  '-revision',
 ] as const;
+
+const flag = (name: string) =>
+  z.enum(['true', 'false'], { message: `${name} must be true or false` }).transform((v) => v === 'true');
 
 export const PackageListQuery = z.object({
   status: z.enum(PACKAGE_STATUSES).optional(),
-  siteId: z.uuid().optional(),
+  siteId: z.uuid({ message: 'siteId must be a UUID' }).optional(),
+  contractorId: z.uuid({ message: 'contractorId must be a UUID' }).optional(),
+  /** An engineer's id, or "none" for packages nobody is assigned to. */
+  engineerId: z
+    .union([z.uuid(), z.literal('none')], { message: 'engineerId must be a UUID or none' })
+    .optional(),
+  critical: flag('critical').optional(),
+  /** true: only packages with open discrepancies. */
+  discrepancies: flag('discrepancies').optional(),
+  /** Packages whose planned lift date is within this many days from today (late ones included). */
+  liftWithinDays: z.coerce
+    .number()
+    .int()
+    .min(0, 'liftWithinDays must be 0 or more')
+    .max(365, 'liftWithinDays must be at most 365')
+    .optional(),
+  revisionMin: z.coerce.number().int().min(1, 'revisionMin must be 1 or more').max(1000).optional(),
   q: z.string().trim().max(100, 'q must be at most 100 characters').optional(),
-  sort: z.enum(PACKAGE_SORTS).default('plannedLiftDate'),
+  sort: z
+    .enum(PACKAGE_SORTS, { message: `sort must be one of ${PACKAGE_SORTS.join(', ')}` })
+    .default('plannedLiftDate'),
   page: z.coerce.number().int().min(1, 'page must be 1 or more').max(10_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(100, 'pageSize must be at most 100').default(25),
 });

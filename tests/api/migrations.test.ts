@@ -46,17 +46,16 @@ describe('migrations', () => {
           'audit_events',
         ]),
       );
-      const indexCount = async () =>
-        Number(
-          (
-            await ds.query(
-              `SELECT count(*) AS n FROM pg_indexes WHERE indexname = 'lift_packages_site_status_idx'`,
-            )
-          )[0].n,
-        );
-      expect(await indexCount()).toBe(1);
+      const count = async (sql: string) => Number((await ds.query(sql))[0].n);
+      const reviewDesk = async () => [
+        await count(`SELECT count(*) AS n FROM pg_indexes WHERE indexname = 'markups_revision_idx'`),
+        await count(
+          `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'revisions' AND column_name = 'accepted_figures'`,
+        ),
+      ];
+      expect(await reviewDesk()).toEqual([1, 1]);
       await ds.undoLastMigration();
-      expect(await indexCount()).toBe(0);
+      expect(await reviewDesk()).toEqual([0, 0]);
       expect(await tables(ds)).toContain('lift_packages');
       for (let i = 1; i < MIGRATIONS.length; i++) await ds.undoLastMigration();
       expect((await tables(ds)).filter((t) => t !== 'migrations')).toEqual([]);

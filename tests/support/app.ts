@@ -15,7 +15,7 @@ export interface TestApp {
 
 export async function startTestApp(overrides: Partial<Config> = {}): Promise<TestApp> {
   // Each test app gets its own queue prefix, so parallel test files never share jobs.
-  const config = { ...loadConfig(), QUEUE_PREFIX: `t-${randomUUID().slice(0, 8)}`, ...overrides };
+  const config = { ...loadConfig(), REDIS_PREFIX: `t-${randomUUID().slice(0, 8)}`, ...overrides };
   const ctx = await connect(config);
   const app = createApp(ctx, { clientDir: '/nonexistent' });
   return { ctx, app, close: async () => ctx.close?.() };

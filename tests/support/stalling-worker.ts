@@ -11,6 +11,6 @@ new Worker(
     process.stdout.write(`took ${job.id}\n`);
     await new Promise(() => undefined);
   },
-  { connection, prefix: process.env.QUEUE_PREFIX, lockDuration: 1500, stalledInterval: 60_000 },
+  { connection, prefix: process.env.REDIS_PREFIX, lockDuration: 1500, stalledInterval: 60_000 },
 );
 process.stdout.write('ready\n');

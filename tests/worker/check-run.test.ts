@@ -119,7 +119,7 @@ describe('the check-run worker', () => {
   it('when a worker is killed mid-job, then the stalled job is recovered and completes once', async () => {
     const { pkg, revisionId } = await submittedRevision(example);
     const child = spawn(process.execPath, ['--import', 'tsx', 'tests/support/stalling-worker.ts'], {
-      env: { ...process.env, QUEUE_PREFIX: t.ctx.config.QUEUE_PREFIX },
+      env: { ...process.env, REDIS_PREFIX: t.ctx.config.REDIS_PREFIX },
       stdio: ['ignore', 'pipe', 'inherit'],
     });
     let out = '';

@@ -28,7 +28,7 @@ export function startCheckRunWorker(
     },
     {
       connection,
-      prefix: ctx.config.QUEUE_PREFIX,
+      prefix: ctx.config.REDIS_PREFIX,
       concurrency,
       stalledInterval: timing.stalledInterval ?? 15_000,
       lockDuration: timing.lockDuration ?? 30_000,

@@ -1,5 +1,6 @@
 // Migrations in the order they run. Add new ones at the end (see DEVELOPERS.md).
 import { InitialSchema1764633600000 } from './1764633600000-initial-schema';
 import { QueueIndexes1764633700000 } from './1764633700000-queue-indexes';
+import { ReviewDesk1764640000000 } from './1764640000000-review-desk';
 
-export const MIGRATIONS = [InitialSchema1764633600000, QueueIndexes1764633700000];
+export const MIGRATIONS = [InitialSchema1764633600000, QueueIndexes1764633700000, ReviewDesk1764640000000];

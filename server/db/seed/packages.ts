@@ -365,15 +365,13 @@ export async function seedPackages(
       plannedLiftDate: isoDay(spec.daysToLift),
       currentRevision: 1,
     });
-    await m
-      .getRepository(AuditEvent)
-      .save({
-        packageId: pkg.id,
-        actorId: person.id,
-        organisationId: org.id,
-        action: 'package.created',
-        detail: { reference, revision: 1 },
-      });
+    await m.getRepository(AuditEvent).save({
+      packageId: pkg.id,
+      actorId: person.id,
+      organisationId: org.id,
+      action: 'package.created',
+      detail: { reference, revision: 1 },
+    });
     const submitted = spec.status !== 'draft' || spec.revisingAfter === true;
     const revision = await m.getRepository(Revision).save({
       packageId: pkg.id,
@@ -413,15 +411,13 @@ export async function seedPackages(
         submittedById: person.id,
         checkStatus: 'queued',
       });
-      await m
-        .getRepository(AuditEvent)
-        .save({
-          packageId: pkg.id,
-          actorId: person.id,
-          organisationId: org.id,
-          action: 'revision.submitted',
-          detail: { revision: 1 },
-        });
+      await m.getRepository(AuditEvent).save({
+        packageId: pkg.id,
+        actorId: person.id,
+        organisationId: org.id,
+        action: 'revision.submitted',
+        detail: { revision: 1 },
+      });
     }
     seeded.push({ spec, packageId: pkg.id, submittedRevisionId: submitted ? revision.id : null });
   }
@@ -455,14 +451,12 @@ export async function finishSeededPackages(
           .getRepository(Assignment)
           .save({ packageId, engineerId: engineer.id, assignedById: reviewer.id });
         await m.getRepository(LiftPackage).update(packageId, { assignedEngineerId: engineer.id });
-        await m
-          .getRepository(AuditEvent)
-          .save({
-            packageId,
-            actorId: reviewer.id,
-            action: 'engineer.assigned',
-            detail: { engineer: engineer.name },
-          });
+        await m.getRepository(AuditEvent).save({
+          packageId,
+          actorId: reviewer.id,
+          action: 'engineer.assigned',
+          detail: { engineer: engineer.name },
+        });
       }
       for (const f of spec.findings ?? []) {
         await m.getRepository(Finding).save({
@@ -484,14 +478,12 @@ export async function finishSeededPackages(
           engineerId: engineer.id,
         });
         await m.getRepository(LiftPackage).update(packageId, { decision: spec.decision });
-        await m
-          .getRepository(AuditEvent)
-          .save({
-            packageId,
-            actorId: engineer.id,
-            action: 'decision.recorded',
-            detail: { decision: spec.decision, revision: 1 },
-          });
+        await m.getRepository(AuditEvent).save({
+          packageId,
+          actorId: engineer.id,
+          action: 'decision.recorded',
+          detail: { decision: spec.decision, revision: 1 },
+        });
       }
       if (spec.revisingAfter) {
         const first = await m.getRepository(Revision).findOneByOrFail({ id: submittedRevisionId! });

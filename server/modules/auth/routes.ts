@@ -20,7 +20,7 @@ export function authRoutes(ctx: AppContext): Router {
     limit: config.SIGN_IN_LIMIT,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    store: new RedisRateLimitStore(ctx.redis, 'rl:sign-in:'),
+    store: new RedisRateLimitStore(ctx.redis, `${config.REDIS_PREFIX}:rl:sign-in:`),
     keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}:${String(req.body?.email ?? '').toLowerCase()}`,
     passOnStoreError: true,
     handler: (_req, _res, next, options) =>

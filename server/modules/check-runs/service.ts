@@ -40,13 +40,11 @@ export async function runCheck(
       .map((i) => `${i.path.join('.')}: ${i.message}`)
       .join('; ');
     await dataSource.transaction(async (m) => {
-      await m
-        .getRepository(Revision)
-        .update(revision.id, {
-          checkStatus: 'invalid',
-          checkError: reason.slice(0, 500),
-          checkProgress: 100,
-        });
+      await m.getRepository(Revision).update(revision.id, {
+        checkStatus: 'invalid',
+        checkError: reason.slice(0, 500),
+        checkProgress: 100,
+      });
       await m.getRepository(LiftPackage).update(pkg.id, { status: 'check_failed' });
       await audit(m, pkg.id, 'check.invalid', { revision: revision.number, reason });
     });

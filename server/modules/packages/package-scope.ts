@@ -7,6 +7,10 @@ import type { EntityManager, SelectQueryBuilder } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import { LiftPackage } from './package.entity';
 
+/** A package that was never submitted is the contractor's alone; a later revision in draft is not. */
+const NOT_FIRST_DRAFT = (alias: string) =>
+  `NOT (${alias}.status = 'draft' AND ${alias}.current_revision = 1)`;
+
 export function scopedPackages(
   manager: EntityManager,
   user: Express.User,
@@ -21,17 +25,17 @@ export function scopedPackages(
         .where(`${alias}.site_id IN (SELECT sm.site_id FROM site_members sm WHERE sm.user_id = :scopeUser)`, {
           scopeUser: user.id,
         })
-        .andWhere(`${alias}.status <> 'draft'`);
+        .andWhere(NOT_FIRST_DRAFT(alias));
     case 'engineer':
       return qb
         .where(`${alias}.assigned_engineer_id = :scopeUser`, { scopeUser: user.id })
-        .andWhere(`${alias}.status <> 'draft'`);
+        .andWhere(NOT_FIRST_DRAFT(alias));
     case 'admin':
       return qb
         .where(`${alias}.site_id IN (SELECT s.id FROM sites s WHERE s.owner_organisation_id = :scopeOrg)`, {
           scopeOrg: user.organisationId,
         })
-        .andWhere(`${alias}.status <> 'draft'`);
+        .andWhere(NOT_FIRST_DRAFT(alias));
   }
 }
 

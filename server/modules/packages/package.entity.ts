@@ -68,6 +68,15 @@ export class Revision {
   @Column({ type: 'jsonb', nullable: true }) results: Record<string, unknown> | null;
   @Column({ type: 'jsonb', name: 'policy_used', nullable: true }) policyUsed: Record<string, unknown> | null;
   @Column({ type: 'timestamptz', name: 'checked_at', nullable: true }) checkedAt: Date | null;
+  /** Stated figures the engineer accepted despite a discrepancy, with the reason. */
+  @Column({ type: 'jsonb', name: 'accepted_figures', default: () => "'[]'::jsonb" })
+  acceptedFigures: Array<{
+    figure: string;
+    reason: string;
+    engineerId: string;
+    engineer: string;
+    at: string;
+  }>;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' }) updatedAt: Date;
 }

@@ -34,7 +34,7 @@ export function packageRoutes(ctx: AppContext): Router {
 
   router.post('/packages', contractorOnly, validate({ body: CreatePackageBody }), async (req, res) => {
     const id = await createPackage(ds, currentUser(req), valid(req, 'body', CreatePackageBody));
-    res.status(201).json(await packageDetail(ds, id));
+    res.status(201).json(await packageDetail(ds, id, currentUser(req)));
   });
 
   router.get('/packages/:id', validate({ params: PackageIdParams }), async (req, res) => {
@@ -53,7 +53,7 @@ export function packageRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
       await saveDraft(ds, currentUser(req), id, valid(req, 'body', SaveDraftBody));
-      res.json(await packageDetail(ds, id));
+      res.json(await packageDetail(ds, id, currentUser(req)));
     },
   );
 
@@ -63,7 +63,7 @@ export function packageRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams }),
     async (req, res) => {
       const newId = await duplicatePackage(ds, currentUser(req), valid(req, 'params', PackageIdParams).id);
-      res.status(201).json(await packageDetail(ds, newId));
+      res.status(201).json(await packageDetail(ds, newId, currentUser(req)));
     },
   );
 
@@ -74,7 +74,7 @@ export function packageRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
       await submitPackage(ds, ctx.queues, currentUser(req), id);
-      res.status(202).json(await packageDetail(ds, id));
+      res.status(202).json(await packageDetail(ds, id, currentUser(req)));
     },
   );
 

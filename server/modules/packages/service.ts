@@ -20,6 +20,8 @@ const SORT_COLUMNS: Record<string, string> = {
   plannedLiftDate: 'p.planned_lift_date',
   updatedAt: 'p.updated_at',
   reference: 'p.reference',
+  openDiscrepancies: 'p.open_discrepancies',
+  revision: 'p.current_revision',
 };
 
 export function toSummary(p: LiftPackage): PackageSummary {
@@ -51,6 +53,21 @@ export async function listPackages(
     .leftJoinAndSelect('p.contractor', 'contractor')
     .leftJoinAndSelect('p.assignedEngineer', 'engineer');
   if (query.siteId) filtered.andWhere('p.site_id = :siteId', { siteId: query.siteId });
+  if (query.contractorId)
+    filtered.andWhere('p.contractor_organisation_id = :contractorId', { contractorId: query.contractorId });
+  if (query.engineerId === 'none') filtered.andWhere('p.assigned_engineer_id IS NULL');
+  else if (query.engineerId)
+    filtered.andWhere('p.assigned_engineer_id = :engineerId', { engineerId: query.engineerId });
+  if (query.critical !== undefined) filtered.andWhere('p.critical = :critical', { critical: query.critical });
+  if (query.discrepancies === true) filtered.andWhere('p.open_discrepancies > 0');
+  if (query.discrepancies === false) filtered.andWhere('p.open_discrepancies = 0');
+  if (query.liftWithinDays !== undefined) {
+    filtered.andWhere(`p.planned_lift_date <= current_date + make_interval(days => :within)`, {
+      within: query.liftWithinDays,
+    });
+  }
+  if (query.revisionMin)
+    filtered.andWhere('p.current_revision >= :revisionMin', { revisionMin: query.revisionMin });
   if (query.q) {
     filtered.andWhere('(p.reference ILIKE :q OR p.title ILIKE :q)', {
       q: `%${query.q.replace(/[%_\\]/g, '\\$&')}%`,
@@ -105,8 +122,15 @@ export async function revisionDetail(dataSource: DataSource, revision: Revision)
   };
 }
 
-/** The detail of a package already known to be in the user's scope. */
-export async function packageDetail(dataSource: DataSource, packageId: string): Promise<PackageDetail> {
+/**
+ * The detail of a package already known to be in the user's scope. Contractors see their
+ * current revision (a draft while they work on it); everyone else the latest submitted one.
+ */
+export async function packageDetail(
+  dataSource: DataSource,
+  packageId: string,
+  user?: Express.User,
+): Promise<PackageDetail> {
   const full = await dataSource.getRepository(LiftPackage).findOneOrFail({
     where: { id: packageId },
     relations: { site: true, contractor: true, assignedEngineer: true },
@@ -114,7 +138,12 @@ export async function packageDetail(dataSource: DataSource, packageId: string): 
   const revisions = await dataSource
     .getRepository(Revision)
     .find({ where: { packageId }, order: { number: 'DESC' } });
-  const current = revisions.find((r) => r.number === full.currentRevision);
+  const visible =
+    user && user.role !== 'contractor' ? revisions.filter((r) => r.state === 'submitted') : revisions;
+  const current =
+    user && user.role !== 'contractor'
+      ? visible[0]
+      : revisions.find((r) => r.number === full.currentRevision);
   if (!current)
     throw new AppError(500, 'internal', `package ${full.reference} has no revision ${full.currentRevision}`);
   const events = await dataSource
@@ -140,7 +169,7 @@ export async function packageDetail(dataSource: DataSource, packageId: string): 
     }>();
   return {
     package: { ...toSummary(full), version: full.version },
-    revisions: revisions.map((r) => ({
+    revisions: visible.map((r) => ({
       id: r.id,
       number: r.number,
       state: r.state,
@@ -158,7 +187,7 @@ export async function getPackage(
   id: string,
 ): Promise<PackageDetail> {
   const found = await findScopedPackage(dataSource.manager, user, id);
-  return packageDetail(dataSource, found.id);
+  return packageDetail(dataSource, found.id, user);
 }
 
 export async function getRevision(dataSource: DataSource, user: Express.User, id: string, number: number) {

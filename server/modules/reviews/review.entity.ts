@@ -34,6 +34,8 @@ export class Finding {
   @Column({ type: 'varchar', length: 20, default: 'open' }) state: 'open' | 'answered' | 'closed';
   @Column({ type: 'text', nullable: true }) response: string | null;
   @Column({ type: 'uuid', name: 'created_by_id' }) createdById: string;
+  @Column({ type: 'timestamptz', name: 'answered_at', nullable: true }) answeredAt: Date | null;
+  @Column({ type: 'timestamptz', name: 'closed_at', nullable: true }) closedAt: Date | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' }) updatedAt: Date;
 }
@@ -77,5 +79,9 @@ export class StampedReturn {
   @Column({ type: 'char', length: 64, nullable: true }) sha256: string | null;
   @Column({ type: 'varchar', length: 300, name: 'storage_key', nullable: true }) storageKey: string | null;
   @Column({ type: 'uuid', name: 'issued_by_id' }) issuedById: string;
+  @Column({ type: 'int', default: 0 }) progress: number;
+  @Column({ type: 'varchar', length: 500, nullable: true }) error: string | null;
+  @Column({ type: 'int', nullable: true }) pages: number | null;
+  @Column({ type: 'timestamptz', name: 'ready_at', nullable: true }) readyAt: Date | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }

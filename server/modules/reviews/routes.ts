@@ -1,0 +1,175 @@
+// Review routes: engineers to assign, assignment, markups, findings, accepted figures,
+// the decision, the next revision and the difference between revisions.
+import { Router } from 'express';
+import { z } from 'zod';
+import {
+  AcceptFigureBody,
+  AssignBody,
+  DecisionBody,
+  FindingBody,
+  FindingUpdateBody,
+  MarkupBody,
+} from '@shared/schemas/reviews';
+import type { AppContext } from '../../context';
+import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
+import { valid, validate } from '../../middleware/validate';
+import { PackageIdParams } from '../packages/routes';
+import { packageDetail } from '../packages/service';
+import { compareRevisions } from './compare';
+import {
+  acceptFigure,
+  addFinding,
+  addMarkup,
+  assignEngineer,
+  deleteMarkup,
+  listEngineers,
+  listFindings,
+  listMarkups,
+  recordDecision,
+  startNextRevision,
+  updateFinding,
+} from './service';
+
+export const MarkupParams = PackageIdParams.extend({
+  markupId: z.uuid({ message: 'markupId must be a UUID' }),
+});
+export const FindingParams = PackageIdParams.extend({
+  findingId: z.uuid({ message: 'findingId must be a UUID' }),
+});
+export const MarkupQuery = z.object({ revision: z.coerce.number().int().min(1).max(1000).optional() });
+export const CompareQuery = z.object({
+  from: z.coerce.number().int().min(1, 'from must be a revision number'),
+  to: z.coerce.number().int().min(1, 'to must be a revision number'),
+});
+
+export function reviewRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const ds = ctx.dataSource;
+  const auth = requireAuth(ctx.passport);
+
+  router.get('/engineers', auth, requireRole('reviewer', 'admin'), async (req, res) => {
+    res.json(await listEngineers(ds, currentUser(req)));
+  });
+
+  router.post(
+    '/assignments',
+    auth,
+    requireRole('reviewer'),
+    validate({ body: AssignBody }),
+    async (req, res) => {
+      const body = valid(req, 'body', AssignBody);
+      res.json(await assignEngineer(ds, currentUser(req), body.packageIds, body.engineerId));
+    },
+  );
+
+  router.get(
+    '/packages/:id/markups',
+    auth,
+    validate({ params: PackageIdParams, query: MarkupQuery }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      res.json(await listMarkups(ds, currentUser(req), id, valid(req, 'query', MarkupQuery).revision));
+    },
+  );
+
+  router.post(
+    '/packages/:id/markups',
+    auth,
+    requireRole('engineer'),
+    validate({ params: PackageIdParams, body: MarkupBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      res.status(201).json(await addMarkup(ds, currentUser(req), id, valid(req, 'body', MarkupBody)));
+    },
+  );
+
+  router.delete(
+    '/packages/:id/markups/:markupId',
+    auth,
+    requireRole('engineer'),
+    validate({ params: MarkupParams }),
+    async (req, res) => {
+      const { id, markupId } = valid(req, 'params', MarkupParams);
+      await deleteMarkup(ds, currentUser(req), id, markupId);
+      res.status(204).end();
+    },
+  );
+
+  router.get('/packages/:id/findings', auth, validate({ params: PackageIdParams }), async (req, res) => {
+    res.json(await listFindings(ds, currentUser(req), valid(req, 'params', PackageIdParams).id));
+  });
+
+  router.post(
+    '/packages/:id/findings',
+    auth,
+    requireRole('engineer'),
+    validate({ params: PackageIdParams, body: FindingBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      res.status(201).json(await addFinding(ds, currentUser(req), id, valid(req, 'body', FindingBody)));
+    },
+  );
+
+  router.patch(
+    '/packages/:id/findings/:findingId',
+    auth,
+    requireRole('engineer', 'contractor'),
+    validate({ params: FindingParams, body: FindingUpdateBody }),
+    async (req, res) => {
+      const { id, findingId } = valid(req, 'params', FindingParams);
+      res.json(
+        await updateFinding(ds, currentUser(req), id, findingId, valid(req, 'body', FindingUpdateBody)),
+      );
+    },
+  );
+
+  router.post(
+    '/packages/:id/accepted-figures',
+    auth,
+    requireRole('engineer'),
+    validate({ params: PackageIdParams, body: AcceptFigureBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      const body = valid(req, 'body', AcceptFigureBody);
+      await acceptFigure(ds, currentUser(req), id, body.figure, body.reason);
+      res.json(await packageDetail(ds, id, currentUser(req)));
+    },
+  );
+
+  router.post(
+    '/packages/:id/decision',
+    auth,
+    requireRole('engineer'),
+    validate({ params: PackageIdParams, body: DecisionBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      await recordDecision(ds, currentUser(req), id, valid(req, 'body', DecisionBody));
+      res.json(await packageDetail(ds, id, currentUser(req)));
+    },
+  );
+
+  router.post(
+    '/packages/:id/revisions',
+    auth,
+    requireRole('contractor'),
+    validate({ params: PackageIdParams }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      await startNextRevision(ds, currentUser(req), id);
+      res.status(201).json(await packageDetail(ds, id, currentUser(req)));
+    },
+  );
+
+  router.get(
+    '/packages/:id/compare',
+    auth,
+    validate({ params: PackageIdParams, query: CompareQuery }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      const { from, to } = valid(req, 'query', CompareQuery);
+      res.json(await compareRevisions(ds, currentUser(req), id, from, to));
+    },
+  );
+
+  return router;
+}

@@ -1,0 +1,197 @@
+// The review's payloads: assignments, markups (in PDF page coordinates), findings,
+// decisions, stamped returns and the public verification answer.
+import { z } from 'zod';
+import { Decision } from './common';
+
+/** Markup colours: our own palette, named for what they look like. */
+export const MARKUP_COLOURS = {
+  rust: '#b3401a',
+  cobalt: '#1f4fbf',
+  verdigris: '#0f6b5f',
+  graphite: '#222a30',
+} as const;
+export const MarkupColour = z.enum(['rust', 'cobalt', 'verdigris', 'graphite'], {
+  message: 'colour must be one of rust, cobalt, verdigris, graphite',
+});
+export type MarkupColour = z.infer<typeof MarkupColour>;
+
+export const MARKUP_KINDS = ['rectangle', 'ellipse', 'cloud', 'arrow', 'text', 'pin'] as const;
+
+const coord = (name: string) =>
+  z
+    .number({ message: `${name} must be a number (PDF points)` })
+    .finite()
+    .min(-10_000, `${name} must be between -10000 and 10000 points`)
+    .max(10_000, `${name} must be between -10000 and 10000 points`);
+const size = (name: string) =>
+  z
+    .number({ message: `${name} must be a number (PDF points)` })
+    .finite()
+    .min(1, `${name} must be at least 1 point`)
+    .max(20_000, `${name} must be at most 20000 points`);
+
+/**
+ * Geometry in PDF user space of the page: points (1/72 in), origin at the bottom-left of
+ * the page's view box, y upwards — the same at any zoom and in the stamped file.
+ */
+export const BoxGeometry = z.object({
+  x: coord('x'),
+  y: coord('y'),
+  width: size('width'),
+  height: size('height'),
+});
+export const ArrowGeometry = z.object({ x1: coord('x1'), y1: coord('y1'), x2: coord('x2'), y2: coord('y2') });
+export const PointGeometry = z.object({ x: coord('x'), y: coord('y') });
+
+const markupBase = {
+  fileId: z.uuid({ message: 'fileId must be the id of one of the revision’s files' }),
+  pageNumber: z.number().int().min(1, 'pageNumber must be 1 or more').max(10_000),
+  colour: MarkupColour.default('rust'),
+};
+
+export const MarkupBody = z.discriminatedUnion('kind', [
+  z.object({
+    ...markupBase,
+    kind: z.literal('rectangle'),
+    geometry: BoxGeometry,
+    text: z.string().max(500).nullish(),
+  }),
+  z.object({
+    ...markupBase,
+    kind: z.literal('ellipse'),
+    geometry: BoxGeometry,
+    text: z.string().max(500).nullish(),
+  }),
+  z.object({
+    ...markupBase,
+    kind: z.literal('cloud'),
+    geometry: BoxGeometry,
+    text: z.string().max(500).nullish(),
+  }),
+  z.object({
+    ...markupBase,
+    kind: z.literal('arrow'),
+    geometry: ArrowGeometry,
+    text: z.string().max(500).nullish(),
+  }),
+  z.object({
+    ...markupBase,
+    kind: z.literal('text'),
+    geometry: PointGeometry.extend({ fontSize: z.number().min(4).max(72).default(11) }),
+    text: z.string().trim().min(1, 'text must not be empty').max(500, 'text must be at most 500 characters'),
+  }),
+  z.object({
+    ...markupBase,
+    kind: z.literal('pin'),
+    geometry: PointGeometry,
+    text: z.string().max(500).nullish(),
+  }),
+]);
+export type MarkupBody = z.infer<typeof MarkupBody>;
+
+export const Markup = z.object({
+  id: z.uuid(),
+  revisionId: z.uuid(),
+  fileId: z.uuid(),
+  pageNumber: z.number().int(),
+  kind: z.enum(MARKUP_KINDS),
+  geometry: z.record(z.string(), z.number()),
+  colour: MarkupColour,
+  text: z.string().nullable(),
+  /** Pins are numbered 1, 2, 3… per revision. */
+  number: z.number().int().nullable(),
+  createdBy: z.string(),
+  createdAt: z.string(),
+});
+export type Markup = z.infer<typeof Markup>;
+
+export const FINDING_SEVERITIES = ['note', 'minor', 'major', 'blocking'] as const;
+export const FINDING_STATES = ['open', 'answered', 'closed'] as const;
+
+export const FindingBody = z
+  .object({
+    text: z
+      .string()
+      .trim()
+      .min(3, 'text must be at least 3 characters')
+      .max(4000, 'text must be at most 4000 characters'),
+    severity: z.enum(FINDING_SEVERITIES, { message: 'severity must be one of note, minor, major, blocking' }),
+    checkId: z.string().max(40).nullish(),
+    markupId: z.uuid().nullish(),
+    fileId: z.uuid().nullish(),
+    pageNumber: z.number().int().min(1).max(10_000).nullish(),
+  })
+  .refine((f) => !f.pageNumber || f.fileId, {
+    message: 'fileId is required with pageNumber',
+    path: ['fileId'],
+  });
+export type FindingBody = z.infer<typeof FindingBody>;
+
+export const Finding = z.object({
+  id: z.uuid(),
+  revisionNumber: z.number().int(),
+  text: z.string(),
+  severity: z.enum(FINDING_SEVERITIES),
+  state: z.enum(FINDING_STATES),
+  response: z.string().nullable(),
+  checkId: z.string().nullable(),
+  markupId: z.uuid().nullable(),
+  fileId: z.uuid().nullable(),
+  pageNumber: z.number().int().nullable(),
+  createdBy: z.string(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Finding = z.infer<typeof Finding>;
+
+/** The contractor answers a finding; the engineer closes or reopens it. */
+export const FindingUpdateBody = z.object({
+  state: z.enum(FINDING_STATES).optional(),
+  response: z.string().trim().max(4000, 'response must be at most 4000 characters').optional(),
+});
+
+/** The engineer's acceptance of a contractor figure that differs from the recomputation. */
+export const AcceptFigureBody = z.object({
+  figure: z.string().min(1).max(40),
+  reason: z
+    .string()
+    .trim()
+    .min(5, 'reason must be at least 5 characters')
+    .max(2000, 'reason must be at most 2000 characters'),
+});
+
+export const DecisionBody = z
+  .object({
+    decision: Decision,
+    conditions: z.string().trim().max(4000, 'conditions must be at most 4000 characters').default(''),
+    /** The package version the engineer was looking at: a newer one answers 409. */
+    baseVersion: z.number().int().min(1, 'baseVersion must be the package version you read'),
+  })
+  .refine((d) => d.decision !== 'accepted_as_noted' || d.conditions.length > 0, {
+    message: 'conditions are required with Accepted as noted',
+    path: ['conditions'],
+  });
+export type DecisionBody = z.infer<typeof DecisionBody>;
+
+export const AssignBody = z.object({
+  packageIds: z
+    .array(z.uuid())
+    .min(1, 'packageIds must list at least 1 package')
+    .max(100, 'packageIds must list at most 100 packages'),
+  engineerId: z.uuid({ message: 'engineerId must be the id of an engineer' }),
+});
+
+export const Verification = z.object({
+  found: z.literal(true),
+  reference: z.string(),
+  title: z.string(),
+  revision: z.number().int(),
+  decision: Decision,
+  decisionLabel: z.string(),
+  decidedOn: z.string(),
+  issuedOn: z.string(),
+  sha256: z.string(),
+  current: z.boolean(),
+  supersededBy: z.number().int().nullable(),
+});
+export type Verification = z.infer<typeof Verification>;

@@ -1,0 +1,26 @@
+// stamp-return jobs: { returnId } → the stamped PDF stored and the package returned.
+// The job id is derived from the decision, so issuing twice queues one job; a retry of a
+// finished return changes nothing.
+import { Worker } from 'bullmq';
+import type { Redis } from 'ioredis';
+import { appUrl } from '../../server/config';
+import type { AppContext } from '../../server/context';
+import { QUEUE_NAMES, type StampJob } from '../../server/lib/queues';
+import { buildReturn } from '../../server/modules/returns/service';
+
+export function startStampWorker(ctx: AppContext, connection: Redis, concurrency: number) {
+  return new Worker<StampJob>(
+    QUEUE_NAMES.stamp,
+    async (job) => {
+      const outcome = await buildReturn(
+        ctx.dataSource,
+        ctx.storage,
+        job.data.returnId,
+        appUrl(ctx.config),
+        (percent, step) => job.updateProgress({ percent, step }),
+      );
+      return outcome;
+    },
+    { connection, prefix: ctx.config.REDIS_PREFIX, concurrency, lockDuration: 60_000 },
+  );
+}
