@@ -166,6 +166,8 @@ export const PackageDetail = z.object({
     }),
   ),
   current: RevisionDetail,
+  /** The site's review policy as the check run applies it (defaults with the site's overrides). */
+  sitePolicy: z.record(z.string(), z.unknown()),
   events: z.array(
     z.object({
       id: z.uuid(),

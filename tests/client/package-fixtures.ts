@@ -39,6 +39,7 @@ export function makeDetail(
   };
   return {
     package: pkg,
+    sitePolicy: {},
     revisions: [
       {
         id: current.id,

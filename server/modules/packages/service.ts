@@ -13,6 +13,7 @@ import { AuditEvent } from '../audit/audit-event.entity';
 import { UploadedFile } from '../files/file.entity';
 import { toFileSummary } from '../files/service';
 import { User } from '../users/user.entity';
+import { sitePolicy } from '../check-runs/service';
 import { LiftPackage, Revision } from './package.entity';
 import { findScopedPackage, scopedPackages } from './package-scope';
 
@@ -177,6 +178,7 @@ export async function packageDetail(
       checkStatus: r.checkStatus as RevisionDetail['check']['status'],
     })),
     current: await revisionDetail(dataSource, current),
+    sitePolicy: sitePolicy(full.site!),
     events: events.map((e) => ({ ...e, at: new Date(e.at).toISOString() })),
   };
 }

@@ -125,7 +125,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   const colW = qrX - pad - 6;
   const label = DECISION_LABELS[s.decision] ?? s.decision;
   let dSize = 15;
-  while (dSize > 9 && widthOf(label, fonts.black, dSize) > colW - 17) dSize -= 0.5;
+  while (dSize > 9 && widthOf(label, fonts.black, dSize) > colW - 22) dSize -= 0.5;
   let y = H - band - 19;
   drawStatusShape(page, DECISION_SHAPES[s.decision] ?? 'caution', pad, y - 1.5, 13);
   page.drawText(fitText(label, fonts.black, dSize, colW - 17), {
