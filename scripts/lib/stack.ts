@@ -53,7 +53,11 @@ export async function prepareStack(opts: {
 
   const { seedDemoOnce } = await import('../../server/db/seed/seed');
   const seeded = await withStep('seed the demo scenario', () =>
-    seedDemoOnce(databaseUrl!, path.join(dataDir, 'files')),
+    seedDemoOnce(
+      databaseUrl!,
+      path.join(dataDir, 'files'),
+      process.env.APP_URL ?? `http://${process.env.HOST ?? '127.0.0.1'}:${process.env.PORT ?? 3000}`,
+    ),
   );
   say(seeded ? 'demo scenario seeded' : 'demo data already present, reused');
 

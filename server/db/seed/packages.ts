@@ -15,7 +15,8 @@ import { InvalidLiftData, runCheck } from '../../modules/check-runs/service';
 import { UploadedFile } from '../../modules/files/file.entity';
 import type { Organisation } from '../../modules/organisations/organisation.entity';
 import { LiftPackage, Revision } from '../../modules/packages/package.entity';
-import { Assignment, DecisionRecord, Finding } from '../../modules/reviews/review.entity';
+import { buildReturn, newVerificationCode } from '../../modules/returns/service';
+import { Assignment, DecisionRecord, Finding, Markup } from '../../modules/reviews/review.entity';
 import type { Site } from '../../modules/sites/site.entity';
 import type { User } from '../../modules/users/user.entity';
 import { drawPlanPdf, type PlanSection } from './plan-pdf';
@@ -430,7 +431,10 @@ export async function finishSeededPackages(
   seeded: Seeded[],
   people: Map<string, User>,
   reviewer: User,
+  opts: { filesDir: string; appUrl: string },
 ) {
+  const storage = new LocalFolderStorage(opts.filesDir);
+  const appUrl = opts.appUrl;
   const engineers = {
     dev: people.get('dev.marsh@tamsin-ridge.example')!,
     ines: people.get('ines.varga@tamsin-ridge.example')!,
@@ -458,12 +462,34 @@ export async function finishSeededPackages(
           detail: { engineer: engineer.name },
         });
       }
-      for (const f of spec.findings ?? []) {
+      const plan = submittedRevisionId
+        ? await m
+            .getRepository(UploadedFile)
+            .findOneBy({ revisionId: submittedRevisionId, kind: 'lift_plan' })
+        : null;
+      for (const [i, f] of (spec.findings ?? []).entries()) {
+        // Each finding on a page gets a cloud around the part of the plan it is about.
+        const markup =
+          plan && f.page
+            ? await m.getRepository(Markup).save({
+                revisionId: submittedRevisionId!,
+                fileId: plan.id,
+                pageNumber: Math.min(f.page, plan.pages),
+                kind: 'cloud',
+                geometry: { x: 290, y: 520 - i * 120, width: 240, height: 70 },
+                colour: 'rust',
+                text: f.text.slice(0, 60),
+                number: null,
+                createdById: engineer!.id,
+              })
+            : null;
         await m.getRepository(Finding).save({
           packageId,
           revisionId: submittedRevisionId!,
           checkId: f.checkId,
-          pageNumber: f.page ?? null,
+          markupId: markup?.id ?? null,
+          fileId: markup ? plan!.id : null,
+          pageNumber: markup ? markup.pageNumber : null,
           text: f.text,
           severity: f.severity,
           createdById: engineer!.id,
@@ -485,17 +511,35 @@ export async function finishSeededPackages(
           detail: { decision: spec.decision, revision: 1 },
         });
       }
-      if (spec.revisingAfter) {
-        const first = await m.getRepository(Revision).findOneByOrFail({ id: submittedRevisionId! });
-        await m.getRepository(Revision).save({ packageId, number: 2, state: 'draft', inputs: first.inputs });
-        await m.getRepository(LiftPackage).update(packageId, { currentRevision: 2, status: 'draft' });
-        await m
-          .getRepository(AuditEvent)
-          .save({ packageId, actorId: null, action: 'revision.started', detail: { revision: 2 } });
+      const returned = spec.status === 'returned' || spec.revisingAfter === true;
+      if (returned) {
+        await m.getRepository(LiftPackage).update(packageId, { status: 'decided' });
       } else if (spec.status !== 'checking' && spec.status !== 'check_failed') {
         await m.getRepository(LiftPackage).update(packageId, { status: spec.status });
       }
     });
+    if (spec.status === 'returned' || spec.revisingAfter) {
+      // The same job code as the product: the return is built, stored and the package returned.
+      const decision = await ds.getRepository(DecisionRecord).findOneByOrFail({ packageId });
+      const [row] = await ds.query(
+        `INSERT INTO stamped_returns (decision_id, package_id, revision_id, verification_code, issued_by_id)
+         VALUES ($1, $2, $3, $4, $5) RETURNING id`,
+        [decision.id, packageId, submittedRevisionId, newVerificationCode(), reviewer.id],
+      );
+      await buildReturn(ds, storage, row.id, appUrl);
+    }
+    if (spec.revisingAfter) {
+      await ds.transaction(async (m) => {
+        const first = await m.getRepository(Revision).findOneByOrFail({ id: submittedRevisionId! });
+        await m.getRepository(Revision).save({ packageId, number: 2, state: 'draft', inputs: first.inputs });
+        await m
+          .getRepository(LiftPackage)
+          .update(packageId, { currentRevision: 2, status: 'draft', decision: null });
+        await m
+          .getRepository(AuditEvent)
+          .save({ packageId, actorId: null, action: 'revision.started', detail: { revision: 2 } });
+      });
+    }
   }
 }
 

@@ -1,15 +1,7 @@
 // Draws an invented contractor's lift plan as a PDF (pdf-lib, Lato embedded), so the demo
 // queue has real documents to page through, mark up and stamp.
-import fs from 'node:fs';
-import { createRequire } from 'node:module';
-import fontkit from '@pdf-lib/fontkit';
 import { PDFDocument, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
-
-const require = createRequire(import.meta.url);
-
-function fontBytes(weight: 400 | 700): Uint8Array {
-  return fs.readFileSync(require.resolve(`@fontsource/lato/files/lato-latin-${weight}-normal.woff`));
-}
+import { embedLato } from '../../modules/returns/text-pdf';
 
 export interface PlanSection {
   heading: string;
@@ -34,9 +26,8 @@ const RULE = rgb(0.75, 0.76, 0.78);
 
 export async function drawPlanPdf(data: PlanPdfData): Promise<Uint8Array> {
   const doc = await PDFDocument.create();
-  doc.registerFontkit(fontkit);
-  const regular = await doc.embedFont(fontBytes(400));
-  const bold = await doc.embedFont(fontBytes(700));
+  // Lato subset through fontkit: embedding the whole .woff gives fonts PDF readers reject.
+  const { regular, bold } = await embedLato(doc);
   doc.setTitle(`${data.reference} ${data.title} — lift plan rev ${data.revision}`);
   doc.setAuthor(data.contractor);
   doc.setProducer('demo data');

@@ -10,7 +10,7 @@ import { finishSeededPackages, seedPackages } from './packages';
 export async function seedScenario(
   dataSource: DataSource,
   filesDir: string,
-  opts: { hash: (p: string) => string },
+  opts: { hash: (p: string) => string; appUrl: string },
 ) {
   const { seeded, people, reviewer } = await dataSource.transaction(async (m) => {
     const orgs = new Map<string, Organisation>();
@@ -60,5 +60,5 @@ export async function seedScenario(
     const seeded = await seedPackages(m, filesDir, { orgs, people, sites: { refinery, wharf } });
     return { seeded, people, reviewer };
   });
-  await finishSeededPackages(dataSource, seeded, people, reviewer);
+  await finishSeededPackages(dataSource, seeded, people, reviewer, { filesDir, appUrl: opts.appUrl });
 }

@@ -12,12 +12,12 @@ export async function isSeeded(dataSource: DataSource): Promise<boolean> {
 }
 
 /** Seeds when the database holds no organisation yet; returns whether it seeded. */
-export async function seedDemoOnce(url: string, filesDir: string): Promise<boolean> {
+export async function seedDemoOnce(url: string, filesDir: string, appUrl: string): Promise<boolean> {
   const dataSource = createDataSource(url);
   await dataSource.initialize();
   try {
     if (await isSeeded(dataSource)) return false;
-    await seedScenario(dataSource, filesDir, { hash: (p) => bcrypt.hashSync(p, 10) });
+    await seedScenario(dataSource, filesDir, { hash: (p) => bcrypt.hashSync(p, 10), appUrl });
     return true;
   } finally {
     await dataSource.destroy();

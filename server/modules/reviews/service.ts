@@ -25,15 +25,13 @@ async function audit(
   action: string,
   detail: Record<string, unknown>,
 ) {
-  await m
-    .getRepository(AuditEvent)
-    .save({
-      packageId,
-      actorId: user?.id ?? null,
-      organisationId: user?.organisationId ?? null,
-      action,
-      detail,
-    });
+  await m.getRepository(AuditEvent).save({
+    packageId,
+    actorId: user?.id ?? null,
+    organisationId: user?.organisationId ?? null,
+    action,
+    detail,
+  });
 }
 
 function requireAssignedEngineer(user: Express.User, pkg: LiftPackage) {
@@ -424,15 +422,13 @@ export async function recordDecision(
         'Someone changed this package after you opened it. Reload to see the newer version, then decide again.',
       );
     }
-    await m
-      .getRepository(DecisionRecord)
-      .save({
-        packageId: pkg.id,
-        revisionId: revision.id,
-        decision: body.decision,
-        conditions: body.conditions,
-        engineerId: user.id,
-      });
+    await m.getRepository(DecisionRecord).save({
+      packageId: pkg.id,
+      revisionId: revision.id,
+      decision: body.decision,
+      conditions: body.conditions,
+      engineerId: user.id,
+    });
     await audit(m, user, pkg.id, 'decision.recorded', { decision: body.decision, revision: revision.number });
   });
 }
@@ -461,15 +457,13 @@ export async function startNextRevision(ds: DataSource, user: Express.User, pack
     await m
       .getRepository(Revision)
       .save({ packageId: pkg.id, number, state: 'draft', inputs: previous.inputs });
-    await m
-      .getRepository(LiftPackage)
-      .update(pkg.id, {
-        currentRevision: number,
-        status: 'draft',
-        decision: null,
-        worstStatus: null,
-        openDiscrepancies: 0,
-      });
+    await m.getRepository(LiftPackage).update(pkg.id, {
+      currentRevision: number,
+      status: 'draft',
+      decision: null,
+      worstStatus: null,
+      openDiscrepancies: 0,
+    });
     await audit(m, user, pkg.id, 'revision.started', { revision: number, from: previous.number });
   });
 }
