@@ -12,7 +12,18 @@ export const authKeys = {
 /** Every input of a package list request; the whole object is part of the query key. */
 export type PackageListFilters = Pick<
   PackageListQuery,
-  'status' | 'siteId' | 'q' | 'sort' | 'page' | 'pageSize'
+  | 'status'
+  | 'siteId'
+  | 'contractorId'
+  | 'engineerId'
+  | 'critical'
+  | 'discrepancies'
+  | 'liftWithinDays'
+  | 'revisionMin'
+  | 'q'
+  | 'sort'
+  | 'page'
+  | 'pageSize'
 >;
 
 export const packageKeys = {
@@ -21,6 +32,22 @@ export const packageKeys = {
   list: (filters: PackageListFilters) => [...packageKeys.lists(), filters] as const,
   details: () => [...packageKeys.all, 'detail'] as const,
   detail: (id: string) => [...packageKeys.details(), id] as const,
+  /** Under the package's detail key, so refreshing a package refreshes these too. */
+  returns: (id: string) => [...packageKeys.detail(id), 'returns'] as const,
+  findings: (id: string) => [...packageKeys.detail(id), 'findings'] as const,
+};
+
+export const engineerKeys = {
+  all: ['engineers'] as const,
+};
+
+export const organisationKeys = {
+  all: ['organisations'] as const,
+};
+
+export const verifyKeys = {
+  all: ['verify'] as const,
+  code: (code: string) => [...verifyKeys.all, code] as const,
 };
 
 export const siteKeys = {

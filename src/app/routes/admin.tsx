@@ -2,7 +2,7 @@
 // lift package. Users, organisations, sites and policies come with later work.
 import { useCurrentUser } from '@/lib/auth';
 import { PageHeader } from '@/components/layouts/page-header';
-import { PackageListView } from '@/features/packages/components/package-list-view';
+import { QueueView } from './queue';
 import { HealthStrip } from '@/features/health/components/health-strip';
 
 export default function AdminRoute() {
@@ -15,8 +15,10 @@ export default function AdminRoute() {
         context="Every lift package on the desk, across all organisations and sites."
         actions={<HealthStrip />}
       />
-      <PackageListView
+      <QueueView
+        userId={user.id}
         role={user.role}
+        scope="admin"
         variant="queue"
         caption="All lift packages"
         emptyTitle="No lift packages on the desk"

@@ -1,7 +1,7 @@
 // /assigned: the engineer of record's list — packages assigned to them.
 import { useCurrentUser } from '@/lib/auth';
 import { PageHeader } from '@/components/layouts/page-header';
-import { PackageListView } from '@/features/packages/components/package-list-view';
+import { QueueView } from './queue';
 
 export default function AssignedRoute() {
   const { data: user } = useCurrentUser();
@@ -12,8 +12,10 @@ export default function AssignedRoute() {
         title="Assigned to me"
         context="Lift packages a coordinator has assigned to you for review and decision."
       />
-      <PackageListView
+      <QueueView
+        userId={user.id}
         role={user.role}
+        scope="assigned"
         variant="assigned"
         caption="Packages assigned to you"
         emptyTitle="Nothing is assigned to you"

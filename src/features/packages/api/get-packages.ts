@@ -12,6 +12,12 @@ export function getPackages(filters: PackageListFilters, signal?: AbortSignal): 
     query: {
       status: filters.status,
       siteId: filters.siteId,
+      contractorId: filters.contractorId,
+      engineerId: filters.engineerId,
+      critical: filters.critical === undefined ? undefined : String(filters.critical),
+      discrepancies: filters.discrepancies === undefined ? undefined : String(filters.discrepancies),
+      liftWithinDays: filters.liftWithinDays,
+      revisionMin: filters.revisionMin,
       q: filters.q,
       sort: filters.sort,
       page: filters.page,

@@ -1,14 +1,16 @@
 // A whole package list: counts by status, search and status filter, the table and the
-// pager, all driven by the URL's search parameters and one query.
+// pager, all driven by the URL's search parameters and one query. The queue pages add
+// their own filters, a bar for the selected rows and an engineer column through slots.
 import { useCallback, type ReactNode } from 'react';
 import type { Role } from '@shared/schemas/common';
+import type { PackageSummary } from '@shared/schemas/packages';
 import { isApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { PageLoading, Spinner } from '@/components/ui/page-loading';
 import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
 import { usePackages } from '../api/get-packages';
-import { usePackageListParams } from '../hooks/use-package-list-params';
-import { PackageTable, type PackageTableVariant } from './package-table';
+import { isFiltered, NO_FILTERS, usePackageListParams } from '../hooks/use-package-list-params';
+import { PackageTable, type PackageTableVariant, type RowSelection } from './package-table';
 import { StatusCounts } from './status-counts';
 import { PackageFilters } from './package-filters';
 import { Pager } from './pager';
@@ -19,6 +21,10 @@ export function PackageListView({
   caption,
   emptyTitle,
   emptyBody,
+  moreFilters,
+  aboveTable,
+  selection,
+  engineerCell,
 }: {
   role: Role;
   variant: PackageTableVariant;
@@ -26,12 +32,18 @@ export function PackageListView({
   /** Shown when nothing at all is in this person's list (no filters on). */
   emptyTitle: string;
   emptyBody: ReactNode;
+  /** Further filter controls, shown under the search and status. */
+  moreFilters?: ReactNode;
+  /** Shown between the filters and the table (e.g. what to do with the selected rows). */
+  aboveTable?: ReactNode;
+  selection?: RowSelection;
+  engineerCell?: (pkg: PackageSummary) => ReactNode;
 }) {
   const { filters, update } = usePackageListParams();
   const query = usePackages(filters);
   const onSearch = useCallback((q: string) => update({ q }, { replace: true }), [update]);
 
-  const filtered = Boolean(filters.q || filters.status || filters.siteId);
+  const filtered = isFiltered(filters);
   const data = query.data;
   // With nothing at all in the list, counts of zero and filters only get in the way.
   const nothingYet = data !== undefined && data.total === 0 && !filtered;
@@ -53,6 +65,8 @@ export function PackageListView({
           onStatus={(status) => update({ status })}
         />
       )}
+      {!nothingYet && moreFilters}
+      {aboveTable}
 
       {query.isPending && <PageLoading label="Loading packages" />}
 
@@ -77,11 +91,11 @@ export function PackageListView({
           <p>
             Nothing in your list matches
             {filters.q ? ` “${filters.q}”` : ''}
-            {filters.status ? ' with the chosen status' : ''}.{' '}
+            {isFiltered({ ...filters, q: undefined }) ? ' with the filters that are on' : ''}.{' '}
             <button
               type="button"
               className="font-bold text-verdigris underline underline-offset-2"
-              onClick={() => update({ q: undefined, status: undefined, siteId: undefined })}
+              onClick={() => update(NO_FILTERS)}
             >
               Clear the filters
             </button>{' '}
@@ -95,7 +109,14 @@ export function PackageListView({
           <div className="mb-1.5 flex items-center justify-between text-[12.5px] text-ink-soft">
             <span>
               <kbd className="font-mono">j</kbd>/<kbd className="font-mono">k</kbd> or ↑/↓ to move ·{' '}
-              <kbd className="font-mono">Enter</kbd> to open · <kbd className="font-mono">/</kbd> to search
+              <kbd className="font-mono">Enter</kbd> to open
+              {selection && (
+                <>
+                  {' '}
+                  · <kbd className="font-mono">x</kbd> to select, shift-click for a range
+                </>
+              )}{' '}
+              · <kbd className="font-mono">/</kbd> to search
             </span>
             {query.isFetching && (
               <span className="inline-flex items-center gap-1.5" role="status">
@@ -111,6 +132,8 @@ export function PackageListView({
             onSortChange={(sort) => update({ sort })}
             busy={query.isPlaceholderData}
             caption={caption}
+            selection={selection}
+            engineerCell={engineerCell}
           />
           <Pager
             page={data.page}

@@ -1,9 +1,17 @@
 // The package table the contractor's desk, the site queue, the engineer's list and the
 // administrator's overview share. Sorting and paging happen on the server; the table only
-// says which sort is on. Rows take the keyboard: j/k or ↑/↓ move, Enter opens.
-import { useMemo, useRef, useState, type KeyboardEvent } from 'react';
+// says which sort is on. Rows take the keyboard: j/k or ↑/↓ move, Enter opens, and where
+// rows can be selected (the coordinator's queue) x toggles a row and shift-click picks a range.
+import { useMemo, useRef, useState, type KeyboardEvent, type MouseEvent, type ReactNode } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  useReactTable,
+  type RowSelectionState,
+  type Updater,
+} from '@tanstack/react-table';
 import type { Role } from '@shared/schemas/common';
 import { DECISION_LABELS } from '@shared/schemas/common';
 import type { PackageSummary } from '@shared/schemas/packages';
@@ -41,11 +49,28 @@ const COLUMNS_BY_VARIANT: Record<PackageTableVariant, string[]> = {
   ],
 };
 
-type SortableColumn = 'reference' | 'plannedLiftDate' | 'updatedAt';
+type SortableColumn = 'reference' | 'plannedLiftDate' | 'updatedAt' | 'openDiscrepancies' | 'revision';
 const SORTABLE: Record<string, SortableColumn> = {
   reference: 'reference',
   plannedLiftDate: 'plannedLiftDate',
   updatedAt: 'updatedAt',
+  check: 'openDiscrepancies',
+  revision: 'revision',
+};
+
+/** Counts read most-first on the first press; dates and references earliest-first. */
+const MOST_FIRST: ReadonlySet<SortableColumn> = new Set(['openDiscrepancies', 'revision']);
+const SORT_WORDS: Record<SortableColumn, [string, string]> = {
+  reference: ['reference, A to Z', 'reference, Z to A'],
+  plannedLiftDate: ['planned lift, earliest first', 'planned lift, latest first'],
+  updatedAt: ['last update, oldest first', 'last update, newest first'],
+  openDiscrepancies: ['open discrepancies, fewest first', 'open discrepancies, most first'],
+  revision: ['revision, lowest first', 'revision, highest first'],
+};
+
+export type RowSelection = {
+  selected: ReadonlySet<string>;
+  onChange: (next: Set<string>) => void;
 };
 
 const column = createColumnHelper<PackageSummary>();
@@ -63,13 +88,15 @@ function SortHeader({
 }) {
   const active = sort === field || sort === `-${field}`;
   const descending = sort === `-${field}`;
-  const nextSort = (active && !descending ? `-${field}` : field) as PackageSort;
+  // The first press gives the useful order; the next press turns it round.
+  const nextDescending = active ? !descending : MOST_FIRST.has(field);
+  const nextSort = (nextDescending ? `-${field}` : field) as PackageSort;
   return (
     <button
       type="button"
       onClick={() => onSortChange(nextSort)}
       className={`inline-flex items-center gap-1 font-bold uppercase tracking-[0.06em] hover:text-verdigris ${active ? 'text-ink' : ''}`}
-      title={`Sort by ${label.toLowerCase()}, ${active && !descending ? 'latest first' : 'earliest first'}`}
+      title={`Sort by ${SORT_WORDS[field][nextDescending ? 1 : 0]}`}
     >
       {label}
       <svg className="size-3" viewBox="0 0 12 12" aria-hidden="true" fill="currentColor">
@@ -88,6 +115,8 @@ export function PackageTable({
   onSortChange,
   busy = false,
   caption,
+  selection,
+  engineerCell,
 }: {
   items: PackageSummary[];
   role: Role;
@@ -96,13 +125,65 @@ export function PackageTable({
   onSortChange: (sort: PackageSort) => void;
   busy?: boolean;
   caption: string;
+  /** Rows get a checkbox column; the set of selected ids may reach past this page. */
+  selection?: RowSelection;
+  /** What the engineer column shows instead of the name (e.g. a way to assign). */
+  engineerCell?: (pkg: PackageSummary) => ReactNode;
 }) {
   const navigate = useNavigate();
   const [activeIndex, setActiveIndex] = useState(0);
   const rowRefs = useRef<(HTMLTableRowElement | null)[]>([]);
+  // The row last ticked by hand: a shift-click ticks every row between it and the next.
+  const anchorRef = useRef<number | null>(null);
+  const selectable = selection !== undefined;
 
   const columns = useMemo(
     () => [
+      column.display({
+        id: 'select',
+        header: ({ table }) => (
+          <input
+            type="checkbox"
+            aria-label="Select every package on this page"
+            className="size-4 accent-verdigris"
+            checked={table.getIsAllPageRowsSelected()}
+            ref={(element) => {
+              if (element) element.indeterminate = table.getIsSomePageRowsSelected();
+            }}
+            onChange={table.getToggleAllPageRowsSelectedHandler()}
+          />
+        ),
+        cell: ({ row, table }) => (
+          <input
+            type="checkbox"
+            aria-label={`Select ${row.original.reference}`}
+            className="size-4 accent-verdigris"
+            checked={row.getIsSelected()}
+            tabIndex={-1}
+            onClick={(event: MouseEvent<HTMLInputElement>) => {
+              event.stopPropagation();
+              const rows = table.getRowModel().rows;
+              const anchor = anchorRef.current;
+              if (event.shiftKey && anchor !== null && anchor !== row.index && rows[anchor]) {
+                const [from, to] = anchor < row.index ? [anchor, row.index] : [row.index, anchor];
+                const value = !row.getIsSelected();
+                table.setRowSelection((current) => {
+                  const next = { ...current };
+                  for (const r of rows.slice(from, to + 1)) {
+                    if (value) next[r.id] = true;
+                    else delete next[r.id];
+                  }
+                  return next;
+                });
+              } else {
+                row.toggleSelected();
+              }
+              anchorRef.current = row.index;
+            }}
+            onChange={() => undefined}
+          />
+        ),
+      }),
       column.accessor('reference', {
         id: 'reference',
         header: 'Reference',
@@ -181,7 +262,10 @@ export function PackageTable({
       column.accessor((pkg) => pkg.engineer?.name ?? null, {
         id: 'engineer',
         header: 'Engineer',
-        cell: (info) => info.getValue() ?? <span className="text-ink-soft">Unassigned</span>,
+        cell: (info) =>
+          engineerCell
+            ? engineerCell(info.row.original)
+            : (info.getValue() ?? <span className="text-ink-soft">Unassigned</span>),
       }),
       column.accessor('status', {
         id: 'status',
@@ -221,10 +305,19 @@ export function PackageTable({
         ),
       }),
     ],
-    [role, variant],
+    [role, variant, engineerCell],
   );
 
-  const visibleIds = COLUMNS_BY_VARIANT[variant];
+  const visibleIds = selectable ? ['select', ...COLUMNS_BY_VARIANT[variant]] : COLUMNS_BY_VARIANT[variant];
+  const rowSelection = useMemo<RowSelectionState>(
+    () => Object.fromEntries([...(selection?.selected ?? [])].map((id) => [id, true])),
+    [selection?.selected],
+  );
+  function onRowSelectionChange(updater: Updater<RowSelectionState>) {
+    if (!selection) return;
+    const next = typeof updater === 'function' ? updater(rowSelection) : updater;
+    selection.onChange(new Set(Object.keys(next).filter((id) => next[id])));
+  }
   // The app does not run the React Compiler; TanStack Table re-reads its state each render.
   // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
@@ -234,7 +327,10 @@ export function PackageTable({
     getRowId: (row) => row.id,
     manualPagination: true,
     manualSorting: true,
+    enableRowSelection: selectable,
+    onRowSelectionChange,
     state: {
+      rowSelection,
       columnOrder: visibleIds,
       columnVisibility: Object.fromEntries(
         columns.map((c) => [c.id as string, visibleIds.includes(c.id as string)]),
@@ -253,7 +349,15 @@ export function PackageTable({
 
   function onRowKeyDown(event: KeyboardEvent<HTMLTableRowElement>, index: number, id: string) {
     if (event.altKey || event.ctrlKey || event.metaKey) return;
+    // Keys typed into a control inside the row (the engineer picker) belong to that control.
+    if (event.target !== event.currentTarget) return;
     switch (event.key) {
+      case 'x':
+        if (!selectable) return;
+        event.preventDefault();
+        rows[index]?.toggleSelected();
+        anchorRef.current = index;
+        break;
       case 'j':
       case 'ArrowDown':
         event.preventDefault();
@@ -286,7 +390,8 @@ export function PackageTable({
         aria-busy={busy}
       >
         <caption className="sr-only">
-          {caption}. Use j and k or the arrow keys to move between rows, Enter to open.
+          {caption}. Use j and k or the arrow keys to move between rows, Enter to open
+          {selectable ? ', x to select a row' : ''}.
         </caption>
         <thead className="bg-sheet-alt">
           {table.getHeaderGroups().map((group) => (
@@ -334,10 +439,28 @@ export function PackageTable({
               onFocus={() => setActiveIndex(index)}
               onKeyDown={(event) => onRowKeyDown(event, index, row.original.id)}
               onClick={() => navigate(`/packages/${row.original.id}`)}
-              className="cursor-pointer border-b border-rule align-top last:border-b-0 even:bg-sheet-alt hover:bg-verdigris-tint focus:bg-verdigris-tint"
+              data-selected={row.getIsSelected() || undefined}
+              className={`cursor-pointer border-b border-rule align-top last:border-b-0 hover:bg-verdigris-tint focus:bg-verdigris-tint ${
+                row.getIsSelected()
+                  ? 'bg-verdigris-tint shadow-[inset_3px_0_0_var(--color-verdigris)]'
+                  : 'even:bg-sheet-alt'
+              }`}
             >
               {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-2.5 py-2">
+                <td
+                  key={cell.id}
+                  className={cell.column.id === 'select' ? 'w-8 py-2 pl-3 pr-1' : 'px-2.5 py-2'}
+                  onClick={
+                    cell.column.id === 'select'
+                      ? (event) => {
+                          // A near miss beside the small checkbox should not open the package.
+                          event.stopPropagation();
+                          if (event.target === event.currentTarget)
+                            (event.currentTarget.querySelector('input') as HTMLInputElement | null)?.click();
+                        }
+                      : undefined
+                  }
+                >
                   {flexRender(cell.column.columnDef.cell, cell.getContext())}
                 </td>
               ))}

@@ -1,6 +1,7 @@
-// The list's filters live in the URL (?status=&q=&sort=&page=&pageSize=&siteId=), so a
-// filtered queue can be bookmarked, shared and restored with the back button. Values
-// that the server would refuse are dropped here rather than sent.
+// The list's filters live in the URL (?status=&siteId=&contractorId=&engineerId=&critical=
+// &discrepancies=&liftWithinDays=&revisionMin=&q=&sort=&page=&pageSize=), so a filtered
+// queue can be bookmarked, shared and restored with the back button. Values that the
+// server would refuse are dropped here rather than sent.
 import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { PACKAGE_STATUSES, type PackageStatus } from '@shared/schemas/common';
@@ -20,6 +21,22 @@ function isSort(value: string | null): value is PackageSort {
   return value !== null && (PACKAGE_SORTS as readonly string[]).includes(value);
 }
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+function uuid(value: string | null): string | undefined {
+  return value && UUID.test(value) ? value : undefined;
+}
+
+function flag(value: string | null): boolean | undefined {
+  return value === 'true' ? true : value === 'false' ? false : undefined;
+}
+
+function boundedInt(value: string | null, min: number, max: number): number | undefined {
+  if (value === null || value === '') return undefined;
+  const number = Number(value);
+  return Number.isInteger(number) && number >= min && number <= max ? number : undefined;
+}
+
 function positiveInt(value: string | null, fallback: number, max: number): number {
   const number = Number(value);
   return Number.isInteger(number) && number >= 1 && number <= max ? number : fallback;
@@ -29,11 +46,17 @@ export function readPackageListParams(params: URLSearchParams): PackageListFilte
   const status = params.get('status');
   const sort = params.get('sort');
   const q = params.get('q')?.trim().slice(0, 100);
-  const siteId = params.get('siteId');
+  const engineerId = params.get('engineerId');
   const pageSize = positiveInt(params.get('pageSize'), DEFAULT_PAGE_SIZE, 100);
   return {
     status: isStatus(status) ? status : undefined,
-    siteId: siteId && /^[0-9a-f-]{36}$/i.test(siteId) ? siteId : undefined,
+    siteId: uuid(params.get('siteId')),
+    contractorId: uuid(params.get('contractorId')),
+    engineerId: engineerId === 'none' ? 'none' : uuid(engineerId),
+    critical: flag(params.get('critical')),
+    discrepancies: flag(params.get('discrepancies')),
+    liftWithinDays: boundedInt(params.get('liftWithinDays'), 0, 365),
+    revisionMin: boundedInt(params.get('revisionMin'), 1, 1000),
     q: q ? q : undefined,
     sort: isSort(sort) ? sort : DEFAULT_SORT,
     page: positiveInt(params.get('page'), 1, 10_000),
@@ -41,7 +64,7 @@ export function readPackageListParams(params: URLSearchParams): PackageListFilte
   };
 }
 
-type Changes = Partial<{ [K in keyof PackageListFilters]: PackageListFilters[K] | undefined }>;
+export type ListChanges = Partial<{ [K in keyof PackageListFilters]: PackageListFilters[K] | undefined }>;
 
 export function usePackageListParams() {
   const [params, setParams] = useSearchParams();
@@ -49,7 +72,7 @@ export function usePackageListParams() {
 
   /** Changing anything but the page goes back to page 1; defaults are left out of the URL. */
   const update = useCallback(
-    (changes: Changes, options: { replace?: boolean } = {}) => {
+    (changes: ListChanges, options: { replace?: boolean } = {}) => {
       setParams(
         (current) => {
           const next = new URLSearchParams(current);
@@ -71,3 +94,23 @@ export function usePackageListParams() {
 
   return { filters, update };
 }
+
+/** The filters that narrow the list (not the sort or the page): any of them on means "filtered". */
+export const NARROWING_FILTERS = [
+  'status',
+  'siteId',
+  'contractorId',
+  'engineerId',
+  'critical',
+  'discrepancies',
+  'liftWithinDays',
+  'revisionMin',
+  'q',
+] as const satisfies readonly (keyof PackageListFilters)[];
+
+export function isFiltered(filters: PackageListFilters): boolean {
+  return NARROWING_FILTERS.some((key) => filters[key] !== undefined);
+}
+
+/** Every narrowing filter off, for "clear the filters". */
+export const NO_FILTERS = Object.fromEntries(NARROWING_FILTERS.map((key) => [key, undefined])) as ListChanges;
