@@ -18,6 +18,7 @@ const AdminRoute = lazy(() => import('./routes/admin'));
 const PackageDetailRoute = lazy(() => import('./routes/package-detail'));
 const PackageNewRoute = lazy(() => import('./routes/package-new'));
 const PackageEditRoute = lazy(() => import('./routes/package-edit'));
+const ReviewWorkspaceRoute = lazy(() => import('./routes/review-workspace'));
 
 function contractorOnly(path: string, element: ReactNode): RouteObject {
   return {
@@ -63,6 +64,16 @@ export const routes: RouteObject[] = [
       guarded('/admin', <AdminRoute />),
       contractorOnly('/packages/new', <PackageNewRoute />),
       contractorOnly('/packages/:id/edit', <PackageEditRoute />),
+      {
+        path: '/packages/:id/review',
+        element: (
+          <RequireRole roles={['engineer', 'reviewer', 'admin']}>
+            <Page>
+              <ReviewWorkspaceRoute />
+            </Page>
+          </RequireRole>
+        ),
+      },
       {
         path: '/packages/:id',
         element: (

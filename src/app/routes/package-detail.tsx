@@ -92,6 +92,20 @@ export default function PackageDetailRoute() {
         </div>
       )}
 
+      {!contractor && current.state === 'submitted' && (
+        <div className="-mt-2 mb-3 flex flex-wrap items-center gap-2">
+          {user.role === 'engineer' && data.package.engineer?.id === user.id ? (
+            <Link to={`/packages/${id}/review`} className={buttonClasses('primary', 'sm')}>
+              Open review workspace
+            </Link>
+          ) : (
+            <Link to={`/packages/${id}/review`} className={buttonClasses('secondary', 'sm')}>
+              Open pages
+            </Link>
+          )}
+        </div>
+      )}
+
       <CheckProgress check={current.check} />
 
       <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_20rem]">

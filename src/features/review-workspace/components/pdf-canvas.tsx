@@ -1,0 +1,59 @@
+// One page of a PDF drawn onto a canvas at a viewport, sharp on high-density screens. The
+// render is cancelled when the page, zoom or component changes.
+import { useEffect, useRef, useState } from 'react';
+import type { PdfPage, PdfViewport } from '../lib/pdf-loader';
+
+export function PdfCanvas({
+  page,
+  viewport,
+  label,
+  className = '',
+}: {
+  page: PdfPage;
+  viewport: PdfViewport;
+  label: string;
+  className?: string;
+}) {
+  const ref = useRef<HTMLCanvasElement>(null);
+  const [failed, setFailed] = useState(false);
+
+  useEffect(() => {
+    const canvas = ref.current;
+    const context = canvas?.getContext?.('2d');
+    if (!canvas || !context) return;
+    const ratio = window.devicePixelRatio || 1;
+    canvas.width = Math.floor(viewport.width * ratio);
+    canvas.height = Math.floor(viewport.height * ratio);
+    const task = page.render({
+      canvas,
+      canvasContext: context,
+      viewport,
+      transform: ratio === 1 ? undefined : [ratio, 0, 0, ratio, 0, 0],
+    });
+    task.promise.then(
+      () => setFailed(false),
+      (error: unknown) => {
+        if (error instanceof Error && error.name === 'RenderingCancelledException') return;
+        setFailed(true);
+      },
+    );
+    return () => task.cancel();
+  }, [page, viewport]);
+
+  return (
+    <>
+      <canvas
+        ref={ref}
+        role="img"
+        aria-label={label}
+        className={`block ${className}`}
+        style={{ width: viewport.width, height: viewport.height }}
+      />
+      {failed && (
+        <p className="absolute inset-x-0 top-1/3 text-center text-[13px] font-bold text-fail-ink">
+          This page could not be drawn.
+        </p>
+      )}
+    </>
+  );
+}
