@@ -225,7 +225,7 @@ function CheckRow({
   return (
     <li className="border-b border-rule last:border-b-0" data-testid="workspace-check-row">
       <div className="flex items-start gap-2 px-3 py-1.5">
-        <div className="w-[6.6rem] shrink-0">
+        <div className="min-w-[6.6rem] shrink-0">
           <CheckStatusMark status={check.status} />
         </div>
         <button

@@ -107,6 +107,13 @@ export function PdfPages({
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [jump?.nonce, first]);
 
+  // A new zoom keeps the page being read at the top of the view.
+  useEffect(() => {
+    const el = pageEls.current.get(currentPage);
+    if (el && scroller.current) scroller.current.scrollTop = el.offsetTop - PAGE_GAP;
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [scale]);
+
   function onScroll() {
     const box = scroller.current;
     if (!box) return;
@@ -117,7 +124,7 @@ export function PdfPages({
   }
 
   return (
-    <div className="flex min-h-0 flex-1">
+    <div className="flex min-h-0 min-w-0 flex-1">
       <nav
         aria-label={`Pages of ${fileName}`}
         className="w-[116px] shrink-0 overflow-y-auto border-r border-rule bg-sheet-alt px-2 py-2"
@@ -161,7 +168,7 @@ export function PdfPages({
         className="relative min-w-0 flex-1 overflow-auto bg-[#d8d4ca]"
         data-testid="page-scroller"
       >
-        <div className="flex flex-col items-center gap-4 px-4 py-4">
+        <div className="flex w-max min-w-full flex-col items-center gap-4 px-6 py-4">
           {Array.from({ length: doc.numPages }, (_, i) => i + 1).map((n) => {
             const page = pages[n - 1];
             const viewport = viewports[n - 1];

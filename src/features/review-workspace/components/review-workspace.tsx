@@ -457,7 +457,7 @@ export function ReviewWorkspace({ detail, user }: { detail: PackageDetail; user:
               {isApiError(markupError) ? markupError.message : 'The markup could not be saved.'}
             </p>
           )}
-          <div className="flex min-h-0 flex-1">
+          <div className="flex min-h-0 min-w-0 flex-1">
             {access.canMarkUp && (
               <ToolRail tool={tool} onTool={setTool} colour={colour} onColour={setColour} disabled={!file} />
             )}
