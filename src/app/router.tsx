@@ -18,6 +18,7 @@ const AdminRoute = lazy(() => import('./routes/admin'));
 const PackageDetailRoute = lazy(() => import('./routes/package-detail'));
 const PackageNewRoute = lazy(() => import('./routes/package-new'));
 const PackageEditRoute = lazy(() => import('./routes/package-edit'));
+const VerifyRoute = lazy(() => import('./routes/verify'));
 const ReviewWorkspaceRoute = lazy(() => import('./routes/review-workspace'));
 
 function contractorOnly(path: string, element: ReactNode): RouteObject {
@@ -48,6 +49,25 @@ function guarded(path: string, element: ReactNode): RouteObject {
 
 export const routes: RouteObject[] = [
   { path: '/sign-in', element: <SignInRoute />, errorElement: <RouteError /> },
+  // Public: anyone on site checks a stamped return's code without signing in.
+  {
+    path: '/verify',
+    element: (
+      <Page>
+        <VerifyRoute />
+      </Page>
+    ),
+    errorElement: <RouteError />,
+  },
+  {
+    path: '/verify/:code',
+    element: (
+      <Page>
+        <VerifyRoute />
+      </Page>
+    ),
+    errorElement: <RouteError />,
+  },
   {
     path: '/',
     element: (
