@@ -16,6 +16,8 @@ import { CheckProgress } from '@/features/packages/components/detail/check-progr
 import { RevisionTimeline } from '@/features/packages/components/detail/revision-timeline';
 import { PackageResults } from '@/features/packages/components/detail/package-results';
 import { FileRow } from '@/features/packages/components/editor/documents-step';
+import { ReturnsPanel } from '@/features/returns/components/returns-panel';
+import { ResubmissionPanel } from '@/features/returns/components/resubmission-panel';
 
 function isLiftResult(value: unknown): value is LiftResult {
   const v = value as Partial<LiftResult> | null;
@@ -64,6 +66,15 @@ export default function PackageDetailRoute() {
   const result = isLiftResult(current.results) ? current.results : null;
   const plan = current.files.filter((file) => file.kind === 'lift_plan');
   const supporting = current.files.filter((file) => file.kind === 'supporting');
+  // Returned for changes: answer the findings and start the next revision; while that
+  // revision is a draft, the findings stay in view.
+  const resubmission =
+    data.package.status === 'returned' &&
+    (data.package.decision === 'revise_and_resubmit' || data.package.decision === 'rejected')
+      ? 'returned'
+      : current.state === 'draft' && current.number > 1
+        ? 'revising'
+        : null;
 
   return (
     <>
@@ -106,6 +117,17 @@ export default function PackageDetailRoute() {
         </div>
       )}
 
+      {contractor && resubmission && (
+        <div className="mb-4">
+          <ResubmissionPanel
+            packageId={id}
+            decision={data.package.decision}
+            revisionNumber={current.number}
+            mode={resubmission}
+          />
+        </div>
+      )}
+
       <CheckProgress check={current.check} />
 
       <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_20rem]">
@@ -125,6 +147,13 @@ export default function PackageDetailRoute() {
           )}
         </div>
         <aside className="flex flex-col gap-4">
+          <ReturnsPanel
+            packageId={id}
+            status={data.package.status}
+            decision={data.package.decision}
+            canIssue={user.role === 'reviewer'}
+            revisions={data.revisions}
+          />
           <section aria-labelledby="files-title" className="border border-rule bg-sheet">
             <h2 id="files-title" className="border-b border-rule px-3 py-2 text-[14px] font-bold">
               Documents of revision {current.number}
