@@ -23,6 +23,33 @@ const ACTION_WORDS: Record<string, string> = {
   assigned: 'Engineer assigned',
   decided: 'Decision recorded',
   returned: 'Returned',
+  'file.added': 'File added',
+  'file.removed': 'File removed',
+  'engineer.assigned': 'Engineer of record assigned',
+  'engineer.reassigned': 'Engineer of record changed',
+  'finding.raised': 'Finding raised',
+  'finding.answered': 'Finding answered',
+  'finding.closed': 'Finding closed',
+  'finding.reopened': 'Finding reopened',
+  'figure.accepted': 'Contractor figure accepted',
+  'decision.recorded': 'Decision recorded',
+  'return.requested': 'Stamped return requested',
+  'return.issued': 'Stamped return issued',
+  'revision.started': 'New revision started',
+};
+
+const DECISION_WORDS: Record<string, string> = {
+  accepted: 'Accepted',
+  accepted_as_noted: 'Accepted as noted',
+  revise_and_resubmit: 'Revise and resubmit',
+  rejected: 'Rejected',
+};
+
+const SEVERITY_WORDS: Record<string, string> = {
+  note: 'note',
+  minor: 'minor',
+  major: 'major',
+  blocking: 'blocking',
 };
 
 export function actionWords(action: string): string {
@@ -40,10 +67,32 @@ const CHECK_WORDS: Record<string, string> = {
 
 function detailText(detail: Record<string, unknown>): string {
   const parts: string[] = [];
-  for (const key of ['revision', 'number', 'fileName', 'name', 'originalName', 'reason', 'message']) {
+  const text = (key: string) => {
     const value = detail[key];
-    if (typeof value === 'string' || typeof value === 'number')
-      parts.push(key === 'revision' || key === 'number' ? `revision ${value}` : String(value));
+    return typeof value === 'string' || typeof value === 'number' ? String(value) : null;
+  };
+  const engineer = text('engineer');
+  if (engineer) parts.push(engineer);
+  const decision = text('decision');
+  if (decision) parts.push(DECISION_WORDS[decision] ?? decision);
+  const severity = text('severity');
+  if (severity) parts.push(SEVERITY_WORDS[severity] ?? severity);
+  const figure = text('figure');
+  if (figure) parts.push(`figure ${figure}`);
+  for (const key of ['revision', 'number']) {
+    const value = text(key);
+    if (value) parts.push(`revision ${value}`);
+  }
+  const from = text('from');
+  if (from) parts.push(`from revision ${from}`);
+  const pages = text('pages');
+  if (pages) parts.push(`${pages} pages`);
+  const openDiscrepancies = detail.openDiscrepancies;
+  if (typeof openDiscrepancies === 'number' && openDiscrepancies > 0)
+    parts.push(`${openDiscrepancies} open ${openDiscrepancies === 1 ? 'discrepancy' : 'discrepancies'}`);
+  for (const key of ['fileName', 'name', 'originalName', 'reason', 'message']) {
+    const value = text(key);
+    if (value) parts.push(value);
   }
   return parts.join(' · ');
 }
