@@ -147,7 +147,7 @@ describe('review workspace', () => {
     let layer = await openWorkspace(`/packages/${detail.package.id}/review`);
 
     fireEvent.click(screen.getByRole('button', { name: '100%' }));
-    fireEvent.click(screen.getByRole('button', { name: 'Box', exact: true }));
+    fireEvent.click(screen.getByRole('button', { name: /^Box$/ }));
     expect(screen.getByTestId('zoom-level').textContent).toBe('100%');
     layer = screen.getByTestId('markup-layer-1');
     drag(layer, [100, 100], [300, 250]);

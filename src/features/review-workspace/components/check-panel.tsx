@@ -8,7 +8,6 @@ import { CheckStatusMark } from '@/components/ui/check-status-mark';
 import { Button } from '@/components/ui/button';
 import { formatCheckLimit, formatCheckValue, SOURCE_KIND_LABELS } from '@/components/lift/result-format';
 import { sortChecks, sortDiscrepancies } from '@/components/lift/result-order';
-import { withoutLabel } from '@/components/lift/discrepancy-list';
 import { isApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format';
 import { useAcceptFigure } from '../api/accept-figure';
@@ -90,8 +89,8 @@ function DiscrepancyCard({
     <li className="border-b border-rule px-3 py-2 last:border-b-0" data-testid="discrepancy-item">
       <div className="flex items-start justify-between gap-2">
         <div className="min-w-0">
+          {/* The engine's message repeats the figures in SI; the grid below shows them in the reader's units. */}
           <p className="text-[13.5px] font-bold">{d.label}</p>
-          <p className="text-[12.5px] text-ink-soft">{withoutLabel(d)}</p>
         </div>
         <div className="flex shrink-0 flex-col items-end gap-0.5">
           {accepted ? <AcceptedMark /> : <DisagreeMark />}

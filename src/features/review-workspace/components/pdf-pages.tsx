@@ -11,6 +11,8 @@ export type Jump = { page: number; markupId?: string | null; nonce: number };
 export type Zoom = 'fit' | number;
 
 const PAGE_GAP = 16;
+/** The column's side padding plus room for a vertical scroll bar, so Fit width never scrolls sideways. */
+const FIT_ALLOWANCE = 2 * 24 + 18;
 const THUMB_WIDTH = 92;
 const DRAW_AROUND = 2;
 
@@ -50,7 +52,7 @@ function useWidth(ref: React.RefObject<HTMLElement | null>): number {
 export function scaleFor(zoom: Zoom, containerWidth: number, pageWidth: number): number {
   if (zoom !== 'fit') return zoom;
   if (containerWidth <= 0 || pageWidth <= 0) return 1;
-  return Math.max(0.25, Math.min(4, (containerWidth - 2 * PAGE_GAP) / pageWidth));
+  return Math.max(0.25, Math.min(4, (containerWidth - FIT_ALLOWANCE) / pageWidth));
 }
 
 export function PdfPages({
