@@ -20,6 +20,13 @@ const PackageNewRoute = lazy(() => import('./routes/package-new'));
 const PackageEditRoute = lazy(() => import('./routes/package-edit'));
 const VerifyRoute = lazy(() => import('./routes/verify'));
 const ReviewWorkspaceRoute = lazy(() => import('./routes/review-workspace'));
+const AdminOrganisationsRoute = lazy(() => import('./routes/admin-organisations'));
+const AdminSitesRoute = lazy(() => import('./routes/admin-sites'));
+const AdminSitePolicyRoute = lazy(() => import('./routes/admin-site-policy'));
+const AdminPeopleRoute = lazy(() => import('./routes/admin-people'));
+const AdminMailRoute = lazy(() => import('./routes/admin-mail'));
+const ProfileRoute = lazy(() => import('./routes/profile'));
+const InviteRoute = lazy(() => import('./routes/invite'));
 
 function contractorOnly(path: string, element: ReactNode): RouteObject {
   return {
@@ -36,11 +43,12 @@ function Page({ children }: { children: ReactNode }) {
   return <Suspense fallback={<PageLoading label="Opening the page" />}>{children}</Suspense>;
 }
 
-function guarded(path: string, element: ReactNode): RouteObject {
+/** A desk page open to the roles of its navigation entry; pages below one (a site's policy under Sites) name it. */
+function guarded(path: string, element: ReactNode, navPath = path): RouteObject {
   return {
     path,
     element: (
-      <RequireRole roles={rolesFor(path)}>
+      <RequireRole roles={rolesFor(navPath)}>
         <Page>{element}</Page>
       </RequireRole>
     ),
@@ -49,6 +57,16 @@ function guarded(path: string, element: ReactNode): RouteObject {
 
 export const routes: RouteObject[] = [
   { path: '/sign-in', element: <SignInRoute />, errorElement: <RouteError /> },
+  // Public: a person invited by e-mail sets their password from the one-time link.
+  {
+    path: '/invite/:token',
+    element: (
+      <Page>
+        <InviteRoute />
+      </Page>
+    ),
+    errorElement: <RouteError />,
+  },
   // Public: anyone on site checks a stamped return's code without signing in.
   {
     path: '/verify',
@@ -82,6 +100,12 @@ export const routes: RouteObject[] = [
       guarded('/queue', <QueueRoute />),
       guarded('/assigned', <AssignedRoute />),
       guarded('/admin', <AdminRoute />),
+      guarded('/admin/organisations', <AdminOrganisationsRoute />),
+      guarded('/admin/sites', <AdminSitesRoute />),
+      guarded('/admin/sites/:id/policy', <AdminSitePolicyRoute />, '/admin/sites'),
+      guarded('/admin/people', <AdminPeopleRoute />),
+      guarded('/admin/mail', <AdminMailRoute />),
+      guarded('/profile', <ProfileRoute />),
       contractorOnly('/packages/new', <PackageNewRoute />),
       contractorOnly('/packages/:id/edit', <PackageEditRoute />),
       {

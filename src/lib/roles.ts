@@ -10,7 +10,14 @@ export const ROLE_LABELS: Record<Role, string> = {
   admin: 'Desk administrator',
 };
 
-export type NavItem = { to: string; label: string; description: string; roles: readonly Role[] };
+export type NavItem = {
+  to: string;
+  label: string;
+  description: string;
+  roles: readonly Role[];
+  /** Highlighted only on this exact path, not on the pages below it. */
+  end?: boolean;
+};
 
 export const NAV_ITEMS: readonly NavItem[] = [
   {
@@ -34,8 +41,39 @@ export const NAV_ITEMS: readonly NavItem[] = [
   {
     to: '/admin',
     label: 'Desk administration',
-    description: 'All packages and the state of the desk',
+    description: 'The state of the desk, every package, and the admin pages',
     roles: ['admin'],
+    end: true,
+  },
+  {
+    to: '/admin/organisations',
+    label: 'Organisations',
+    description: 'Contractors and site owners on the desk',
+    roles: ['admin'],
+  },
+  {
+    to: '/admin/sites',
+    label: 'Sites and policies',
+    description: "Sites, their lift coordinators and each site's review policy",
+    roles: ['admin'],
+  },
+  {
+    to: '/admin/people',
+    label: 'People',
+    description: 'Invite people, change roles, deactivate accounts',
+    roles: ['admin'],
+  },
+  {
+    to: '/admin/mail',
+    label: 'Mail outbox',
+    description: 'Every message the desk sent, failures first to fix',
+    roles: ['admin'],
+  },
+  {
+    to: '/profile',
+    label: 'Profile',
+    description: 'Your name, units, reminders and password',
+    roles: ['contractor', 'reviewer', 'engineer', 'admin'],
   },
 ];
 

@@ -74,10 +74,21 @@ describe('route guard', () => {
 
 describe('role navigation', () => {
   it.each([
-    ['contractor', ['Lift packages']],
-    ['reviewer', ['Site queue']],
-    ['engineer', ['Assigned to me']],
-    ['admin', ['Site queue', 'Desk administration']],
+    ['contractor', ['Lift packages', 'Profile']],
+    ['reviewer', ['Site queue', 'Profile']],
+    ['engineer', ['Assigned to me', 'Profile']],
+    [
+      'admin',
+      [
+        'Site queue',
+        'Desk administration',
+        'Organisations',
+        'Sites and policies',
+        'People',
+        'Mail outbox',
+        'Profile',
+      ],
+    ],
   ] as const)('when a %s is signed in, then the navigation shows only %j', async (role, expected) => {
     signedInAs(role);
     renderApp('/');

@@ -83,6 +83,7 @@ export function AppShell() {
               <li key={item.to}>
                 <NavLink
                   to={item.to}
+                  end={item.end}
                   title={item.description}
                   className={({ isActive }) =>
                     `flex h-10 items-center border-l-4 pl-4 pr-3 text-sm font-bold ${

@@ -1,0 +1,160 @@
+// /admin/people — everyone on the desk, filtered by organisation, role and state (kept in
+// the URL), with the invitation dialog.
+import { useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { ROLES } from '@shared/schemas/common';
+import { useCurrentUser } from '@/lib/auth';
+import { ROLE_LABELS } from '@/lib/roles';
+import { PageHeader } from '@/components/layouts/page-header';
+import { Button } from '@/components/ui/button';
+import { PageLoading } from '@/components/ui/page-loading';
+import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
+import { useOrganisations } from '@/features/admin/api/organisations';
+import { usePeople, type Person } from '@/features/admin/api/people';
+import type { PeopleFilters } from '@/features/admin/api/admin-keys';
+import { InviteDialog } from '@/features/admin/components/invite-dialog';
+import { PeopleTable } from '@/features/admin/components/people-table';
+import { PERSON_STATE_LABELS } from '@/features/admin/lib/labels';
+
+const filterSelect = 'h-8 rounded-[3px] border border-rule-strong bg-sheet px-1.5 text-[13.5px] text-ink';
+
+export default function AdminPeopleRoute() {
+  const { data: user } = useCurrentUser();
+  const [params, setParams] = useSearchParams();
+  const filters: PeopleFilters = {
+    organisationId: params.get('organisationId') || undefined,
+    role: params.get('role') || undefined,
+    state: params.get('state') || undefined,
+  };
+  const people = usePeople(filters);
+  const organisations = useOrganisations();
+  const [inviting, setInviting] = useState(false);
+  const [invited, setInvited] = useState<Person | null>(null);
+
+  const setFilter = (key: keyof PeopleFilters, value: string) =>
+    setParams(
+      (current) => {
+        const next = new URLSearchParams(current);
+        if (value) next.set(key, value);
+        else next.delete(key);
+        return next;
+      },
+      { replace: true },
+    );
+
+  const filtered = Boolean(filters.organisationId || filters.role || filters.state);
+  if (!user) return null;
+
+  return (
+    <>
+      <PageHeader
+        title="People"
+        context="Invite people by e-mail, change their role, or deactivate an account. History stays with the person."
+        actions={
+          <Button
+            variant="primary"
+            disabled={!organisations.data?.items.length}
+            onClick={() => {
+              setInvited(null);
+              setInviting(true);
+            }}
+          >
+            Invite a person
+          </Button>
+        }
+      />
+      <div role="group" aria-label="Filters" className="mb-3 flex flex-wrap items-center gap-3 text-[13.5px]">
+        <label className="flex items-center gap-1.5">
+          <span className="font-bold">Organisation</span>
+          <select
+            className={filterSelect}
+            value={filters.organisationId ?? ''}
+            onChange={(event) => setFilter('organisationId', event.target.value)}
+          >
+            <option value="">All</option>
+            {organisations.data?.items.map((org) => (
+              <option key={org.id} value={org.id}>
+                {org.name}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-1.5">
+          <span className="font-bold">Role</span>
+          <select
+            className={filterSelect}
+            value={filters.role ?? ''}
+            onChange={(event) => setFilter('role', event.target.value)}
+          >
+            <option value="">All</option>
+            {ROLES.map((role) => (
+              <option key={role} value={role}>
+                {ROLE_LABELS[role]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-1.5">
+          <span className="font-bold">State</span>
+          <select
+            className={filterSelect}
+            value={filters.state ?? ''}
+            onChange={(event) => setFilter('state', event.target.value)}
+          >
+            <option value="">All</option>
+            {Object.entries(PERSON_STATE_LABELS).map(([state, label]) => (
+              <option key={state} value={state}>
+                {label}
+              </option>
+            ))}
+          </select>
+        </label>
+        {filtered && (
+          <Button size="sm" variant="quiet" onClick={() => setParams({}, { replace: true })}>
+            Clear filters
+          </Button>
+        )}
+        {people.data && (
+          <span className="ml-auto text-ink-soft tabular" aria-live="polite">
+            {people.data.items.length} {people.data.items.length === 1 ? 'person' : 'people'}
+          </span>
+        )}
+      </div>
+
+      {invited && (
+        <p role="status" className="mb-3 border-l-4 border-verdigris bg-verdigris-tint px-3 py-2 text-sm">
+          <strong>Invitation queued for {invited.email}.</strong> The link to set a password is in the mail
+          outbox; it expires if not used.
+        </p>
+      )}
+
+      {people.isPending ? (
+        <PageLoading label="Loading people" />
+      ) : people.isError ? (
+        <ErrorPanel title="People could not be loaded" message={people.error.message} />
+      ) : people.data.items.length === 0 ? (
+        <EmptyState title={filtered ? 'Nobody matches these filters' : 'Nobody on the desk yet'}>
+          <p>
+            {filtered
+              ? 'Clear a filter to see more people.'
+              : 'Invite the first coordinator or engineer of record.'}
+          </p>
+        </EmptyState>
+      ) : (
+        <PeopleTable people={people.data.items} currentUserId={user.id} />
+      )}
+
+      {inviting && organisations.data && (
+        <InviteDialog
+          organisations={organisations.data.items}
+          initialOrganisationId={filters.organisationId}
+          onClose={() => setInviting(false)}
+          onInvited={(person) => {
+            setInviting(false);
+            setInvited(person);
+          }}
+        />
+      )}
+    </>
+  );
+}
