@@ -41,10 +41,10 @@ function AnswerForm({ packageId, finding }: { packageId: string; finding: Findin
         id={id}
         value={text}
         maxLength={4000}
-        rows={3}
+        rows={2}
         onChange={(event) => setText(event.target.value)}
         placeholder="What you changed in the lift plan, or why the figure stands"
-        className="w-full rounded-[3px] border border-rule-strong bg-sheet px-2 py-1.5 text-[13.5px]"
+        className="w-full max-w-[48rem] rounded-[3px] border border-rule-strong bg-sheet px-2 py-1.5 text-[13.5px]"
       />
       <div className="flex items-center gap-2">
         <Button type="submit" size="sm" variant="primary" disabled={!text.trim() || answer.isPending}>

@@ -31,6 +31,9 @@ export function ResubmissionPanel({
   const stampedUrl = latestReady ? returnFileUrl(packageId, latestReady.id) : undefined;
   const next = revisionNumber + 1;
   const rejected = decision === 'rejected';
+  // "Answer each finding" only where there are findings to answer.
+  const answerFirst = findings.data?.length === 0 ? '' : 'Answer each finding, then s';
+  const thenStart = answerFirst || 'S';
 
   return (
     <section
@@ -51,8 +54,8 @@ export function ResubmissionPanel({
           <p className="max-w-prose text-[13px] text-ink-soft">
             {mode === 'returned'
               ? rejected
-                ? 'The engineer of record rejected this revision. Do not lift to it. Answer each finding, then start a new revision with a corrected lift and a new lift plan PDF.'
-                : 'The engineer of record wants changes before this lift can go ahead. Answer each finding, then start the next revision: it begins with these inputs and no documents, so upload the corrected lift plan PDF.'
+                ? `The engineer of record rejected this revision. Do not lift to it. ${thenStart}tart a new revision with a corrected lift and a new lift plan PDF.`
+                : `The engineer of record wants changes before this lift can go ahead. ${thenStart}tart the next revision: it begins with these inputs and no documents, so upload the corrected lift plan PDF.`
               : 'Your answers go with this revision when you submit it. The engineer sees which findings are answered.'}
           </p>
           {mode === 'returned' && (

@@ -14,6 +14,8 @@ import { returnFileUrl, useIssueReturn, useReturns, verifyPath, type StampedRetu
 import { shortHash, STAMP_STEPS, stepAt } from '../lib/stamp-steps';
 import { CopyButton } from './copy-button';
 
+const NOT_STARTED_MS = 20_000;
+
 function StampProgress({ ret }: { ret: StampedReturn }) {
   const current = stepAt(ret.progress);
   const percent = Math.max(0, Math.min(100, Math.round(ret.progress)));
@@ -144,6 +146,12 @@ export function ReturnsPanel({
   const failed = !pending ? items.find((r) => r.state === 'failed') : undefined;
   const ready = items.filter((r) => r.state === 'ready');
   const hasReady = ready.length > 0;
+  // A return the stamping job has not even started after a while (progress 0) may have lost
+  // its job; sending it again is harmless, as the job is keyed to the decision.
+  const stuck =
+    pending !== undefined &&
+    pending.progress === 0 &&
+    returns.dataUpdatedAt - Date.parse(pending.createdAt) > NOT_STARTED_MS;
 
   // The job marks the package returned when it stores the file: read the package again.
   useEffect(() => {
@@ -155,7 +163,7 @@ export function ReturnsPanel({
 
   if (!canIssue && items.length === 0 && status !== 'decided' && status !== 'returned') return null;
   const numberOf = (revisionId: string) => revisions.find((r) => r.id === revisionId)?.number;
-  const showIssue = canIssue && status === 'decided' && !pending;
+  const showIssue = canIssue && status === 'decided' && (!pending || stuck);
 
   return (
     <section aria-labelledby="returns-title" className="border border-rule bg-sheet">
@@ -164,6 +172,12 @@ export function ReturnsPanel({
       </h2>
       {showIssue && (
         <div className="flex flex-col items-start gap-2 border-b border-rule bg-decided-tint px-3 py-2.5 text-[13px]">
+          {stuck && (
+            <p className="font-bold text-caution-ink">
+              The stamping job has not started since {formatDateTime(pending.createdAt)}. Send it again; it
+              still makes only one stamped return.
+            </p>
+          )}
           <p>
             {decision ? (
               <>
@@ -178,7 +192,7 @@ export function ReturnsPanel({
               <>
                 <Spinner className="size-3.5" /> Sending…
               </>
-            ) : failed ? (
+            ) : failed || stuck ? (
               'Issue the stamped return again'
             ) : (
               'Issue stamped return'

@@ -25,10 +25,7 @@ export function EngineerPicker({
   }
   return (
     // Clicks and keys here choose an engineer; they must not open the package.
-    <span
-      className="flex min-w-[10rem] flex-col items-start gap-0.5"
-      onClick={(event) => event.stopPropagation()}
-    >
+    <span className="flex flex-col items-start gap-0.5" onClick={(event) => event.stopPropagation()}>
       <span className="inline-flex items-center gap-1">
         <select
           aria-label={`Engineer of record for ${pkg.reference}`}
@@ -38,7 +35,7 @@ export function EngineerPicker({
           onChange={(event) => {
             if (event.target.value) assign.mutate({ packageIds: [pkg.id], engineerId: event.target.value });
           }}
-          className={`h-7 max-w-[12rem] rounded-[3px] border border-transparent bg-transparent px-1 text-[13.5px] hover:border-rule-strong focus:border-rule-strong ${
+          className={`-ml-1 h-7 max-w-[10.5rem] rounded-[3px] border border-transparent bg-transparent px-0.5 text-[13.5px] hover:border-rule-strong focus:border-rule-strong ${
             pkg.engineer ? 'text-ink' : 'text-ink-soft italic'
           }`}
         >
