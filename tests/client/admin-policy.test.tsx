@@ -42,7 +42,9 @@ function policyDesk(
     if (url.pathname === '/api/me') return { status: 200, body: { user: admin } };
     if (url.pathname === '/api/admin/sites') return { status: 200, body: { items: [adminSite] } };
     if (url.pathname === POLICY_PATH && init?.method === 'PUT') {
-      return onPut ? onPut(bodyOf(init)) : policyReply((bodyOf(init) as { overrides: Record<string, unknown> }).overrides, 4);
+      return onPut
+        ? onPut(bodyOf(init))
+        : policyReply((bodyOf(init) as { overrides: Record<string, unknown> }).overrides, 4);
     }
     if (url.pathname === POLICY_PATH) return policyReply(overrides);
   });
