@@ -118,7 +118,10 @@ export function ReviewWorkspace({ detail, user }: { detail: PackageDetail; user:
   const [pending, setPending] = useState<PendingText | null>(null);
   const [draft, setDraft] = useState<FindingDraft>(EMPTY_DRAFT);
   const [tab, setTab] = useState<Tab>('checks');
-  const [width, setWidth] = useState(460);
+  // About a third of the screen for the review column; the separator widens or narrows it.
+  const [width, setWidth] = useState(() =>
+    Math.round(Math.min(520, Math.max(MIN_COLUMN, window.innerWidth * 0.3))),
+  );
   const [seenVersion, setSeenVersion] = useState(pkg.version);
 
   const file = files.find((f) => f.id === fileId) ?? null;
