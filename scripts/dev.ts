@@ -2,7 +2,7 @@
 // the Vite dev server (hot reload, proxying /api), and the API and worker in watch mode.
 import path from 'node:path';
 import { startProcess, stopAll, type Managed } from './lib/processes';
-import { prepareStack } from './lib/stack';
+import { prepareStack, startMailCatcherIfNeeded } from './lib/stack';
 
 const root = process.cwd();
 const dataDir = path.resolve(process.env.DATA_DIR ?? '.data');
@@ -28,7 +28,9 @@ async function main() {
   const stack = await prepareStack({ dataDir, root, say, onStarted: (stop) => (stopServices = stop) });
   const env = { ...stack.env, NODE_ENV: 'development', PORT: process.env.PORT ?? '3000' };
   const tsx = path.join(root, 'node_modules/tsx/dist/cli.mjs');
+  const catcher = startMailCatcherIfNeeded(env, say);
   children = [
+    ...(catcher ? [catcher] : []),
     startProcess('api', process.execPath, [tsx, 'watch', 'server/index.ts'], { ...env, CP_SERVICE: 'api' }),
     startProcess('worker', process.execPath, [tsx, 'watch', 'worker/index.ts'], {
       ...env,

@@ -6,7 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../server/db/seed/demo-accounts';
 import { startProcess, stopAll, waitForHealth, type Managed } from './lib/processes';
-import { prepareStack } from './lib/stack';
+import { prepareStack, startMailCatcherIfNeeded } from './lib/stack';
 
 const root = process.cwd();
 const dataDir = path.resolve(process.env.DATA_DIR ?? '.data');
@@ -60,7 +60,10 @@ async function main() {
     HOST: host,
   };
   const tsx = ['--import', 'tsx'];
-  children = [
+  children = [];
+  const catcher = startMailCatcherIfNeeded(env, say, path.join(logDir, 'mail.log'));
+  if (catcher) children.push(catcher);
+  children.push(
     startProcess(
       'api',
       process.execPath,
@@ -75,7 +78,7 @@ async function main() {
       { ...env, CP_SERVICE: 'worker' },
       path.join(logDir, 'worker.log'),
     ),
-  ];
+  );
   for (const c of children) {
     c.child.once('exit', (code, signal) => {
       if (stopping) return;

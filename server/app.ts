@@ -16,6 +16,7 @@ import { authRoutes } from './modules/auth/routes';
 import { calculationRoutes } from './modules/calculations/routes';
 import { healthRoutes } from './modules/health/routes';
 import { packageRoutes } from './modules/packages/routes';
+import { profileRoutes } from './modules/profile/routes';
 import { returnRoutes } from './modules/returns/routes';
 import { reviewRoutes } from './modules/reviews/routes';
 import { siteRoutes } from './modules/sites/routes';
@@ -56,6 +57,7 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   app.use('/api', reviewRoutes(ctx));
   app.use('/api', returnRoutes(ctx));
   app.use('/api', verifyRoutes(ctx));
+  app.use('/api', profileRoutes(ctx));
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApiDocument());
   });

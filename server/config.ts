@@ -34,6 +34,15 @@ const Env = z.object({
     .default('cp'),
   CHECK_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
   SMTP_URL: z.string().optional(),
+  MAIL_FROM: z.string().default('Counterpoise lift desk <desk@counterpoise.invalid>'),
+  REMINDER_DAYS: z.coerce.number().int().min(0).max(60).default(3),
+  REMINDER_CRON: z.string().default('0 7 * * *'),
+  REMINDER_TIME_ZONE: z.string().default('UTC'),
+  INVITE_HOURS: z.coerce
+    .number()
+    .min(1)
+    .max(24 * 30)
+    .default(72),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 export type Config = z.infer<typeof Env>;

@@ -1,5 +1,23 @@
 // Describes each API route for the OpenAPI document, beside the schemas it validates with.
 import { z } from 'zod';
+import {
+  AcceptInviteBody,
+  AdminSite,
+  CaughtMail,
+  InviteBody,
+  InviteInfo,
+  MailMessage,
+  OrganisationBody,
+  OrganisationPatch,
+  PasswordChangeBody,
+  Person,
+  PersonPatch,
+  PolicyOverridesBody,
+  ProfilePatch,
+  SiteBody,
+  SitePatch,
+  SiteReviewersBody,
+} from '@shared/schemas/admin';
 import { MeResponse, SignInBody } from '@shared/schemas/auth';
 import { CalculationBody } from '@shared/schemas/calculations';
 import {
@@ -24,7 +42,8 @@ import {
   Verification,
 } from '@shared/schemas/reviews';
 import { describeRoute } from './lib/openapi';
-import { OrganisationList } from './modules/admin/routes';
+import { IdParams, MailQuery, OrganisationList, PeopleQuery } from './modules/admin/routes';
+import { TokenParams } from './modules/profile/routes';
 import { LiftResultShape } from './modules/calculations/routes';
 import { FileParams, PackageIdParams, RevisionParams } from './modules/packages/routes';
 import { ReturnParams } from './modules/returns/routes';
@@ -189,12 +208,6 @@ describeRoute({
   tags: ['admin'],
   response: OrganisationList,
 });
-describeRoute({
-  method: 'get',
-  path: '/admin/sites',
-  summary: 'Sites your organisation owns (admin)',
-  tags: ['admin'],
-});
 
 const Findings = z.object({ items: z.array(Finding) });
 const StampedReturn = z.object({
@@ -345,4 +358,178 @@ describeRoute({
   public: true,
   params: z.object({ code: z.string() }),
   response: Verification,
+});
+
+const Org = OrganisationList.shape.items.element;
+const Profile = z.object({
+  name: z.string(),
+  email: z.string(),
+  unitSystem: z.enum(['metric', 'imperial']),
+  notifyReminders: z.boolean(),
+});
+describeRoute({
+  method: 'post',
+  path: '/admin/organisations',
+  summary: 'Add a contractor organisation to the desk (admin)',
+  tags: ['admin'],
+  body: OrganisationBody,
+  response: Org,
+  status: 201,
+});
+describeRoute({
+  method: 'patch',
+  path: '/admin/organisations/:id',
+  summary: 'Rename an organisation (admin)',
+  tags: ['admin'],
+  params: IdParams,
+  body: OrganisationPatch,
+  response: Org,
+});
+describeRoute({
+  method: 'get',
+  path: '/admin/sites',
+  summary: 'Sites your organisation owns, with reviewers (admin)',
+  tags: ['admin'],
+  response: z.object({ items: z.array(AdminSite) }),
+});
+describeRoute({
+  method: 'post',
+  path: '/admin/sites',
+  summary: 'Add a site (admin)',
+  tags: ['admin'],
+  body: SiteBody,
+  response: AdminSite,
+  status: 201,
+});
+describeRoute({
+  method: 'patch',
+  path: '/admin/sites/:id',
+  summary: 'Change a site (admin)',
+  tags: ['admin'],
+  params: IdParams,
+  body: SitePatch,
+  response: AdminSite,
+});
+describeRoute({
+  method: 'put',
+  path: '/admin/sites/:id/reviewers',
+  summary: 'Set the reviewers of a site (admin)',
+  tags: ['admin'],
+  params: IdParams,
+  body: SiteReviewersBody,
+  response: AdminSite,
+});
+describeRoute({
+  method: 'get',
+  path: '/admin/sites/:id/policy',
+  summary: 'The site review policy: overrides, effective values, defaults with sources, history',
+  tags: ['admin'],
+  params: IdParams,
+});
+describeRoute({
+  method: 'put',
+  path: '/admin/sites/:id/policy',
+  summary: 'Set the site policy overrides (audited; applies to check runs from now on)',
+  tags: ['admin'],
+  params: IdParams,
+  body: PolicyOverridesBody,
+});
+describeRoute({
+  method: 'get',
+  path: '/admin/people',
+  summary: 'People of the desk (admin)',
+  tags: ['admin'],
+  query: PeopleQuery,
+  response: z.object({ items: z.array(Person) }),
+});
+describeRoute({
+  method: 'post',
+  path: '/admin/people/invite',
+  summary: 'Invite a person by e-mail with a one-time link (admin)',
+  tags: ['admin'],
+  body: InviteBody,
+  response: Person,
+  status: 201,
+});
+describeRoute({
+  method: 'post',
+  path: '/admin/people/:id/reinvite',
+  summary: 'Send a new invitation link (admin)',
+  tags: ['admin'],
+  params: IdParams,
+  response: Person,
+});
+describeRoute({
+  method: 'patch',
+  path: '/admin/people/:id',
+  summary: 'Change a role or deactivate (ends their sessions) (admin)',
+  tags: ['admin'],
+  params: IdParams,
+  body: PersonPatch,
+  response: Person,
+});
+describeRoute({
+  method: 'get',
+  path: '/admin/mail',
+  summary: 'Mail the desk sent, queued or failed, with errors (admin)',
+  tags: ['mail'],
+  query: MailQuery,
+  response: z.object({ items: z.array(MailMessage), total: z.number().int() }),
+});
+describeRoute({
+  method: 'get',
+  path: '/admin/mail/caught',
+  summary: 'Messages the local fake SMTP server received (admin)',
+  tags: ['mail'],
+  response: z.object({ items: z.array(CaughtMail) }),
+});
+describeRoute({
+  method: 'post',
+  path: '/admin/mail/:id/retry',
+  summary: 'Send a failed message again (admin)',
+  tags: ['mail'],
+  params: IdParams,
+  status: 202,
+});
+describeRoute({
+  method: 'get',
+  path: '/me/profile',
+  summary: 'Your profile',
+  tags: ['profile'],
+  response: Profile,
+});
+describeRoute({
+  method: 'patch',
+  path: '/me/profile',
+  summary: 'Change your name, unit system or reminders',
+  tags: ['profile'],
+  body: ProfilePatch,
+  response: Profile,
+});
+describeRoute({
+  method: 'post',
+  path: '/me/password',
+  summary: 'Change your password (ends your other sessions)',
+  tags: ['profile'],
+  body: PasswordChangeBody,
+  status: 204,
+});
+describeRoute({
+  method: 'get',
+  path: '/invites/:token',
+  summary: 'Public: the invitation behind a one-time link (410 when expired)',
+  tags: ['profile'],
+  public: true,
+  params: TokenParams,
+  response: InviteInfo,
+});
+describeRoute({
+  method: 'post',
+  path: '/invites/:token',
+  summary: 'Public: set the password of an invitation and sign in',
+  tags: ['profile'],
+  public: true,
+  params: TokenParams,
+  body: AcceptInviteBody,
+  response: MeResponse,
 });

@@ -11,6 +11,9 @@ import { enqueueCheck } from '../server/modules/packages/drafts';
 import { Revision } from '../server/modules/packages/package.entity';
 import { startCheckRunWorker } from './tasks/check-run-task';
 import { startStampWorker } from './tasks/stamp-return-task';
+import { startMailWorker } from './tasks/mail-task';
+import { scheduleReminders, startRemindersWorker } from './tasks/reminders-task';
+import { requeueWaitingMail } from '../server/modules/mail/service';
 
 async function main() {
   const config = loadConfig();
@@ -19,7 +22,12 @@ async function main() {
   const workers: Worker[] = [
     startCheckRunWorker(ctx, connection, config.CHECK_CONCURRENCY),
     startStampWorker(ctx, connection, 1),
+    startRemindersWorker(ctx, connection),
   ];
+  if (config.SMTP_URL) workers.push(startMailWorker(ctx, connection, config.SMTP_URL));
+  else logger.warn('SMTP_URL is not set: mail is recorded but not sent');
+  await scheduleReminders(ctx);
+  const mailRequeued = config.SMTP_URL ? await requeueWaitingMail(ctx.dataSource, ctx.queues, 0) : 0;
   for (const w of workers) {
     w.on('error', (err) => logger.error({ err, queue: w.name }, 'worker error'));
     w.on('failed', (job, err) => logger.warn({ err, queue: w.name, jobId: job?.id }, 'job failed'));
@@ -32,7 +40,12 @@ async function main() {
     .find({ where: { state: 'submitted', checkStatus: 'queued' } });
   for (const r of waiting) await enqueueCheck(ctx.queues, r.id);
   logger.info(
-    { queues: workers.map((w) => w.name), concurrency: config.CHECK_CONCURRENCY, requeued: waiting.length },
+    {
+      queues: workers.map((w) => w.name),
+      concurrency: config.CHECK_CONCURRENCY,
+      requeued: waiting.length,
+      mailRequeued,
+    },
     'worker ready',
   );
   let closing = false;

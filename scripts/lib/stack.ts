@@ -3,6 +3,7 @@
 // API and the worker run with.
 import path from 'node:path';
 import { runMigrations } from './migrate';
+import { startProcess, type Managed } from './processes';
 import { localSecret } from './secret';
 import { ensurePackages, startPostgres, startRedis, type PostgresHandle, type RedisHandle } from './services';
 
@@ -82,4 +83,26 @@ async function withStep<T>(step: string, fn: () => Promise<T>): Promise<T> {
     e.step = e.step ?? step;
     throw e;
   }
+}
+
+/**
+ * Without SMTP_URL, runs the local fake SMTP server (mail goes over real SMTP and is kept
+ * for the outbox page) and points env.SMTP_URL at it.
+ */
+export function startMailCatcherIfNeeded(
+  env: NodeJS.ProcessEnv,
+  say: (m: string) => void,
+  logFile?: string,
+): Managed | null {
+  if (process.env.SMTP_URL) return null;
+  const smtpPort = Number(process.env.CP_SMTP_PORT ?? 55025);
+  env.SMTP_URL = `smtp://127.0.0.1:${smtpPort}`;
+  say(`local outbox (fake SMTP) on 127.0.0.1:${smtpPort}; admins read it at /admin/mail`);
+  return startProcess(
+    'mail-catcher',
+    process.execPath,
+    ['--import', 'tsx', 'server/mail-catcher.ts'],
+    { ...env, CP_SERVICE: 'mail-catcher', CP_SMTP_PORT: String(smtpPort) },
+    logFile,
+  );
 }

@@ -1,6 +1,7 @@
 // Every entity the DataSource knows, in one list.
 import { AuditEvent } from '../modules/audit/audit-event.entity';
 import { UploadedFile } from '../modules/files/file.entity';
+import { CaughtMail, MailMessage } from '../modules/mail/mail.entity';
 import { Organisation } from '../modules/organisations/organisation.entity';
 import { LiftPackage, Revision } from '../modules/packages/package.entity';
 import { Assignment, DecisionRecord, Finding, Markup, StampedReturn } from '../modules/reviews/review.entity';
@@ -21,4 +22,6 @@ export const ENTITIES = [
   DecisionRecord,
   StampedReturn,
   AuditEvent,
+  MailMessage,
+  CaughtMail,
 ];

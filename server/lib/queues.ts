@@ -7,6 +7,7 @@ export const QUEUE_NAMES = {
   checkRun: 'check-run',
   stamp: 'stamp-return',
   mail: 'mail',
+  reminders: 'reminders',
 } as const;
 
 export interface CheckRunJob {
@@ -17,7 +18,13 @@ export interface StampJob {
   returnId: string;
 }
 
+export interface MailJob {
+  messageId: string;
+}
+
 export interface Queues {
+  mail: Queue<MailJob>;
+  reminders: Queue;
   checkRun: Queue<CheckRunJob>;
   stamp: Queue<StampJob>;
   close(): Promise<void>;
@@ -42,11 +49,20 @@ export function createQueues(connection: Redis, prefix: string): Queues {
     prefix,
     defaultJobOptions: JOB_DEFAULTS,
   });
+  const mail = new Queue<MailJob>(QUEUE_NAMES.mail, {
+    connection,
+    prefix,
+    // Mail servers fail for minutes at a time: more attempts, longer backoff.
+    defaultJobOptions: { ...JOB_DEFAULTS, attempts: 8, backoff: { type: 'exponential', delay: 5000 } },
+  });
+  const reminders = new Queue(QUEUE_NAMES.reminders, { connection, prefix, defaultJobOptions: JOB_DEFAULTS });
   return {
     checkRun,
     stamp,
+    mail,
+    reminders,
     async close() {
-      await Promise.all([checkRun.close(), stamp.close()]);
+      await Promise.all([checkRun.close(), stamp.close(), mail.close(), reminders.close()]);
     },
   };
 }

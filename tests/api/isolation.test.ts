@@ -95,8 +95,9 @@ describe('organisation isolation', () => {
 });
 
 describe('roles', () => {
-  it('when a contractor calls an admin route, then 403; an admin gets the list', async () => {
+  it("when a contractor calls an admin route, then 403; an admin gets their desk's organisations only", async () => {
     const w = await makeWorld(t.ctx.dataSource);
+    const elsewhere = await makeWorld(t.ctx.dataSource);
     await makePackage(t.ctx.dataSource, { contractor: w.contractorA, site: w.site, createdBy: w.plannerA });
     const contractor = await signedIn(t.app, w.plannerA.email);
     const forbidden = await contractor.get('/api/admin/organisations');
@@ -107,7 +108,9 @@ describe('roles', () => {
     expect(ok.status).toBe(200);
     const names = ok.body.items.map((o: { name: string }) => o.name);
     expect(names).toEqual(expect.arrayContaining([w.owner.name, w.contractorA.name]));
-    expect(names).not.toContain(w.contractorB.name);
+    expect(names).toContain(w.contractorB.name);
+    expect(names).not.toContain(elsewhere.contractorA.name);
+    expect(names).not.toContain(elsewhere.owner.name);
   });
 
   it('when the list query breaks a limit, then 400 names the field and the limit', async () => {

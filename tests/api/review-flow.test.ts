@@ -143,15 +143,13 @@ describe('the engineer’s review', () => {
     const { w, contractor, reviewer, engineer } = await desk();
     const p = await submitted(w, contractor);
     await reviewer.post('/api/assignments').send({ packageIds: [p.id], engineerId: w.engineer.id });
-    const rect = await engineer
-      .post(`/api/packages/${p.id}/markups`)
-      .send({
-        fileId: p.fileId,
-        pageNumber: 1,
-        kind: 'rectangle',
-        geometry: { x: 72, y: 600, width: 144, height: 36 },
-        colour: 'rust',
-      });
+    const rect = await engineer.post(`/api/packages/${p.id}/markups`).send({
+      fileId: p.fileId,
+      pageNumber: 1,
+      kind: 'rectangle',
+      geometry: { x: 72, y: 600, width: 144, height: 36 },
+      colour: 'rust',
+    });
     expect(rect.status).toBe(201);
     expect(rect.body.geometry).toEqual({ x: 72, y: 600, width: 144, height: 36 });
     const pin1 = await engineer
@@ -290,22 +288,18 @@ describe('the stamped return, verification and resubmission', () => {
     const { w, contractor, reviewer, engineer } = await desk();
     const p = await submitted(w, contractor);
     await reviewer.post('/api/assignments').send({ packageIds: [p.id], engineerId: w.engineer.id });
-    await engineer
-      .post(`/api/packages/${p.id}/markups`)
-      .send({
-        fileId: p.fileId,
-        pageNumber: 1,
-        kind: 'cloud',
-        geometry: { x: 100, y: 500, width: 200, height: 80 },
-      });
-    const raised = await engineer
-      .post(`/api/packages/${p.id}/findings`)
-      .send({
-        text: 'Show the spotter position on the site plan.',
-        severity: 'major',
-        fileId: p.fileId,
-        pageNumber: 1,
-      });
+    await engineer.post(`/api/packages/${p.id}/markups`).send({
+      fileId: p.fileId,
+      pageNumber: 1,
+      kind: 'cloud',
+      geometry: { x: 100, y: 500, width: 200, height: 80 },
+    });
+    const raised = await engineer.post(`/api/packages/${p.id}/findings`).send({
+      text: 'Show the spotter position on the site plan.',
+      severity: 'major',
+      fileId: p.fileId,
+      pageNumber: 1,
+    });
     expect(raised.status).toBe(201);
     const version = (await engineer.get(`/api/packages/${p.id}`)).body.package.version;
     await engineer

@@ -24,14 +24,15 @@ interface Started {
   output: () => string;
 }
 
-async function start(ports: { http: number; pg: number; redis: number }): Promise<Started> {
+async function start(ports: { http: number; pg: number; redis: number; smtp: number }): Promise<Started> {
   const env: NodeJS.ProcessEnv = { ...process.env };
-  for (const key of ['DATABASE_URL', 'REDIS_URL', 'JWT_SECRET', 'NODE_ENV']) delete env[key];
+  for (const key of ['DATABASE_URL', 'REDIS_URL', 'JWT_SECRET', 'NODE_ENV', 'SMTP_URL']) delete env[key];
   Object.assign(env, {
     DATA_DIR: dataDir,
     PORT: String(ports.http),
     CP_PG_PORT: String(ports.pg),
     CP_REDIS_PORT: String(ports.redis),
+    CP_SMTP_PORT: String(ports.smtp),
     SKIP_CLIENT_BUILD: '1',
     LOG_LEVEL: 'warn',
   });
@@ -84,7 +85,12 @@ async function signInAndCount(port: number): Promise<number> {
 
 describe('the start command', () => {
   it('when started twice on one data folder, then the second run reuses the data and SIGTERM stops everything', async () => {
-    const ports = { http: await freePort(), pg: await freePort(), redis: await freePort() };
+    const ports = {
+      http: await freePort(),
+      pg: await freePort(),
+      redis: await freePort(),
+      smtp: await freePort(),
+    };
     const first = await start(ports);
     expect(first.output()).toContain('demo scenario seeded');
     const health = await fetch(`http://127.0.0.1:${ports.http}/api/health`);

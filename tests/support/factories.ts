@@ -16,8 +16,9 @@ export async function makeOrganisation(
   ds: DataSource,
   kind: 'contractor' | 'owner',
   name = `${kind} ${tag()}`,
+  deskOwnerId: string | null = null,
 ) {
-  return ds.getRepository(Organisation).save({ name, kind });
+  return ds.getRepository(Organisation).save({ name, kind, deskOwnerId });
 }
 
 export async function makeUser(
@@ -54,6 +55,8 @@ export async function makePackage(
     status?: PackageStatus;
     engineer?: User;
     plannedLiftDate?: string;
+    /** The lift data of revision 1; it is submitted (frozen) unless the package is a draft. */
+    inputs?: Record<string, unknown>;
   },
 ) {
   const pkg = await ds.getRepository(LiftPackage).save({
@@ -66,15 +69,23 @@ export async function makePackage(
     plannedLiftDate: opts.plannedLiftDate ?? '2027-03-14',
     assignedEngineerId: opts.engineer?.id ?? null,
   });
-  await ds.getRepository(Revision).save({ packageId: pkg.id, number: 1, state: 'draft', inputs: {} });
+  const submitted = pkg.status !== 'draft';
+  await ds.getRepository(Revision).save({
+    packageId: pkg.id,
+    number: 1,
+    state: submitted ? 'submitted' : 'draft',
+    inputs: opts.inputs ?? {},
+    submittedAt: submitted ? new Date() : null,
+    checkStatus: submitted ? 'queued' : 'none',
+  });
   return pkg;
 }
 
 /** Two contractors, an owner with one site, and a person in every role. */
 export async function makeWorld(ds: DataSource) {
   const owner = await makeOrganisation(ds, 'owner');
-  const contractorA = await makeOrganisation(ds, 'contractor');
-  const contractorB = await makeOrganisation(ds, 'contractor');
+  const contractorA = await makeOrganisation(ds, 'contractor', undefined, owner.id);
+  const contractorB = await makeOrganisation(ds, 'contractor', undefined, owner.id);
   const reviewer = await makeUser(ds, owner, 'reviewer');
   const engineer = await makeUser(ds, owner, 'engineer');
   const admin = await makeUser(ds, owner, 'admin');

@@ -38,14 +38,11 @@ async function submittedRevision(inputs: Record<string, unknown>) {
     site: w.site,
     createdBy: w.plannerA,
     status: 'checking',
+    inputs,
   });
   const revision = await t.ctx.dataSource
     .getRepository(Revision)
     .findOneByOrFail({ packageId: pkg.id, number: 1 });
-  await t.ctx.dataSource.getRepository(Revision).update(revision.id, { inputs: inputs as never });
-  await t.ctx.dataSource
-    .getRepository(Revision)
-    .update(revision.id, { state: 'submitted', checkStatus: 'queued', submittedAt: new Date() });
   return { pkg, revisionId: revision.id };
 }
 

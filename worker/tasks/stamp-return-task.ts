@@ -6,6 +6,7 @@ import type { Redis } from 'ioredis';
 import { appUrl } from '../../server/config';
 import type { AppContext } from '../../server/context';
 import { QUEUE_NAMES, type StampJob } from '../../server/lib/queues';
+import { dispatchMail } from '../../server/modules/mail/service';
 import { buildReturn } from '../../server/modules/returns/service';
 
 export function startStampWorker(ctx: AppContext, connection: Redis, concurrency: number) {
@@ -19,7 +20,8 @@ export function startStampWorker(ctx: AppContext, connection: Redis, concurrency
         appUrl(ctx.config),
         (percent, step) => job.updateProgress({ percent, step }),
       );
-      return outcome;
+      if (!outcome.skipped) await dispatchMail(ctx.queues, outcome.mailIds);
+      return { skipped: outcome.skipped };
     },
     { connection, prefix: ctx.config.REDIS_PREFIX, concurrency, lockDuration: 60_000 },
   );

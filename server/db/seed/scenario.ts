@@ -19,7 +19,8 @@ export async function seedScenario(
       ['Brackwater Lifting Ltd', 'contractor'],
       ['Selsdon & Hale Crane Hire', 'contractor'],
     ] as const) {
-      orgs.set(name, await m.getRepository(Organisation).save({ name, kind }));
+      const deskOwnerId = kind === 'contractor' ? orgs.get('Tamsin Ridge Energy')!.id : null;
+      orgs.set(name, await m.getRepository(Organisation).save({ name, kind, deskOwnerId }));
     }
     const passwordHash = opts.hash(DEMO_PASSWORD);
     const people = new Map<string, User>();

@@ -1,12 +1,39 @@
-// Desk administration (admins only): the organisations, sites and people of the desk.
-// Admins manage their own organisation's sites and the organisations that work on them.
+// Desk administration routes (admins only) and the mail outbox.
 import { Router } from 'express';
 import { z } from 'zod';
+import {
+  InviteBody,
+  OrganisationBody,
+  OrganisationPatch,
+  PersonPatch,
+  PolicyOverridesBody,
+  SiteBody,
+  SitePatch,
+  SiteReviewersBody,
+} from '@shared/schemas/admin';
+import { Role } from '@shared/schemas/common';
+import { appUrl } from '../../config';
 import type { AppContext } from '../../context';
+import { AppError } from '../../lib/app-error';
 import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
-import { Organisation } from '../organisations/organisation.entity';
-import { Site } from '../sites/site.entity';
-import { User } from '../users/user.entity';
+import { valid, validate } from '../../middleware/validate';
+import { dispatchMail } from '../mail/service';
+import { MailMessage } from '../mail/mail.entity';
+import {
+  createOrganisation,
+  createSite,
+  getPolicy,
+  invitePerson,
+  listOrganisations,
+  listPeople,
+  listSites,
+  reinvite,
+  renameOrganisation,
+  setPolicy,
+  setSiteReviewers,
+  updatePerson,
+  updateSite,
+} from './service';
 
 export const OrganisationList = z.object({
   items: z.array(
@@ -18,36 +45,167 @@ export const OrganisationList = z.object({
     }),
   ),
 });
+export const IdParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }) });
+export const PeopleQuery = z.object({
+  organisationId: z.uuid().optional(),
+  role: Role.optional(),
+  state: z.enum(['active', 'invited', 'invite_expired', 'deactivated']).optional(),
+});
+export const MailQuery = z.object({
+  status: z.enum(['queued', 'sent', 'failed']).optional(),
+  page: z.coerce.number().int().min(1).max(10_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200, 'pageSize must be at most 200').default(50),
+});
 
 export function adminRoutes(ctx: AppContext): Router {
   const router = Router();
+  const ds = ctx.dataSource;
+  const inviteOpts = () => ({ appUrl: appUrl(ctx.config), hours: ctx.config.INVITE_HOURS });
   router.use('/admin', requireAuth(ctx.passport), requireRole('admin'));
 
   router.get('/admin/organisations', async (req, res) => {
-    const me = currentUser(req);
-    // The admin's own organisation and every contractor that has a package on its sites.
-    const rows = await ctx.dataSource
-      .getRepository(Organisation)
-      .createQueryBuilder('o')
-      .leftJoin(User, 'u', 'u.organisation_id = o.id')
-      .select(['o.id AS id', 'o.name AS name', 'o.kind AS kind', 'count(u.id)::int AS people'])
-      .where('o.id = :org', { org: me.organisationId })
-      .orWhere(
-        `o.id IN (SELECT lp.contractor_organisation_id FROM lift_packages lp JOIN sites s ON s.id = lp.site_id
-                 WHERE s.owner_organisation_id = :org)`,
-        { org: me.organisationId },
-      )
-      .groupBy('o.id')
-      .orderBy('o.name')
-      .getRawMany();
-    res.json({ items: rows });
+    res.json(await listOrganisations(ds, currentUser(req)));
   });
+  router.post('/admin/organisations', validate({ body: OrganisationBody }), async (req, res) => {
+    res
+      .status(201)
+      .json(await createOrganisation(ds, currentUser(req), valid(req, 'body', OrganisationBody)));
+  });
+  router.patch(
+    '/admin/organisations/:id',
+    validate({ params: IdParams, body: OrganisationPatch }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', IdParams);
+      res.json(
+        await renameOrganisation(ds, currentUser(req), id, valid(req, 'body', OrganisationPatch).name),
+      );
+    },
+  );
 
   router.get('/admin/sites', async (req, res) => {
-    const sites = await ctx.dataSource
-      .getRepository(Site)
-      .find({ where: { ownerOrganisationId: currentUser(req).organisationId }, order: { name: 'ASC' } });
-    res.json({ items: sites.map((s) => ({ id: s.id, name: s.name, code: s.code, timeZone: s.timeZone })) });
+    res.json(await listSites(ds, currentUser(req)));
+  });
+  router.post('/admin/sites', validate({ body: SiteBody }), async (req, res) => {
+    res.status(201).json(await createSite(ds, currentUser(req), valid(req, 'body', SiteBody)));
+  });
+  router.patch('/admin/sites/:id', validate({ params: IdParams, body: SitePatch }), async (req, res) => {
+    const { id } = valid(req, 'params', IdParams);
+    res.json(await updateSite(ds, currentUser(req), id, valid(req, 'body', SitePatch)));
+  });
+  router.put(
+    '/admin/sites/:id/reviewers',
+    validate({ params: IdParams, body: SiteReviewersBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', IdParams);
+      res.json(
+        await setSiteReviewers(ds, currentUser(req), id, valid(req, 'body', SiteReviewersBody).userIds),
+      );
+    },
+  );
+  router.get('/admin/sites/:id/policy', validate({ params: IdParams }), async (req, res) => {
+    res.json(await getPolicy(ds, currentUser(req), valid(req, 'params', IdParams).id));
+  });
+  router.put(
+    '/admin/sites/:id/policy',
+    validate({ params: IdParams, body: PolicyOverridesBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', IdParams);
+      res.json(await setPolicy(ds, currentUser(req), id, valid(req, 'body', PolicyOverridesBody).overrides));
+    },
+  );
+
+  router.get('/admin/people', validate({ query: PeopleQuery }), async (req, res) => {
+    res.json(await listPeople(ds, currentUser(req), valid(req, 'query', PeopleQuery)));
+  });
+  router.post('/admin/people/invite', validate({ body: InviteBody }), async (req, res) => {
+    res
+      .status(201)
+      .json(
+        await invitePerson(ds, ctx.queues, currentUser(req), valid(req, 'body', InviteBody), inviteOpts()),
+      );
+  });
+  router.post('/admin/people/:id/reinvite', validate({ params: IdParams }), async (req, res) => {
+    res.json(
+      await reinvite(ds, ctx.queues, currentUser(req), valid(req, 'params', IdParams).id, inviteOpts()),
+    );
+  });
+  router.patch('/admin/people/:id', validate({ params: IdParams, body: PersonPatch }), async (req, res) => {
+    const { id } = valid(req, 'params', IdParams);
+    res.json(await updatePerson(ds, currentUser(req), id, valid(req, 'body', PersonPatch)));
+  });
+
+  // The outbox: what the desk sent, queued or failed (with the error), and for the embedded
+  // set-up what the local fake SMTP server received. Mail of the admin's desk only.
+  router.get('/admin/mail', validate({ query: MailQuery }), async (req, res) => {
+    const q = valid(req, 'query', MailQuery);
+    const org = currentUser(req).organisationId;
+    const qb = ds
+      .getRepository(MailMessage)
+      .createQueryBuilder('mm')
+      .leftJoin('users', 'u', 'u.id = mm.recipient_id')
+      .leftJoin('organisations', 'o', 'o.id = u.organisation_id')
+      .where('(u.organisation_id = :org OR o.desk_owner_id = :org)', { org })
+      .orderBy('mm.created_at', 'DESC')
+      .skip((q.page - 1) * q.pageSize)
+      .take(q.pageSize);
+    if (q.status) qb.andWhere('mm.status = :status', { status: q.status });
+    const [rows, total] = await qb.getManyAndCount();
+    res.json({
+      total,
+      items: rows.map((m) => ({
+        id: m.id,
+        event: m.event,
+        to: m.toAddress,
+        subject: m.subject,
+        status: m.status,
+        attempts: m.attempts,
+        lastError: m.lastError,
+        packageId: m.packageId,
+        createdAt: m.createdAt.toISOString(),
+        sentAt: m.sentAt?.toISOString() ?? null,
+      })),
+    });
+  });
+
+  router.get('/admin/mail/caught', async (req, res) => {
+    const org = currentUser(req).organisationId;
+    const rows: Array<{
+      id: string;
+      envelope_from: string;
+      envelope_to: string[];
+      subject: string;
+      text_body: string;
+      html_body: string | null;
+      received_at: Date;
+    }> = await ds.query(
+      `SELECT c.* FROM caught_mail c
+         WHERE EXISTS (SELECT 1 FROM users u JOIN organisations o ON o.id = u.organisation_id
+                       WHERE lower(u.email) = ANY (SELECT lower(x) FROM unnest(c.envelope_to) x)
+                         AND (u.organisation_id = $1 OR o.desk_owner_id = $1))
+         ORDER BY c.received_at DESC LIMIT 200`,
+      [org],
+    );
+    res.json({
+      items: rows.map((r) => ({
+        id: r.id,
+        from: r.envelope_from,
+        to: r.envelope_to,
+        subject: r.subject,
+        text: r.text_body,
+        html: r.html_body,
+        receivedAt: new Date(r.received_at).toISOString(),
+      })),
+    });
+  });
+
+  router.post('/admin/mail/:id/retry', validate({ params: IdParams }), async (req, res) => {
+    const { id } = valid(req, 'params', IdParams);
+    const msg = await ds.getRepository(MailMessage).findOneBy({ id, status: 'failed' });
+    if (!msg) throw AppError.notFound('failed message');
+    await ds.getRepository(MailMessage).update(id, { status: 'queued' });
+    await ctx.queues.mail.remove(`mail-${id}`).catch(() => undefined);
+    await dispatchMail(ctx.queues, [id]);
+    res.status(202).json({ id, status: 'queued' });
   });
 
   return router;

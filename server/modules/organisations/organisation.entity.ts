@@ -7,5 +7,7 @@ export class Organisation {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ type: 'varchar', length: 200 }) name: string;
   @Column({ type: 'varchar', length: 20 }) kind: OrganisationKind;
+  /** For a contractor: the owner whose desk it works on (it submits to that owner's sites). */
+  @Column({ type: 'uuid', name: 'desk_owner_id', nullable: true }) deskOwnerId: string | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }

@@ -10,6 +10,9 @@ import { AuditEvent } from '../audit/audit-event.entity';
 import { UploadedFile } from '../files/file.entity';
 import { Site } from '../sites/site.entity';
 import { LiftPackage, Revision } from './package.entity';
+import { dispatchMail, siteReviewers, stageMail, type MailDraft } from '../mail/service';
+import { templates } from '../mail/templates';
+import { User } from '../users/user.entity';
 import { findScopedPackage } from './package-scope';
 
 function requireContractor(user: Express.User) {
@@ -29,8 +32,17 @@ async function audit(
     .save({ packageId, actorId: user.id, organisationId: user.organisationId, action, detail });
 }
 
-async function siteOr400(m: EntityManager, siteId: string) {
-  const site = await m.getRepository(Site).findOneBy({ id: siteId });
+/** A site the contractor may submit to: one of its desk owner's sites (any site when it has none). */
+async function siteOr400(m: EntityManager, siteId: string, user: Express.User) {
+  const [site] = await m
+    .getRepository(Site)
+    .createQueryBuilder('s')
+    .where('s.id = :siteId', { siteId })
+    .andWhere(
+      `s.owner_organisation_id = coalesce((SELECT o.desk_owner_id FROM organisations o WHERE o.id = :org), s.owner_organisation_id)`,
+      { org: user.organisationId },
+    )
+    .getMany();
   if (!site)
     throw AppError.badRequest('siteId: no such site', [
       { path: 'siteId', message: 'siteId must be the id of a site' },
@@ -56,7 +68,7 @@ export async function createPackage(
 ) {
   requireContractor(user);
   return ds.transaction(async (m) => {
-    const site = await siteOr400(m, body.siteId);
+    const site = await siteOr400(m, body.siteId, user);
     const pkg = await m.getRepository(LiftPackage).save({
       reference: await nextReference(m, site),
       title: body.title,
@@ -97,7 +109,7 @@ export async function saveDraft(ds: DataSource, user: Express.User, packageId: s
         `This draft was saved elsewhere at ${revision.updatedAt.toISOString()} after the copy you edited. Reload it, or save again to keep yours.`,
       );
     }
-    if (body.siteId) await siteOr400(m, body.siteId);
+    if (body.siteId) await siteOr400(m, body.siteId, user);
     const packageChanges: { title?: string; siteId?: string; plannedLiftDate?: string | null } = {};
     if (body.title !== undefined) packageChanges.title = body.title;
     if (body.siteId !== undefined && revision.number === 1) packageChanges.siteId = body.siteId;
@@ -125,10 +137,16 @@ export async function duplicatePackage(ds: DataSource, user: Express.User, packa
   );
 }
 
-export async function submitPackage(ds: DataSource, queues: Queues, user: Express.User, packageId: string) {
+export async function submitPackage(
+  ds: DataSource,
+  queues: Queues,
+  user: Express.User,
+  packageId: string,
+  appUrl: string,
+) {
   requireContractor(user);
   const pkg = await findScopedPackage(ds.manager, user, packageId);
-  const revisionId = await ds.transaction(async (m) => {
+  const { revisionId, mailIds } = await ds.transaction(async (m) => {
     const revision = await m
       .getRepository(Revision)
       .createQueryBuilder('r')
@@ -165,9 +183,51 @@ export async function submitPackage(ds: DataSource, queues: Queues, user: Expres
     });
     await m.getRepository(LiftPackage).update(pkg.id, { status: 'checking' });
     await audit(m, user, pkg.id, 'revision.submitted', { revision: revision.number });
-    return revision.id;
+    return {
+      revisionId: revision.id,
+      mailIds: await stageSubmittedMail(m, pkg, revision.number, revision.id, appUrl),
+    };
   });
   await enqueueCheck(queues, revisionId);
+  await dispatchMail(queues, mailIds);
+}
+
+/** Submitted: the site's reviewers; resubmitted: also the engineer who reviewed it. */
+async function stageSubmittedMail(
+  m: EntityManager,
+  pkg: LiftPackage,
+  revision: number,
+  revisionId: string,
+  appUrl: string,
+) {
+  const site = await m.getRepository(Site).findOneByOrFail({ id: pkg.siteId });
+  const ref = {
+    reference: pkg.reference,
+    title: pkg.title,
+    site: site.name,
+    plannedLiftDate: pkg.plannedLiftDate,
+    url: `${appUrl}/packages/${pkg.id}`,
+  };
+  const drafts: MailDraft[] = (await siteReviewers(m, pkg.siteId)).map((r) => ({
+    event: 'submitted',
+    dedupeKey: `submitted:${revisionId}:${r.id}`,
+    packageId: pkg.id,
+    recipient: r,
+    content: templates.submitted(r.name, ref, revision),
+  }));
+  if (revision > 1 && pkg.assignedEngineerId) {
+    const engineer = await m.getRepository(User).findOneBy({ id: pkg.assignedEngineerId, active: true });
+    if (engineer) {
+      drafts.push({
+        event: 'resubmitted',
+        dedupeKey: `resubmitted:${revisionId}:${engineer.id}`,
+        packageId: pkg.id,
+        recipient: engineer,
+        content: templates.resubmitted(engineer.name, ref, revision),
+      });
+    }
+  }
+  return stageMail(m, drafts);
 }
 
 /** Queues a revision's check run; the job id makes a repeat of this call harmless. */

@@ -8,6 +8,7 @@ import {
   SaveDraftBody,
   UploadFileFields,
 } from '@shared/schemas/packages';
+import { appUrl } from '../../config';
 import type { AppContext } from '../../context';
 import { AppError, fromZod } from '../../lib/app-error';
 import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
@@ -73,7 +74,7 @@ export function packageRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      await submitPackage(ds, ctx.queues, currentUser(req), id);
+      await submitPackage(ds, ctx.queues, currentUser(req), id, appUrl(ctx.config));
       res.status(202).json(await packageDetail(ds, id, currentUser(req)));
     },
   );

@@ -9,6 +9,8 @@ import { AppError } from '../../lib/app-error';
 import { QUEUE_NAMES, type Queues } from '../../lib/queues';
 import { sha256, type Storage } from '../../lib/storage';
 import { AuditEvent } from '../audit/audit-event.entity';
+import { stageMail } from '../mail/service';
+import { templates } from '../mail/templates';
 import { UploadedFile } from '../files/file.entity';
 import { Organisation } from '../organisations/organisation.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
@@ -194,7 +196,7 @@ export async function buildReturn(
   await storage.put(storageKey, pdf);
   const { PDFDocument } = await import('pdf-lib');
   const pages = (await PDFDocument.load(pdf, { updateMetadata: false })).getPageCount();
-  await ds.transaction(async (m) => {
+  const mailIds = await ds.transaction(async (m) => {
     const updated = await m
       .createQueryBuilder()
       .update(StampedReturn)
@@ -209,7 +211,7 @@ export async function buildReturn(
       })
       .where('id = :id AND state <> :ready', { id: ret.id, ready: 'ready' })
       .execute();
-    if (!updated.affected) return;
+    if (!updated.affected) return [];
     await m.getRepository(LiftPackage).update(pkg.id, { status: 'returned' });
     await m.getRepository(AuditEvent).save({
       packageId: pkg.id,
@@ -217,9 +219,37 @@ export async function buildReturn(
       action: 'return.issued',
       detail: { decision: DECISION_LABELS[decision.decision], revision: revision.number, pages },
     });
+    // The decision goes to the person who submitted the revision.
+    const submitter = revision.submittedById
+      ? await m.getRepository(User).findOneBy({ id: revision.submittedById })
+      : null;
+    if (!submitter?.active) return [];
+    const url = `${appUrl}/packages/${pkg.id}`;
+    return stageMail(m, [
+      {
+        event: 'returned',
+        dedupeKey: `returned:${ret.id}`,
+        packageId: pkg.id,
+        recipient: submitter,
+        content: templates.returned(
+          submitter.name,
+          {
+            reference: pkg.reference,
+            title: pkg.title,
+            site: site.name,
+            plannedLiftDate: pkg.plannedLiftDate,
+            url,
+          },
+          revision.number,
+          decision.decision,
+          decision.conditions,
+          `${appUrl}/api/packages/${pkg.id}/returns/${ret.id}/file`,
+        ),
+      },
+    ]);
   });
   await progress(100, 'done');
-  return { skipped: false as const, pages };
+  return { skipped: false as const, pages, mailIds };
 }
 
 export const STAMP_QUEUE = QUEUE_NAMES.stamp;

@@ -10,6 +10,7 @@ import {
   FindingUpdateBody,
   MarkupBody,
 } from '@shared/schemas/reviews';
+import { appUrl } from '../../config';
 import type { AppContext } from '../../context';
 import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
@@ -58,7 +59,16 @@ export function reviewRoutes(ctx: AppContext): Router {
     validate({ body: AssignBody }),
     async (req, res) => {
       const body = valid(req, 'body', AssignBody);
-      res.json(await assignEngineer(ds, currentUser(req), body.packageIds, body.engineerId));
+      res.json(
+        await assignEngineer(
+          ds,
+          ctx.queues,
+          currentUser(req),
+          body.packageIds,
+          body.engineerId,
+          appUrl(ctx.config),
+        ),
+      );
     },
   );
 

@@ -11,7 +11,11 @@ import type {
   DecisionBody,
 } from '@shared/schemas/reviews';
 import { AppError } from '../../lib/app-error';
+import type { Queues } from '../../lib/queues';
 import { AuditEvent } from '../audit/audit-event.entity';
+import { dispatchMail, stageMail, type MailDraft } from '../mail/service';
+import { templates } from '../mail/templates';
+import { Site } from '../sites/site.entity';
 import { UploadedFile } from '../files/file.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage, scopedPackages } from '../packages/package-scope';
@@ -76,9 +80,11 @@ const ASSIGNABLE = ['ready_for_review', 'with_engineer', 'checking', 'check_fail
 
 export async function assignEngineer(
   ds: DataSource,
+  queues: Queues,
   user: Express.User,
   packageIds: string[],
   engineerId: string,
+  appUrl: string,
 ) {
   if (user.role !== 'reviewer') throw AppError.forbidden('Only a reviewer assigns engineers.');
   const engineer = await ds
@@ -88,7 +94,8 @@ export async function assignEngineer(
     throw AppError.badRequest('engineerId: no such engineer in your organisation', [
       { path: 'engineerId', message: 'engineerId must be an active engineer of your organisation' },
     ]);
-  return ds.transaction(async (m) => {
+  const outcome = await ds.transaction(async (m) => {
+    const mail: MailDraft[] = [];
     const packages = await scopedPackages(m, user)
       .andWhere('p.id IN (:...ids)', { ids: packageIds })
       .getMany();
@@ -108,9 +115,27 @@ export async function assignEngineer(
       await m
         .getRepository(Assignment)
         .update({ packageId: pkg.id, endedAt: IsNull() }, { endedAt: new Date() });
-      await m
+      const assignment = await m
         .getRepository(Assignment)
         .save({ packageId: pkg.id, engineerId: engineer.id, assignedById: user.id });
+      const site = await m.getRepository(Site).findOneByOrFail({ id: pkg.siteId });
+      mail.push({
+        event: 'assigned',
+        dedupeKey: `assigned:${assignment.id}`,
+        packageId: pkg.id,
+        recipient: engineer,
+        content: templates.assigned(
+          engineer.name,
+          {
+            reference: pkg.reference,
+            title: pkg.title,
+            site: site.name,
+            plannedLiftDate: pkg.plannedLiftDate,
+            url: `${appUrl}/packages/${pkg.id}`,
+          },
+          user.name,
+        ),
+      });
       await m.getRepository(LiftPackage).update(pkg.id, {
         assignedEngineerId: engineer.id,
         status: pkg.status === 'ready_for_review' ? 'with_engineer' : pkg.status,
@@ -121,10 +146,15 @@ export async function assignEngineer(
       });
     }
     return {
-      assigned: packages.length,
-      engineer: { id: engineer.id, name: engineer.name, email: engineer.email },
+      mailIds: await stageMail(m, mail),
+      result: {
+        assigned: packages.length,
+        engineer: { id: engineer.id, name: engineer.name, email: engineer.email },
+      },
     };
   });
+  await dispatchMail(queues, outcome.mailIds);
+  return outcome.result;
 }
 
 // ---- markups ----------------------------------------------------------------------------

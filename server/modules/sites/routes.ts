@@ -14,9 +14,15 @@ export function siteRoutes(ctx: AppContext): Router {
       .createQueryBuilder('s')
       .leftJoinAndSelect('s.owner', 'o')
       .orderBy('s.name');
-    if (user.role === 'reviewer') {
+    if (user.role === 'contractor') {
+      // A contractor submits to the sites of the desk it was added to (any site when it was not).
+      qb.where(
+        `s.owner_organisation_id = coalesce((SELECT o.desk_owner_id FROM organisations o WHERE o.id = :org), s.owner_organisation_id)`,
+        { org: user.organisationId },
+      );
+    } else if (user.role === 'reviewer') {
       qb.where('s.id IN (SELECT sm.site_id FROM site_members sm WHERE sm.user_id = :u)', { u: user.id });
-    } else if (user.role !== 'contractor') {
+    } else {
       qb.where('s.owner_organisation_id = :org', { org: user.organisationId });
     }
     const sites = await qb.getMany();

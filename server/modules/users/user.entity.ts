@@ -26,6 +26,10 @@ export class User {
     string | null;
   @Column({ type: 'boolean', default: true }) active: boolean;
   @Column({ type: 'int', name: 'token_version', default: 0 }) tokenVersion: number;
+  @Column({ type: 'boolean', name: 'notify_reminders', default: true }) notifyReminders: boolean;
+  @Column({ type: 'char', length: 64, name: 'invite_token_hash', nullable: true }) inviteTokenHash:
+    string | null;
+  @Column({ type: 'timestamptz', name: 'invite_expires_at', nullable: true }) inviteExpiresAt: Date | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' }) updatedAt: Date;
 }

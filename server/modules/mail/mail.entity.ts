@@ -1,0 +1,36 @@
+// Mail the desk sends (one row per recipient and event, deduplicated by key) and, for the
+// embedded set-up, what the local fake SMTP server received.
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
+
+export type MailEvent = 'submitted' | 'assigned' | 'returned' | 'resubmitted' | 'reminder' | 'invite';
+
+@Entity({ name: 'mail_messages' })
+export class MailMessage {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ type: 'varchar', length: 40 }) event: MailEvent;
+  @Column({ type: 'varchar', length: 200, name: 'dedupe_key' }) dedupeKey: string;
+  @Column({ type: 'uuid', name: 'package_id', nullable: true }) packageId: string | null;
+  @Column({ type: 'uuid', name: 'recipient_id', nullable: true }) recipientId: string | null;
+  @Column({ type: 'varchar', length: 254, name: 'to_address' }) toAddress: string;
+  @Column({ type: 'varchar', length: 300 }) subject: string;
+  @Column({ type: 'text', name: 'text_body' }) textBody: string;
+  @Column({ type: 'text', name: 'html_body' }) htmlBody: string;
+  @Column({ type: 'varchar', length: 20, default: 'queued' }) status: 'queued' | 'sent' | 'failed';
+  @Column({ type: 'int', default: 0 }) attempts: number;
+  @Column({ type: 'varchar', length: 1000, name: 'last_error', nullable: true }) lastError: string | null;
+  @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
+  @Column({ type: 'timestamptz', name: 'sent_at', nullable: true }) sentAt: Date | null;
+}
+
+@Entity({ name: 'caught_mail' })
+export class CaughtMail {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ type: 'varchar', length: 300, name: 'message_id', nullable: true }) messageId: string | null;
+  @Column({ type: 'varchar', length: 300, name: 'envelope_from' }) envelopeFrom: string;
+  @Column({ type: 'text', array: true, name: 'envelope_to' }) envelopeTo: string[];
+  @Column({ type: 'varchar', length: 300, default: '' }) subject: string;
+  @Column({ type: 'text', name: 'text_body', default: '' }) textBody: string;
+  @Column({ type: 'text', name: 'html_body', nullable: true }) htmlBody: string | null;
+  @Column({ type: 'int', name: 'raw_size' }) rawSize: number;
+  @CreateDateColumn({ type: 'timestamptz', name: 'received_at' }) receivedAt: Date;
+}

@@ -1,0 +1,70 @@
+// Mail goes through the queue, so a slow or failing mail server never slows a request
+// or loses a message: a row per recipient is written in the same transaction as the
+// change it reports (deduplicated by key), then a job per row sends it with retries.
+import type { DataSource, EntityManager } from 'typeorm';
+import { In } from 'typeorm';
+import type { Queues } from '../../lib/queues';
+import { User } from '../users/user.entity';
+import type { MailEvent } from './mail.entity';
+import type { Rendered } from './templates';
+
+export interface MailDraft {
+  event: MailEvent;
+  dedupeKey: string;
+  packageId: string | null;
+  recipient: Pick<User, 'id' | 'email'>;
+  content: Rendered;
+}
+
+/** Writes the messages (skipping ones already written) and returns the ids to send. */
+export async function stageMail(m: EntityManager, drafts: MailDraft[]): Promise<string[]> {
+  const ids: string[] = [];
+  for (const d of drafts) {
+    const rows: Array<{ id: string }> = await m.query(
+      `INSERT INTO mail_messages (event, dedupe_key, package_id, recipient_id, to_address, subject, text_body, html_body)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8) ON CONFLICT (dedupe_key) DO NOTHING RETURNING id`,
+      [
+        d.event,
+        d.dedupeKey,
+        d.packageId,
+        d.recipient.id,
+        d.recipient.email,
+        d.content.subject.slice(0, 300),
+        d.content.text,
+        d.content.html,
+      ],
+    );
+    if (rows[0]) ids.push(rows[0].id);
+  }
+  return ids;
+}
+
+/** Queues a send job per message; the job id derived from the message makes a repeat harmless. */
+export async function dispatchMail(queues: Queues, ids: string[]) {
+  for (const id of ids) await queues.mail.add('send', { messageId: id }, { jobId: `mail-${id}` });
+}
+
+/** Messages left queued (the process stopped between commit and queueing): queue them again. */
+export async function requeueWaitingMail(ds: DataSource, queues: Queues, olderThanMs = 30_000) {
+  const rows: Array<{ id: string }> = await ds.query(
+    `SELECT id FROM mail_messages WHERE status = 'queued' AND created_at < now() - make_interval(secs => $1)`,
+    [olderThanMs / 1000],
+  );
+  await dispatchMail(
+    queues,
+    rows.map((r) => r.id),
+  );
+  return rows.length;
+}
+
+/** Active people of a site who review it. */
+export async function siteReviewers(m: EntityManager, siteId: string): Promise<User[]> {
+  const rows: Array<{ user_id: string }> = await m.query(
+    `SELECT user_id FROM site_members WHERE site_id = $1`,
+    [siteId],
+  );
+  if (!rows.length) return [];
+  return m
+    .getRepository(User)
+    .find({ where: { id: In(rows.map((r) => r.user_id)), active: true, role: 'reviewer' } });
+}

@@ -1,0 +1,132 @@
+// Desk administration payloads: organisations, sites and their reviewers, people and
+// invitations, review policies, the mail outbox, and each person's profile.
+import { z } from 'zod';
+import { OrganisationKind, Role, UnitSystem } from './common';
+
+const name = (field: string) =>
+  z
+    .string()
+    .trim()
+    .min(2, `${field} must be at least 2 characters`)
+    .max(200, `${field} must be at most 200 characters`);
+
+export const OrganisationBody = z.object({ name: name('name'), kind: OrganisationKind });
+export const OrganisationPatch = z.object({ name: name('name') });
+
+export const SiteBody = z.object({
+  name: name('name'),
+  code: z
+    .string()
+    .trim()
+    .regex(
+      /^[A-Z0-9]{2,8}$/,
+      'code must be 2 to 8 capital letters or digits (it starts every package reference)',
+    ),
+  address: z.string().trim().max(300, 'address must be at most 300 characters').default(''),
+  timeZone: z
+    .string()
+    .max(60)
+    .refine((tz) => {
+      try {
+        new Intl.DateTimeFormat('en-GB', { timeZone: tz });
+        return true;
+      } catch {
+        return false;
+      }
+    }, 'timeZone must be an IANA time zone such as Europe/London')
+    .default('UTC'),
+});
+export const SitePatch = SiteBody.partial();
+export const SiteReviewersBody = z.object({
+  userIds: z.array(z.uuid()).max(50, 'userIds must list at most 50 people'),
+});
+
+export const AdminSite = z.object({
+  id: z.uuid(),
+  name: z.string(),
+  code: z.string(),
+  address: z.string(),
+  timeZone: z.string(),
+  policyVersion: z.number().int(),
+  reviewers: z.array(z.object({ id: z.uuid(), name: z.string(), email: z.string() })),
+});
+
+export const Person = z.object({
+  id: z.uuid(),
+  email: z.string(),
+  name: z.string(),
+  role: Role,
+  organisation: z.object({ id: z.uuid(), name: z.string(), kind: OrganisationKind }),
+  active: z.boolean(),
+  /** invited: the person has not set a password yet; expired: the link ran out. */
+  state: z.enum(['active', 'invited', 'invite_expired', 'deactivated']),
+  createdAt: z.string(),
+});
+export type Person = z.infer<typeof Person>;
+
+export const InviteBody = z.object({
+  email: z.email({ message: 'email must be a valid e-mail address' }).max(254),
+  name: name('name'),
+  role: Role,
+  organisationId: z.uuid({ message: 'organisationId must be the id of an organisation' }),
+});
+export const PersonPatch = z.object({ role: Role.optional(), active: z.boolean().optional() });
+
+export const InviteInfo = z.object({
+  email: z.string(),
+  name: z.string(),
+  organisation: z.string(),
+  expiresAt: z.string(),
+});
+export const AcceptInviteBody = z.object({
+  password: z
+    .string()
+    .min(10, 'password must be at least 10 characters')
+    .max(200, 'password must be at most 200 characters'),
+});
+
+/** A site's policy overrides: any subset of the engine's policy; an absent key takes the default. */
+export const PolicyOverridesBody = z.object({ overrides: z.record(z.string(), z.unknown()) });
+
+export const ProfilePatch = z.object({
+  name: name('name').optional(),
+  unitSystem: UnitSystem.optional(),
+  notifyReminders: z.boolean().optional(),
+});
+export const PasswordChangeBody = z.object({
+  currentPassword: z.string().min(1, 'currentPassword is required').max(200),
+  newPassword: z
+    .string()
+    .min(10, 'newPassword must be at least 10 characters')
+    .max(200, 'newPassword must be at most 200 characters'),
+});
+
+export const MAIL_EVENTS = [
+  'submitted',
+  'assigned',
+  'returned',
+  'resubmitted',
+  'reminder',
+  'invite',
+] as const;
+export const MailMessage = z.object({
+  id: z.uuid(),
+  event: z.enum(MAIL_EVENTS),
+  to: z.string(),
+  subject: z.string(),
+  status: z.enum(['queued', 'sent', 'failed']),
+  attempts: z.number().int(),
+  lastError: z.string().nullable(),
+  packageId: z.uuid().nullable(),
+  createdAt: z.string(),
+  sentAt: z.string().nullable(),
+});
+export const CaughtMail = z.object({
+  id: z.uuid(),
+  from: z.string(),
+  to: z.array(z.string()),
+  subject: z.string(),
+  text: z.string(),
+  html: z.string().nullable(),
+  receivedAt: z.string(),
+});

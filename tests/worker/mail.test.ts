@@ -1,0 +1,240 @@
+// Mail at every hand-off, sent through the queue to a real SMTP conversation with the
+// local fake SMTP server, against the real Redis and PostgreSQL.
+import fs from 'node:fs';
+import type { Worker } from 'bullmq';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { appUrl } from '@server/config';
+import { startMailCatcher } from '@server/lib/mail-catcher';
+import { createRedis } from '@server/lib/redis';
+import { runCheck } from '@server/modules/check-runs/service';
+import { MailMessage } from '@server/modules/mail/mail.entity';
+import { stageReminders } from '@server/modules/mail/reminders';
+import { stageMail } from '@server/modules/mail/service';
+import { templates } from '@server/modules/mail/templates';
+import { buildReturn } from '@server/modules/returns/service';
+import { User } from '@server/modules/users/user.entity';
+import { startMailWorker } from '../../worker/tasks/mail-task';
+import { startTestApp, signedIn, type TestApp } from '../support/app';
+import { makePackage, makeUser, makeWorld } from '../support/factories';
+import { makePdf } from '../support/pdfs';
+
+const example = JSON.parse(fs.readFileSync('shared/engineering/examples/pass-outriggers.json', 'utf8'));
+
+let t: TestApp;
+let catcher: Awaited<ReturnType<typeof startMailCatcher>>;
+let worker: Worker;
+const connection = createRedis(process.env.REDIS_URL!, { forWorker: true });
+
+beforeAll(async () => {
+  t = await startTestApp();
+  catcher = await startMailCatcher(t.ctx.dataSource, { port: 0 });
+  worker = startMailWorker(t.ctx, connection, catcher.url);
+});
+afterAll(async () => {
+  await worker.close();
+  await catcher.close();
+  connection.disconnect();
+  await t.close();
+});
+
+async function until<T>(fn: () => Promise<T | null | undefined | false>, ms = 20_000): Promise<T> {
+  const end = Date.now() + ms;
+  while (Date.now() < end) {
+    const v = await fn();
+    if (v) return v;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`condition not met within ${ms} ms`);
+}
+
+async function caughtFor(
+  email: string,
+): Promise<Array<{ subject: string; text_body: string; html_body: string }>> {
+  return t.ctx.dataSource.query(
+    `SELECT * FROM caught_mail WHERE $1 = ANY(envelope_to) ORDER BY received_at`,
+    [email],
+  );
+}
+
+describe('hand-off mail', () => {
+  it('when a package goes from submission to return, then each hand-off reaches the right people and no one else', async () => {
+    const w = await makeWorld(t.ctx.dataSource);
+    const other = await makeWorld(t.ctx.dataSource);
+    const contractor = await signedIn(t.app, w.plannerA.email);
+    const reviewer = await signedIn(t.app, w.reviewer.email);
+    const engineer = await signedIn(t.app, w.engineer.email);
+    const created = await contractor
+      .post('/api/packages')
+      .send({ title: 'Set the clarifier drive', siteId: w.site.id });
+    const id = created.body.package.id;
+    const reference = created.body.package.reference;
+    await contractor.put(`/api/packages/${id}/draft`).send({ inputs: example });
+    await contractor
+      .post(`/api/packages/${id}/files`)
+      .field('kind', 'lift_plan')
+      .attach('file', Buffer.from(await makePdf()), 'plan.pdf');
+    const sub = await contractor.post(`/api/packages/${id}/submit`);
+    await runCheck(t.ctx.dataSource, sub.body.current.id);
+
+    const submitted = await until(async () => (await caughtFor(w.reviewer.email))[0]);
+    expect(submitted.subject).toContain(`${reference} rev 1 submitted`);
+    expect(submitted.text_body).toContain(`${appUrl(t.ctx.config)}/packages/${id}`);
+    expect(submitted.html_body).toContain('<a href=');
+    expect(submitted.text_body).not.toMatch(/password|secret|token/i);
+
+    await reviewer.post('/api/assignments').send({ packageIds: [id], engineerId: w.engineer.id });
+    const assigned = await until(async () => (await caughtFor(w.engineer.email))[0]);
+    expect(assigned.subject).toContain(`${reference} assigned to you`);
+
+    const version = (await engineer.get(`/api/packages/${id}`)).body.package.version;
+    await engineer
+      .post(`/api/packages/${id}/decision`)
+      .send({ decision: 'accepted_as_noted', conditions: 'Level the mats first.', baseVersion: version });
+    const issued = await reviewer.post(`/api/packages/${id}/returns`);
+    const built = await buildReturn(t.ctx.dataSource, t.ctx.storage, issued.body.id, appUrl(t.ctx.config));
+    expect(built.skipped).toBe(false);
+    if (!built.skipped) {
+      const { dispatchMail } = await import('@server/modules/mail/service');
+      await dispatchMail(t.ctx.queues, built.mailIds);
+    }
+    const returned = await until(async () => (await caughtFor(w.plannerA.email))[0]);
+    expect(returned.subject).toContain(`${reference} rev 1: Accepted as noted`);
+    expect(returned.text_body).toContain('Conditions: Level the mats first.');
+    expect(returned.text_body).toContain(`/api/packages/${id}/returns/${issued.body.id}/file`);
+
+    for (const outsider of [w.plannerB, other.reviewer, other.engineer, other.plannerA]) {
+      expect(await caughtFor(outsider.email)).toEqual([]);
+    }
+  }, 60_000);
+});
+
+describe('delivery', () => {
+  it('when the SMTP server fails twice, then the message is retried and arrives exactly once', async () => {
+    const flaky = await startMailCatcher(t.ctx.dataSource, { port: 0, failFirst: 2 });
+    const flakyWorker = startMailWorker(
+      { ...t.ctx, config: { ...t.ctx.config, REDIS_PREFIX: `${t.ctx.config.REDIS_PREFIX}-flaky` } },
+      connection,
+      flaky.url,
+    );
+    const { createQueues } = await import('@server/lib/queues');
+    const queues = createQueues(connection, `${t.ctx.config.REDIS_PREFIX}-flaky`);
+    try {
+      const w = await makeWorld(t.ctx.dataSource);
+      const [id] = await t.ctx.dataSource.transaction((m) =>
+        stageMail(m, [
+          {
+            event: 'assigned',
+            dedupeKey: `test:${w.engineer.id}`,
+            packageId: null,
+            recipient: w.engineer,
+            content: templates.invite('X', 'Y', 'Z', 'http://x', 'soon'),
+          },
+        ]),
+      );
+      await queues.mail.add(
+        'send',
+        { messageId: id },
+        { jobId: `mail-${id}`, attempts: 4, backoff: { type: 'fixed', delay: 200 } },
+      );
+      const sent = await until(async () => {
+        const m = await t.ctx.dataSource.getRepository(MailMessage).findOneBy({ id });
+        return m?.status === 'sent' ? m : null;
+      });
+      expect(sent.attempts).toBe(3);
+      await new Promise((r) => setTimeout(r, 500));
+      expect(await caughtFor(w.engineer.email)).toHaveLength(1);
+    } finally {
+      await flakyWorker.close();
+      await queues.close();
+      await flaky.close();
+    }
+  }, 30_000);
+
+  it('when every attempt fails, then the message is marked failed with the error for admins', async () => {
+    const prefix = `${t.ctx.config.REDIS_PREFIX}-down`;
+    const downWorker = startMailWorker(
+      { ...t.ctx, config: { ...t.ctx.config, REDIS_PREFIX: prefix } },
+      connection,
+      'smtp://127.0.0.1:1',
+    );
+    const { createQueues } = await import('@server/lib/queues');
+    const queues = createQueues(connection, prefix);
+    try {
+      const w = await makeWorld(t.ctx.dataSource);
+      const [id] = await t.ctx.dataSource.transaction((m) =>
+        stageMail(m, [
+          {
+            event: 'assigned',
+            dedupeKey: `down:${w.engineer.id}`,
+            packageId: null,
+            recipient: w.engineer,
+            content: templates.invite('X', 'Y', 'Z', 'http://x', 'soon'),
+          },
+        ]),
+      );
+      await queues.mail.add(
+        'send',
+        { messageId: id },
+        { jobId: `mail-${id}`, attempts: 2, backoff: { type: 'fixed', delay: 100 } },
+      );
+      const failed = await until(async () => {
+        const m = await t.ctx.dataSource.getRepository(MailMessage).findOneBy({ id });
+        return m?.status === 'failed' ? m : null;
+      });
+      expect(failed.attempts).toBe(2);
+      expect(failed.lastError).toMatch(/ECONNREFUSED|connect/i);
+    } finally {
+      await downWorker.close();
+      await queues.close();
+    }
+  }, 30_000);
+});
+
+describe('daily reminders', () => {
+  it('when lift dates sit around the window edge, then only packages within N days and not accepted are reminded, once', async () => {
+    const w = await makeWorld(t.ctx.dataSource);
+    const quiet = await makeUser(t.ctx.dataSource, w.contractorA, 'contractor', { notifyReminders: false });
+    const day = (offset: number) =>
+      new Date(Date.parse('2031-06-10T00:00:00Z') + offset * 86_400_000).toISOString().slice(0, 10);
+    const at = (offset: number, extra: Partial<Parameters<typeof makePackage>[1]> = {}) =>
+      makePackage(t.ctx.dataSource, {
+        contractor: w.contractorA,
+        site: w.site,
+        createdBy: w.plannerA,
+        plannedLiftDate: day(offset),
+        ...extra,
+      });
+    const today = await at(0);
+    const edge = await at(3);
+    await at(4);
+    await at(-1);
+    const accepted = await at(1, { status: 'returned' });
+    await t.ctx.dataSource.query(`UPDATE lift_packages SET decision = 'accepted' WHERE id = $1`, [
+      accepted.id,
+    ]);
+    const quietOnes = await makePackage(t.ctx.dataSource, {
+      contractor: w.contractorA,
+      site: w.site,
+      createdBy: quiet,
+      plannedLiftDate: day(2),
+    });
+
+    const ids = await stageReminders(t.ctx.dataSource, day(0), 3, 'http://desk.test');
+    const rows = await t.ctx.dataSource.getRepository(MailMessage).findBy(ids.map((id) => ({ id })));
+    const byPackage = (pid: string) =>
+      rows
+        .filter((r) => r.packageId === pid)
+        .map((r) => r.toAddress)
+        .sort();
+    expect(byPackage(today.id)).toEqual([w.plannerA.email, w.reviewer.email].sort());
+    expect(byPackage(edge.id)).toEqual([w.plannerA.email, w.reviewer.email].sort());
+    expect(byPackage(accepted.id)).toEqual([]);
+    expect(byPackage(quietOnes.id)).toEqual([w.reviewer.email]);
+    expect(new Set(rows.map((r) => r.packageId))).toEqual(new Set([today.id, edge.id, quietOnes.id]));
+    expect(rows.find((r) => r.packageId === today.id)!.subject).toContain('lifts today');
+    expect(await stageReminders(t.ctx.dataSource, day(0), 3, 'http://desk.test')).toEqual([]);
+    expect((await stageReminders(t.ctx.dataSource, day(1), 3, 'http://desk.test')).length).toBeGreaterThan(0);
+    const user = await t.ctx.dataSource.getRepository(User).findOneByOrFail({ id: quiet.id });
+    expect(user.notifyReminders).toBe(false);
+  });
+});
