@@ -5,12 +5,10 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { OrganisationBody, OrganisationPatch } from '@shared/schemas/admin';
-import { ORGANISATION_KINDS } from '@shared/schemas/common';
 import { isApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
-import { FormAlert, FormField, inputClasses, selectClasses } from '@/components/ui/form-field';
+import { FormAlert, FormField, inputClasses } from '@/components/ui/form-field';
 import { useCreateOrganisation, useRenameOrganisation, type AdminOrganisation } from '../api/organisations';
-import { ORGANISATION_KIND_LABELS } from '../lib/labels';
 
 type NewOrganisation = z.input<typeof OrganisationBody>;
 
@@ -32,18 +30,19 @@ export function NewOrganisationForm() {
       onSuccess: () => reset({ name: '', kind: values.kind }),
       onError: (error) => {
         if (!isApiError(error)) return;
-        for (const field of error.fields) {
-          if (field.path === 'name' || field.path === 'kind')
-            setError(field.path, { message: field.message });
-        }
-        if (error.status === 409) setError('name', { message: error.message });
+        // The kind is fixed here; any other refusal is the form's message below.
+        const name = error.fields.find((field) => field.path === 'name');
+        if (name) setError('name', { message: name.message });
+        else if (error.status === 409) setError('name', { message: error.message });
       },
     }),
   );
 
   const failure = create.error;
   const alert =
-    failure && (!isApiError(failure) || (failure.fields.length === 0 && failure.status !== 409))
+    failure &&
+    (!isApiError(failure) ||
+      (failure.status !== 409 && !failure.fields.some((field) => field.path === 'name')))
       ? failure.message
       : null;
 
@@ -51,26 +50,23 @@ export function NewOrganisationForm() {
     <form
       onSubmit={onSubmit}
       noValidate
-      aria-label="Add an organisation"
+      aria-label="Add a lifting contractor"
       className="flex flex-col gap-3 border border-rule bg-sheet px-4 py-3"
     >
-      <h2 className="text-base font-bold">Add an organisation</h2>
+      <div>
+        <h2 className="text-base font-bold">Add a lifting contractor</h2>
+        <p className="text-[13px] text-ink-soft">
+          Your own organisation is the site owner. Add each contractor that submits lift packages to your
+          sites, then invite its lift planners.
+        </p>
+      </div>
       {alert && <FormAlert>{alert}</FormAlert>}
       <div className="flex flex-wrap items-start gap-3">
         <FormField id="org-name" label="Name" error={errors.name?.message} className="min-w-[260px] flex-1">
           <input type="text" autoComplete="organization" className={inputClasses} {...register('name')} />
         </FormField>
-        <FormField id="org-kind" label="Kind" error={errors.kind?.message} className="w-[200px]">
-          <select className={selectClasses} {...register('kind')}>
-            {ORGANISATION_KINDS.map((kind) => (
-              <option key={kind} value={kind}>
-                {ORGANISATION_KIND_LABELS[kind]}
-              </option>
-            ))}
-          </select>
-        </FormField>
         <Button type="submit" variant="primary" disabled={create.isPending} className="mt-[23px]">
-          {create.isPending ? 'Adding…' : 'Add organisation'}
+          {create.isPending ? 'Adding…' : 'Add contractor'}
         </Button>
       </div>
       {create.isSuccess && (
