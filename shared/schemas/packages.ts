@@ -151,6 +151,10 @@ export const RevisionDetail = z.object({
   /** The engine's LiftResult (see shared/engineering/types.ts) once the check has run. */
   results: z.record(z.string(), z.unknown()).nullable(),
   files: z.array(FileSummary),
+  /** Stated figures the engineer accepted despite a discrepancy, with the reason. */
+  acceptedFigures: z.array(
+    z.object({ figure: z.string(), reason: z.string(), engineer: z.string(), at: z.string() }),
+  ),
 });
 export type RevisionDetail = z.infer<typeof RevisionDetail>;
 
@@ -166,6 +170,16 @@ export const PackageDetail = z.object({
     }),
   ),
   current: RevisionDetail,
+  /** The latest decision on the package (any revision), with its conditions. */
+  decision: z
+    .object({
+      decision: Decision,
+      conditions: z.string(),
+      engineer: z.string(),
+      revisionNumber: z.number().int(),
+      at: z.string(),
+    })
+    .nullable(),
   /** The site's review policy as the check run applies it (defaults with the site's overrides). */
   sitePolicy: z.record(z.string(), z.unknown()),
   events: z.array(

@@ -35,11 +35,13 @@ export function makeDetail(
     check: { status: 'none', progress: 0, error: null, resultVersion: null, checkedAt: null },
     results: null,
     files: [],
+    acceptedFigures: [],
     ...options.current,
   };
   return {
     package: pkg,
     sitePolicy: {},
+    decision: null,
     revisions: [
       {
         id: current.id,

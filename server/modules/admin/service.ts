@@ -343,16 +343,14 @@ export async function invitePerson(
       { path: 'email', message: 'email already has an account' },
     ]);
   const { user, mailIds } = await ds.transaction(async (m) => {
-    const u = await m
-      .getRepository(User)
-      .save({
-        organisationId: org.id,
-        email: body.email,
-        name: body.name,
-        role: body.role,
-        passwordHash: null,
-        unitSystem: 'metric',
-      });
+    const u = await m.getRepository(User).save({
+      organisationId: org.id,
+      email: body.email,
+      name: body.name,
+      role: body.role,
+      passwordHash: null,
+      unitSystem: 'metric',
+    });
     const ids = await issueInvite(m, admin, u, org, opts.appUrl, opts.hours);
     await audit(m, admin, 'person.invited', { email: u.email, role: u.role, organisation: org.name });
     return { user: u, mailIds: ids };
@@ -445,15 +443,13 @@ export async function acceptInvite(ds: DataSource, token: string, passwordHash: 
     await m
       .getRepository(User)
       .update(user.id, { passwordHash, inviteTokenHash: null, inviteExpiresAt: null });
-    await m
-      .getRepository(AuditEvent)
-      .save({
-        packageId: null,
-        organisationId: user.organisationId,
-        actorId: user.id,
-        action: 'person.joined',
-        detail: { email: user.email },
-      });
+    await m.getRepository(AuditEvent).save({
+      packageId: null,
+      organisationId: user.organisationId,
+      actorId: user.id,
+      action: 'person.joined',
+      detail: { email: user.email },
+    });
   });
   return user;
 }

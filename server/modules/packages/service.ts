@@ -120,6 +120,12 @@ export async function revisionDetail(dataSource: DataSource, revision: Revision)
     },
     results: revision.results,
     files: files.map(toFileSummary),
+    acceptedFigures: (revision.acceptedFigures ?? []).map((a) => ({
+      figure: a.figure,
+      reason: a.reason,
+      engineer: a.engineer,
+      at: a.at,
+    })),
   };
 }
 
@@ -179,6 +185,7 @@ export async function packageDetail(
     })),
     current: await revisionDetail(dataSource, current),
     sitePolicy: sitePolicy(full.site!),
+    decision: await decisionSummary(dataSource, full.id),
     events: events.map((e) => ({ ...e, at: new Date(e.at).toISOString() })),
   };
 }
@@ -198,4 +205,21 @@ export async function getRevision(dataSource: DataSource, user: Express.User, id
   if (!revision) throw AppError.notFound('revision');
   if (revision.state === 'draft' && user.role !== 'contractor') throw AppError.notFound('revision');
   return revisionDetail(dataSource, revision);
+}
+
+async function decisionSummary(dataSource: DataSource, packageId: string) {
+  const [row] = await dataSource.query(
+    `SELECT d.decision, d.conditions, u.name AS engineer, r.number AS revision, d.created_at AS at
+     FROM decisions d JOIN users u ON u.id = d.engineer_id JOIN revisions r ON r.id = d.revision_id
+     WHERE d.package_id = $1 ORDER BY d.created_at DESC LIMIT 1`,
+    [packageId],
+  );
+  if (!row) return null;
+  return {
+    decision: row.decision,
+    conditions: row.conditions,
+    engineer: row.engineer,
+    revisionNumber: Number(row.revision),
+    at: new Date(row.at).toISOString(),
+  };
 }

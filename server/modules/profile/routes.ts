@@ -67,12 +67,10 @@ export function profileRoutes(ctx: AppContext): Router {
         ]);
       }
       // A new password ends every other session; this one gets a fresh token.
-      await ds
-        .getRepository(User)
-        .update(user.id, {
-          passwordHash: await hashPassword(body.newPassword),
-          tokenVersion: user.tokenVersion + 1,
-        });
+      await ds.getRepository(User).update(user.id, {
+        passwordHash: await hashPassword(body.newPassword),
+        tokenVersion: user.tokenVersion + 1,
+      });
       setSession(res, user.id, user.tokenVersion + 1);
       res.status(204).end();
     },
