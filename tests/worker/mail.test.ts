@@ -5,6 +5,7 @@ import type { Worker } from 'bullmq';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '@server/config';
 import { startMailCatcher } from '@server/lib/mail-catcher';
+import { createQueues } from '@server/lib/queues';
 import { createRedis } from '@server/lib/redis';
 import { runCheck } from '@server/modules/check-runs/service';
 import { MailMessage } from '@server/modules/mail/mail.entity';
@@ -108,85 +109,64 @@ describe('hand-off mail', () => {
   }, 60_000);
 });
 
+/**
+ * One staged message sent by a mail worker of its own (own Redis prefix) to smtpUrl, with
+ * short fixed backoff; resolves when the message reaches `until` status.
+ */
+async function deliverOne(smtpUrl: string, attempts: number, status: 'sent' | 'failed') {
+  const prefix = `${t.ctx.config.REDIS_PREFIX}-${status}`;
+  const ownWorker = startMailWorker(
+    { ...t.ctx, config: { ...t.ctx.config, REDIS_PREFIX: prefix } },
+    connection,
+    smtpUrl,
+  );
+  const queues = createQueues(connection, prefix);
+  try {
+    const w = await makeWorld(t.ctx.dataSource);
+    const [id] = await t.ctx.dataSource.transaction((m) =>
+      stageMail(m, [
+        {
+          event: 'assigned',
+          dedupeKey: `delivery-${status}:${w.engineer.id}`,
+          packageId: null,
+          recipient: w.engineer,
+          content: templates.invite('X', 'Y', 'Z', 'http://x', 'soon'),
+        },
+      ]),
+    );
+    await queues.mail.add(
+      'send',
+      { messageId: id },
+      { jobId: `mail-${id}`, attempts, backoff: { type: 'fixed', delay: 150 } },
+    );
+    const message = await until(async () => {
+      const m = await t.ctx.dataSource.getRepository(MailMessage).findOneBy({ id });
+      return m?.status === status ? m : null;
+    });
+    return { message, engineer: w.engineer };
+  } finally {
+    await ownWorker.close();
+    await queues.close();
+  }
+}
+
 describe('delivery', () => {
   it('when the SMTP server fails twice, then the message is retried and arrives exactly once', async () => {
     const flaky = await startMailCatcher(t.ctx.dataSource, { port: 0, failFirst: 2 });
-    const flakyWorker = startMailWorker(
-      { ...t.ctx, config: { ...t.ctx.config, REDIS_PREFIX: `${t.ctx.config.REDIS_PREFIX}-flaky` } },
-      connection,
-      flaky.url,
-    );
-    const { createQueues } = await import('@server/lib/queues');
-    const queues = createQueues(connection, `${t.ctx.config.REDIS_PREFIX}-flaky`);
     try {
-      const w = await makeWorld(t.ctx.dataSource);
-      const [id] = await t.ctx.dataSource.transaction((m) =>
-        stageMail(m, [
-          {
-            event: 'assigned',
-            dedupeKey: `test:${w.engineer.id}`,
-            packageId: null,
-            recipient: w.engineer,
-            content: templates.invite('X', 'Y', 'Z', 'http://x', 'soon'),
-          },
-        ]),
-      );
-      await queues.mail.add(
-        'send',
-        { messageId: id },
-        { jobId: `mail-${id}`, attempts: 4, backoff: { type: 'fixed', delay: 200 } },
-      );
-      const sent = await until(async () => {
-        const m = await t.ctx.dataSource.getRepository(MailMessage).findOneBy({ id });
-        return m?.status === 'sent' ? m : null;
-      });
-      expect(sent.attempts).toBe(3);
+      const { message, engineer } = await deliverOne(flaky.url, 4, 'sent');
+      expect(message.attempts).toBe(3);
       await new Promise((r) => setTimeout(r, 500));
-      expect(await caughtFor(w.engineer.email)).toHaveLength(1);
+      expect(await caughtFor(engineer.email)).toHaveLength(1);
     } finally {
-      await flakyWorker.close();
-      await queues.close();
       await flaky.close();
     }
   }, 30_000);
 
   it('when every attempt fails, then the message is marked failed with the error for admins', async () => {
-    const prefix = `${t.ctx.config.REDIS_PREFIX}-down`;
-    const downWorker = startMailWorker(
-      { ...t.ctx, config: { ...t.ctx.config, REDIS_PREFIX: prefix } },
-      connection,
-      'smtp://127.0.0.1:1',
-    );
-    const { createQueues } = await import('@server/lib/queues');
-    const queues = createQueues(connection, prefix);
-    try {
-      const w = await makeWorld(t.ctx.dataSource);
-      const [id] = await t.ctx.dataSource.transaction((m) =>
-        stageMail(m, [
-          {
-            event: 'assigned',
-            dedupeKey: `down:${w.engineer.id}`,
-            packageId: null,
-            recipient: w.engineer,
-            content: templates.invite('X', 'Y', 'Z', 'http://x', 'soon'),
-          },
-        ]),
-      );
-      await queues.mail.add(
-        'send',
-        { messageId: id },
-        { jobId: `mail-${id}`, attempts: 2, backoff: { type: 'fixed', delay: 100 } },
-      );
-      const failed = await until(async () => {
-        const m = await t.ctx.dataSource.getRepository(MailMessage).findOneBy({ id });
-        return m?.status === 'failed' ? m : null;
-      });
-      expect(failed.attempts).toBe(2);
-      expect(failed.lastError).toMatch(/ECONNREFUSED|connect/i);
-    } finally {
-      await downWorker.close();
-      await queues.close();
-    }
+    const { message } = await deliverOne('smtp://127.0.0.1:1', 2, 'failed');
+    expect(message.attempts).toBe(2);
+    expect(message.lastError).toMatch(/ECONNREFUSED|connect/i);
   }, 30_000);
 });
 

@@ -53,6 +53,16 @@ async function currentSubmittedRevision(m: EntityManager, pkg: LiftPackage) {
   return revision;
 }
 
+/** The package as its assigned engineer works on it: in scope, theirs, and still with them. */
+async function packageUnderReview(ds: DataSource, user: Express.User, packageId: string, what: string) {
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  requireAssignedEngineer(user, pkg);
+  if (pkg.status !== 'with_engineer') {
+    throw new AppError(409, 'review_closed', `${what} only while the package is with the engineer.`);
+  }
+  return pkg;
+}
+
 // ---- assignment -------------------------------------------------------------------------
 
 export async function listEngineers(ds: DataSource, user: Express.User) {
@@ -202,14 +212,7 @@ export async function listMarkups(
 }
 
 export async function addMarkup(ds: DataSource, user: Express.User, packageId: string, body: MarkupBody) {
-  const pkg = await findScopedPackage(ds.manager, user, packageId);
-  requireAssignedEngineer(user, pkg);
-  if (pkg.status !== 'with_engineer')
-    throw new AppError(
-      409,
-      'review_closed',
-      'Markups can be added only while the package is with the engineer.',
-    );
+  const pkg = await packageUnderReview(ds, user, packageId, 'Markups can be added');
   return ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
     const file = await m.getRepository(UploadedFile).findOneBy({ id: body.fileId, revisionId: revision.id });
@@ -247,14 +250,7 @@ export async function addMarkup(ds: DataSource, user: Express.User, packageId: s
 }
 
 export async function deleteMarkup(ds: DataSource, user: Express.User, packageId: string, markupId: string) {
-  const pkg = await findScopedPackage(ds.manager, user, packageId);
-  requireAssignedEngineer(user, pkg);
-  if (pkg.status !== 'with_engineer')
-    throw new AppError(
-      409,
-      'review_closed',
-      'Markups can be removed only while the package is with the engineer.',
-    );
+  const pkg = await packageUnderReview(ds, user, packageId, 'Markups can be removed');
   const revision = await currentSubmittedRevision(ds.manager, pkg);
   const result = await ds.getRepository(Markup).delete({ id: markupId, revisionId: revision.id });
   if (!result.affected) throw AppError.notFound('markup');
@@ -301,14 +297,7 @@ export async function listFindings(
 }
 
 export async function addFinding(ds: DataSource, user: Express.User, packageId: string, body: FindingBody) {
-  const pkg = await findScopedPackage(ds.manager, user, packageId);
-  requireAssignedEngineer(user, pkg);
-  if (pkg.status !== 'with_engineer')
-    throw new AppError(
-      409,
-      'review_closed',
-      'Findings can be raised only while the package is with the engineer.',
-    );
+  const pkg = await packageUnderReview(ds, user, packageId, 'Findings can be raised');
   await ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
     if (
@@ -391,14 +380,7 @@ export async function acceptFigure(
   figure: string,
   reason: string,
 ) {
-  const pkg = await findScopedPackage(ds.manager, user, packageId);
-  requireAssignedEngineer(user, pkg);
-  if (pkg.status !== 'with_engineer')
-    throw new AppError(
-      409,
-      'review_closed',
-      'Figures can be accepted only while the package is with the engineer.',
-    );
+  const pkg = await packageUnderReview(ds, user, packageId, 'Figures can be accepted');
   await ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
     const discrepancies = (
