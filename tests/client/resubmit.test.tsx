@@ -30,10 +30,19 @@ function finding(n: number, overrides: Partial<Finding> = {}): Finding {
   };
 }
 
-const returned = makeDetail({
-  pkg: { status: 'returned', decision: 'revise_and_resubmit', worstStatus: 'caution' },
-  current: { state: 'submitted', submittedAt: '2030-03-01T09:00:00.000Z' },
-});
+const returned = {
+  ...makeDetail({
+    pkg: { status: 'returned', decision: 'revise_and_resubmit', worstStatus: 'caution' },
+    current: { state: 'submitted', submittedAt: '2030-03-01T09:00:00.000Z' },
+  }),
+  decision: {
+    decision: 'revise_and_resubmit' as const,
+    conditions: 'Provide larger mats under the rear outriggers.',
+    engineer: 'Ruth Halvorsen',
+    revisionNumber: 1,
+    at: '2030-03-01T11:00:00.000Z',
+  },
+};
 const id = returned.package.id;
 
 function contractorDesk(findings: Finding[]) {
@@ -82,7 +91,7 @@ function contractorDesk(findings: Finding[]) {
 }
 
 describe('contractor resubmission', () => {
-  it('when the contractor answers a finding, then the answer is sent and the finding reads as answered', async () => {
+  it('when the contractor answers a finding, then the conditions are in view, the answer is sent and the finding reads as answered', async () => {
     const findings = [
       finding(1, { severity: 'minor', pageNumber: 3 }),
       finding(2, { severity: 'blocking', text: 'Mat size does not carry the outrigger load' }),
@@ -97,6 +106,7 @@ describe('contractor resubmission', () => {
       { timeout: 8000 },
     );
     expect(await within(panel).findByText('2 findings waiting for your answer.')).toBeTruthy();
+    expect(within(panel).getByText('Provide larger mats under the rear outriggers.')).toBeTruthy();
     // Most serious first: the blocking finding leads.
     const items = within(panel).getAllByRole('listitem');
     expect(items[0].textContent).toContain('Blocking');

@@ -122,6 +122,7 @@ export default function PackageDetailRoute() {
           <ResubmissionPanel
             packageId={id}
             decision={data.package.decision}
+            conditions={data.decision?.conditions}
             revisionNumber={current.number}
             mode={resubmission}
           />

@@ -14,11 +14,14 @@ import { FindingAnswers } from './finding-answers';
 export function ResubmissionPanel({
   packageId,
   decision,
+  conditions,
   revisionNumber,
   mode,
 }: {
   packageId: string;
   decision: Decision | null;
+  /** The engineer's conditions, when the package answer carries them. */
+  conditions?: string;
   revisionNumber: number;
   /** "returned": the decision is in and the next revision can start; "revising": it has. */
   mode: 'returned' | 'revising';
@@ -58,9 +61,18 @@ export function ResubmissionPanel({
                 : `The engineer of record wants changes before this lift can go ahead. ${thenStart}tart the next revision: it begins with these inputs and no documents, so upload the corrected lift plan PDF.`
               : 'Your answers go with this revision when you submit it. The engineer sees which findings are answered.'}
           </p>
+          {mode === 'returned' && conditions && (
+            <div className="mt-2 border-l-[3px] border-ink bg-sheet-alt px-2.5 py-1.5 text-[13.5px]">
+              <span className="block text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft">
+                Conditions from the engineer of record
+              </span>
+              <span className="whitespace-pre-line">{conditions}</span>
+            </div>
+          )}
           {mode === 'returned' && (
             <p className="mt-1 text-[13px]">
-              The engineer’s conditions are written in the stamp block on the first page of the stamped return
+              {conditions ? 'The same conditions are' : 'The engineer’s conditions are'} written in the stamp
+              block on the first page of the stamped return
               {stampedUrl ? (
                 <>
                   {' '}
