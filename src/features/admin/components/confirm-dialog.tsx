@@ -31,15 +31,16 @@ export function ConfirmDialog({
         {children}
         <div className="mt-1 flex justify-end gap-2 border-t border-rule pt-3">
           <Button onClick={onClose}>Cancel</Button>
-          <Button
-            variant="primary"
+          {/* Red, not the primary green: this button takes something away. */}
+          <button
+            type="button"
             disabled={pending}
             onClick={onConfirm}
-            className="border-failed-ink bg-failed-ink hover:border-fail-ink hover:bg-[#7c1515]"
+            className="inline-flex h-9 items-center justify-center gap-1.5 whitespace-nowrap rounded-[3px] border border-failed-ink bg-failed-ink px-3.5 text-sm font-bold text-white hover:bg-[#7c1515] disabled:cursor-not-allowed disabled:opacity-70"
           >
             {pending && <Spinner />}
             {pending ? pendingLabel : confirmLabel}
-          </Button>
+          </button>
         </div>
       </div>
     </Dialog>

@@ -41,6 +41,11 @@ function Card({
 
 const pending = '…';
 
+/** What a card shows while its figure loads, or when it could not be loaded. */
+function figureOr(value: number | undefined, failed: boolean) {
+  return value ?? (failed ? '—' : pending);
+}
+
 export function DeskOverview() {
   const organisations = useOrganisations();
   const sites = useAdminSites();
@@ -61,7 +66,7 @@ export function DeskOverview() {
         title="Organisations"
         to="/admin/organisations"
         action="Manage organisations"
-        figure={orgs?.length ?? pending}
+        figure={figureOr(orgs?.length, organisations.isError)}
       >
         {orgs && (
           <>
@@ -74,7 +79,7 @@ export function DeskOverview() {
         title="Sites"
         to="/admin/sites"
         action="Sites and coordinators"
-        figure={siteItems?.length ?? pending}
+        figure={figureOr(siteItems?.length, sites.isError)}
         attention={withoutCoordinators.length > 0}
       >
         {siteItems &&
@@ -92,7 +97,7 @@ export function DeskOverview() {
         title="People"
         to="/admin/people"
         action="Invite and manage people"
-        figure={peopleItems ? count('active') : pending}
+        figure={figureOr(peopleItems && count('active'), people.isError)}
       >
         {peopleItems && (
           <>
@@ -113,9 +118,9 @@ export function DeskOverview() {
         title="Review policies"
         to="/admin/sites"
         action="Limits per site"
-        figure={siteItems?.length ?? pending}
+        figure={figureOr(siteItems?.length, sites.isError)}
       >
-        {siteItems && siteItems.length > 0 ? (
+        {!siteItems ? null : siteItems.length > 0 ? (
           <ul className="flex flex-col">
             {siteItems.slice(0, 3).map((site) => (
               <li key={site.id}>
@@ -135,7 +140,7 @@ export function DeskOverview() {
         title="Mail outbox"
         to={failedTotal > 0 ? '/admin/mail?status=failed' : '/admin/mail'}
         action={failedTotal > 0 ? 'See failed messages' : 'Open the outbox'}
-        figure={failed.data ? failedTotal : pending}
+        figure={figureOr(failed.data?.total, failed.isError)}
         attention={failedTotal > 0}
       >
         {failed.data && (

@@ -37,7 +37,11 @@ export function InviteDialog({
   onInvited: (person: Person) => void;
 }) {
   const invite = useInvitePerson();
-  const first = organisations.find((org) => org.id === initialOrganisationId) ?? organisations[0];
+  // Most invitations are for the desk's own people: start with the owner organisation.
+  const first =
+    organisations.find((org) => org.id === initialOrganisationId) ??
+    organisations.find((org) => org.kind === 'owner') ??
+    organisations[0];
   const {
     register,
     handleSubmit,

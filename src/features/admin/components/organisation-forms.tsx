@@ -61,11 +61,11 @@ export function NewOrganisationForm() {
         </p>
       </div>
       {alert && <FormAlert>{alert}</FormAlert>}
-      <div className="flex flex-wrap items-start gap-3">
-        <FormField id="org-name" label="Name" error={errors.name?.message} className="min-w-[260px] flex-1">
+      <div className="flex flex-wrap items-start gap-2">
+        <FormField id="org-name" label="Name" error={errors.name?.message} className="min-w-[200px] flex-1">
           <input type="text" autoComplete="organization" className={inputClasses} {...register('name')} />
         </FormField>
-        <Button type="submit" variant="primary" disabled={create.isPending} className="mt-[23px]">
+        <Button type="submit" variant="primary" disabled={create.isPending} className="mt-[25px]">
           {create.isPending ? 'Adding…' : 'Add contractor'}
         </Button>
       </div>

@@ -154,8 +154,8 @@ export function PolicyEditor({ siteId, policy }: { siteId: string; policy: Polic
                     <SourceNote kind={fallback.source.kind} text={fallback.source.text} />
                   </td>
                   <td className="px-3 py-2.5">
-                    <div className="flex flex-wrap items-center gap-2">
-                      <span className="relative inline-flex">
+                    <div className="flex items-start gap-2">
+                      <span className="relative inline-flex shrink-0">
                         <input
                           id={inputId}
                           type="text"
@@ -174,24 +174,26 @@ export function PolicyEditor({ siteId, policy }: { siteId: string; policy: Polic
                           {field.unit}
                         </span>
                       </span>
-                      <span
-                        id={`${inputId}-state`}
-                        className={`text-[12.5px] font-bold ${overridden ? 'text-verdigris' : 'text-ink-soft'}`}
-                      >
-                        {overridden ? 'Site value' : 'Uses the default'}
-                      </span>
-                      {overridden && (
-                        <Button
-                          size="sm"
-                          variant="quiet"
-                          aria-label={`Use the default for ${fallback.label}`}
-                          onClick={() =>
-                            setValue(field.name, '', { shouldDirty: true, shouldValidate: true })
-                          }
+                      <span className="flex min-w-0 flex-col items-start">
+                        <span
+                          id={`${inputId}-state`}
+                          className={`text-[12.5px] font-bold leading-5 ${overridden ? 'text-verdigris' : 'text-ink-soft'}`}
                         >
-                          Use default
-                        </Button>
-                      )}
+                          {overridden ? 'Site value' : 'Uses the default'}
+                        </span>
+                        {overridden && (
+                          <button
+                            type="button"
+                            aria-label={`Use the default for ${fallback.label}`}
+                            onClick={() =>
+                              setValue(field.name, '', { shouldDirty: true, shouldValidate: true })
+                            }
+                            className="text-[12.5px] font-bold text-verdigris underline decoration-1 underline-offset-2 hover:text-verdigris-deep"
+                          >
+                            Use default
+                          </button>
+                        )}
+                      </span>
                     </div>
                     {error && (
                       <p id={`${inputId}-error`} className="mt-1 text-[13px] font-bold text-failed-ink">

@@ -71,6 +71,7 @@ export const POLICY_FIELDS: readonly PolicyField[] = [
   {
     name: 'criticalGrossLoadN',
     key: 'criticalGrossLoadN',
+    label: 'Site rule: gross loads at or above this weight are critical (kN)',
     unit: 'kN',
     scale: 1000,
     equivalent: (v: number) => `${sig3(v / 9806.65)} t, ${sig3(v / 4448.222)} kip`,
