@@ -46,14 +46,12 @@ describe('people', () => {
     expect(accepted.status).toBe(200);
     expect((await agent.get('/api/me')).body.user.email).toBe(email);
     expect((await supertest(t.app).get(`/api/invites/${token}`)).status).toBe(404);
-    const again = await admin
-      .post('/api/admin/people/invite')
-      .send({
-        email: email.toUpperCase(),
-        name: 'Dup',
-        role: 'contractor',
-        organisationId: w.contractorA.id,
-      });
+    const again = await admin.post('/api/admin/people/invite').send({
+      email: email.toUpperCase(),
+      name: 'Dup',
+      role: 'contractor',
+      organisationId: w.contractorA.id,
+    });
     expect(again.status).toBe(409);
     expect(again.body.error.fields).toEqual([{ path: 'email', message: 'email already has an account' }]);
   });
@@ -79,23 +77,19 @@ describe('people', () => {
     const w = await makeWorld(t.ctx.dataSource);
     const other = await makeWorld(t.ctx.dataSource);
     const admin = await signedIn(t.app, w.admin.email);
-    const wrongRole = await admin
-      .post('/api/admin/people/invite')
-      .send({
-        email: `r-${Date.now()}@test.example`,
-        name: 'Wrong Role',
-        role: 'engineer',
-        organisationId: w.contractorA.id,
-      });
+    const wrongRole = await admin.post('/api/admin/people/invite').send({
+      email: `r-${Date.now()}@test.example`,
+      name: 'Wrong Role',
+      role: 'engineer',
+      organisationId: w.contractorA.id,
+    });
     expect(wrongRole.body.error.fields[0].path).toBe('role');
-    const foreign = await admin
-      .post('/api/admin/people/invite')
-      .send({
-        email: `f-${Date.now()}@test.example`,
-        name: 'Foreign',
-        role: 'contractor',
-        organisationId: other.contractorA.id,
-      });
+    const foreign = await admin.post('/api/admin/people/invite').send({
+      email: `f-${Date.now()}@test.example`,
+      name: 'Foreign',
+      role: 'contractor',
+      organisationId: other.contractorA.id,
+    });
     expect(foreign.body.error.fields[0].path).toBe('organisationId');
   });
 
