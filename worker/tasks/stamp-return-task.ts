@@ -7,19 +7,27 @@ import { appUrl } from '../../server/config';
 import type { AppContext } from '../../server/context';
 import { QUEUE_NAMES, type StampJob } from '../../server/lib/queues';
 import { dispatchMail } from '../../server/modules/mail/service';
-import { buildReturn } from '../../server/modules/returns/service';
+import { buildReturn, markReturnFailed } from '../../server/modules/returns/service';
 
 export function startStampWorker(ctx: AppContext, connection: Redis, concurrency: number) {
   return new Worker<StampJob>(
     QUEUE_NAMES.stamp,
     async (job) => {
-      const outcome = await buildReturn(
-        ctx.dataSource,
-        ctx.storage,
-        job.data.returnId,
-        appUrl(ctx.config),
-        (percent, step) => job.updateProgress({ percent, step }),
-      );
+      let outcome: Awaited<ReturnType<typeof buildReturn>>;
+      try {
+        outcome = await buildReturn(
+          ctx.dataSource,
+          ctx.storage,
+          job.data.returnId,
+          appUrl(ctx.config),
+          (percent, step) => job.updateProgress({ percent, step }),
+        );
+      } catch (error) {
+        if (job.attemptsMade + 1 >= (job.opts.attempts ?? 1)) {
+          await markReturnFailed(ctx.dataSource, job.data.returnId, (error as Error).message);
+        }
+        throw error;
+      }
       if (!outcome.skipped) await dispatchMail(ctx.queues, outcome.mailIds);
       return { skipped: outcome.skipped };
     },

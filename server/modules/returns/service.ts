@@ -78,7 +78,15 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Express.
     });
   }
   if (ret.state !== 'ready') {
-    await queues.stamp.add('stamp-return', { returnId: ret.id }, { jobId: stampJobId(decision.id) });
+    // Issuing again after a failed build retries the same job; otherwise the job id keeps it single.
+    const existing = await queues.stamp.getJob(stampJobId(decision.id));
+    if (existing && (await existing.isFailed())) {
+      await ds.getRepository(StampedReturn).update(ret.id, { state: 'pending', error: null, progress: 0 });
+      await existing.retry();
+      ret = await ds.getRepository(StampedReturn).findOneByOrFail({ id: ret.id });
+    } else {
+      await queues.stamp.add('stamp-return', { returnId: ret.id }, { jobId: stampJobId(decision.id) });
+    }
   }
   return toReturn(ret);
 }
@@ -253,3 +261,10 @@ export async function buildReturn(
 }
 
 export const STAMP_QUEUE = QUEUE_NAMES.stamp;
+
+/** The stamp job's last attempt failed: the reviewer sees why and can issue again. */
+export async function markReturnFailed(ds: DataSource, returnId: string, error: string) {
+  await ds
+    .getRepository(StampedReturn)
+    .update({ id: returnId, state: 'pending' }, { state: 'failed', error: error.slice(0, 500) });
+}
