@@ -19,5 +19,6 @@ export default defineConfig({
     hookTimeout: 60_000,
     pool: 'forks',
     globalSetup: ['tests/support/global-setup.ts'],
+    setupFiles: ['tests/support/setup-testing-library.ts'],
   },
 });
