@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { MARKUP_COLOURS } from '@shared/schemas/reviews';
 import { buildStampedReturn, type StampInput } from '@server/modules/returns/stamp-pdf';
-import { cloudPath } from '@server/modules/returns/draw-markups';
+import { cloudPath } from '@shared/drawing/cloud-path';
 import { safeText } from '@server/modules/returns/text-pdf';
 import { exampleResult, OFFSET_ORIGIN, OFFSET_RECT, PLAN_ID, RECT, stampInput } from './stamp-fixtures';
 
