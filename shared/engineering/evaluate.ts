@@ -24,7 +24,7 @@ import { edgeBalance, planModel } from './crane-model';
 import type { CheckResult, Fix, LiftFigures, LiftResult, UnitSystem } from './types';
 
 export const RESULT_VERSION = 1 as const;
-export const ENGINE_VERSION = '1.0.0';
+export const ENGINE_VERSION = '1.1.0';
 
 export const CAUTIONS: readonly string[] = [
   "This check recomputes the arithmetic and consistency of the lift plan. It does not replace the crane manufacturer's load chart and operating instructions.",

@@ -145,6 +145,13 @@ export interface LiftFigures {
   resistingMoment: number | null;
   stabilityRatio: number | null;
   supportReactions: { label: string; x: number; y: number; reaction: number }[];
+  /**
+   * The tipping line the stability check found governing (mobile cranes): the slew angle it
+   * used (degrees from over the rear) and the line's distance from the centre of rotation
+   * measured along the boom (m). Drawings take it from here so they show the check's line.
+   * Absent in results stored before it was added.
+   */
+  tipping?: { slewDeg: number; edge: string; distanceAlongBoom: number } | null;
   maxSupportReaction: number | null;
   groundPressure: number | null;
   maxSlingTension: number | null;

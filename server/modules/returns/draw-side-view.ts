@@ -24,47 +24,12 @@ function si(q: unknown): number | null {
   return f === undefined ? null : v.value * f;
 }
 
-/** Distance along the boom line from the centre of rotation to the governing tipping line. */
-export function tippingDistance(inputs: unknown): number | null {
-  const crane = at(inputs, 'crane');
-  const type = at(crane, 'type');
-  let a: number | null, b: number | null, x0: number;
-  if (type === 'mobile_outriggers') {
-    a = si(at(crane, 'outriggers', 'longitudinalSpread'));
-    b = si(at(crane, 'outriggers', 'transverseSpread'));
-    x0 = si(at(crane, 'outriggers', 'boxCentreRearOfRotation')) ?? 0;
-  } else if (type === 'mobile_crawler') {
-    a = si(at(crane, 'tracks', 'length'));
-    b = si(at(crane, 'tracks', 'gauge'));
-    x0 = si(at(crane, 'tracks', 'centreRearOfRotation')) ?? 0;
-  } else return null;
-  if (a === null || b === null) return null;
-  a /= 2;
-  b /= 2;
-  const edges = [
-    { nx: 1, ny: 0, d: x0 + a },
-    { nx: -1, ny: 0, d: a - x0 },
-    { nx: 0, ny: 1, d: b },
-    { nx: 0, ny: -1, d: b },
-  ];
-  const slew = si(at(crane, 'slewAngle'));
-  if (slew === null) return Math.min(...edges.map((e) => e.d));
-  const ux = Math.cos((slew * Math.PI) / 180);
-  const uy = Math.sin((slew * Math.PI) / 180);
-  let best = Infinity;
-  for (const e of edges) {
-    const dot = e.nx * ux + e.ny * uy;
-    if (dot > 1e-6) best = Math.min(best, e.d / dot);
-  }
-  return Number.isFinite(best) ? best : null;
-}
-
 /** Why the side view cannot be drawn, or null when it can. */
 export function sideViewUnavailableReason(inputs: unknown, result: LiftResult): string | null {
   if (at(inputs, 'crane', 'type') === 'gantry_a_frame')
     return 'Not drawn for a gantry or A-frame: the frame, backstay and ballast moments are in the stability check above.';
-  if (tippingDistance(inputs) === null)
-    return 'Not drawn: the outrigger spread or the track size is missing.';
+  if (!result.figures.tipping)
+    return 'Not drawn: the stability check found no tipping line (supports or crane weights missing).';
   if (
     si(at(inputs, 'crane', 'boomLength')) === null ||
     result.figures.boomAngleDeg === null ||
@@ -142,7 +107,8 @@ export function drawSideView(
 ) {
   const f = result.figures;
   const crane = at(inputs, 'crane');
-  const fulcrum = tippingDistance(inputs)!;
+  // The tipping line the stability check used, so the drawing shows the same arms.
+  const fulcrum = f.tipping!.distanceAlongBoom;
   const boomLength = si(at(crane, 'boomLength'))!;
   const angle = f.boomAngleDeg!;
   const radius = f.radius!;

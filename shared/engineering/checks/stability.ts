@@ -217,6 +217,8 @@ export function stabilityCheck(ctx: Ctx, fixes: Fix[], figures: LiftFigures): Ch
   figures.overturningMoment = balance.overturning;
   figures.resistingMoment = balance.resisting;
   figures.stabilityRatio = Number.isFinite(balance.ratio) ? balance.ratio : null;
+  const along = E.nx * Math.cos(slewDeg * DEG) + E.ny * Math.sin(slewDeg * DEG);
+  figures.tipping = along > 1e-9 ? { slewDeg, edge: E.label, distanceAlongBoom: E.d / along } : null;
   const status = statusMin(balance.ratio, minR, policy);
   items.push(
     item(ctx, {

@@ -20,41 +20,6 @@ const at = (obj: unknown, ...keys: string[]): unknown =>
     obj,
   );
 
-/** Distance along the boom line from the centre of rotation to the tipping line that governs. */
-export function tippingDistance(inputs: unknown): number | null {
-  const crane = at(inputs, 'crane');
-  const type = at(crane, 'type');
-  let a: number | null, b: number | null, x0: number;
-  if (type === 'mobile_outriggers') {
-    a = si(at(crane, 'outriggers', 'longitudinalSpread'));
-    b = si(at(crane, 'outriggers', 'transverseSpread'));
-    x0 = si(at(crane, 'outriggers', 'boxCentreRearOfRotation')) ?? 0;
-  } else if (type === 'mobile_crawler') {
-    a = si(at(crane, 'tracks', 'length'));
-    b = si(at(crane, 'tracks', 'gauge'));
-    x0 = si(at(crane, 'tracks', 'centreRearOfRotation')) ?? 0;
-  } else return null;
-  if (a === null || b === null) return null;
-  a /= 2;
-  b /= 2;
-  const edges = [
-    { nx: 1, ny: 0, d: x0 + a },
-    { nx: -1, ny: 0, d: a - x0 },
-    { nx: 0, ny: 1, d: b },
-    { nx: 0, ny: -1, d: b },
-  ];
-  const slew = si(at(crane, 'slewAngle'));
-  if (slew === null) return Math.min(...edges.map((e) => e.d));
-  const ux = Math.cos((slew * Math.PI) / 180);
-  const uy = Math.sin((slew * Math.PI) / 180);
-  let best = Infinity;
-  for (const e of edges) {
-    const dot = e.nx * ux + e.ny * uy;
-    if (dot > 1e-6) best = Math.min(best, e.d / dot);
-  }
-  return Number.isFinite(best) ? best : null;
-}
-
 const W = 680;
 const H = 470;
 const M = { left: 54, right: 16, top: 16, bottom: 110 };
@@ -70,7 +35,8 @@ export function CraneSideView({
 }) {
   const f = result.figures;
   const crane = at(inputs, 'crane');
-  const fulcrum = tippingDistance(inputs);
+  // The tipping line the stability check used, so the drawing shows the same arms.
+  const fulcrum = f.tipping?.distanceAlongBoom ?? null;
   const boomLength = si(at(crane, 'boomLength'));
   const angle = f.boomAngleDeg;
   const radius = f.radius;
