@@ -27,10 +27,15 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  // Served over plain http on a loopback or LAN address, HSTS and the upgrade directive
+  // would send browsers to an https port that does not exist.
+  const https = (ctx.config.APP_URL ?? '').startsWith('https://');
   app.use(
     helmet({
+      strictTransportSecurity: https,
       contentSecurityPolicy: {
         directives: {
+          'upgrade-insecure-requests': https ? [] : null,
           'img-src': ["'self'", 'data:', 'blob:'],
           'worker-src': ["'self'", 'blob:'],
           'script-src': ["'self'"],

@@ -179,3 +179,12 @@ describe('system routes', () => {
     );
   });
 });
+
+describe('security headers over plain http', () => {
+  it('when the desk is served without https, then browsers are not told to switch to https', async () => {
+    const res = await supertest(t.app).get('/api/health');
+    expect(res.headers['strict-transport-security']).toBeUndefined();
+    expect(res.headers['content-security-policy']).not.toContain('upgrade-insecure-requests');
+    expect(res.headers['content-security-policy']).toContain("script-src 'self'");
+  });
+});
