@@ -233,7 +233,7 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
           </div>
         )}
 
-        <div className="grid items-start gap-4 lg:grid-cols-[12.5rem_minmax(0,1fr)] 2xl:grid-cols-[12.5rem_minmax(0,1fr)_22rem]">
+        <div className="grid items-start gap-4 lg:grid-cols-[12.5rem_minmax(0,1fr)] wide:grid-cols-[12.5rem_minmax(0,1fr)_22rem]">
           <nav aria-label="Steps" className="lg:sticky lg:top-4">
             <ol className="flex flex-col border border-rule bg-sheet">
               {STEPS.map((s, i) => {
@@ -369,7 +369,7 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
             )}
           </section>
 
-          <div className="lg:col-start-2 2xl:sticky 2xl:top-4 2xl:col-start-3 2xl:row-start-1">
+          <div className="lg:col-start-2 wide:sticky wide:top-4 wide:col-start-3 wide:row-start-1">
             <LiveCheckPanel values={values} system={system} />
           </div>
         </div>
