@@ -93,7 +93,7 @@ export default function AdminSitesRoute() {
                     variant="quiet"
                     className="-ml-2.5 mt-0.5"
                     onClick={() => setReviewersOf(site)}
-                    aria-label={`Choose lift coordinators for ${site.name}`}
+                    aria-label={`Choose coordinators for ${site.name}`}
                   >
                     Choose coordinators
                   </Button>
@@ -103,7 +103,7 @@ export default function AdminSitesRoute() {
                   <Link
                     to={`/admin/sites/${site.id}/policy`}
                     className="text-[13px] font-bold text-verdigris hover:underline"
-                    aria-label={`Review policy for ${site.name}`}
+                    aria-label={`Limits and sources of the review policy for ${site.name}`}
                   >
                     Limits and sources
                   </Link>

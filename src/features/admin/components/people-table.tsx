@@ -131,7 +131,7 @@ function Actions({
             variant="quiet"
             disabled={reinvite.isPending}
             onClick={() => reinvite.mutate(person.id)}
-            aria-label={`Send ${person.name} a new invitation link`}
+            aria-label={`Send new link to ${person.name}`}
           >
             {reinvite.isPending ? 'Sending…' : 'Send new link'}
           </Button>

@@ -190,7 +190,7 @@ export function PolicyEditor({ siteId, policy }: { siteId: string; policy: Polic
                             }
                             className="text-[12.5px] font-bold text-verdigris underline decoration-1 underline-offset-2 hover:text-verdigris-deep"
                           >
-                            Use default
+                            Use the default
                           </button>
                         )}
                       </span>

@@ -44,8 +44,10 @@ export function PdfCanvas({
     <>
       <canvas
         ref={ref}
-        role="img"
-        aria-label={label}
+        // A thumbnail inside its labelled button has no label of its own: it is decoration.
+        role={label ? 'img' : undefined}
+        aria-label={label || undefined}
+        aria-hidden={label ? undefined : true}
         className={`block ${className}`}
         style={{ width: viewport.width, height: viewport.height }}
       />

@@ -168,6 +168,10 @@ export function PdfPages({
         ref={scroller}
         onScroll={onScroll}
         className="relative min-w-0 flex-1 overflow-auto bg-[#d8d4ca]"
+        // Focusable so the arrow keys scroll the page view without a mouse.
+        tabIndex={0}
+        role="region"
+        aria-label="Page view"
         data-testid="page-scroller"
       >
         <div className="flex w-max min-w-full flex-col items-center gap-4 px-6 py-4">
