@@ -98,32 +98,62 @@ async function main(): Promise<number> {
   }
   const reportFile = path.join(outDir, 'vitest.json');
   fs.rmSync(reportFile, { force: true });
-  results.push([
-    'tests',
-    run(
-      'tests (vitest)',
-      [
-        bin('vitest/vitest.mjs'),
-        'run',
-        '--reporter=default',
-        '--reporter=json',
-        `--outputFile.json=${reportFile}`,
-        ...filters,
-      ],
-      env,
-    ),
-  ]);
+  // `npm test -- tests/e2e` runs only the browser tests; other filters only the unit/API run.
+  const e2eFilters = filters.filter((f) => f.includes('e2e'));
+  const unitFilters = filters.filter((f) => !f.includes('e2e'));
+  if (!filters.length || unitFilters.length)
+    results.push([
+      'tests',
+      run(
+        'tests (vitest)',
+        [
+          bin('vitest/vitest.mjs'),
+          'run',
+          '--reporter=default',
+          '--reporter=json',
+          `--outputFile.json=${reportFile}`,
+          ...unitFilters,
+        ],
+        env,
+      ),
+    ]);
+  // The browser tests start their own app the way the start command does (its own
+  // PostgreSQL, Redis and fake SMTP): they do not use the throwaway servers above.
+  const e2eReportFile = path.join(outDir, 'vitest-e2e.json');
+  fs.rmSync(e2eReportFile, { force: true });
+  if (!filters.length || e2eFilters.length) {
+    const e2eEnv: NodeJS.ProcessEnv = { ...env, LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' };
+    for (const key of ['DATABASE_URL', 'REDIS_URL', 'JWT_SECRET', 'NODE_ENV']) delete e2eEnv[key];
+    results.push([
+      'browser tests',
+      run(
+        'browser tests (vitest, Chromium)',
+        [
+          bin('vitest/vitest.mjs'),
+          'run',
+          '--config',
+          'vitest.e2e.config.ts',
+          '--reporter=default',
+          '--reporter=json',
+          `--outputFile.json=${e2eReportFile}`,
+          ...e2eFilters,
+        ],
+        e2eEnv,
+      ),
+    ]);
+  }
   let passed = 0;
   let failed = 0;
-  if (fs.existsSync(reportFile)) {
-    const report = JSON.parse(fs.readFileSync(reportFile, 'utf8')) as {
+  for (const file of [reportFile, e2eReportFile]) {
+    if (!fs.existsSync(file)) continue;
+    const report = JSON.parse(fs.readFileSync(file, 'utf8')) as {
       numPassedTests: number;
       numFailedTests: number;
       numFailedTestSuites: number;
     };
-    passed = report.numPassedTests;
+    passed += report.numPassedTests;
     // A suite that fails before its tests run (a broken import, a failing beforeAll) counts too.
-    failed = report.numFailedTests || report.numFailedTestSuites;
+    failed += report.numFailedTests || report.numFailedTestSuites;
   }
   const failedSteps = results.filter(([, ok]) => !ok).map(([name]) => name);
   if (failedSteps.length) say(`failed steps: ${failedSteps.join(', ')}`);

@@ -42,11 +42,6 @@ export function screenshotOnFailure() {
       await page.screenshot({ path: path.join(dir, `${name}-${n}.png`) }).catch(() => undefined);
       process.stdout.write(`[e2e] failed at ${page.url()} (screenshot ${name}-${n}.png)\n`);
     }
-    for (const page of [...openPages])
-      await page
-        .context()
-        .close()
-        .catch(() => undefined);
   });
 }
 
