@@ -30,7 +30,7 @@ function Row({
     >
       <th
         scope="row"
-        className={`min-w-[15rem] px-2 py-1.5 text-left ${sub ? 'pl-7 font-normal' : 'font-bold'}`}
+        className={`min-w-[12rem] px-2 py-1.5 text-left ${sub ? 'pl-7 font-normal' : 'font-bold'}`}
       >
         {item.label}
         {item.message && (
@@ -47,10 +47,10 @@ function Row({
       <td className="px-2 py-1.5">
         <CheckStatusMark status={item.status} />
       </td>
-      <td className="min-w-[16rem] px-2 py-1.5 text-[12.5px] leading-snug">
+      <td className="min-w-[14rem] px-2 py-1.5 text-[12.5px] leading-snug">
         {formatFormula(item.formula, system) || '—'}
       </td>
-      <td className="min-w-[12rem] px-2 py-1.5 text-[12px] leading-snug">
+      <td className="min-w-[10rem] px-2 py-1.5 text-[12px] leading-snug">
         <span className="font-bold">{SOURCE_KIND_LABELS[item.source.kind] ?? item.source.kind}</span>
         <span className="block text-ink-soft">{item.source.text}</span>
       </td>

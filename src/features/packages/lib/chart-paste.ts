@@ -1,7 +1,7 @@
 // Load chart rows pasted from a spreadsheet: tab-, comma- or semicolon-separated, with or
 // without a header row. Columns are radius, boom length and capacity in that order unless
 // a header names them (and perhaps their units: "Capacity (kip)").
-import { unitInText } from './input-units';
+import { unitInText } from '@/lib/input-units';
 
 export type PastedRow = { radius: number; boomLength: number; capacity: number };
 export type PasteResult = {

@@ -129,7 +129,7 @@ export function PdfPages({
     <div className="flex min-h-0 min-w-0 flex-1">
       <nav
         aria-label={`Pages of ${fileName}`}
-        className="w-[116px] shrink-0 overflow-y-auto border-r border-rule bg-sheet-alt px-2 py-2"
+        className="hidden w-[116px] shrink-0 xl:block overflow-y-auto border-r border-rule bg-sheet-alt px-2 py-2"
       >
         <ol className="flex flex-col gap-2">
           {Array.from({ length: doc.numPages }, (_, i) => i + 1).map((n) => {

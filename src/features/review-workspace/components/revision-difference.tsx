@@ -9,6 +9,7 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { isApiError } from '@/lib/api-client';
 import { useCompare } from '../api/get-compare';
 import { FindingStateMark, SeverityMark } from './finding-marks';
+import { labelOfPath } from '@/lib/lift-steps';
 
 const STATUSES = ['pass', 'caution', 'fail', 'not_applicable'];
 
@@ -24,8 +25,11 @@ function inputText(value: unknown): string {
   return String(value);
 }
 
-/** "rigging.slings[0].angle" → "rigging › slings 1 › angle" */
+/** The form's own label for an input path ("load.weight" → "Load weight"), else the path made readable. */
 function pathText(path: string): string {
+  const dotted = path.replace(/\[(\d+)\]/g, '.$1');
+  const label = labelOfPath(dotted);
+  if (label !== dotted) return label;
   return path
     .replace(/\[(\d+)\]/g, (_m, i: string) => ` ${Number(i) + 1}`)
     .split('.')

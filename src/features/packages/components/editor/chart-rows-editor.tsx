@@ -6,7 +6,7 @@ import { Controller, get, useFieldArray, useFormContext, useWatch, type FieldVal
 import type { UnitSystem } from '@shared/schemas/common';
 import { Button } from '@/components/ui/button';
 import { parseChartRows } from '../../lib/chart-paste';
-import { defaultUnit, unitLabel, UNITS_BY_KIND } from '../../lib/input-units';
+import { defaultUnit, unitLabel, UNITS_BY_KIND } from '@/lib/input-units';
 import { NumberText } from './number-text';
 import { ErrorText } from './lift-field';
 import { useFieldError } from './field-errors';

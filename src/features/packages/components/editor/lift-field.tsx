@@ -5,7 +5,7 @@ import { useId } from 'react';
 import { Controller, get, useFieldArray, useFormContext, type FieldValues } from 'react-hook-form';
 import type { UnitSystem } from '@shared/schemas/common';
 import { Button } from '@/components/ui/button';
-import type { FieldDef } from '../../lib/lift-steps';
+import type { FieldDef } from '@/lib/lift-steps';
 import { QuantityInput, type QuantityValue } from './quantity-input';
 import { NumberText } from './number-text';
 import { useFieldError } from './field-errors';

@@ -13,7 +13,7 @@ import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/page-loading';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { draftInputs, prune } from '../../lib/prune';
-import { labelOfPath, STEPS, stepOfPath, type StepId } from '../../lib/lift-steps';
+import { labelOfPath, STEPS, stepOfPath, type StepId } from '@/lib/lift-steps';
 import { useDraftAutosave } from '../../hooks/use-draft-autosave';
 import { useSubmitPackage } from '../../api/submit-package';
 import { LiftField } from './lift-field';
