@@ -146,7 +146,7 @@ const PAGES: MainPage[] = [
     name: 'review-workspace',
     person: 'engineer',
     path: () => `/packages/${ids.withEngineer}/review`,
-    ready: (p) => p.locator('canvas').first(),
+    ready: (p) => p.getByRole('region', { name: 'Page view' }).locator('canvas').first(),
   },
   {
     name: 'admin',
