@@ -1,5 +1,5 @@
 // Checks against values published outside the project; the source is named beside each test.
-// See /work/shared/REFERENCES.md for how each value was read ("read" vs "from memory").
+// See the project reference notes (REFERENCES.md beside the repository) for how each value was read ("read" vs "from memory").
 import { describe, expect, it } from 'vitest';
 import { minimumClearanceFt } from '@shared/engineering/checks/power-line';
 import { angleFactor, hitchFactor, twoLegTensions } from '@shared/engineering/checks/rigging';
