@@ -1,40 +1,116 @@
-// The start command: builds the client, brings up PostgreSQL and Redis (embedded under
-// .data/ unless DATABASE_URL / REDIS_URL are set), migrates, seeds the demo once, then
-// runs the API and the worker until Ctrl-C or SIGTERM, which stops everything it started.
+// The start command: takes the data folder's lock, checks its ports, builds the client,
+// brings up PostgreSQL and Redis (embedded under .data/ unless DATABASE_URL / REDIS_URL are
+// set), migrates, seeds the demo once, then supervises the API, the worker and the mail
+// catcher (restarting one that crashes) until Ctrl-C or SIGTERM, which stops what it
+// started, in order.
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../server/db/seed/demo-accounts';
-import { startProcess, stopAll, waitForHealth, type Managed } from './lib/processes';
-import { prepareStack, startMailCatcherIfNeeded } from './lib/stack';
+import { AlreadyRunning, acquireLock, type DeskLock, type LockInfo } from './lib/lock';
+import { commandOf, firstTakenPort } from './lib/ports';
+import { waitForHealth } from './lib/processes';
+import { postmasterPid, readPid, StepError } from './lib/services';
+import { mailCatcherSpec, prepareStack } from './lib/stack';
+import { Supervisor, type ProcessSpec } from './lib/supervisor';
 
 const root = process.cwd();
 const dataDir = path.resolve(process.env.DATA_DIR ?? '.data');
 const logDir = path.join(dataDir, 'logs');
 const port = Number(process.env.PORT ?? 3000);
 const host = process.env.HOST ?? '127.0.0.1';
+const address = `http://${host}:${port}`;
+/** The order of a clean stop: no new requests, then the jobs in flight, then the outbox. */
+const STOP_ORDER = ['api', 'worker', 'mail-catcher'];
 
 function say(message: string) {
   process.stdout.write(`[counterpoise] ${message}\n`);
 }
 
+function rel(file: string) {
+  return path.relative(root, file) || file;
+}
+
 let stopServices: () => void = () => undefined;
-let children: Managed[] = [];
+let lock: DeskLock | null = null;
+let supervisor: Supervisor | null = null;
 let stopping = false;
 
 async function shutdown(code: number) {
   if (stopping) return;
   stopping = true;
   say('stopping…');
-  await stopAll(children);
+  await supervisor?.stopAll(STOP_ORDER);
   stopServices();
+  lock?.release();
   say('stopped');
   process.exit(code);
 }
 
+/** Processes a crashed desk of this data folder left behind: stopped, they hold its ports. */
+async function stopLeftovers(previous: LockInfo) {
+  const scripts: Record<string, string> = {
+    api: 'server/index.ts',
+    worker: 'worker/index.ts',
+    'mail-catcher': 'server/mail-catcher.ts',
+  };
+  for (const [name, pid] of Object.entries(previous.processes ?? {})) {
+    const script = scripts[name];
+    // A recycled pid running something else is not ours to stop.
+    if (!script || !commandOf(pid).includes(script)) continue;
+    say(`stopping the ${name} (pid ${pid}) that the previous desk left running`);
+    const signal = (s: NodeJS.Signals) => {
+      try {
+        process.kill(pid, s);
+      } catch {
+        /* already gone */
+      }
+    };
+    signal('SIGTERM');
+    const until = Date.now() + 10_000;
+    while (Date.now() < until && commandOf(pid).includes(script))
+      await new Promise((r) => setTimeout(r, 100));
+    if (commandOf(pid).includes(script)) signal('SIGKILL');
+  }
+}
+
+async function checkPorts() {
+  const embeddedPg = !process.env.DATABASE_URL && !postmasterPid(path.join(dataDir, 'pg'));
+  const embeddedRedis = !process.env.REDIS_URL && !readPid(path.join(dataDir, 'redis', 'redis.pid'));
+  const ports = [
+    { port, variable: 'PORT' },
+    ...(embeddedPg ? [{ port: Number(process.env.CP_PG_PORT ?? 54329), variable: 'CP_PG_PORT' }] : []),
+    ...(embeddedRedis
+      ? [{ port: Number(process.env.CP_REDIS_PORT ?? 56379), variable: 'CP_REDIS_PORT' }]
+      : []),
+    ...(process.env.SMTP_URL
+      ? []
+      : [{ port: Number(process.env.CP_SMTP_PORT ?? 55025), variable: 'CP_SMTP_PORT' }]),
+  ];
+  const taken = await firstTakenPort(ports);
+  if (taken) throw new StepError('check ports', taken);
+}
+
 async function main() {
+  try {
+    lock = acquireLock(dataDir, address);
+  } catch (error) {
+    if (error instanceof AlreadyRunning) {
+      process.stderr.write(
+        `[counterpoise] ${error.message} (data folder ${rel(dataDir)}); stop that desk first or give this one its own DATA_DIR.\n`,
+      );
+      process.exit(1);
+    }
+    throw error;
+  }
   process.on('SIGINT', () => void shutdown(0));
   process.on('SIGTERM', () => void shutdown(0));
+  process.on('SIGHUP', () => void shutdown(0));
+  if (lock.previous) {
+    say(`took over the lock of a desk that is no longer running (pid ${lock.previous.pid})`);
+    await stopLeftovers(lock.previous);
+  }
+  await checkPorts();
   fs.mkdirSync(logDir, { recursive: true });
 
   if (process.env.SKIP_CLIENT_BUILD !== '1') {
@@ -42,17 +118,19 @@ async function main() {
     const r = spawnSync(
       process.execPath,
       [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'],
-      {
-        stdio: ['ignore', 'inherit', 'inherit'],
-      },
+      { stdio: ['ignore', 'inherit', 'inherit'] },
     );
-    if (r.status !== 0)
-      throw Object.assign(new Error('vite build failed (see the output above)'), {
-        step: 'build the client',
-      });
+    if (r.status !== 0) throw new StepError('build the client', 'vite build failed (see the output above)');
   }
 
-  const stack = await prepareStack({ dataDir, root, say, onStarted: (stop) => (stopServices = stop) });
+  const stack = await prepareStack({
+    dataDir,
+    root,
+    say,
+    onStarted: (stop) => (stopServices = stop),
+    adopt: lock.previous?.services ?? [],
+  });
+  lock.update({ services: stack.services });
   const env: NodeJS.ProcessEnv = {
     ...stack.env,
     NODE_ENV: process.env.NODE_ENV ?? 'production',
@@ -60,53 +138,53 @@ async function main() {
     HOST: host,
   };
   const tsx = ['--import', 'tsx'];
-  children = [];
-  const catcher = startMailCatcherIfNeeded(env, say, path.join(logDir, 'mail.log'));
-  if (catcher) children.push(catcher);
-  children.push(
-    startProcess(
-      'api',
-      process.execPath,
-      [...tsx, 'server/index.ts'],
-      { ...env, CP_SERVICE: 'api' },
-      path.join(logDir, 'api.log'),
-    ),
-    startProcess(
-      'worker',
-      process.execPath,
-      [...tsx, 'worker/index.ts'],
-      { ...env, CP_SERVICE: 'worker' },
-      path.join(logDir, 'worker.log'),
-    ),
+  const specs: ProcessSpec[] = [];
+  const catcher = mailCatcherSpec(env, say, path.join(logDir, 'mail.log'));
+  if (catcher) specs.push(catcher);
+  specs.push(
+    {
+      name: 'api',
+      command: process.execPath,
+      args: [...tsx, 'server/index.ts'],
+      env: { ...env, CP_SERVICE: 'api' },
+      logFile: path.join(logDir, 'api.log'),
+    },
+    {
+      name: 'worker',
+      command: process.execPath,
+      args: [...tsx, 'worker/index.ts'],
+      env: { ...env, CP_SERVICE: 'worker' },
+      logFile: path.join(logDir, 'worker.log'),
+    },
   );
-  for (const c of children) {
-    c.child.once('exit', (code, signal) => {
-      if (stopping) return;
-      process.stderr.write(
-        `[counterpoise] ${c.name} exited (${signal ?? code}). See ${path.relative(root, c.logFile ?? '')}.\n`,
-      );
-      void shutdown(1);
-    });
-  }
-  const address = `http://${host}:${port}`;
+  supervisor = new Supervisor({
+    say: (m) => (m.includes('unexpectedly') ? process.stderr.write(`[counterpoise] ${m}\n`) : say(m)),
+    onGiveUp: () => void shutdown(1),
+    onPids: (pids) => lock?.update({ processes: pids }),
+  });
+  for (const spec of specs) supervisor.start({ ...spec, logFile: spec.logFile && rel(spec.logFile) });
   try {
-    await waitForHealth(`${address}/api/health`, 60_000, () =>
-      children.every((c) => c.child.exitCode === null),
-    );
+    await waitForHealth(`${address}/api/health`, 90_000, () => !supervisor?.gaveUp);
   } catch (error) {
-    throw Object.assign(error as Error, { step: 'start the API', logFile: path.join(logDir, 'api.log') });
+    throw new StepError('start the API', (error as Error).message, path.join(logDir, 'api.log'));
   }
   say(`ready: ${address}`);
-  say(`logs: ${path.relative(root, logDir)}/api.log and worker.log`);
+  say(`logs: ${rel(logDir)}/api.log, worker.log and mail.log`);
   say(`demo accounts (password "${DEMO_PASSWORD}"):`);
   for (const a of DEMO_ACCOUNTS)
     say(`  ${a.role.padEnd(10)} ${a.email.padEnd(40)} ${a.name}, ${a.organisation}`);
-  say(`Ctrl-C stops the API, the worker${stack.embedded ? ', PostgreSQL and Redis' : ''}.`);
+  const servers = stack.services.map((s) => (s === 'postgres' ? 'PostgreSQL' : 'Redis'));
+  say(`Ctrl-C stops the API, the worker${servers.length ? ` and ${servers.join(' and ')}` : ''}.`);
 }
+
+process.on('uncaughtException', (error) => {
+  process.stderr.write(`[counterpoise] the launcher failed: ${error.message}\n`);
+  void shutdown(1);
+});
 
 main().catch(async (error) => {
   const e = error as Error & { step?: string; logFile?: string };
-  const log = e.logFile ? ` See ${path.relative(root, e.logFile)}.` : '';
+  const log = e.logFile ? ` See ${rel(e.logFile)}.` : '';
   process.stderr.write(`[counterpoise] step "${e.step ?? 'start'}" failed: ${e.message}.${log}\n`);
   await shutdown(1);
 });

@@ -9,6 +9,7 @@ import path from 'node:path';
 import {
   ensurePackages,
   freePort,
+  packagesFor,
   startPostgres,
   startRedis,
   type PostgresHandle,
@@ -62,7 +63,8 @@ async function main(): Promise<number> {
   };
   const needPostgres = !process.env.DATABASE_URL;
   const needRedis = !process.env.REDIS_URL;
-  ensurePackages({ postgres: needPostgres, redis: needRedis, chromium: true });
+  // Every program the tests spawn (pdftotext, qpdf, Chromium...) comes from the install list.
+  ensurePackages(packagesFor('test', { postgres: needPostgres, redis: needRedis }), say);
   if (needPostgres || needRedis) {
     tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'counterpoise-test-'));
     fs.chmodSync(tmp, 0o755);
@@ -171,7 +173,8 @@ main()
     process.exit(code);
   })
   .catch((error) => {
-    process.stderr.write(`[test] ${(error as Error).message}\n`);
+    const e = error as Error & { step?: string };
+    process.stderr.write(`[test] ${e.step ? `step "${e.step}" failed: ` : ''}${e.message}\n`);
     cleanup();
     process.exit(1);
   });

@@ -14,6 +14,7 @@ import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { adminRoutes } from './modules/admin/routes';
 import { authRoutes } from './modules/auth/routes';
 import { calculationRoutes } from './modules/calculations/routes';
+import { checkRunRoutes } from './modules/check-runs/routes';
 import { healthRoutes } from './modules/health/routes';
 import { packageRoutes } from './modules/packages/routes';
 import { profileRoutes } from './modules/profile/routes';
@@ -55,6 +56,7 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
 
   app.use('/api', healthRoutes(ctx));
   app.use('/api', authRoutes(ctx));
+  app.use('/api', checkRunRoutes(ctx));
   app.use('/api', packageRoutes(ctx));
   app.use('/api', adminRoutes(ctx));
   app.use('/api', siteRoutes(ctx));

@@ -5,7 +5,8 @@ import type { Redis } from 'ioredis';
 import type { AppContext } from './context';
 import { loadConfig, type Config } from './config';
 import { createDataSource } from './db/data-source';
-import { createQueues } from './lib/queues';
+import { logger } from './lib/logger';
+import { createQueues, type QueueOptions } from './lib/queues';
 import { createRedis } from './lib/redis';
 import { LocalFolderStorage } from './lib/storage';
 import path from 'node:path';
@@ -36,7 +37,10 @@ async function pingRedis(redis: Redis, url: string) {
   }
 }
 
-export async function connect(config: Config = loadConfig()): Promise<AppContext> {
+export async function connect(
+  config: Config = loadConfig(),
+  queueOptions: QueueOptions = {},
+): Promise<AppContext> {
   const dataSource = createDataSource(config.DATABASE_URL);
   try {
     await dataSource.initialize();
@@ -52,7 +56,7 @@ export async function connect(config: Config = loadConfig()): Promise<AppContext
   const queueConnection = createRedis(config.REDIS_URL, { forWorker: true });
   void queueConnection.connect().catch(() => undefined);
   queueConnection.on('error', () => undefined);
-  const queues = createQueues(queueConnection, config.REDIS_PREFIX);
+  const queues = createQueues(queueConnection, config.REDIS_PREFIX, queueOptions);
   const passport = createPassport(dataSource, config.JWT_SECRET);
   return {
     config,
@@ -68,4 +72,21 @@ export async function connect(config: Config = loadConfig()): Promise<AppContext
       if (dataSource.isInitialized) await dataSource.destroy();
     },
   } as AppContext & { close(): Promise<void> };
+}
+
+/**
+ * The last line of defence in the API and the worker: a rejected promise nobody awaited is
+ * logged and the process carries on; an exception nobody caught leaves the process in an
+ * unknown state, so it is logged and the process closes (the launcher starts it again).
+ */
+export function handleProcessEvents(name: string, close: (code: number) => Promise<void> | void) {
+  process.on('unhandledRejection', (reason) => {
+    logger.error({ err: reason, service: name }, 'unhandled rejection (logged, the process carries on)');
+  });
+  process.on('uncaughtException', (error) => {
+    logger.fatal({ err: error, service: name }, 'uncaught exception: closing');
+    // Closing itself may hang on the fault that caused this.
+    setTimeout(() => process.exit(1), 10_000).unref();
+    void close(1);
+  });
 }

@@ -1,8 +1,14 @@
-// The API process: connect, listen, and close everything on SIGTERM/SIGINT.
+// The API process: connect, listen, and close on SIGTERM/SIGINT (stop taking requests,
+// let those under way finish within a time limit, then close the connections).
 import { loadConfig } from './config';
 import { createApp } from './app';
-import { connect, StartupError } from './bootstrap';
+import { connect, handleProcessEvents, StartupError } from './bootstrap';
 import { logger } from './lib/logger';
+
+const CLOSE_LIMIT_MS = 8_000;
+
+let close: (code: number) => Promise<void> = async (code) => process.exit(code);
+handleProcessEvents('api', (code) => close(code));
 
 async function main() {
   let config;
@@ -17,21 +23,29 @@ async function main() {
   const server = app.listen(config.PORT, config.HOST, () => {
     logger.info({ url: `http://${config.HOST}:${config.PORT}` }, 'API listening');
   });
+  server.on('error', (err: NodeJS.ErrnoException) => {
+    logger.fatal(
+      { err },
+      err.code === 'EADDRINUSE' ? `port ${config.PORT} is taken` : 'API could not listen',
+    );
+    void close(1);
+  });
   let closing = false;
-  const shutdown = async (signal: string) => {
+  close = async (code: number) => {
     if (closing) return;
     closing = true;
-    logger.info({ signal }, 'API closing');
-    server.close();
+    logger.info({ code }, 'API closing');
+    await Promise.race([
+      new Promise<void>((r) => server.close(() => r())),
+      new Promise<void>((r) => setTimeout(r, CLOSE_LIMIT_MS).unref()),
+    ]);
     server.closeAllConnections?.();
-    await ctx.close?.();
-    process.exit(0);
+    await ctx.close?.().catch(() => undefined);
+    process.exit(code);
   };
-  process.on('SIGTERM', () => void shutdown('SIGTERM'));
-  process.on('SIGINT', () => void shutdown('SIGINT'));
+  process.on('SIGTERM', () => void close(0));
+  process.on('SIGINT', () => void close(0));
 }
-
-process.on('unhandledRejection', (reason) => logger.error({ err: reason }, 'unhandled rejection'));
 
 main().catch((error) => {
   if (error instanceof StartupError) {

@@ -1,68 +1,80 @@
-// The worker process: takes jobs off the BullMQ queues and closes cleanly on SIGTERM,
-// letting running jobs finish (a killed worker's job is picked up again by BullMQ's
-// stalled-job check).
+// The worker process: takes jobs off the BullMQ queues, runs the job hand-off's relay (at
+// start and every few seconds) so no job waits for ever between the database and the
+// queue, and closes on SIGTERM within a time limit: running jobs get that long to finish,
+// and any still running then are picked up again by BullMQ's stalled-job check.
 import 'reflect-metadata';
 import type { Worker } from 'bullmq';
-import { connect, StartupError } from '../server/bootstrap';
+import { connect, handleProcessEvents, StartupError } from '../server/bootstrap';
 import { loadConfig } from '../server/config';
 import { logger } from '../server/lib/logger';
 import { createRedis } from '../server/lib/redis';
-import { enqueueCheck } from '../server/modules/packages/drafts';
-import { Revision } from '../server/modules/packages/package.entity';
-import { startCheckRunWorker } from './tasks/check-run-task';
-import { startStampWorker } from './tasks/stamp-return-task';
-import { startMailWorker } from './tasks/mail-task';
-import { scheduleReminders, startRemindersWorker } from './tasks/reminders-task';
-import { requeueWaitingMail } from '../server/modules/mail/service';
+import type { Intent } from '../server/modules/jobs/intents';
+import { startRelay, type FinalFailure } from '../server/modules/jobs/relay';
+import { checkRunTask } from './tasks/check-run-task';
+import { mailTask } from './tasks/mail-task';
+import { remindersTask, scheduleReminders } from './tasks/reminders-task';
+import { stampTask } from './tasks/stamp-return-task';
+import { startTask, type TaskDefinition } from './tasks/task';
+
+/** How often the relay looks for job intents without a job. */
+const RELAY_INTERVAL_MS = 5_000;
+/** How long SIGTERM waits for running jobs (the start command waits a little longer). */
+const CLOSE_LIMIT_MS = 10_000;
+
+let close: (code: number) => Promise<void> = async (code) => process.exit(code);
+handleProcessEvents('worker', (code) => close(code));
 
 async function main() {
   const config = loadConfig();
   const ctx = await connect(config);
   const connection = createRedis(config.REDIS_URL, { forWorker: true });
-  const workers: Worker[] = [
-    startCheckRunWorker(ctx, connection, config.CHECK_CONCURRENCY),
-    startStampWorker(ctx, connection, 1),
-    startRemindersWorker(ctx, connection),
+  connection.on('error', () => undefined);
+  const tasks: Array<TaskDefinition<Record<string, string>>> = [
+    checkRunTask(ctx, config.CHECK_CONCURRENCY),
+    stampTask(ctx, 1),
+    remindersTask(ctx),
   ];
-  if (config.SMTP_URL) workers.push(startMailWorker(ctx, connection, config.SMTP_URL));
+  if (config.SMTP_URL) tasks.push(mailTask(ctx, config.SMTP_URL));
   else logger.warn('SMTP_URL is not set: mail is recorded but not sent');
+  const workers: Worker[] = tasks.map((t) => startTask(ctx, connection, t));
   await scheduleReminders(ctx);
-  const mailRequeued = config.SMTP_URL ? await requeueWaitingMail(ctx.dataSource, ctx.queues, 0) : 0;
-  for (const w of workers) {
-    w.on('error', (err) => logger.error({ err, queue: w.name }, 'worker error'));
-    w.on('failed', (job, err) => logger.warn({ err, queue: w.name, jobId: job?.id }, 'job failed'));
-    w.on('completed', (job) => logger.info({ queue: w.name, jobId: job.id }, 'job completed'));
-  }
-  // Revisions submitted while Redis was unreachable (or seeded) wait in 'queued': queue them
-  // again. The job id derived from the revision makes this harmless when they are queued.
-  const waiting = await ctx.dataSource
-    .getRepository(Revision)
-    .find({ where: { state: 'submitted', checkStatus: 'queued' } });
-  for (const r of waiting) await enqueueCheck(ctx.queues, r.id);
-  logger.info(
-    {
-      queues: workers.map((w) => w.name),
-      concurrency: config.CHECK_CONCURRENCY,
-      requeued: waiting.length,
-      mailRequeued,
-    },
-    'worker ready',
-  );
+
+  const finalise: FinalFailure = async (queue, payload, reason) => {
+    await tasks.find((t) => t.queue === queue)?.onFinalFailure(payload, reason);
+  };
+  const relayed = tasks.filter((t) => t.fromIntents).map((t) => t.queue as Intent['queue']);
+  const relay = startRelay(ctx.dataSource, ctx.queues, finalise, {
+    intervalMs: RELAY_INTERVAL_MS,
+    queues: relayed,
+  });
+  await relay.settled();
+  logger.info({ queues: workers.map((w) => w.name), concurrency: config.CHECK_CONCURRENCY }, 'worker ready');
+
   let closing = false;
-  const shutdown = async (signal: string) => {
+  close = async (code: number) => {
     if (closing) return;
     closing = true;
-    logger.info({ signal }, 'worker closing');
-    await Promise.all(workers.map((w) => w.close()));
+    logger.info({ code }, 'worker closing');
+    await relay.stop();
+    const closed = Promise.all(workers.map((w) => w.close())).then(() => true);
+    const inTime = await Promise.race([
+      closed,
+      new Promise<false>((r) => setTimeout(() => r(false), CLOSE_LIMIT_MS).unref()),
+    ]);
+    if (!inTime) {
+      logger.warn(
+        { limitMs: CLOSE_LIMIT_MS },
+        'jobs still running at the time limit: left to the stalled-job check of the next worker',
+      );
+      await Promise.all(workers.map((w) => w.close(true).catch(() => undefined)));
+    }
     connection.disconnect();
-    await ctx.close?.();
-    process.exit(0);
+    await ctx.close?.().catch(() => undefined);
+    process.exit(code);
   };
-  process.on('SIGTERM', () => void shutdown('SIGTERM'));
-  process.on('SIGINT', () => void shutdown('SIGINT'));
+  process.on('SIGTERM', () => void close(0));
+  process.on('SIGINT', () => void close(0));
 }
-
-process.on('unhandledRejection', (reason) => logger.error({ err: reason }, 'unhandled rejection'));
 
 main().catch((error) => {
   if (error instanceof StartupError) process.stderr.write(`[worker] ${error.message}\n`);

@@ -3,8 +3,10 @@
 // (as root); otherwise the command stops with a message saying what to install.
 import { execFileSync, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import path from 'node:path';
+import { describePort, isPortFree } from './ports';
+
+export { freePort, isPortFree } from './ports';
 
 export class StepError extends Error {
   constructor(
@@ -32,57 +34,127 @@ export function findPostgresBin(): string | null {
   return versions.length ? path.join(base, versions[0], 'bin') : null;
 }
 
-function which(cmd: string): string | null {
-  const r = spawnSync('sh', ['-c', `command -v ${cmd}`], { encoding: 'utf8' });
-  return r.status === 0 ? r.stdout.trim() : null;
+export function which(cmd: string): string | null {
+  for (const dir of (process.env.PATH ?? '').split(':')) {
+    if (!dir) continue;
+    const file = path.join(dir, cmd);
+    try {
+      fs.accessSync(file, fs.constants.X_OK);
+      if (fs.statSync(file).isFile()) return file;
+    } catch {
+      /* not in this folder */
+    }
+  }
+  return null;
+}
+
+/** Who needs a Debian package: the start command (the product at run time) or the test command. */
+export type Purpose = 'start' | 'test';
+
+export interface DebianPackage {
+  name: string;
+  /** The programs of the package that the code or the tests spawn (tests/scripts checks this). */
+  binaries: string[];
+  purposes: Purpose[];
+  /** What it is for, said in the error when it is missing. */
+  why: string;
+  present(): boolean;
+}
+
+/**
+ * The install list: every program the product or its tests spawn comes from one of these
+ * Debian packages, installed by `npm start` / `npm test` with apt-get when missing.
+ * tests/scripts/spawned-binaries.test.ts fails when code spawns a program not listed here.
+ */
+export const DEBIAN_PACKAGES: DebianPackage[] = [
+  {
+    name: 'postgresql',
+    binaries: ['initdb', 'pg_ctl', 'postgres'],
+    purposes: ['start', 'test'],
+    why: 'the embedded database',
+    present: () => findPostgresBin() !== null,
+  },
+  {
+    name: 'redis-server',
+    binaries: ['redis-server'],
+    purposes: ['start', 'test'],
+    why: 'the embedded job queue',
+    present: () => which('redis-server') !== null,
+  },
+  {
+    name: 'qpdf',
+    binaries: ['qpdf'],
+    purposes: ['start', 'test'],
+    why: 'PDF structure work for the stamped return',
+    present: () => which('qpdf') !== null,
+  },
+  {
+    name: 'poppler-utils',
+    binaries: ['pdftotext', 'pdftoppm', 'pdfinfo'],
+    purposes: ['test'],
+    why: 'reading stamped returns back in the tests',
+    present: () => ['pdftotext', 'pdftoppm', 'pdfinfo'].every((b) => which(b) !== null),
+  },
+  {
+    name: 'chromium',
+    binaries: ['chromium'],
+    purposes: ['test'],
+    why: 'the browser tests',
+    present: () => fs.existsSync('/usr/bin/chromium'),
+  },
+];
+
+/** The packages a command needs; PostgreSQL and Redis only when they are embedded. */
+export function packagesFor(purpose: Purpose, opts: { postgres: boolean; redis: boolean }): DebianPackage[] {
+  return DEBIAN_PACKAGES.filter(
+    (p) =>
+      p.purposes.includes(purpose) &&
+      (p.name !== 'postgresql' || opts.postgres) &&
+      (p.name !== 'redis-server' || opts.redis),
+  );
 }
 
 /** Makes sure the Debian packages are present; installs them with apt-get when running as root. */
-export function ensurePackages(needs: { postgres?: boolean; redis?: boolean; chromium?: boolean }) {
-  const missing: string[] = [];
-  if (needs.postgres && !findPostgresBin()) missing.push('postgresql');
-  if (needs.redis && !which('redis-server')) missing.push('redis-server');
-  if (needs.chromium && !fs.existsSync('/usr/bin/chromium')) missing.push('chromium');
+export function ensurePackages(packages: DebianPackage[], say: (m: string) => void = log) {
+  const missing = packages.filter((p) => !p.present()).map((p) => p.name);
   if (!missing.length) return;
-  if (!isRoot || !which('apt-get')) {
+  const aptGet = which('apt-get');
+  if (!isRoot || !aptGet) {
+    const how = aptGet
+      ? `run this command as root, or install them with "sudo apt-get install -y ${missing.join(' ')}"`
+      : `install them with your system's package manager (Debian names: ${missing.join(' ')})`;
     throw new StepError(
       'install packages',
-      `Missing: ${missing.join(', ')}. Install them (Debian/Ubuntu: sudo apt-get install -y ${missing.join(' ')}), ` +
-        'or set DATABASE_URL and REDIS_URL to servers of your own.',
+      `missing Debian package${missing.length > 1 ? 's' : ''} ${missing.join(', ')}: ${how}, then start again`,
     );
   }
-  log(`installing ${missing.join(', ')} with apt-get (one time)…`);
+  say(`installing ${missing.join(', ')} with apt-get (one time)…`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-  const update = spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
-  if (update.status !== 0) throw new StepError('install packages', 'apt-get update failed');
-  const install = spawnSync('apt-get', ['install', '-y', '-qq', ...missing], { stdio: 'inherit', env });
+  // Another apt-get on the machine holds the dpkg lock for a while: wait for it.
+  const lockWait = ['-o', 'DPkg::Lock::Timeout=300'];
+  // spawns: apt-get
+  const update = spawnSync(aptGet, [...lockWait, 'update', '-qq'], { stdio: 'inherit', env });
+  if (update.status !== 0)
+    throw new StepError('install packages', 'apt-get update failed (see its output above)');
+  // spawns: apt-get
+  const install = spawnSync(aptGet, [...lockWait, 'install', '-y', '-qq', ...missing], {
+    stdio: 'inherit',
+    env,
+  });
   if (install.status !== 0)
-    throw new StepError('install packages', `apt-get install ${missing.join(' ')} failed`);
-}
-
-export async function isPortFree(port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const server = net.createServer();
-    server.once('error', () => resolve(false));
-    server.listen(port, '127.0.0.1', () => server.close(() => resolve(true)));
-  });
-}
-
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.once('error', reject);
-    server.listen(0, '127.0.0.1', () => {
-      const address = server.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      server.close(() => resolve(port));
-    });
-  });
+    throw new StepError(
+      'install packages',
+      `apt-get install ${missing.join(' ')} failed (see its output above)`,
+    );
+  const still = packages.filter((p) => !p.present()).map((p) => p.name);
+  if (still.length)
+    throw new StepError('install packages', `apt-get ran but ${still.join(', ')} is still missing`);
 }
 
 function asPostgres(bin: string, args: string[], opts: { logFile?: string } = {}) {
   const command = isRoot ? 'runuser' : bin;
   const fullArgs = isRoot ? ['-u', 'postgres', '--', bin, ...args] : args;
+  // spawns: runuser, initdb, pg_ctl (as root: runuser -u postgres -- initdb/pg_ctl)
   const r = spawnSync(command, fullArgs, { encoding: 'utf8' });
   if (r.status !== 0) {
     throw new StepError(
@@ -99,10 +171,13 @@ export interface PostgresHandle {
   port: number;
   dataDir: string;
   logFile: string;
+  /** False when a PostgreSQL was already running on this data folder: stop() leaves it alone. */
+  startedHere: boolean;
   stop(): void;
 }
 
-function postmasterPid(dataDir: string): number | null {
+/** The pid of the PostgreSQL running on dataDir, if one is. */
+export function postmasterPid(dataDir: string): number | null {
   const pidFile = path.join(dataDir, 'postmaster.pid');
   if (!fs.existsSync(pidFile)) return null;
   const pid = Number(fs.readFileSync(pidFile, 'utf8').split('\n')[0]);
@@ -120,6 +195,7 @@ export async function startPostgres(
   dataDir: string,
   port: number,
   database: string,
+  opts: { adopt?: boolean } = {},
 ): Promise<PostgresHandle> {
   const bin = findPostgresBin();
   if (!bin)
@@ -133,12 +209,12 @@ export async function startPostgres(
       logFile,
     });
   }
-  if (!postmasterPid(dataDir)) {
+  const running = postmasterPid(dataDir) !== null;
+  // A server left by this data folder's own crashed desk is adopted; any other is left alone.
+  const startedHere = !running || Boolean(opts.adopt);
+  if (!running) {
     if (!(await isPortFree(port))) {
-      throw new StepError(
-        'start PostgreSQL',
-        `port ${port} on 127.0.0.1 is taken; set CP_PG_PORT to another port`,
-      );
+      throw new StepError('start PostgreSQL', `${await describePort(port)}; set CP_PG_PORT to another port`);
     }
     asPostgres(
       path.join(bin, 'pg_ctl'),
@@ -164,9 +240,10 @@ export async function startPostgres(
     port,
     dataDir,
     logFile,
+    startedHere,
     stop() {
       const pid = postmasterPid(dataDir);
-      if (!pid) return;
+      if (!pid || !startedHere) return;
       try {
         asPostgres(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
       } catch {
@@ -201,6 +278,8 @@ async function createDatabaseIfMissing(adminUrl: string, database: string, logFi
 export interface RedisHandle {
   url: string;
   port: number;
+  /** False when a Redis was already running from this folder: stop() leaves it alone. */
+  startedHere: boolean;
   stop(): void;
 }
 
@@ -208,20 +287,18 @@ export interface RedisHandle {
 export async function startRedis(
   dir: string,
   port: number,
-  opts: { persist: boolean },
+  opts: { persist: boolean; adopt?: boolean },
 ): Promise<RedisHandle> {
   const bin = which('redis-server');
   if (!bin) throw new StepError('start Redis', 'redis-server not found');
   fs.mkdirSync(dir, { recursive: true });
   const pidFile = path.join(dir, 'redis.pid');
   const logFile = path.join(dir, 'redis.log');
-  const running = readPid(pidFile);
+  const running = readPid(pidFile) !== null;
+  const startedHere = !running || Boolean(opts.adopt);
   if (!running) {
     if (!(await isPortFree(port))) {
-      throw new StepError(
-        'start Redis',
-        `port ${port} on 127.0.0.1 is taken; set CP_REDIS_PORT to another port`,
-      );
+      throw new StepError('start Redis', `${await describePort(port)}; set CP_REDIS_PORT to another port`);
     }
     const args = [
       '--port',
@@ -242,6 +319,7 @@ export async function startRedis(
       'noeviction',
       ...(opts.persist ? ['--appendonly', 'yes', '--save', '60 1'] : ['--appendonly', 'no', '--save', '']),
     ];
+    // spawns: redis-server
     const r = spawnSync(bin, args, { encoding: 'utf8' });
     if (r.status !== 0)
       throw new StepError('start Redis', `redis-server failed: ${r.stderr || r.stdout}`, logFile);
@@ -250,21 +328,23 @@ export async function startRedis(
   return {
     url: `redis://127.0.0.1:${port}`,
     port,
+    startedHere,
     stop() {
       const pid = readPid(pidFile);
-      if (!pid) return;
+      if (!pid || !startedHere) return;
       try {
         process.kill(pid, 'SIGTERM');
       } catch {
         /* gone */
       }
       const until = Date.now() + 5000;
-      while (Date.now() < until && readPid(pidFile)) spawnSync('sleep', ['0.1']);
+      while (Date.now() < until && readPid(pidFile)) pause(100);
     },
   };
 }
 
-function readPid(pidFile: string): number | null {
+/** The live pid in a pid file, if any. */
+export function readPid(pidFile: string): number | null {
   if (!fs.existsSync(pidFile)) return null;
   const pid = Number(fs.readFileSync(pidFile, 'utf8').trim());
   if (!pid) return null;
@@ -291,4 +371,9 @@ async function waitFor(test: () => boolean, ms: number, step: string, logFile?: 
     await new Promise((r) => setTimeout(r, 100));
   }
   throw new StepError(step, `timed out after ${ms} ms`, logFile);
+}
+
+/** Blocks for ms without spawning anything (stop() is synchronous so exit handlers can call it). */
+function pause(ms: number) {
+  Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, ms);
 }

@@ -3,13 +3,24 @@
 // API and the worker run with.
 import path from 'node:path';
 import { runMigrations } from './migrate';
-import { startProcess, type Managed } from './processes';
 import { localSecret } from './secret';
-import { ensurePackages, startPostgres, startRedis, type PostgresHandle, type RedisHandle } from './services';
+import {
+  ensurePackages,
+  packagesFor,
+  startPostgres,
+  startRedis,
+  type PostgresHandle,
+  type RedisHandle,
+} from './services';
+import type { ProcessSpec } from './supervisor';
 
 export interface Stack {
   env: NodeJS.ProcessEnv;
   embedded: boolean;
+  /** The embedded servers this run started (or adopted), which stop() stops. */
+  services: string[];
+  /** The embedded servers found running and left alone. */
+  foundRunning: string[];
   stop(): void;
 }
 
@@ -19,6 +30,8 @@ export async function prepareStack(opts: {
   say: (message: string) => void;
   /** Registers the handles as soon as each server is up, so a later failure still stops them. */
   onStarted: (stop: () => void) => void;
+  /** Servers the stale lock says its crashed desk started: adopted instead of left alone. */
+  adopt?: string[];
 }): Promise<Stack> {
   const { dataDir, root, say } = opts;
   let postgres: PostgresHandle | null = null;
@@ -31,12 +44,14 @@ export async function prepareStack(opts: {
 
   let databaseUrl = process.env.DATABASE_URL;
   let redisUrl = process.env.REDIS_URL;
-  if (!databaseUrl || !redisUrl) ensurePackages({ postgres: !databaseUrl, redis: !redisUrl });
+  ensurePackages(packagesFor('start', { postgres: !databaseUrl, redis: !redisUrl }), say);
+  const adopt = opts.adopt ?? [];
   if (!databaseUrl) {
     postgres = await startPostgres(
       path.join(dataDir, 'pg'),
       Number(process.env.CP_PG_PORT ?? 54329),
       'counterpoise',
+      { adopt: adopt.includes('postgres') },
     );
     databaseUrl = postgres.url;
     say(`PostgreSQL on 127.0.0.1:${postgres.port} (data in ${path.relative(root, postgres.dataDir)})`);
@@ -44,6 +59,7 @@ export async function prepareStack(opts: {
   if (!redisUrl) {
     redis = await startRedis(path.join(dataDir, 'redis'), Number(process.env.CP_REDIS_PORT ?? 56379), {
       persist: true,
+      adopt: adopt.includes('redis'),
     });
     redisUrl = redis.url;
     say(`Redis on 127.0.0.1:${redis.port}`);
@@ -62,8 +78,20 @@ export async function prepareStack(opts: {
   );
   say(seeded ? 'demo scenario seeded' : 'demo data already present, reused');
 
+  const handles = [
+    ['postgres', postgres],
+    ['redis', redis],
+  ] as const;
+  const services = handles.filter(([, h]) => h?.startedHere).map(([n]) => n);
+  const foundRunning = handles.filter(([, h]) => h && !h.startedHere).map(([n]) => n);
+  for (const n of foundRunning)
+    say(
+      `${n === 'postgres' ? 'PostgreSQL' : 'Redis'} was already running on this data folder: used, and left running at the end`,
+    );
   return {
     embedded: Boolean(postgres || redis),
+    services,
+    foundRunning,
     stop,
     env: {
       ...process.env,
@@ -86,23 +114,23 @@ async function withStep<T>(step: string, fn: () => Promise<T>): Promise<T> {
 }
 
 /**
- * Without SMTP_URL, runs the local fake SMTP server (mail goes over real SMTP and is kept
- * for the outbox page) and points env.SMTP_URL at it.
+ * Without SMTP_URL, the local fake SMTP server (mail goes over real SMTP and is kept for the
+ * outbox page) to run beside the API; points env.SMTP_URL at it.
  */
-export function startMailCatcherIfNeeded(
+export function mailCatcherSpec(
   env: NodeJS.ProcessEnv,
   say: (m: string) => void,
   logFile?: string,
-): Managed | null {
+): ProcessSpec | null {
   if (process.env.SMTP_URL) return null;
   const smtpPort = Number(process.env.CP_SMTP_PORT ?? 55025);
   env.SMTP_URL = `smtp://127.0.0.1:${smtpPort}`;
   say(`local outbox (fake SMTP) on 127.0.0.1:${smtpPort}; admins read it at /admin/mail`);
-  return startProcess(
-    'mail-catcher',
-    process.execPath,
-    ['--import', 'tsx', 'server/mail-catcher.ts'],
-    { ...env, CP_SERVICE: 'mail-catcher', CP_SMTP_PORT: String(smtpPort) },
+  return {
+    name: 'mail-catcher',
+    command: process.execPath,
+    args: ['--import', 'tsx', 'server/mail-catcher.ts'],
+    env: { ...env, CP_SERVICE: 'mail-catcher', CP_SMTP_PORT: String(smtpPort) },
     logFile,
-  );
+  };
 }

@@ -10,17 +10,14 @@ export const QUEUE_NAMES = {
   reminders: 'reminders',
 } as const;
 
-export interface CheckRunJob {
-  revisionId: string;
-}
+// Type aliases rather than interfaces, so they are plain string records for the task wrapper.
+export type CheckRunJob = { revisionId: string };
 
-export interface StampJob {
-  returnId: string;
-}
+export type StampJob = { returnId: string };
 
-export interface MailJob {
-  messageId: string;
-}
+export type MailJob = { messageId: string };
+
+export type QueueName = (typeof QUEUE_NAMES)[keyof typeof QUEUE_NAMES];
 
 export interface Queues {
   mail: Queue<MailJob>;
@@ -38,24 +35,37 @@ const JOB_DEFAULTS = {
   removeOnFail: { age: 30 * 24 * 3600 },
 } as const;
 
-export function createQueues(connection: Redis, prefix: string): Queues {
+export interface QueueOptions {
+  /** First retry pause (doubling after each attempt); tests shorten it. */
+  backoffMs?: number;
+}
+
+export function createQueues(connection: Redis, prefix: string, opts: QueueOptions = {}): Queues {
+  const defaults = {
+    ...JOB_DEFAULTS,
+    backoff: { type: 'exponential', delay: opts.backoffMs ?? JOB_DEFAULTS.backoff.delay },
+  };
   const checkRun = new Queue<CheckRunJob>(QUEUE_NAMES.checkRun, {
     connection,
     prefix,
-    defaultJobOptions: JOB_DEFAULTS,
+    defaultJobOptions: defaults,
   });
   const stamp = new Queue<StampJob>(QUEUE_NAMES.stamp, {
     connection,
     prefix,
-    defaultJobOptions: JOB_DEFAULTS,
+    defaultJobOptions: defaults,
   });
   const mail = new Queue<MailJob>(QUEUE_NAMES.mail, {
     connection,
     prefix,
     // Mail servers fail for minutes at a time: more attempts, longer backoff.
-    defaultJobOptions: { ...JOB_DEFAULTS, attempts: 8, backoff: { type: 'exponential', delay: 5000 } },
+    defaultJobOptions: {
+      ...defaults,
+      attempts: 8,
+      backoff: { type: 'exponential', delay: opts.backoffMs ?? 5000 },
+    },
   });
-  const reminders = new Queue(QUEUE_NAMES.reminders, { connection, prefix, defaultJobOptions: JOB_DEFAULTS });
+  const reminders = new Queue(QUEUE_NAMES.reminders, { connection, prefix, defaultJobOptions: defaults });
   return {
     checkRun,
     stamp,
@@ -67,7 +77,29 @@ export function createQueues(connection: Redis, prefix: string): Queues {
   };
 }
 
-/** The one job id of a revision's check run: repeated submits and retries cannot run it twice. */
-export function checkRunJobId(revisionId: string): string {
-  return `check-${revisionId}`;
+/**
+ * The job id of a revision's check run: repeated submits and relays cannot run it twice.
+ * A run asked for again after a final failure is round 2, 3…, with its own id.
+ */
+export function checkRunJobId(revisionId: string, round = 1): string {
+  return round > 1 ? `check-${revisionId}-r${round}` : `check-${revisionId}`;
+}
+
+/** Names of the jobs on each queue (BullMQ's job name, shown in its tools). */
+export const JOB_NAMES: Record<QueueName, string> = {
+  'check-run': 'check-run',
+  'stamp-return': 'stamp-return',
+  mail: 'send',
+  reminders: 'daily-reminders',
+};
+
+/** Rejects after ms: a call to a Redis that is down must not hold a request. */
+export function withTimeout<T>(promise: Promise<T>, ms: number, what: string): Promise<T> {
+  let timer: NodeJS.Timeout;
+  return Promise.race([
+    promise,
+    new Promise<T>((_, reject) => {
+      timer = setTimeout(() => reject(new Error(`${what}: no answer from Redis within ${ms} ms`)), ms);
+    }),
+  ]).finally(() => clearTimeout(timer));
 }

@@ -1,5 +1,7 @@
-// One error handler: AppError and zod errors become the JSON error shape; anything else
-// is logged with its stack and answered with a plain 500. Clients never see a stack trace.
+// One error handler: AppError and zod errors become the JSON error shape; a database or
+// Redis that does not answer is an outage (503, one code each, so clients and load
+// balancers can tell it from a bug); anything else is logged with its stack and answered
+// with a plain 500. Clients never see a stack trace.
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { AppError, fromZod } from '../lib/app-error';
@@ -9,10 +11,61 @@ export const notFoundHandler: RequestHandler = (req, _res, next) => {
   next(new AppError(404, 'not_found', `No route ${req.method} ${req.path}.`));
 };
 
+/** SQLSTATE classes and codes that mean the database is away, not that the query is wrong. */
+const DB_DOWN_CODES = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EHOSTUNREACH',
+  'ENOTFOUND',
+  'EPIPE',
+  '57P01',
+  '57P02',
+  '57P03',
+  '53300',
+]);
+const DB_DOWN_TEXT =
+  /Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error|the database system is (starting up|shutting down)|terminating connection due to administrator command/i;
+const REDIS_DOWN_TEXT =
+  /Stream isn't writeable|Connection is closed|MaxRetriesPerRequest|no answer from Redis/i;
+
+/** The AppError for an error that means PostgreSQL or Redis is away, or null. */
+export function outageOf(err: unknown): AppError | null {
+  const e = err as {
+    code?: string;
+    message?: string;
+    name?: string;
+    driverError?: { code?: string; message?: string };
+  };
+  if (!e || typeof e !== 'object') return null;
+  const message = `${e.message ?? ''} ${e.driverError?.message ?? ''}`;
+  if (e.name === 'MaxRetriesPerRequestError' || REDIS_DOWN_TEXT.test(message)) {
+    return new AppError(
+      503,
+      'queue_unavailable',
+      'The job queue (Redis) is not answering. Try again in a minute; nothing stored was lost.',
+    );
+  }
+  const code = e.driverError?.code ?? e.code ?? '';
+  if (DB_DOWN_CODES.has(code) || code.startsWith('08') || DB_DOWN_TEXT.test(message)) {
+    return new AppError(
+      503,
+      'database_unavailable',
+      'The database is not answering. Try again in a minute; nothing stored was lost.',
+    );
+  }
+  return null;
+}
+
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   let error: AppError;
+  const outage = outageOf(err);
   if (err instanceof AppError) error = err;
-  else if (err instanceof ZodError) error = fromZod(err);
+  else if (outage) {
+    (req.log ?? logger).warn({ err: { message: err?.message, code: err?.code } }, outage.code);
+    error = outage;
+    res.setHeader('Retry-After', '10');
+  } else if (err instanceof ZodError) error = fromZod(err);
   else if (err?.type === 'entity.parse.failed') {
     error = new AppError(400, 'invalid_json', `The request body is not valid JSON: ${err.message}`);
   } else if (err?.type === 'entity.too.large') {

@@ -1,21 +1,19 @@
 // check-run jobs: { revisionId } → the engine's results stored against the revision.
 // Bad lift data fails at once (UnrecoverableError) with the reason the contractor sees;
-// database or Redis faults are retried with backoff by BullMQ.
-import { UnrecoverableError, Worker } from 'bullmq';
+// database or Redis faults are retried with backoff; when the last attempt fails the
+// revision shows "check could not run" with the reason and can be run again.
 import type { Redis } from 'ioredis';
 import type { AppContext } from '../../server/context';
 import { QUEUE_NAMES, type CheckRunJob } from '../../server/lib/queues';
-import { InvalidLiftData, runCheck } from '../../server/modules/check-runs/service';
+import { InvalidLiftData, markCheckFailed, runCheck } from '../../server/modules/check-runs/service';
+import { startTask, UnrecoverableError, type TaskDefinition, type TaskTiming } from './task';
 
-export function startCheckRunWorker(
-  ctx: AppContext,
-  connection: Redis,
-  concurrency: number,
-  timing: { stalledInterval?: number; lockDuration?: number } = {},
-) {
-  return new Worker<CheckRunJob>(
-    QUEUE_NAMES.checkRun,
-    async (job) => {
+export function checkRunTask(ctx: AppContext, concurrency: number): TaskDefinition<CheckRunJob> {
+  return {
+    queue: QUEUE_NAMES.checkRun,
+    concurrency,
+    fromIntents: true,
+    async run(job) {
       try {
         const outcome = await runCheck(ctx.dataSource, job.data.revisionId, (percent, step) =>
           job.updateProgress({ percent, step }),
@@ -26,13 +24,15 @@ export function startCheckRunWorker(
         throw error;
       }
     },
-    {
-      connection,
-      prefix: ctx.config.REDIS_PREFIX,
-      concurrency,
-      stalledInterval: timing.stalledInterval ?? 15_000,
-      lockDuration: timing.lockDuration ?? 30_000,
-      maxStalledCount: 2,
-    },
-  );
+    onFinalFailure: (data, reason) => markCheckFailed(ctx.dataSource, data.revisionId, reason),
+  };
+}
+
+export function startCheckRunWorker(
+  ctx: AppContext,
+  connection: Redis,
+  concurrency: number,
+  timing: TaskTiming = {},
+) {
+  return startTask(ctx, connection, checkRunTask(ctx, concurrency), timing);
 }

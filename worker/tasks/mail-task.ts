@@ -1,21 +1,39 @@
-// mail jobs: { messageId } → one message sent over SMTP. Retried with backoff by BullMQ;
-// the last failed attempt leaves the message marked failed for admins to see.
-import { Worker } from 'bullmq';
+// mail jobs: { messageId } → one message sent over SMTP. Retried with backoff; when the
+// last attempt fails the message is marked failed on the outbox page, where admins see it.
 import type { Redis } from 'ioredis';
 import type { AppContext } from '../../server/context';
 import { QUEUE_NAMES, type MailJob } from '../../server/lib/queues';
 import { sendStaged } from '../../server/modules/mail/sender';
+import { startTask, type TaskDefinition, type TaskTiming } from './task';
 
-export function startMailWorker(ctx: AppContext, connection: Redis, smtpUrl: string) {
-  return new Worker<MailJob>(
-    QUEUE_NAMES.mail,
-    async (job) => {
+export function mailTask(ctx: AppContext, smtpUrl: string): TaskDefinition<MailJob> {
+  return {
+    queue: QUEUE_NAMES.mail,
+    concurrency: 4,
+    fromIntents: true,
+    async run(job) {
       const attempts = job.opts.attempts ?? 1;
       return sendStaged(ctx.dataSource, smtpUrl, ctx.config.MAIL_FROM, job.data.messageId, {
         number: job.attemptsMade + 1,
         last: job.attemptsMade + 1 >= attempts,
       });
     },
-    { connection, prefix: ctx.config.REDIS_PREFIX, concurrency: 4 },
-  );
+    async onFinalFailure(data, reason) {
+      // sendStaged marks its own last attempt; this covers a job that never got that far.
+      await ctx.dataSource.query(
+        `UPDATE mail_messages SET status = 'failed', last_error = coalesce(last_error, $2)
+         WHERE id = $1 AND status = 'queued'`,
+        [data.messageId, reason.slice(0, 1000)],
+      );
+    },
+  };
+}
+
+export function startMailWorker(
+  ctx: AppContext,
+  connection: Redis,
+  smtpUrl: string,
+  timing: TaskTiming = {},
+) {
+  return startTask(ctx, connection, mailTask(ctx, smtpUrl), timing);
 }

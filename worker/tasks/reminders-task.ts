@@ -1,12 +1,13 @@
 // The daily reminder run, a BullMQ job scheduler (REMINDER_CRON in REMINDER_TIME_ZONE).
-// It also re-queues mail left waiting, so a message staged just before a crash still goes.
-import { Worker } from 'bullmq';
+// Its messages go through the job hand-off like every other message.
 import type { Redis } from 'ioredis';
 import { appUrl } from '../../server/config';
 import type { AppContext } from '../../server/context';
+import { logger } from '../../server/lib/logger';
 import { QUEUE_NAMES } from '../../server/lib/queues';
 import { stageReminders } from '../../server/modules/mail/reminders';
-import { dispatchMail, requeueWaitingMail } from '../../server/modules/mail/service';
+import { dispatchMail } from '../../server/modules/mail/service';
+import { startTask, type TaskDefinition } from './task';
 
 export function todayIn(timeZone: string, now = new Date()): string {
   return new Intl.DateTimeFormat('en-CA', {
@@ -25,10 +26,12 @@ export async function scheduleReminders(ctx: AppContext) {
   );
 }
 
-export function startRemindersWorker(ctx: AppContext, connection: Redis) {
-  return new Worker(
-    QUEUE_NAMES.reminders,
-    async () => {
+export function remindersTask(ctx: AppContext): TaskDefinition<Record<string, never>> {
+  return {
+    queue: QUEUE_NAMES.reminders,
+    concurrency: 1,
+    fromIntents: false,
+    async run() {
       const ids = await stageReminders(
         ctx.dataSource,
         todayIn(ctx.config.REMINDER_TIME_ZONE),
@@ -36,9 +39,15 @@ export function startRemindersWorker(ctx: AppContext, connection: Redis) {
         appUrl(ctx.config),
       );
       await dispatchMail(ctx.queues, ids);
-      const requeued = await requeueWaitingMail(ctx.dataSource, ctx.queues);
-      return { reminders: ids.length, requeued };
+      return { reminders: ids.length };
     },
-    { connection, prefix: ctx.config.REDIS_PREFIX, concurrency: 1 },
-  );
+    async onFinalFailure(_data, reason) {
+      // Messages already staged are sent by the relay; the next run stages the next day's.
+      logger.error({ reason }, 'the daily reminder run failed for good; the next run tries again');
+    },
+  };
+}
+
+export function startRemindersWorker(ctx: AppContext, connection: Redis) {
+  return startTask(ctx, connection, remindersTask(ctx));
 }

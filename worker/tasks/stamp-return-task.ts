@@ -1,36 +1,40 @@
 // stamp-return jobs: { returnId } → the stamped PDF stored and the package returned.
 // The job id is derived from the decision, so issuing twice queues one job; a retry of a
-// finished return changes nothing.
-import { Worker } from 'bullmq';
+// finished return changes nothing. When the last attempt fails the reviewer sees why and
+// can issue it again.
 import type { Redis } from 'ioredis';
 import { appUrl } from '../../server/config';
 import type { AppContext } from '../../server/context';
 import { QUEUE_NAMES, type StampJob } from '../../server/lib/queues';
 import { dispatchMail } from '../../server/modules/mail/service';
 import { buildReturn, markReturnFailed } from '../../server/modules/returns/service';
+import { startTask, type TaskDefinition, type TaskTiming } from './task';
 
-export function startStampWorker(ctx: AppContext, connection: Redis, concurrency: number) {
-  return new Worker<StampJob>(
-    QUEUE_NAMES.stamp,
-    async (job) => {
-      let outcome: Awaited<ReturnType<typeof buildReturn>>;
-      try {
-        outcome = await buildReturn(
-          ctx.dataSource,
-          ctx.storage,
-          job.data.returnId,
-          appUrl(ctx.config),
-          (percent, step) => job.updateProgress({ percent, step }),
-        );
-      } catch (error) {
-        if (job.attemptsMade + 1 >= (job.opts.attempts ?? 1)) {
-          await markReturnFailed(ctx.dataSource, job.data.returnId, (error as Error).message);
-        }
-        throw error;
-      }
+export function stampTask(ctx: AppContext, concurrency: number): TaskDefinition<StampJob> {
+  return {
+    queue: QUEUE_NAMES.stamp,
+    concurrency,
+    fromIntents: true,
+    async run(job) {
+      const outcome = await buildReturn(
+        ctx.dataSource,
+        ctx.storage,
+        job.data.returnId,
+        appUrl(ctx.config),
+        (percent, step) => job.updateProgress({ percent, step }),
+      );
       if (!outcome.skipped) await dispatchMail(ctx.queues, outcome.mailIds);
       return { skipped: outcome.skipped };
     },
-    { connection, prefix: ctx.config.REDIS_PREFIX, concurrency, lockDuration: 60_000 },
-  );
+    onFinalFailure: (data, reason) => markReturnFailed(ctx.dataSource, data.returnId, reason),
+  };
+}
+
+export function startStampWorker(
+  ctx: AppContext,
+  connection: Redis,
+  concurrency: number,
+  timing: TaskTiming = {},
+) {
+  return startTask(ctx, connection, stampTask(ctx, concurrency), timing);
 }

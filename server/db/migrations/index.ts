@@ -3,10 +3,12 @@ import { InitialSchema1764633600000 } from './1764633600000-initial-schema';
 import { QueueIndexes1764633700000 } from './1764633700000-queue-indexes';
 import { ReviewDesk1764640000000 } from './1764640000000-review-desk';
 import { PeopleAndMail1764650000000 } from './1764650000000-people-and-mail';
+import { JobIntents1764670000000 } from './1764670000000-job-intents';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
   QueueIndexes1764633700000,
   ReviewDesk1764640000000,
   PeopleAndMail1764650000000,
+  JobIntents1764670000000,
 ];

@@ -1,9 +1,11 @@
 // Mail goes through the queue, so a slow or failing mail server never slows a request
-// or loses a message: a row per recipient is written in the same transaction as the
-// change it reports (deduplicated by key), then a job per row sends it with retries.
-import type { DataSource, EntityManager } from 'typeorm';
+// or loses a message: a row per recipient and its job intent are written in the same
+// transaction as the change it reports (deduplicated by key), then a job per row sends it
+// with retries (queued after the commit, or by the worker's relay when Redis was away).
+import type { EntityManager } from 'typeorm';
 import { In } from 'typeorm';
 import type { Queues } from '../../lib/queues';
+import { handOff, mailIntent, recordIntent } from '../jobs/intents';
 import { User } from '../users/user.entity';
 import type { MailEvent } from './mail.entity';
 import type { Rendered } from './templates';
@@ -34,27 +36,17 @@ export async function stageMail(m: EntityManager, drafts: MailDraft[]): Promise<
         d.content.html,
       ],
     );
-    if (rows[0]) ids.push(rows[0].id);
+    if (rows[0]) {
+      ids.push(rows[0].id);
+      await recordIntent(m, mailIntent(rows[0].id));
+    }
   }
   return ids;
 }
 
-/** Queues a send job per message; the job id derived from the message makes a repeat harmless. */
+/** After the commit: queues a send job per message (bounded; the relay queues any it missed). */
 export async function dispatchMail(queues: Queues, ids: string[]) {
-  for (const id of ids) await queues.mail.add('send', { messageId: id }, { jobId: `mail-${id}` });
-}
-
-/** Messages left queued (the process stopped between commit and queueing): queue them again. */
-export async function requeueWaitingMail(ds: DataSource, queues: Queues, olderThanMs = 30_000) {
-  const rows: Array<{ id: string }> = await ds.query(
-    `SELECT id FROM mail_messages WHERE status = 'queued' AND created_at < now() - make_interval(secs => $1)`,
-    [olderThanMs / 1000],
-  );
-  await dispatchMail(
-    queues,
-    rows.map((r) => r.id),
-  );
-  return rows.length;
+  await handOff(queues, ids.map(mailIntent));
 }
 
 /** Active people of a site who review it. */

@@ -1,6 +1,7 @@
 // The contractor's side of a package: create, autosave the draft, duplicate, submit.
 // Submitting freezes the revision (a database trigger refuses later changes to its
-// inputs) and queues its check run under a job id derived from the revision.
+// inputs) and writes its check run's job intent in the same transaction; the job (id
+// derived from the revision) is queued after the commit, or by the worker's relay.
 import type { DataSource, EntityManager } from 'typeorm';
 import { LiftInput } from '@shared/schemas/lift-input';
 import type { CreatePackageBody, SaveDraftBody } from '@shared/schemas/packages';
@@ -10,7 +11,8 @@ import { AuditEvent } from '../audit/audit-event.entity';
 import { UploadedFile } from '../files/file.entity';
 import { Site } from '../sites/site.entity';
 import { LiftPackage, Revision } from './package.entity';
-import { dispatchMail, siteReviewers, stageMail, type MailDraft } from '../mail/service';
+import { checkRunIntent, handOff, mailIntent, recordIntent } from '../jobs/intents';
+import { siteReviewers, stageMail, type MailDraft } from '../mail/service';
 import { templates } from '../mail/templates';
 import { User } from '../users/user.entity';
 import { findScopedPackage } from './package-scope';
@@ -183,13 +185,14 @@ export async function submitPackage(
     });
     await m.getRepository(LiftPackage).update(pkg.id, { status: 'checking' });
     await audit(m, user, pkg.id, 'revision.submitted', { revision: revision.number });
+    await recordIntent(m, checkRunIntent(revision.id));
     return {
       revisionId: revision.id,
       mailIds: await stageSubmittedMail(m, pkg, revision.number, revision.id, appUrl),
     };
   });
-  await enqueueCheck(queues, revisionId);
-  await dispatchMail(queues, mailIds);
+  // Bounded: with Redis away the submission still answers at once, and the relay queues it.
+  await handOff(queues, [checkRunIntent(revisionId), ...mailIds.map(mailIntent)]);
 }
 
 /** Submitted: the site's reviewers; resubmitted: also the engineer who reviewed it. */

@@ -9,6 +9,7 @@ import { AppError } from '../../lib/app-error';
 import { QUEUE_NAMES, type Queues } from '../../lib/queues';
 import { sha256, type Storage } from '../../lib/storage';
 import { AuditEvent } from '../audit/audit-event.entity';
+import { handOff, latestIntent, nextRound, recordIntent, type Intent } from '../jobs/intents';
 import { stageMail } from '../mail/service';
 import { templates } from '../mail/templates';
 import { UploadedFile } from '../files/file.entity';
@@ -29,8 +30,17 @@ export function newVerificationCode(): string {
   return Array.from(bytes, (b) => BASE32[b & 31]).join('');
 }
 
-export function stampJobId(decisionId: string) {
-  return `stamp-${decisionId}`;
+export function stampJobId(decisionId: string, round = 1) {
+  return round > 1 ? `stamp-${decisionId}-r${round}` : `stamp-${decisionId}`;
+}
+
+function stampIntent(returnId: string, decisionId: string, round = 1): Intent {
+  return {
+    queue: 'stamp-return',
+    jobId: stampJobId(decisionId, round),
+    subjectId: returnId,
+    payload: { returnId },
+  };
 }
 
 function toReturn(r: StampedReturn) {
@@ -74,19 +84,33 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Express.
         action: 'return.requested',
         detail: { decision: decision.decision },
       });
-      return m.getRepository(StampedReturn).findOneByOrFail({ decisionId: decision.id });
+      const row = await m.getRepository(StampedReturn).findOneByOrFail({ decisionId: decision.id });
+      await recordIntent(m, stampIntent(row.id, decision.id));
+      return row;
+    });
+  } else if (ret.state === 'failed') {
+    // Issuing again after a failed build: a new round of the job, with its own id.
+    const failed = ret;
+    ret = await ds.transaction(async (m) => {
+      const [, changed]: [unknown[], number] = await m.query(
+        `UPDATE stamped_returns SET state = 'pending', error = NULL, progress = 0 WHERE id = $1 AND state = 'failed'`,
+        [failed.id],
+      );
+      if (changed)
+        await recordIntent(
+          m,
+          stampIntent(failed.id, decision.id, await nextRound(m, 'stamp-return', failed.id)),
+        );
+      return m.getRepository(StampedReturn).findOneByOrFail({ id: failed.id });
     });
   }
-  if (ret.state !== 'ready') {
-    // Issuing again after a failed build retries the same job; otherwise the job id keeps it single.
-    const existing = await queues.stamp.getJob(stampJobId(decision.id));
-    if (existing && (await existing.isFailed())) {
-      await ds.getRepository(StampedReturn).update(ret.id, { state: 'pending', error: null, progress: 0 });
-      await existing.retry();
-      ret = await ds.getRepository(StampedReturn).findOneByOrFail({ id: ret.id });
-    } else {
-      await queues.stamp.add('stamp-return', { returnId: ret.id }, { jobId: stampJobId(decision.id) });
-    }
+  if (ret.state === 'pending') {
+    // Bounded: with Redis away the reviewer still gets an answer, and the relay queues it.
+    const intent = await latestIntent(ds, 'stamp-return', ret.id);
+    if (intent?.state === 'pending')
+      await handOff(queues, [
+        { queue: 'stamp-return', jobId: intent.jobId, subjectId: ret.id, payload: { returnId: ret.id } },
+      ]);
   }
   return toReturn(ret);
 }
