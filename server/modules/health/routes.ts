@@ -1,5 +1,6 @@
 // GET /api/health: the database and the queue's Redis, each with a short timeout; 503
-// when either is down so a load balancer takes the process out of rotation.
+// when either is down so a load balancer takes the process out of rotation, with the same
+// error code every other route answers during that outage.
 import { Router } from 'express';
 import type { AppContext } from '../../context';
 
@@ -24,7 +25,14 @@ export function healthRoutes(ctx: AppContext): Router {
       ),
     ]);
     const ok = database.ok && queue.ok;
-    res.status(ok ? 200 : 503).json({ status: ok ? 'ok' : 'degraded', database, queue });
+    const error = !database.ok
+      ? { code: 'database_unavailable', message: 'The database is not answering.' }
+      : !queue.ok
+        ? { code: 'queue_unavailable', message: 'The job queue (Redis) is not answering.' }
+        : undefined;
+    res
+      .status(ok ? 200 : 503)
+      .json({ status: ok ? 'ok' : 'degraded', database, queue, ...(error ? { error } : {}) });
   });
   return router;
 }

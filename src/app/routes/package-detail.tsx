@@ -129,7 +129,7 @@ export default function PackageDetailRoute() {
         </div>
       )}
 
-      <CheckProgress check={current.check} />
+      <CheckProgress packageId={id} check={current.check} />
 
       <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="flex min-w-0 flex-col gap-4">

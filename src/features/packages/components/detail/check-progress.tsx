@@ -1,8 +1,12 @@
-// The check run of the current revision: queued, running (with its percent and the step
-// it has reached), done, or stopped with the reason the contractor must act on.
+// The check run of the current revision: queued (or stored and waiting for the job queue
+// to come back), running (with its percent and the step it has reached), done, stopped on
+// invalid lift data, or "could not run" with the reason and a button to run it again.
 import type { RevisionDetail } from '@shared/schemas/packages';
+import { isApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format';
+import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/page-loading';
+import { useCheckRun, useRetryCheck } from '../../api/check-run';
 
 const STEPS = [
   { upTo: 10, text: 'Loading the revision' },
@@ -17,10 +21,22 @@ export function stepFor(progress: number): string {
   return (STEPS.find((s) => progress <= s.upTo) ?? STEPS[STEPS.length - 1]).text;
 }
 
-export function CheckProgress({ check }: { check: RevisionDetail['check'] }) {
+function queuedLine(handOff: string | undefined, failedAttempts: number): string {
+  if (handOff === 'waiting_for_queue')
+    return 'Submission stored — waiting for the job queue, which is not answering right now';
+  if (failedAttempts > 0)
+    return `Independent check queued — attempt ${failedAttempts} did not finish, trying again shortly`;
+  return 'Independent check queued — waiting for a worker';
+}
+
+export function CheckProgress({ packageId, check }: { packageId: string; check: RevisionDetail['check'] }) {
+  const watch = check.status === 'queued' || check.status === 'running' || check.status === 'failed';
+  const run = useCheckRun(packageId, watch);
+  const retry = useRetryCheck(packageId);
   if (check.status === 'none') return null;
   if (check.status === 'queued' || check.status === 'running') {
     const pct = check.status === 'queued' ? 0 : Math.max(0, Math.min(100, check.progress));
+    const waiting = run.data?.handOff === 'waiting_for_queue';
     return (
       <section
         aria-label="Independent check"
@@ -29,7 +45,7 @@ export function CheckProgress({ check }: { check: RevisionDetail['check'] }) {
         <div className="flex items-center gap-2 text-[14px] font-bold text-checking-ink">
           <Spinner />
           {check.status === 'queued'
-            ? 'Independent check queued — waiting for a worker'
+            ? queuedLine(run.data?.handOff, run.data?.failedAttempts ?? 0)
             : `Independent check running — ${pct}%`}
         </div>
         <div
@@ -44,26 +60,54 @@ export function CheckProgress({ check }: { check: RevisionDetail['check'] }) {
           <div className="h-full bg-checking-ink transition-[width]" style={{ width: `${pct}%` }} />
         </div>
         <p className="mt-1 text-[13px]">
-          Step: {check.status === 'queued' ? 'in the queue' : stepFor(pct)}. This page updates on its own.
+          {waiting
+            ? 'Nothing is lost: the check starts on its own as soon as the queue is back. This page updates on its own.'
+            : `Step: ${check.status === 'queued' ? 'in the queue' : stepFor(pct)}. This page updates on its own.`}
         </p>
       </section>
     );
   }
-  if (check.status === 'invalid' || check.status === 'failed') {
+  if (check.status === 'failed') {
+    const canRetry = run.data?.canRetry ?? false;
     return (
       <section
         role="alert"
         aria-label="Independent check"
         className="mb-4 border border-failed-edge border-l-4 bg-failed-tint px-4 py-3"
       >
-        <h2 className="text-[14px] font-bold text-failed-ink">
-          {check.status === 'invalid' ? 'The check could not run on this lift data' : 'The check run failed'}
-        </h2>
+        <h2 className="text-[14px] font-bold text-failed-ink">Check could not run</h2>
         <p className="text-[13px]">
-          {check.error ??
-            (check.status === 'invalid'
-              ? 'Some lift data is invalid. Correct it in a new revision.'
-              : 'The worker could not finish. It is retried automatically; if it persists, tell the desk administrator.')}
+          {check.error ?? 'The worker could not finish the check after several attempts.'}
+        </p>
+        <div className="mt-2 flex flex-wrap items-center gap-3">
+          {canRetry ? (
+            <Button variant="primary" size="sm" disabled={retry.isPending} onClick={() => retry.mutate()}>
+              {retry.isPending ? 'Starting the check…' : 'Run the check again'}
+            </Button>
+          ) : (
+            run.data && (
+              <span className="text-[13px]">The contractor or a reviewer can run the check again.</span>
+            )
+          )}
+          {retry.isError && (
+            <span role="status" className="text-[13px] text-failed-ink">
+              {isApiError(retry.error) ? retry.error.message : 'The check could not be started again.'}
+            </span>
+          )}
+        </div>
+      </section>
+    );
+  }
+  if (check.status === 'invalid') {
+    return (
+      <section
+        role="alert"
+        aria-label="Independent check"
+        className="mb-4 border border-failed-edge border-l-4 bg-failed-tint px-4 py-3"
+      >
+        <h2 className="text-[14px] font-bold text-failed-ink">The check could not run on this lift data</h2>
+        <p className="text-[13px]">
+          {check.error ?? 'Some lift data is invalid. Correct it in a new revision.'}
         </p>
       </section>
     );
