@@ -35,15 +35,17 @@ let stopServices: () => void = () => undefined;
 let lock: DeskLock | null = null;
 let supervisor: Supervisor | null = null;
 let stopping = false;
+/** Whether anything was started that needs stopping (a refusal up front says one sentence). */
+let started = false;
 
 async function shutdown(code: number) {
   if (stopping) return;
   stopping = true;
-  say('stopping…');
+  if (started) say('stopping…');
   await supervisor?.stopAll(STOP_ORDER);
   stopServices();
   lock?.release();
-  say('stopped');
+  if (started) say('stopped');
   process.exit(code);
 }
 
@@ -123,6 +125,7 @@ async function main() {
     if (r.status !== 0) throw new StepError('build the client', 'vite build failed (see the output above)');
   }
 
+  started = true;
   const stack = await prepareStack({
     dataDir,
     root,

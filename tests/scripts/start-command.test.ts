@@ -124,7 +124,7 @@ describe('the start command', () => {
     expect(await isPortFree(ports.pg)).toBe(true);
   }, 300_000);
 
-  it('when the database port is taken, then the command names the step that failed', async () => {
+  it('when the database port is taken, then the command stops before starting anything, naming the port and its owner', async () => {
     const net = await import('node:net');
     const blocker = net.createServer().listen(0, '127.0.0.1');
     await new Promise((r) => blocker.once('listening', r));
@@ -149,8 +149,12 @@ describe('the start command', () => {
       child.stderr!.on('data', (d) => (out += d));
       const code = await new Promise<number | null>((resolve) => child.once('exit', resolve));
       expect(code).toBe(1);
-      expect(out).toMatch(/step "start PostgreSQL" failed: port \d+ on 127\.0\.0\.1 is taken/);
+      expect(out).toContain(`step "check ports" failed: port ${taken} on 127.0.0.1 is taken by node `);
+      expect(out).toContain(`(pid ${process.pid}); stop it or set CP_PG_PORT to another port`);
       expect(out).not.toMatch(/\n\s+at /);
+      // Nothing was started: no database was initialised, and the lock is gone again.
+      expect(fs.existsSync(path.join(otherDir, 'pg'))).toBe(false);
+      expect(fs.existsSync(path.join(otherDir, 'desk.lock'))).toBe(false);
     } finally {
       blocker.close();
       fs.rmSync(otherDir, { recursive: true, force: true });

@@ -30,11 +30,16 @@ export interface TaskDefinition<T extends object> {
 /** Bad data: retrying cannot help. */
 export { UnrecoverableError };
 
+/** The reason a person reads: no raw validation dumps, and how many attempts were made. */
 export function finalReason(error: Error, attempts: number): string {
   if (error instanceof UnrecoverableError || error.name === 'UnrecoverableError') return error.message;
   if (/stalled more than allowable limit/.test(error.message))
-    return 'the worker stopped several times while running it';
-  return attempts > 1 ? `${error.message} (after ${attempts} attempts)` : error.message;
+    return 'The worker stopped several times while running it.';
+  const issues = (error as Error & { issues?: Array<{ path: PropertyKey[]; message: string }> }).issues;
+  const text = issues?.length
+    ? issues.map((i) => `${i.path.map(String).join('.') || '(value)'}: ${i.message}`).join('; ')
+    : error.message;
+  return `It did not finish after ${attempts} attempt${attempts === 1 ? '' : 's'}. Last error: ${text}`;
 }
 
 export function startTask<T extends object>(

@@ -17,7 +17,7 @@ export interface Intent {
 }
 
 /** How long a request waits for Redis to take a job before leaving it to the relay. */
-export const HAND_OFF_MS = 400;
+export const HAND_OFF_MS = 250;
 
 export function checkRunIntent(revisionId: string, round = 1): Intent {
   return {
