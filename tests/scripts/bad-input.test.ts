@@ -21,7 +21,8 @@ const asNobody = (env: NodeJS.ProcessEnv) =>
       '-u',
       'nobody',
       '--',
-      'env',
+      // By its full path: runuser looks it up in the restricted PATH otherwise.
+      which('env') ?? '/usr/bin/env',
       ...Object.entries(env).map(([k, v]) => `${k}=${v}`),
       process.execPath,
       '--import',
