@@ -42,9 +42,8 @@ async function main() {
     root,
     say,
     onStarted: (stop) => (stopServices = stop),
-    adopt: lock.previous?.services ?? [],
+    lock,
   });
-  lock.update({ services: stack.services });
   const env = { ...stack.env, NODE_ENV: 'development', PORT: port };
   const tsx = path.join(root, 'node_modules/tsx/dist/cli.mjs');
   const catcher = mailCatcherSpec(env, say);

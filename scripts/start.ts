@@ -125,15 +125,16 @@ async function main() {
     if (r.status !== 0) throw new StepError('build the client', 'vite build failed (see the output above)');
   }
 
-  started = true;
   const stack = await prepareStack({
     dataDir,
     root,
     say,
-    onStarted: (stop) => (stopServices = stop),
-    adopt: lock.previous?.services ?? [],
+    onStarted: (stop) => {
+      started = true;
+      stopServices = stop;
+    },
+    lock,
   });
-  lock.update({ services: stack.services });
   const env: NodeJS.ProcessEnv = {
     ...stack.env,
     NODE_ENV: process.env.NODE_ENV ?? 'production',

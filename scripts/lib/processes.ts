@@ -18,7 +18,7 @@ export function startProcess(
   logFile?: string,
 ): Managed {
   const out = logFile ? fs.openSync(logFile, 'a') : 'inherit';
-  // spawns: node (every caller passes process.execPath: the API, worker, mail catcher and Vite)
+  // spawns: node (every caller passes process.execPath: the API, the worker, the mail catcher, Vite)
   const child = spawn(command, args, {
     env,
     stdio: ['ignore', out, out],

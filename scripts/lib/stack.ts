@@ -3,6 +3,7 @@
 // API and the worker run with.
 import path from 'node:path';
 import { runMigrations } from './migrate';
+import type { DeskLock } from './lock';
 import { localSecret } from './secret';
 import {
   ensurePackages,
@@ -30,8 +31,8 @@ export async function prepareStack(opts: {
   say: (message: string) => void;
   /** Registers the handles as soon as each server is up, so a later failure still stops them. */
   onStarted: (stop: () => void) => void;
-  /** Servers the stale lock says its crashed desk started: adopted instead of left alone. */
-  adopt?: string[];
+  /** The data folder's lock: servers its stale predecessor started are adopted, and the ones this run starts are recorded in it. */
+  lock?: DeskLock;
 }): Promise<Stack> {
   const { dataDir, root, say } = opts;
   let postgres: PostgresHandle | null = null;
@@ -40,12 +41,11 @@ export async function prepareStack(opts: {
     redis?.stop();
     postgres?.stop();
   };
-  opts.onStarted(stop);
-
   let databaseUrl = process.env.DATABASE_URL;
   let redisUrl = process.env.REDIS_URL;
   ensurePackages(packagesFor('start', { postgres: !databaseUrl, redis: !redisUrl }), say);
-  const adopt = opts.adopt ?? [];
+  opts.onStarted(stop);
+  const adopt = opts.lock?.previous?.services ?? [];
   if (!databaseUrl) {
     postgres = await startPostgres(
       path.join(dataDir, 'pg'),
@@ -84,6 +84,7 @@ export async function prepareStack(opts: {
   ] as const;
   const services = handles.filter(([, h]) => h?.startedHere).map(([n]) => n);
   const foundRunning = handles.filter(([, h]) => h && !h.startedHere).map(([n]) => n);
+  opts.lock?.update({ services });
   for (const n of foundRunning)
     say(
       `${n === 'postgres' ? 'PostgreSQL' : 'Redis'} was already running on this data folder: used, and left running at the end`,

@@ -18,6 +18,7 @@ import { makePackage, makeWorld } from '../support/factories';
 import type { AppContext } from '@server/context';
 import type { Express } from 'express';
 import { randomUUID } from 'node:crypto';
+import { until } from '../support/until';
 
 const example = JSON.parse(fs.readFileSync('shared/engineering/examples/pass-outriggers.json', 'utf8'));
 
@@ -37,16 +38,6 @@ afterAll(async () => {
   connection.disconnect();
   await ctx.close?.();
 });
-
-async function until<T>(fn: () => Promise<T | null | undefined | false>, ms = 30_000): Promise<T> {
-  const end = Date.now() + ms;
-  while (Date.now() < end) {
-    const v = await fn();
-    if (v) return v;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`condition not met within ${ms} ms`);
-}
 
 const finalise = (_queue: string, payload: Record<string, string>, reason: string) =>
   checkRunTask(ctx, 1).onFinalFailure({ revisionId: payload.revisionId }, reason);

@@ -21,6 +21,7 @@ import { freePort, startPostgres, startRedis } from '../../scripts/lib/services'
 import { checkRunTask, startCheckRunWorker } from '../../worker/tasks/check-run-task';
 import { signedIn } from '../support/app';
 import { makePackage, makeWorld } from '../support/factories';
+import { until } from '../support/until';
 
 const example = JSON.parse(fs.readFileSync('shared/engineering/examples/pass-outriggers.json', 'utf8'));
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'counterpoise-outage-'));
@@ -31,16 +32,6 @@ afterAll(async () => {
   for (const c of cleanups.reverse()) await c();
   fs.rmSync(tmp, { recursive: true, force: true });
 });
-
-async function until<T>(fn: () => Promise<T | null | undefined | false>, ms = 30_000): Promise<T> {
-  const end = Date.now() + ms;
-  while (Date.now() < end) {
-    const v = await fn().catch(() => null);
-    if (v) return v;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`condition not met within ${ms} ms`);
-}
 
 /** A draft with complete inputs and a lift plan, ready to submit through the API. */
 async function draftReadyToSubmit(ctx: AppContext) {

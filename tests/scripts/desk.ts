@@ -2,6 +2,7 @@
 // folder and free ports, none of the caller's DATABASE_URL / REDIS_URL / SMTP_URL.
 import { spawn, type ChildProcess } from 'node:child_process';
 import { freePort } from '../../scripts/lib/services';
+export { until } from '../support/until';
 
 export interface Ports {
   http: number;
@@ -71,20 +72,6 @@ export async function launch(
 export async function stopDesk(desk: Desk): Promise<number | null> {
   desk.child.kill('SIGTERM');
   return desk.exited;
-}
-
-export async function until<T>(
-  fn: () => Promise<T | null | undefined | false>,
-  ms = 30_000,
-  what = 'condition',
-): Promise<T> {
-  const end = Date.now() + ms;
-  while (Date.now() < end) {
-    const v = await fn().catch(() => null);
-    if (v) return v;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`${what} not met within ${ms} ms`);
 }
 
 /** Signs in through the API; returns the session cookie. */

@@ -33,6 +33,8 @@ beforeAll(async () => {
   );
   desk = await launch(deskEnv(dataDir, ports));
   db = new pg.Client({ connectionString: `postgres://app@127.0.0.1:${ports.pg}/counterpoise` });
+  // The desk stops its PostgreSQL in the last test: this connection ends then.
+  db.on('error', () => undefined);
   await db.connect();
 }, 200_000);
 
@@ -113,6 +115,7 @@ describe('the launcher', () => {
     expect(issued.status).toBe(202);
     const returnId: string = issued.body.id;
     const holder = new pg.Client({ connectionString: `postgres://app@127.0.0.1:${ports.pg}/counterpoise` });
+    holder.on('error', () => undefined);
     await holder.connect();
     await holder.query('BEGIN');
     await holder.query('SELECT 1 FROM revisions WHERE id = $1 FOR UPDATE', [revisionId]);

@@ -38,7 +38,12 @@ function spawnedIn(source: string, file: string): Spawn[] {
   const annotated = (line: number): string[] | null => {
     for (let l = line - 1; l >= Math.max(1, line - 3); l--) {
       const m = /\/\/ spawns: (.+)$/.exec(lines[l - 1]);
-      if (m) return m[1].split(',').map((p) => p.trim().split(/\s/)[0]);
+      // "// spawns: a, b (why)": the list ends at a parenthesis or a dash.
+      if (m)
+        return m[1]
+          .split(/\(| — /)[0]
+          .split(',')
+          .map((p) => p.trim().split(/\s/)[0]);
     }
     return null;
   };

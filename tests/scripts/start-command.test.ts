@@ -8,6 +8,7 @@ import path from 'node:path';
 import pg from 'pg';
 import { afterAll, describe, expect, it } from 'vitest';
 import { freePort, isPortFree } from '../../scripts/lib/services';
+import { deskEnv, launch, type Ports } from './desk';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '@server/db/seed/demo-accounts';
 
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'counterpoise-start-'));
@@ -24,41 +25,10 @@ interface Started {
   output: () => string;
 }
 
-async function start(ports: { http: number; pg: number; redis: number; smtp: number }): Promise<Started> {
-  const env: NodeJS.ProcessEnv = { ...process.env };
-  for (const key of ['DATABASE_URL', 'REDIS_URL', 'JWT_SECRET', 'NODE_ENV', 'SMTP_URL']) delete env[key];
-  Object.assign(env, {
-    DATA_DIR: dataDir,
-    PORT: String(ports.http),
-    CP_PG_PORT: String(ports.pg),
-    CP_REDIS_PORT: String(ports.redis),
-    CP_SMTP_PORT: String(ports.smtp),
-    SKIP_CLIENT_BUILD: '1',
-    LOG_LEVEL: 'warn',
-  });
-  const child = spawn(process.execPath, ['--import', 'tsx', 'scripts/start.ts'], {
-    env,
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  running = child;
-  let out = '';
-  child.stdout!.on('data', (d) => (out += d));
-  child.stderr!.on('data', (d) => (out += d));
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`start did not become ready:\n${out}`)), 150_000);
-    const poll = setInterval(() => {
-      if (out.includes('ready: http://')) {
-        clearInterval(poll);
-        clearTimeout(timer);
-        resolve();
-      } else if (child.exitCode !== null) {
-        clearInterval(poll);
-        clearTimeout(timer);
-        reject(new Error(`start exited with ${child.exitCode}:\n${out}`));
-      }
-    }, 200);
-  });
-  return { child, output: () => out };
+async function start(ports: Ports): Promise<Started> {
+  const desk = await launch(deskEnv(dataDir, ports));
+  running = desk.child;
+  return desk;
 }
 
 async function stop(s: Started): Promise<number | null> {

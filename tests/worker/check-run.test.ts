@@ -12,6 +12,7 @@ import { LiftPackage, Revision } from '@server/modules/packages/package.entity';
 import { startCheckRunWorker } from '../../worker/tasks/check-run-task';
 import { startTestApp, type TestApp } from '../support/app';
 import { makePackage, makeWorld } from '../support/factories';
+import { until } from '../support/until';
 
 const example = JSON.parse(fs.readFileSync('shared/engineering/examples/caution-discrepancies.json', 'utf8'));
 
@@ -44,16 +45,6 @@ async function submittedRevision(inputs: Record<string, unknown>) {
     .getRepository(Revision)
     .findOneByOrFail({ packageId: pkg.id, number: 1 });
   return { pkg, revisionId: revision.id };
-}
-
-async function until<T>(fn: () => Promise<T | null | undefined | false>, ms = 20_000): Promise<T> {
-  const end = Date.now() + ms;
-  while (Date.now() < end) {
-    const v = await fn();
-    if (v) return v;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`condition not met within ${ms} ms`);
 }
 
 async function completions(packageId: string) {

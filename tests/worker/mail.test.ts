@@ -18,6 +18,7 @@ import { startMailWorker } from '../../worker/tasks/mail-task';
 import { startTestApp, signedIn, type TestApp } from '../support/app';
 import { makePackage, makeUser, makeWorld } from '../support/factories';
 import { makePdf } from '../support/pdfs';
+import { until } from '../support/until';
 
 const example = JSON.parse(fs.readFileSync('shared/engineering/examples/pass-outriggers.json', 'utf8'));
 
@@ -37,16 +38,6 @@ afterAll(async () => {
   connection.disconnect();
   await t.close();
 });
-
-async function until<T>(fn: () => Promise<T | null | undefined | false>, ms = 20_000): Promise<T> {
-  const end = Date.now() + ms;
-  while (Date.now() < end) {
-    const v = await fn();
-    if (v) return v;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`condition not met within ${ms} ms`);
-}
 
 async function caughtFor(
   email: string,
