@@ -9,6 +9,7 @@
 // Pressure under the mats = reaction ÷ (mat area × mats per support), mats taken as rigid.
 // Allowable bearing: as entered (geotechnical value), else IBC Table 1806.2 presumptive value for
 // the soil class; mud, organic soils, peat and unprepared fill have none (geotechnical value needed).
+import { exceeds } from '../compare';
 import type { SoilClass } from '../../schemas/lift-input';
 import { planModel, resultant, SLEW_SWEEP, type PlanModel } from '../crane-model';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
@@ -164,10 +165,9 @@ function pressureItem(
       unit: 'pressure',
       formula: [...formula, ' against allowable ', term(al.value, 'pressure')],
       source: al.source,
-      message:
-        p > al.value
-          ? 'Pressure under the mats exceeds the allowable bearing pressure.'
-          : 'Pressure under the mats against the allowable bearing pressure.',
+      message: exceeds(p, al.value)
+        ? 'Pressure under the mats exceeds the allowable bearing pressure.'
+        : 'Pressure under the mats against the allowable bearing pressure.',
     }),
   );
 }

@@ -1,6 +1,7 @@
 // Check 11 — personnel lifts (PRODUCT.md §11): platform, rigging, occupants and tools against the
 // personnel limit of the rated capacity at the radius and configuration (site policy, default 50%:
 // OSHA 29 CFR 1926.1431), and occupants plus tools against the platform's own rating.
+import { exceeds } from '../compare';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
 import { si, siOr } from '../units';
@@ -56,10 +57,9 @@ export function personnelCheck(ctx: Ctx): CheckResult {
           'weight',
         )} = ${term(total, 'weight')} against ${term(pct, 'percent')} of ${term(cap, 'weight')} = ${term(limit, 'weight')}`,
         source: SOURCES.policy(`personnel limit ${pct}% (default: ${SOURCES.oshaPersonnel.text})`),
-        message:
-          total > limit
-            ? `Platform load is over ${pct}% of the rated capacity.`
-            : `Platform load within ${pct}% of the rated capacity.`,
+        message: exceeds(total, limit)
+          ? `Platform load is over ${pct}% of the rated capacity.`
+          : `Platform load within ${pct}% of the rated capacity.`,
       }),
     );
   }
@@ -76,7 +76,7 @@ export function personnelCheck(ctx: Ctx): CheckResult {
         unit: 'weight',
         formula: f`occupants ${term(occ, 'weight')} + tools ${term(tools, 'weight')} against platform rating ${term(rated, 'weight')}`,
         source: { kind: 'input', text: "platform manufacturer's rated load (entered)" },
-        message: occ + tools > rated ? 'The platform is overloaded.' : 'Within the platform rating.',
+        message: exceeds(occ + tools, rated) ? 'The platform is overloaded.' : 'Within the platform rating.',
       }),
     );
   }

@@ -5,6 +5,7 @@
 // passes from the dead end to the drum (formula from memory; reproduces the manual's tables).
 // Rope rated load = breaking strength ÷ design factor (3.5 running rope, 5 rotation-resistant:
 // ASME B30.6/B30.22), unless a rated load is entered. Hook load taken as the gross load (conservative).
+import { exceeds } from '../compare';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
 import { si } from '../units';
@@ -61,7 +62,7 @@ export function reevingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
       message:
         hoist === undefined
           ? 'No hoist line pull rating entered.'
-          : pull > hoist
+          : exceeds(pull, hoist)
             ? 'Line pull exceeds the hoist rating: add parts of line.'
             : 'Line pull against the hoist rating.',
     }),
@@ -94,10 +95,9 @@ export function reevingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
             : type === 'running'
               ? SOURCES.ropeRunning
               : SOURCES.ropeRotationResistant,
-        message:
-          pull > ropeLimit
-            ? 'Line pull exceeds the rope rated load.'
-            : 'Line pull against the rope rated load.',
+        message: exceeds(pull, ropeLimit)
+          ? 'Line pull exceeds the rope rated load.'
+          : 'Line pull against the rope rated load.',
       }),
     );
   }

@@ -7,6 +7,7 @@
 // crawlers. Gantry/A-frame with two inclined legs: balance about the leg feet, the backstay ballast
 // resisting; backstay tension and leg compression from the equilibrium of the apex.
 // A failed ratio gets fixes: extra counterweight, counterweight arm, or the largest radius.
+import { fallsShort } from '../compare';
 import { boomCgAt, edgeBalance, planModel, worstSlew, type PlanModel } from '../crane-model';
 import { check, f, item, statusMax, statusMin, term, type Ctx } from '../context';
 import { gantryFrame } from './geometry';
@@ -175,7 +176,7 @@ export function stabilityCheck(ctx: Ctx, fixes: Fix[], figures: LiftFigures): Ch
         message: legLimit !== undefined ? 'Leg compression against its rating.' : 'No leg rating entered.',
       }),
     );
-    if (gs.ratio < minR && g.ballastWeight) {
+    if (fallsShort(gs.ratio, minR) && g.ballastWeight) {
       const d = si(g.backstayAnchorDistance)!;
       const extra = (minR * gs.overturning - gs.resisting) / d;
       pushFix(ctx, fixes, {
@@ -244,7 +245,7 @@ export function stabilityCheck(ctx: Ctx, fixes: Fix[], figures: LiftFigures): Ch
       source: src,
       message:
         status === 'fail'
-          ? balance.ratio < 1
+          ? fallsShort(balance.ratio, 1)
             ? 'The crane would tip: the overturning moment exceeds the resisting moment.'
             : `Resisting ÷ overturning is below the site minimum of ${minR}.`
           : `Moment balance about the ${E.label}.`,
