@@ -20,7 +20,9 @@ import {
   SPEED_UNITS,
   VOLTAGE_UNITS,
   WEIGHT_UNITS,
+  TO_SI,
 } from '../engineering/units';
+import { same } from '../engineering/chart';
 
 const finite = (label: string) =>
   z.number({
@@ -184,7 +186,24 @@ export const Chart = z.object(
     rows: z
       .array(ChartRow, { error: 'chart.rows must be a list of chart rows' })
       .min(1, { error: 'chart.rows must list at least 1 row of the load chart' })
-      .max(2000, { error: 'chart.rows must list at most 2000 rows' }),
+      .max(2000, { error: 'chart.rows must list at most 2000 rows' })
+      .superRefine((rows, ctx) => {
+        // Two rows for the same boom length and radius leave the capacity ambiguous: name both.
+        const key = rows.map((r) => [
+          r.boomLength.value * TO_SI[r.boomLength.unit],
+          r.radius.value * TO_SI[r.radius.unit],
+        ]);
+        for (let i = 0; i < rows.length; i++)
+          for (let j = i + 1; j < rows.length; j++)
+            if (same(key[i][0], key[j][0]) && same(key[i][1], key[j][1])) {
+              ctx.addIssue({
+                code: 'custom',
+                path: [j],
+                message: `chart.rows[${i}] and chart.rows[${j}] list the same boom length and radius: keep one row`,
+              });
+              return;
+            }
+      }),
   },
   {
     error: (iss) =>
