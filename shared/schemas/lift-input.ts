@@ -271,17 +271,37 @@ export const Load = z.object({
 });
 
 export const ROPE_TYPES = ['running', 'rotation_resistant'] as const;
-export const Reeving = z.object({
-  partsOfLine: count('reeving.partsOfLine', 1, 64),
-  sheavesPassed: count('reeving.sheavesPassed', 0, 80),
-  bearing: z.enum(['plain', 'roller'], { error: "reeving.bearing must be 'plain' or 'roller'" }),
-  hoistLinePull: positiveWeight('reeving.hoistLinePull').optional(),
-  ropeRatedLoad: positiveWeight('reeving.ropeRatedLoad').optional(),
-  ropeBreakingStrength: positiveWeight('reeving.ropeBreakingStrength').optional(),
-  ropeType: z
-    .enum(ROPE_TYPES, { error: "reeving.ropeType must be 'running' or 'rotation_resistant'" })
-    .optional(),
-});
+export const Reeving = z
+  .object({
+    partsOfLine: count('reeving.partsOfLine', 1, 64),
+    sheavesPassed: count('reeving.sheavesPassed', 0, 80),
+    bearing: z.enum(['plain', 'roller'], { error: "reeving.bearing must be 'plain' or 'roller'" }),
+    hoistLinePull: positiveWeight('reeving.hoistLinePull').optional(),
+    ropeRatedLoad: positiveWeight('reeving.ropeRatedLoad').optional(),
+    ropeBreakingStrength: positiveWeight('reeving.ropeBreakingStrength').optional(),
+    ropeType: z
+      .enum(ROPE_TYPES, { error: "reeving.ropeType must be 'running' or 'rotation_resistant'" })
+      .optional(),
+    /** Efficiency of each sheave from the planner's own data (1/K); replaces the bearing constant. */
+    sheaveEfficiency: boundedNumber('reeving.sheaveEfficiency', { min: 0.8, max: 1 }).optional(),
+    sheaveEfficiencySource: z.string().min(1).max(200).optional(),
+  })
+  .superRefine((r, ctx) => {
+    // With N parts the rope turns over a sheave between each pair of parts: at least N − 1 sheaves.
+    if (r.sheavesPassed < r.partsOfLine - 1)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['sheavesPassed'],
+        message: `reeving.sheavesPassed must be at least reeving.partsOfLine − 1 (${r.partsOfLine - 1}): ${r.partsOfLine} parts of line pass at least ${r.partsOfLine - 1} sheaves`,
+      });
+    if (r.sheaveEfficiency !== undefined && !r.sheaveEfficiencySource)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['sheaveEfficiencySource'],
+        message:
+          'reeving.sheaveEfficiencySource is required with a sheave efficiency (where the figure comes from)',
+      });
+  });
 
 export const SOIL_CLASSES = [
   'crystalline_bedrock',
