@@ -93,18 +93,23 @@ export function item(ctx: Ctx, s: ItemSpec): CheckItem {
     if (typeof p !== 'string' && !Number.isFinite(p.v))
       formula[i] = Number.isNaN(p.v) ? '—' : p.v > 0 ? '∞' : '−∞';
   }
+  const finite = s.value != null && Number.isFinite(s.value);
+  // A value that could not be computed never passes: the reader is told to look at it.
+  const unknownPass = s.status === 'pass' && !finite && s.value !== null;
   return {
     id: s.id,
     label: s.label,
-    status: s.status,
-    value: s.value != null && Number.isFinite(s.value) ? s.value : null,
+    status: unknownPass ? 'caution' : s.status,
+    value: finite ? s.value : null,
     limit: s.limit != null && Number.isFinite(s.limit) ? s.limit : null,
     limitType: s.limitType ?? null,
     unit: s.unit,
     formula,
     formulaText: formatFormula(formula, ctx.system),
     source: s.source,
-    message: s.message,
+    message: unknownPass
+      ? `${s.message} The value could not be computed from the figures entered.`
+      : s.message,
   };
 }
 

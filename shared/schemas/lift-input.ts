@@ -54,17 +54,58 @@ function boundedNumber(label: string, b: Bounds) {
   return n;
 }
 
+/**
+ * Plausible upper bound of each kind of quantity, in SI (ours: common practice, no source). Each is
+ * well above any crane lift on record (the heaviest lifts are a few tens of thousands of tonnes, the
+ * tallest booms a few hundred metres) and keeps every product the engine forms finite.
+ */
+export const QUANTITY_MAX_SI = {
+  length: 2000,
+  weight: 100_000 * 1000 * TO_SI.kg,
+  pressure: 100e6,
+  speed: 100,
+  area: 10_000,
+  angle: 360,
+  voltage: 2e6,
+  moment: 1e12,
+} as const;
+
+const KIND_OF_UNITS = new Map<readonly string[], keyof typeof QUANTITY_MAX_SI>([
+  [LENGTH_UNITS, 'length'],
+  [WEIGHT_UNITS, 'weight'],
+  [PRESSURE_UNITS, 'pressure'],
+  [SPEED_UNITS, 'speed'],
+  [AREA_UNITS, 'area'],
+  [ANGLE_UNITS, 'angle'],
+  [VOLTAGE_UNITS, 'voltage'],
+  [MOMENT_UNITS, 'moment'],
+]);
+
+const limitText = (x: number) => x.toLocaleString('en-US', { maximumFractionDigits: x >= 100 ? 0 : 3 });
+
 function quantity<const U extends readonly [string, ...string[]]>(units: U, label: string, b: Bounds = {}) {
-  return z.object(
-    {
-      value: boundedNumber(label, b),
-      unit: z.enum(units, { error: `${label}: unit must be one of ${units.join(', ')}` }),
-    },
-    {
-      error: (iss) =>
-        iss.input === undefined ? `${label} is required` : `${label} must be an object { value, unit }`,
-    },
-  );
+  const kind = KIND_OF_UNITS.get(units);
+  const maxSI = kind ? QUANTITY_MAX_SI[kind] : Infinity;
+  return z
+    .object(
+      {
+        value: boundedNumber(label, b),
+        unit: z.enum(units, { error: `${label}: unit must be one of ${units.join(', ')}` }),
+      },
+      {
+        error: (iss) =>
+          iss.input === undefined ? `${label} is required` : `${label} must be an object { value, unit }`,
+      },
+    )
+    .superRefine((q, ctx) => {
+      const factor = TO_SI[q.unit as keyof typeof TO_SI];
+      if (Math.abs(q.value * factor) > maxSI)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['value'],
+          message: `${label} must be ${limitText(maxSI / factor)} ${q.unit} or less`,
+        });
+    });
 }
 
 const length = (label: string, b: Bounds = { min: 0 }) => quantity(LENGTH_UNITS, label, b);
