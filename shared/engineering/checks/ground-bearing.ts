@@ -3,7 +3,10 @@
 //   R_i = V/4 ± M_L/(2·L) ± M_T/(2·B), with V the total weight, M_L = V·e_x and M_T = V·e_y its
 //   moments about the box centre, L and B the longitudinal and transverse spreads. When one R_i goes
 //   negative that support lifts off; the load is then shared by the other three (statically
-//   determinate) and the result is flagged.
+//   determinate) and the result is flagged. When the resultant lies outside the box no compressive
+//   reactions balance the crane: "no support solution", fail, and no force is reported.
+// Wind: for each slew the wind is tried from the directions that load each corner most, along the
+//   axes and straight out along the eccentricity; the largest reaction or pressure governs.
 // Crawlers: each track is an eccentric footing: p_max = V_t/(b·L)·(1 + 6e/L) when e ≤ L/6,
 //   2·V_t/(3·b·(L/2 − e)) when e > L/6 (triangular).
 // Pressure under the mats = reaction ÷ (mat area × mats per support), mats taken as rigid.
@@ -11,9 +14,9 @@
 // the soil class; mud, organic soils, peat and unprepared fill have none (geotechnical value needed).
 import { exceeds } from '../compare';
 import type { SoilClass } from '../../schemas/lift-input';
-import { planModel, resultant, SLEW_SWEEP, type PlanModel } from '../crane-model';
+import { planModel, resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
-import { gantryStatics } from './stability';
+import { gantryStatics, supportReactions } from './stability';
 import { SOURCES } from '../sources';
 import { si, TO_SI } from '../units';
 import type { CheckItem, CheckResult, LiftFigures, Source } from '../types';
@@ -176,19 +179,56 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
   const entered = ctx.input.crane.slewAngle;
   const slews = entered ? [entered.value] : SLEW_SWEEP;
   let worst = { max: -Infinity, R: [0, 0, 0, 0], slew: 0, liftOff: -1, V: 0, ex: 0, ey: 0 };
+  let tips: { slew: number; edge: string; ex: number; ey: number; V: number } | null = null;
   for (const t of slews) {
-    const r = resultant(m, t);
-    const ex = r.ex - m.x0;
-    let R = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
-    let liftOff = -1;
-    let minI = 0;
-    for (let i = 1; i < 4; i++) if (R[i] < R[minI]) minI = i;
-    if (R[minI] < 0) {
-      liftOff = minI;
-      R = threeSupportReactions(r.V, ex, r.ey, m.a, m.b, minI);
+    const calm = resultant({ ...m, windMoment: 0 }, t);
+    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : [undefined];
+    for (const dir of dirs) {
+      const r = dir ? resultant(m, t, dir) : calm;
+      const ex = r.ex - m.x0;
+      const R = supportReactions(r.V, ex, r.ey, m.a, m.b);
+      if (!R) {
+        // no compressive reactions balance the crane: it tips about the line the resultant is beyond
+        if (!tips) {
+          let e = 0;
+          let beyond = -Infinity;
+          m.edges.forEach((E, i) => {
+            const over = E.nx * r.ex + E.ny * r.ey - E.d;
+            if (over > beyond) {
+              beyond = over;
+              e = i;
+            }
+          });
+          tips = { slew: t, edge: m.edges[e].label, ex, ey: r.ey, V: r.V };
+        }
+        continue;
+      }
+      const four = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
+      let liftOff = -1;
+      for (let i = 0; i < 4; i++) if (four[i] < 0 && (liftOff < 0 || four[i] < four[liftOff])) liftOff = i;
+      const mx = Math.max(R[0], R[1], R[2], R[3]);
+      if (mx > worst.max * (1 + 1e-9)) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
     }
-    const mx = Math.max(R[0], R[1], R[2], R[3]);
-    if (mx > worst.max * (1 + 1e-9)) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
+  }
+  if (tips) {
+    figures.supportReactions = [];
+    figures.maxSupportReaction = null;
+    items.push(
+      item(ctx, {
+        id: 'ground-bearing.reactions',
+        label: 'Outrigger reactions',
+        status: 'fail',
+        value: null,
+        unit: 'weight',
+        formula: f`slew ${tips.slew.toFixed(0)}°: resultant ${term(tips.V, 'weight')} at eₓ ${term(tips.ex, 'length')}, e_y ${term(
+          tips.ey,
+          'length',
+        )} from the box centre, outside the box of half-length ${term(m.a, 'length')} and half-width ${term(m.b, 'length')}`,
+        source: SOURCES.rigidBase,
+        message: `No support solution: the crane tips about the ${tips.edge}. No set of compressive outrigger reactions balances it.`,
+      }),
+    );
+    return;
   }
   figures.supportReactions = m.supports.map((s, i) => ({
     label: s.label,
@@ -237,14 +277,18 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
   const slews = entered ? [entered.value] : SLEW_SWEEP;
   let worst = { p: -Infinity, Vt: 0, e: 0, slew: 0, shape: 'uniform' as string };
   for (const t of slews) {
-    const r = resultant(m, t);
-    const e = r.ex - m.x0;
-    const VL = (r.V * (m.b + r.ey)) / (2 * m.b);
-    const VR = (r.V * (m.b - r.ey)) / (2 * m.b);
-    for (const Vt of [VL, VR]) {
-      const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
-      if (tp.p > worst.p * (1 + 1e-9) || worst.p === -Infinity)
-        worst = { p: tp.p, Vt: Math.min(Math.max(Vt, 0), r.V), e, slew: t, shape: tp.shape };
+    const calm = resultant({ ...m, windMoment: 0 }, t);
+    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : [undefined];
+    for (const dir of dirs) {
+      const r = dir ? resultant(m, t, dir) : calm;
+      const e = r.ex - m.x0;
+      const VL = (r.V * (m.b + r.ey)) / (2 * m.b);
+      const VR = (r.V * (m.b - r.ey)) / (2 * m.b);
+      for (const Vt of [VL, VR]) {
+        const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
+        if (tp.p > worst.p * (1 + 1e-9) || worst.p === -Infinity)
+          worst = { p: tp.p, Vt: Math.min(Math.max(Vt, 0), r.V), e, slew: t, shape: tp.shape };
+      }
     }
   }
   const area = w * L;

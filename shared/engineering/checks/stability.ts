@@ -106,9 +106,9 @@ function momentFormula(m: PlanModel, slew: number, e: number): { ovt: FormulaPar
   };
   for (let i = 0; i < m.w.length; i++) add(m.labels[i], m.w[i], m.s[i] * nu - E.d);
   add('carrier', m.carrierW, E.nx * m.carrierX - E.d);
-  if (m.windMoment > 0 && nu !== 0) {
+  if (m.windMoment > 0) {
     if (ovt.length) ovt.push(' + ');
-    ovt.push(...f`wind ${term(m.windMoment * Math.abs(nu), 'moment')}`);
+    ovt.push(...f`wind square to the line ${term(m.windMoment, 'moment')}`);
   }
   return { ovt, res };
 }
