@@ -66,11 +66,11 @@ describe('personnel â€” OSHA 29 CFR 1926.1431: platform, rigging and occupants â
     expect(POLICY_DEFAULTS.personnelLimitPct.source.text).toContain('1926.1431');
   });
 
-  it('when platform + rigging + occupants is 50% of the 24 t rated capacity, then it passes the limit; just over 50% fails', () => {
-    // chart capacity at 10 m = 24 t; 50% = 12 t
+  it('when platform, rigging, occupants and hook block are 50% of the 24 t rated capacity, then it passes the limit; just over 50% fails', () => {
+    // chart capacity at 10 m = 24 t; 50% = 12 t; the 0.5 t hook block counts (everything on the hook)
     const lift = outriggerLift();
     lift.personnel = {
-      platformWeight: q(11000, 'kg'),
+      platformWeight: q(10500, 'kg'),
       riggingWeight: q(500, 'kg'),
       occupants: 5,
       occupantWeight: q(100, 'kg'),
