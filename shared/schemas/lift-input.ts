@@ -430,27 +430,110 @@ export const Stated = z.object({
   linePull: weight('stated.linePull').optional(),
 });
 
-export const LiftInput = z.object({
-  schemaVersion: z.literal(1, { error: 'schemaVersion must be 1' }).optional(),
-  title: z.string().max(300).optional(),
-  crane: Crane,
-  chart: Chart,
-  load: Load,
-  rigging: Rigging.optional(),
-  hookBlock: z
-    .object({ weight: weight('hookBlock.weight'), height: length('hookBlock.height').optional() })
-    .optional(),
-  loadLineAllowance: weight('loadLineAllowance').optional(),
-  chartDeductions: z.array(z.object({ name, weight: weight('chartDeductions[].weight') })).optional(),
-  reeving: Reeving.optional(),
-  ground: Ground.optional(),
-  environment: Environment.optional(),
-  tandem: Tandem.optional(),
-  personnel: Personnel.optional(),
-  requiredLiftHeight: length('requiredLiftHeight').optional(),
-  site: SiteConditions.optional(),
-  stated: Stated.optional(),
+const HookBlock = (label: string) =>
+  z.object({ weight: weight(`${label}.weight`), height: length(`${label}.height`).optional() });
+
+const PlanPoint = (label: string) =>
+  z.object({ x: signedLength(`${label}.x`), y: signedLength(`${label}.y`) });
+
+/**
+ * A crane of a lift with several cranes, other than the one entered at the top of the input (the
+ * lead crane). Plan positions (pick points, the load's centre of gravity) share one plan frame of
+ * the planner's choosing, e.g. the load's own axes. `chartCapacity` without `crane` and `chart` is
+ * the version 1 form (only the multi-crane margin can be checked for such a crane).
+ */
+export const OtherCrane = z
+  .object({
+    name,
+    crane: Crane.optional(),
+    chart: Chart.optional(),
+    chartCapacity: positiveWeight('multiCrane.others[].chartCapacity').optional(),
+    rigging: Rigging.optional(),
+    hookBlock: HookBlock('multiCrane.others[].hookBlock').optional(),
+    loadLineAllowance: weight('multiCrane.others[].loadLineAllowance').optional(),
+    chartDeductions: z
+      .array(z.object({ name, weight: weight('multiCrane.others[].chartDeductions[].weight') }))
+      .optional(),
+    reeving: Reeving.optional(),
+    ground: Ground.optional(),
+    pickPoint: PlanPoint('multiCrane.others[].pickPoint').optional(),
+    statedShare: weight('multiCrane.others[].statedShare').optional(),
+  })
+  .superRefine((c, ctx) => {
+    if (!c.crane !== !c.chart)
+      ctx.addIssue({
+        code: 'custom',
+        path: [c.crane ? 'chart' : 'crane'],
+        message: 'multiCrane.others[]: enter both the crane configuration and its chart rows',
+      });
+    if (!c.crane && !c.chartCapacity)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['crane'],
+        message: 'multiCrane.others[]: enter the crane configuration and chart rows of each crane',
+      });
+  });
+
+/** Version 2: a lift with 2 to 4 cranes, each with its own configuration, rigging and pick point. */
+export const MultiCrane = z.object({
+  /** Plan position of the load's centre of gravity (default the origin of the plan frame). */
+  loadCg: PlanPoint('multiCrane.loadCg').optional(),
+  /** Sensitivity: the centre of gravity moved by this fraction of the pick spacing (default 0.05). */
+  cgOffsetFraction: boundedNumber('multiCrane.cgOffsetFraction', { min: 0, max: 0.5 }).optional(),
+  lead: z.object({
+    name,
+    /** capacity the plan states for this crane; the lower of it and the chart governs the margin */
+    chartCapacity: positiveWeight('multiCrane.lead.chartCapacity').optional(),
+    pickPoint: PlanPoint('multiCrane.lead.pickPoint').optional(),
+    statedShare: weight('multiCrane.lead.statedShare').optional(),
+  }),
+  others: z
+    .array(OtherCrane, { error: 'multiCrane.others must list the other cranes' })
+    .min(1, { error: 'multiCrane.others must list 1 to 3 cranes (2 to 4 cranes in all)' })
+    .max(3, { error: 'multiCrane.others must list 1 to 3 cranes (2 to 4 cranes in all)' }),
 });
+
+export const LIFT_INPUT_SCHEMA_VERSION = 2 as const;
+
+export const LiftInput = z
+  .object({
+    /** 1: several cranes as `tandem` (shares and capacities only); 2: several cranes as `multiCrane`. */
+    schemaVersion: z
+      .union([z.literal(1), z.literal(2)], { error: 'schemaVersion must be 1 or 2' })
+      .optional(),
+    title: z.string().max(300).optional(),
+    crane: Crane,
+    chart: Chart,
+    load: Load,
+    rigging: Rigging.optional(),
+    hookBlock: HookBlock('hookBlock').optional(),
+    loadLineAllowance: weight('loadLineAllowance').optional(),
+    chartDeductions: z.array(z.object({ name, weight: weight('chartDeductions[].weight') })).optional(),
+    reeving: Reeving.optional(),
+    ground: Ground.optional(),
+    environment: Environment.optional(),
+    /** Version 1 form of several cranes, kept so stored inputs load; upgradeLiftInput converts it. */
+    tandem: Tandem.optional(),
+    multiCrane: MultiCrane.optional(),
+    personnel: Personnel.optional(),
+    requiredLiftHeight: length('requiredLiftHeight').optional(),
+    site: SiteConditions.optional(),
+    stated: Stated.optional(),
+  })
+  .superRefine((l, ctx) => {
+    if (l.tandem && l.multiCrane)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['tandem'],
+        message: 'tandem and multiCrane both describe several cranes: keep multiCrane',
+      });
+    else if (l.tandem && l.schemaVersion === 2)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['tandem'],
+        message: 'tandem is the version 1 form of several cranes: with schemaVersion 2 enter multiCrane',
+      });
+  });
 
 export type LiftInput = z.infer<typeof LiftInput>;
 export type LiftInputRaw = z.input<typeof LiftInput>;

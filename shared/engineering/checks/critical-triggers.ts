@@ -27,10 +27,15 @@ export function criticalTriggers(ctx: Ctx): CriticalTrigger[] {
         ),
       });
   }
-  if (input.tandem)
+  const craneCount = input.multiCrane
+    ? input.multiCrane.others.length + 1
+    : input.tandem
+      ? input.tandem.cranes.length
+      : 1;
+  if (craneCount > 1)
     out.push({
       id: 'tandem',
-      reason: `More than one crane (${input.tandem.cranes.length}) lifts the load.`,
+      reason: `More than one crane (${craneCount}) lifts the load.`,
       source: SOURCES.usaceCritical,
     });
   if (input.personnel)

@@ -156,7 +156,7 @@ describe('command line', () => {
   it('when a failing example is checked as JSON, then it prints the result and exits 1', () => {
     const r = cli(EXAMPLES_DIR + 'fail-stability.json', '--format', 'json');
     expect(r.status).toBe(1);
-    expect(JSON.parse(r.stdout).resultVersion).toBe(1);
+    expect(JSON.parse(r.stdout).resultVersion).toBe(2);
   });
   it('when the file is missing or the input invalid, then a clear message and a non-zero exit', () => {
     const missing = cli('no-such-file.json');
