@@ -84,6 +84,8 @@ describe('example inputs', () => {
     'caution-capacity-critical.json': { overall: 'caution', check: ['capacity', 'caution'] },
     'caution-discrepancies.json': { overall: 'caution' },
     'caution-tandem.json': { overall: 'caution', check: ['critical-triggers', 'caution'] },
+    'caution-two-cranes.json': { overall: 'caution', check: ['tandem', 'pass'] },
+    'caution-three-cranes.json': { overall: 'caution', check: ['tandem', 'pass'] },
     'fail-capacity.json': { overall: 'fail', check: ['capacity', 'fail'] },
     'fail-outside-chart.json': { overall: 'fail', check: ['capacity', 'fail'] },
     'fail-stability.json': { overall: 'fail', check: ['stability', 'fail'] },
@@ -112,6 +114,19 @@ describe('example inputs', () => {
       expect(out.result.cautions.join(' ')).toMatch(/does not replace the crane manufacturer/);
     },
   );
+  it('when the two- and three-crane examples are checked, then every crane is checked for its share', () => {
+    for (const [name, n] of [
+      ['caution-two-cranes.json', 2],
+      ['caution-three-cranes.json', 3],
+    ] as const) {
+      const out = checkLift(example(name));
+      if (!out.ok) throw new Error('invalid');
+      expect(out.result.cranes).toHaveLength(n);
+      const total = out.result.cranes!.reduce((a, c) => a + c.share!, 0);
+      expect(total).toBeCloseTo(out.result.multiCrane!.loadWeight, 6);
+      for (const c of out.result.cranes!) expect(c.checks.length).toBeGreaterThan(5);
+    }
+  });
   it('when the discrepancy example is checked, then the understated gross load is flagged on the unsafe side', () => {
     const out = checkLift(example('caution-discrepancies.json'));
     if (!out.ok) throw new Error('invalid');
