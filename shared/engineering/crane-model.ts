@@ -208,21 +208,20 @@ export function resultant(
 }
 
 /**
- * Wind directions worth trying for the reactions and pressures at one slew: the four that most load
- * each corner of a rigid rectangle of half-sizes a, b, the four axes, and straight out along the
- * eccentricity the weights already give (ex, ey about the base centre).
+ * Wind directions worth trying for the reactions and pressures at one slew, from the calm
+ * eccentricity (ex, ey about the centre of a rigid rectangle of half-sizes a, b): square to
+ * (1/a, 1/b) toward the corner the weights load most — in the four-support regime that corner's
+ * reaction grows fastest with wind and stays the largest — and straight out along the eccentricity,
+ * the way lift-off and tipping are reached first.
  */
 export function windDirections(a: number, b: number, ex: number, ey: number): [number, number][] {
-  const out: [number, number][] = [
-    [1, 0],
-    [-1, 0],
-    [0, 1],
-    [0, -1],
-  ];
+  const sx = ex >= 0 ? 1 : -1;
+  const sy = ey >= 0 ? 1 : -1;
   const h = Math.hypot(1 / a, 1 / b);
-  if (h > 0 && Number.isFinite(h))
-    for (const sx of [-1, 1]) for (const sy of [-1, 1]) out.push([sx / a / h, sy / b / h]);
+  const out: [number, number][] = [];
+  if (h > 0 && Number.isFinite(h)) out.push([sx / a / h, sy / b / h]);
   const e = Math.hypot(ex, ey);
   if (e > 0 && Number.isFinite(e)) out.push([ex / e, ey / e]);
+  if (out.length === 0) out.push([1, 0]);
   return out;
 }

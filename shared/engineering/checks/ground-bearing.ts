@@ -40,6 +40,14 @@ const SOIL_WORDS: Record<SoilClass, string> = {
   mud_organic_fill: 'mud, organic soil, peat or unprepared fill',
 };
 
+const NO_WIND = [0, 0] as const;
+const CALM = [undefined];
+
+/** The calm resultant moved by a wind moment M blowing along the plan direction dir. */
+function withWind(r: { V: number; ex: number; ey: number }, M: number, dir: readonly [number, number]) {
+  return r.V > 0 ? { V: r.V, ex: r.ex + (M * dir[0]) / r.V, ey: r.ey + (M * dir[1]) / r.V } : r;
+}
+
 /** Four-support reactions about the box centre; order right front, left front, left rear, right rear. */
 export function fourSupportReactions(V: number, ex: number, ey: number, a: number, b: number): number[] {
   const sx = [-1, -1, 1, 1];
@@ -181,10 +189,10 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
   let worst = { max: -Infinity, R: [0, 0, 0, 0], slew: 0, liftOff: -1, V: 0, ex: 0, ey: 0 };
   let tips: { slew: number; edge: string; ex: number; ey: number; V: number } | null = null;
   for (const t of slews) {
-    const calm = resultant({ ...m, windMoment: 0 }, t);
-    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : [undefined];
+    const calm = resultant(m, t, NO_WIND);
+    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : CALM;
     for (const dir of dirs) {
-      const r = dir ? resultant(m, t, dir) : calm;
+      const r = dir ? withWind(calm, m.windMoment, dir) : calm;
       const ex = r.ex - m.x0;
       const R = supportReactions(r.V, ex, r.ey, m.a, m.b);
       if (!R) {
@@ -277,10 +285,10 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
   const slews = entered ? [entered.value] : SLEW_SWEEP;
   let worst = { p: -Infinity, Vt: 0, e: 0, slew: 0, shape: 'uniform' as string };
   for (const t of slews) {
-    const calm = resultant({ ...m, windMoment: 0 }, t);
-    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : [undefined];
+    const calm = resultant(m, t, NO_WIND);
+    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : CALM;
     for (const dir of dirs) {
-      const r = dir ? resultant(m, t, dir) : calm;
+      const r = dir ? withWind(calm, m.windMoment, dir) : calm;
       const e = r.ex - m.x0;
       const VL = (r.V * (m.b + r.ey)) / (2 * m.b);
       const VR = (r.V * (m.b - r.ey)) / (2 * m.b);

@@ -518,6 +518,10 @@ export function backwardStability(ctx: Ctx): CheckItem[] {
       const pct = R ? ((R[i] + R[j]) / V) * 100 : 0;
       if (pct < worst.value - 1e-12) worst = { value: pct, slew: t, cg: -(ex * ux + ey * uy), reach: e };
     }
+  }
+  // The unloaded balance is least favourable with the boom over an end, a side or a corner, or
+  // where the criterion above was worst: those slews are enough for the ratio.
+  for (const t of [0, 90, 180, 270, corner, 180 - corner, 180 + corner, 360 - corner, worst.slew]) {
     const g = governing(m, t);
     if (g.ratio < worstRatio.ratio)
       worstRatio = { ratio: g.ratio, slew: t, edge: g.edge, ovt: g.overturning, res: g.resisting };
