@@ -114,7 +114,7 @@ function evaluateOne(input: LiftInput, pol: SitePolicy, system: UnitSystem, mult
     geometryCheck(ctx, geometry),
     capacityCheck(ctx, fixes),
     stabilityCheck(ctx, fixes, figures),
-    groundBearingCheck(ctx, figures),
+    groundBearingCheck(ctx, figures, fixes),
     riggingCheck(ctx, figures),
     reevingCheck(ctx, figures),
     powerLineCheck(ctx),

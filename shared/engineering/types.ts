@@ -108,8 +108,8 @@ export interface Discrepancy {
 }
 
 export interface Fix {
-  checkId: 'capacity' | 'stability';
-  kind: 'extra_counterweight' | 'counterweight_arm' | 'max_radius' | 'max_gross_load';
+  checkId: 'capacity' | 'stability' | 'ground-bearing';
+  kind: 'extra_counterweight' | 'counterweight_arm' | 'max_radius' | 'max_gross_load' | 'mat_area';
   value: number;
   unit: UnitKind;
   message: string;

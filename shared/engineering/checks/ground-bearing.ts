@@ -19,7 +19,8 @@ import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { gantryStatics, supportReactions } from './stability';
 import { SOURCES } from '../sources';
 import { si, TO_SI } from '../units';
-import type { CheckItem, CheckResult, LiftFigures, Source } from '../types';
+import type { CheckItem, CheckResult, Fix, LiftFigures, Source } from '../types';
+import { formatQuantity } from '../format';
 
 /** IBC Table 1806.2 (2012) presumptive load-bearing values, psf; null: none (geotechnical value). */
 export const IBC_1806_2_PSF: Readonly<Record<SoilClass, number | null>> = {
@@ -96,12 +97,26 @@ export function trackPeakPressure(
   e: number,
   L: number,
   w: number,
-): { p: number; shape: 'uniform' | 'trapezoidal' | 'triangular' | 'tipping' } {
+): {
+  p: number;
+  shape: 'uniform' | 'trapezoidal' | 'triangular' | 'tipping';
+  /** pressure at the light end of the track */
+  pMin: number;
+  /** length of track in contact with the ground */
+  contact: number;
+} {
   const ae = Math.abs(e);
-  if (ae === 0) return { p: Vt / (w * L), shape: 'uniform' };
-  if (ae <= L / 6) return { p: (Vt / (w * L)) * (1 + (6 * ae) / L), shape: 'trapezoidal' };
-  if (ae < L / 2) return { p: (2 * Vt) / (3 * w * (L / 2 - ae)), shape: 'triangular' };
-  return { p: Infinity, shape: 'tipping' };
+  if (ae === 0) return { p: Vt / (w * L), shape: 'uniform', pMin: Vt / (w * L), contact: L };
+  if (ae <= L / 6)
+    return {
+      p: (Vt / (w * L)) * (1 + (6 * ae) / L),
+      shape: 'trapezoidal',
+      pMin: (Vt / (w * L)) * (1 - (6 * ae) / L),
+      contact: L,
+    };
+  if (ae < L / 2)
+    return { p: (2 * Vt) / (3 * w * (L / 2 - ae)), shape: 'triangular', pMin: 0, contact: 3 * (L / 2 - ae) };
+  return { p: Infinity, shape: 'tipping', pMin: 0, contact: 0 };
 }
 
 function allowable(ctx: Ctx): { value: number | null; source: Source; message: string } {
@@ -145,6 +160,7 @@ function pressureItem(
   what: string,
   items: CheckItem[],
   figures: LiftFigures,
+  fixes?: Fix[],
 ) {
   figures.groundPressure = p;
   const al = allowable(ctx);
@@ -165,6 +181,28 @@ function pressureItem(
     );
     return;
   }
+  const mat = ctx.input.ground?.mat;
+  if (exceeds(p, al.value) && mat && fixes) {
+    // What would fix it: the mat area under each support that brings the pressure to the allowable
+    // (rigid mats, pressure = reaction ÷ area), and the number of mats of the size entered.
+    const need = R / al.value;
+    const one = si(mat.length)! * si(mat.width)!;
+    const count = Math.ceil(need / one - 1e-9);
+    fixes.push({
+      checkId: 'ground-bearing',
+      kind: 'mat_area',
+      value: need,
+      unit: 'area',
+      formula: f`bearing area = ${what} ${term(R, 'force')} ÷ allowable ${term(al.value, 'pressure')} = ${term(need, 'area')}`,
+      message: `Spread each support over at least ${formatQuantity(need, 'area', ctx.system)} (${count} mats of ${formatQuantity(
+        si(mat.length)!,
+        'length',
+        ctx.system,
+      )} × ${formatQuantity(si(mat.width)!, 'length', ctx.system)}, or one mat of ${formatQuantity(Math.sqrt(need), 'length', ctx.system)} square), on ground that carries it.`,
+      text: '',
+    });
+    fixes[fixes.length - 1].text = fixes[fixes.length - 1].message;
+  }
   items.push(
     item(ctx, {
       id: 'ground-bearing.pressure',
@@ -183,7 +221,7 @@ function pressureItem(
   );
 }
 
-function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckItem[]) {
+function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckItem[], fixes?: Fix[]) {
   const entered = ctx.input.crane.slewAngle;
   const slews = entered ? [entered.value] : SLEW_SWEEP;
   let worst = { max: -Infinity, R: [0, 0, 0, 0], slew: 0, liftOff: -1, V: 0, ex: 0, ey: 0 };
@@ -273,7 +311,7 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
   const mat = ctx.input.ground?.mat;
   if (mat) {
     const area = si(mat.length)! * si(mat.width)! * (mat.perSupport ?? 1);
-    pressureItem(ctx, worst.max / area, area, worst.max, 'largest reaction', items, figures);
+    pressureItem(ctx, worst.max / area, area, worst.max, 'largest reaction', items, figures, fixes);
   }
 }
 
@@ -283,7 +321,7 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
   const w = si(tr.shoeWidth)!;
   const entered = ctx.input.crane.slewAngle;
   const slews = entered ? [entered.value] : SLEW_SWEEP;
-  let worst = { p: -Infinity, Vt: 0, e: 0, slew: 0, shape: 'uniform' as string };
+  let worst = { p: -Infinity, Vt: 0, e: 0, slew: 0, shape: 'uniform' as string, pMin: 0, contact: 0 };
   for (const t of slews) {
     const calm = resultant(m, t, NO_WIND);
     const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : CALM;
@@ -295,7 +333,15 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
       for (const Vt of [VL, VR]) {
         const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
         if (tp.p > worst.p * (1 + 1e-9) || worst.p === -Infinity)
-          worst = { p: tp.p, Vt: Math.min(Math.max(Vt, 0), r.V), e, slew: t, shape: tp.shape };
+          worst = {
+            p: tp.p,
+            Vt: Math.min(Math.max(Vt, 0), r.V),
+            e,
+            slew: t,
+            shape: tp.shape,
+            pMin: tp.pMin,
+            contact: tp.contact,
+          };
       }
     }
   }
@@ -334,9 +380,32 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
           : `Track ground pressure (eccentric footing, ${worst.shape}); mats under tracks are not modelled (area ${area.toFixed(2)} m² per track).`,
     }),
   );
+  items.push(trackContactItem(ctx, L, worst));
 }
 
-export function groundBearingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
+function trackContactItem(
+  ctx: Ctx,
+  L: number,
+  worst: { pMin: number; contact: number; p: number },
+): CheckItem {
+  return item(ctx, {
+    id: 'ground-bearing.track-contact',
+    label: 'Track length in contact (most loaded track)',
+    status: worst.contact > 0 ? 'pass' : 'fail',
+    value: worst.contact,
+    unit: 'length',
+    formula: f`contact ${term(worst.contact, 'length')} of ${term(L, 'length')}; pressure from ${term(worst.pMin, 'pressure')} to ${
+      Number.isFinite(worst.p) ? term(worst.p, 'pressure') : 'unbounded'
+    }`,
+    source: SOURCES.eccentricFooting,
+    message:
+      worst.contact < L
+        ? 'Part of the track lifts off the ground: the pressure is triangular over the length in contact.'
+        : 'The whole track bears on the ground.',
+  });
+}
+
+export function groundBearingCheck(ctx: Ctx, figures: LiftFigures, fixes?: Fix[]): CheckResult {
   const items: CheckItem[] = [];
   if (ctx.input.crane.type === 'gantry_a_frame') {
     const gs = gantryStatics(ctx);
@@ -364,13 +433,13 @@ export function groundBearingCheck(ctx: Ctx, figures: LiftFigures): CheckResult 
       }),
     );
     figures.maxSupportReaction = foot;
-    pressureItem(ctx, foot / area, area, foot, 'foot reaction', items, figures);
+    pressureItem(ctx, foot / area, area, foot, 'foot reaction', items, figures, fixes);
     return check('ground-bearing', 'Support reactions and ground bearing', items);
   }
   if (ctx.geometry.radius === null) return na(ctx, 'No radius entered.');
   const m = planModel(ctx, ctx.geometry.radius);
   if (!m) return na(ctx, 'Enter the crane weights and the outrigger spread or track geometry.');
-  if (m.kind === 'outriggers') outriggers(ctx, m, figures, items);
+  if (m.kind === 'outriggers') outriggers(ctx, m, figures, items, fixes);
   else crawler(ctx, m, items, figures);
   if (items.length === 1 && m.kind === 'outriggers')
     items.push(
