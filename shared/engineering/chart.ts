@@ -1,9 +1,11 @@
 // Load chart lookup. The contractor enters the manufacturer's rows for the configuration used.
 // Rule (common practice, no source): never interpolate upward. Between two listed radii the lower
 // of the two capacities is used (for a chart that falls with radius: the next longer radius); a
-// boom length between listed lengths uses the next longer boom length listed. Only when every row
+// boom length between listed lengths uses the lower of the two bracketing columns. Only when every row
 // involved says `interpolationAllowed` is the capacity interpolated linearly. Outside the listed
 // radii or boom lengths the chart does not rate the lift: `outside` says why, capacity is null.
+// Between two listed boom lengths both bracketing columns are read (each at its next longer radius)
+// and the lower capacity is used, since a shorter boom may rate less at the same radius.
 import type { ChartLookup } from './context';
 
 export interface ChartRowSI {
@@ -13,8 +15,11 @@ export interface ChartRowSI {
   interpolationAllowed: boolean;
 }
 
+// Chart rows are matched to the plan with a looser tolerance than limits (compare.ts): a radius
+// worked out from a boom angle, or a boom length typed in feet to four decimals, is the same row.
 const EPS = 1e-6;
-const same = (a: number, b: number) => Math.abs(a - b) <= EPS * Math.max(1, Math.abs(a), Math.abs(b));
+/** Same boom length or radius for reading a chart (relative 1e-6, at least 1e-6 m). */
+export const same = (a: number, b: number) => Math.abs(a - b) <= EPS * Math.max(1, Math.abs(a), Math.abs(b));
 
 export interface Column {
   boomLength: number;
@@ -167,6 +172,25 @@ export function lookupCapacity(
         boomLengthUsed: boomLength,
       };
     }
+  }
+  // Between two listed boom lengths the shorter column may rate less at this radius (common
+  // practice, no source): take the lower of the two, each read at its next longer radius.
+  if (!exactBoom && shorter) {
+    const s = readColumn(shorter.rows, radius);
+    if (s.capacity !== null && s.capacity < read.capacity)
+      return {
+        capacity: s.capacity,
+        method: `${
+          s.interpolated
+            ? 'interpolated between listed radii (chart allows)'
+            : same(s.radiusUsed!, radius)
+              ? 'row listed at this radius'
+              : 'lower capacity of the bracketing rows (no upward interpolation)'
+        }; lower of the two bracketing boom lengths listed`,
+        outside: null,
+        radiusUsed: s.radiusUsed,
+        boomLengthUsed: shorter.boomLength,
+      };
   }
   const method = read.interpolated
     ? 'interpolated between listed radii (chart allows)'

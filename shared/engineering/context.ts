@@ -8,6 +8,7 @@
 // - pass: otherwise.  not_applicable: the data the check needs is absent (the message says what).
 import type { LiftInput } from '../schemas/lift-input';
 import type { SitePolicy } from '../schemas/site-policy';
+import { atLeast, atMost } from './compare';
 import { formatFormula } from './format';
 import type {
   CheckId,
@@ -92,18 +93,23 @@ export function item(ctx: Ctx, s: ItemSpec): CheckItem {
     if (typeof p !== 'string' && !Number.isFinite(p.v))
       formula[i] = Number.isNaN(p.v) ? '—' : p.v > 0 ? '∞' : '−∞';
   }
+  const finite = s.value != null && Number.isFinite(s.value);
+  // A value that could not be computed never passes: the reader is told to look at it.
+  const unknownPass = s.status === 'pass' && !finite && s.value !== null;
   return {
     id: s.id,
     label: s.label,
-    status: s.status,
-    value: s.value != null && Number.isFinite(s.value) ? s.value : null,
+    status: unknownPass ? 'caution' : s.status,
+    value: finite ? s.value : null,
     limit: s.limit != null && Number.isFinite(s.limit) ? s.limit : null,
     limitType: s.limitType ?? null,
     unit: s.unit,
     formula,
     formulaText: formatFormula(formula, ctx.system),
     source: s.source,
-    message: s.message,
+    message: unknownPass
+      ? `${s.message} The value could not be computed from the figures entered.`
+      : s.message,
   };
 }
 
@@ -153,16 +159,20 @@ export function notApplicable(ctx: Ctx, id: CheckId, label: string, reason: stri
   ]);
 }
 
-/** value must not exceed limit; caution within the margin below it. */
+/**
+ * value must not exceed limit; caution within the margin below it. Every comparison goes through
+ * compare.ts (SI, relative tolerance REL_TOL), so a value at a limit gives one verdict in any unit.
+ * A missing or non-finite value never passes.
+ */
 export function statusMax(value: number, limit: number, policy: SitePolicy): CheckStatus {
-  if (!(value <= limit)) return 'fail';
-  if (value > limit * (1 - policy.cautionMarginPct / 100)) return 'caution';
+  if (!Number.isFinite(value) || !atMost(value, limit)) return 'fail';
+  if (!atMost(value, limit * (1 - policy.cautionMarginPct / 100))) return 'caution';
   return 'pass';
 }
 
-/** value must reach limit; caution within the margin above it. */
+/** value must reach limit; caution within the margin above it. A missing or NaN value fails. */
 export function statusMin(value: number, limit: number, policy: SitePolicy): CheckStatus {
-  if (!(value >= limit)) return 'fail';
-  if (value < limit * (1 + policy.cautionMarginPct / 100)) return 'caution';
+  if (Number.isNaN(value) || !atLeast(value, limit)) return 'fail';
+  if (!atLeast(value, limit * (1 + policy.cautionMarginPct / 100))) return 'caution';
   return 'pass';
 }

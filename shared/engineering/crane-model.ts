@@ -25,7 +25,10 @@ export interface PlanModel {
   carrierW: number;
   carrierX: number;
   edges: Edge[];
-  /** wind: sum of force × height about the ground (N·m), acting along the boom line */
+  /**
+   * wind: sum of force × height about the ground (N·m). The wind may blow from any direction: the
+   * moment balance adds it in full about every tipping line, reactions take the least favourable way.
+   */
   windMoment: number;
   /** support corners (outriggers) x, y */
   supports: { label: string; x: number; y: number }[];
@@ -130,7 +133,8 @@ export function edgeBalance(m: PlanModel, slewDeg: number, e: number, withWind =
   const uy = Math.sin(slewDeg * DEG);
   const E = m.edges[e];
   const nu = E.nx * ux + E.ny * uy;
-  let ovt = withWind ? m.windMoment * Math.abs(nu) : 0;
+  // the least favourable wind for this line blows square to it, whatever the boom's direction
+  let ovt = withWind ? m.windMoment : 0;
   let res = 0;
   for (let i = 0; i < m.w.length; i++) {
     const arm = m.s[i] * nu - E.d; // n·p − d with p = s·u
@@ -179,8 +183,15 @@ export function worstSlew(
   return { slewDeg: slew, balance: best, entered: false };
 }
 
-/** Total vertical load and its plan position including the wind moment as an eccentricity. */
-export function resultant(m: PlanModel, slewDeg: number): { V: number; ex: number; ey: number } {
+/**
+ * Total vertical load and its plan position, the wind moment added as an eccentricity blowing along
+ * the plan direction `wind` (a unit vector; by default along the boom line).
+ */
+export function resultant(
+  m: PlanModel,
+  slewDeg: number,
+  wind?: readonly [number, number],
+): { V: number; ex: number; ey: number } {
   const ux = Math.cos(slewDeg * DEG);
   const uy = Math.sin(slewDeg * DEG);
   let V = m.carrierW;
@@ -191,7 +202,26 @@ export function resultant(m: PlanModel, slewDeg: number): { V: number; ex: numbe
     mx += m.w[i] * m.s[i] * ux;
     my += m.w[i] * m.s[i] * uy;
   }
-  mx += m.windMoment * ux;
-  my += m.windMoment * uy;
+  mx += m.windMoment * (wind ? wind[0] : ux);
+  my += m.windMoment * (wind ? wind[1] : uy);
   return { V, ex: V > 0 ? mx / V : 0, ey: V > 0 ? my / V : 0 };
+}
+
+/**
+ * Wind directions worth trying for the reactions and pressures at one slew, from the calm
+ * eccentricity (ex, ey about the centre of a rigid rectangle of half-sizes a, b): square to
+ * (1/a, 1/b) toward the corner the weights load most — in the four-support regime that corner's
+ * reaction grows fastest with wind and stays the largest — and straight out along the eccentricity,
+ * the way lift-off and tipping are reached first.
+ */
+export function windDirections(a: number, b: number, ex: number, ey: number): [number, number][] {
+  const sx = ex >= 0 ? 1 : -1;
+  const sy = ey >= 0 ? 1 : -1;
+  const h = Math.hypot(1 / a, 1 / b);
+  const out: [number, number][] = [];
+  if (h > 0 && Number.isFinite(h)) out.push([sx / a / h, sy / b / h]);
+  const e = Math.hypot(ex, ey);
+  if (e > 0 && Number.isFinite(e)) out.push([ex / e, ey / e]);
+  if (out.length === 0) out.push([1, 0]);
+  return out;
 }

@@ -1,6 +1,7 @@
 // Every figure the contractor states in the plan, compared with the recomputed one. A difference past
 // the site's tolerance (default 5%, common practice) is a discrepancy; `unsafeSide` marks a stated
 // figure that understates a demand or overstates a capacity, so the engineer sees those first.
+import { exceeds } from './compare';
 import type { LiftInput } from '../schemas/lift-input';
 import type { SitePolicy } from '../schemas/site-policy';
 import { formatQuantity } from './format';
@@ -102,7 +103,7 @@ export function compareStated(
       continue;
     }
     const diff = cv === 0 ? (sv === 0 ? 0 : Infinity) : (Math.abs(sv - cv) / Math.abs(cv)) * 100;
-    const bad = diff > tol;
+    const bad = exceeds(diff, tol);
     const unsafe = s.demand === 1 ? sv < cv : sv > cv;
     out.push({
       figure: s.figure,

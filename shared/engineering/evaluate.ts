@@ -1,4 +1,6 @@
-// The independent check: evaluateLift runs checks 1–12 of PRODUCT.md on a parsed LiftInput and
+// The independent check: evaluateLift runs checks 1–12 of PRODUCT.md on a parsed LiftInput (upgraded
+// to the current schema version first; with several cranes, every single-crane check per crane for
+// its share, see multi-crane.ts) and
 // returns a LiftResult (versioned, with the policy used copied in). checkLift parses unknown JSON
 // first and returns the zod issues (path and message) instead of throwing.
 import { LiftInput } from '../schemas/lift-input';
@@ -16,15 +18,26 @@ import { powerLineCheck } from './checks/power-line';
 import { reevingCheck } from './checks/reeving';
 import { riggingCheck } from './checks/rigging';
 import { stabilityCheck } from './checks/stability';
-import { tandemCheck } from './checks/tandem';
+import { multiCraneCheck, singleCraneTandem, tandemMarginPct, type CraneDemand } from './checks/tandem';
+import { sharePlan } from './multi-crane';
+import { upgradeLiftInput } from './upgrade';
+import { check } from './context';
 import { computeWind, windCheck } from './checks/wind';
 import { compareStated } from './discrepancies';
 import { si } from './units';
 import { edgeBalance, planModel } from './crane-model';
-import type { CheckResult, Fix, LiftFigures, LiftResult, UnitSystem } from './types';
+import type {
+  CheckResult,
+  CraneResult,
+  Discrepancy,
+  Fix,
+  LiftFigures,
+  LiftResult,
+  UnitSystem,
+} from './types';
 
-export const RESULT_VERSION = 1 as const;
-export const ENGINE_VERSION = '1.1.0';
+export const RESULT_VERSION = 2 as const;
+export const ENGINE_VERSION = '2.0.0';
 
 export const CAUTIONS: readonly string[] = [
   "This check recomputes the arithmetic and consistency of the lift plan. It does not replace the crane manufacturer's load chart and operating instructions.",
@@ -47,13 +60,8 @@ export function resolvePolicy(policy?: Partial<SitePolicy> | null): SitePolicy {
   };
 }
 
-export function evaluateLift(
-  input: LiftInput,
-  policy?: Partial<SitePolicy> | null,
-  options: EvaluateOptions = {},
-): LiftResult {
-  const pol = resolvePolicy(policy);
-  const system: UnitSystem = options.units ?? 'metric';
+/** Every single-crane check of one crane; `multi` set when it is one of several cranes. */
+function evaluateOne(input: LiftInput, pol: SitePolicy, system: UnitSystem, multi: boolean): LiftResult {
   const parts = grossLoadParts(input);
   const geometry = computeGeometry(input);
   const rows: ChartRowSI[] = input.chart.rows.map((r) => ({
@@ -106,24 +114,26 @@ export function evaluateLift(
     geometryCheck(ctx, geometry),
     capacityCheck(ctx, fixes),
     stabilityCheck(ctx, fixes, figures),
-    groundBearingCheck(ctx, figures),
+    groundBearingCheck(ctx, figures, fixes),
     riggingCheck(ctx, figures),
     reevingCheck(ctx, figures),
     powerLineCheck(ctx),
     windCheck(ctx),
-    tandemCheck(ctx),
+    singleCraneTandem(ctx),
     personnelCheck(ctx),
     criticalTriggersCheck(ctx, triggers),
   ];
+  if (multi)
+    checks.splice(
+      checks.findIndex((c) => c.id === 'tandem'),
+      1,
+    );
   const discrepancies = compareStated(input, figures, pol, system);
-  let overall = worst(checks.map((c) => c.status));
-  if (overall === 'not_applicable') overall = 'pass';
-  if (overall === 'pass' && discrepancies.some((d) => d.status === 'discrepancy')) overall = 'caution';
   return {
     resultVersion: RESULT_VERSION,
     engineVersion: ENGINE_VERSION,
     units: system,
-    overallStatus: overall,
+    overallStatus: overallOf(checks, discrepancies),
     checks,
     critical: { isCritical: triggers.length > 0, triggers },
     discrepancies,
@@ -132,6 +142,210 @@ export function evaluateLift(
     figures,
     cautions: [...CAUTIONS],
   };
+}
+
+function overallOf(checks: CheckResult[], discrepancies: Discrepancy[]): LiftResult['overallStatus'] {
+  let overall = worst(checks.map((c) => c.status));
+  if (overall === 'not_applicable') overall = 'pass';
+  if (overall === 'pass' && discrepancies.some((d) => d.status === 'discrepancy')) overall = 'caution';
+  return overall;
+}
+
+/** Checks repeated for every crane of a lift with several cranes; the rest are the lift's own. */
+const PER_CRANE: ReadonlySet<CheckResult['id']> = new Set([
+  'gross-load',
+  'geometry',
+  'capacity',
+  'stability',
+  'ground-bearing',
+  'rigging',
+  'reeving',
+]);
+
+type Multi = NonNullable<LiftInput['multiCrane']>;
+
+/** The lower of the chart's capacity and a capacity the plan states (either may be absent). */
+const lowerOf = (chart: number | null, stated: number | undefined) =>
+  chart === null ? (stated ?? null) : stated === undefined ? chart : Math.min(chart, stated);
+type Other = Multi['others'][number];
+
+/** The single-crane input of crane k (0 = lead) carrying `share` of the load. */
+function craneInput(input: LiftInput, k: number, share: number): LiftInput {
+  const W = si(input.load.weight)!;
+  const frac = W > 0 ? share / W : 0;
+  const area = input.load.windArea;
+  const load = {
+    ...input.load,
+    weight: { value: share, unit: 'N' as const },
+    windArea: area ? { value: area.value * frac, unit: area.unit } : undefined,
+  };
+  if (k === 0) return { ...input, load };
+  const o = input.multiCrane!.others[k - 1];
+  return {
+    ...input,
+    crane: o.crane ?? input.crane,
+    chart: o.chart ?? input.chart,
+    rigging: o.rigging,
+    hookBlock: o.hookBlock,
+    loadLineAllowance: o.loadLineAllowance,
+    chartDeductions: o.chartDeductions,
+    reeving: o.reeving,
+    ground: o.ground,
+    personnel: undefined,
+    stated: undefined,
+    load,
+  };
+}
+
+function craneName(input: LiftInput, k: number): string {
+  const mc = input.multiCrane!;
+  if (k === 0) return mc.lead.name ?? input.crane.name ?? 'Crane 1';
+  const o: Other = mc.others[k - 1];
+  return o.name ?? o.crane?.name ?? `Crane ${k + 1}`;
+}
+
+function prefixed(c: CheckResult, k: number, name: string): CheckResult['items'] {
+  return c.items.map((it) => ({
+    ...it,
+    id: k === 0 ? it.id : `crane-${k + 1}.${it.id}`,
+    label: `${name}: ${it.label}`,
+  }));
+}
+
+function evaluateMulti(input: LiftInput, pol: SitePolicy, system: UnitSystem): LiftResult {
+  const mc = input.multiCrane!;
+  const plan = sharePlan(input);
+  const n = mc.others.length + 1;
+  const W = plan.W;
+  const shareOf = (k: number) => (plan.shares ? Math.max(0, plan.shares[k]) : W);
+  const names = Array.from({ length: n }, (_, k) => craneName(input, k));
+  const results: (LiftResult | null)[] = [];
+  const demands: CraneDemand[] = [];
+  for (let k = 0; k < n; k++) {
+    const ci = craneInput(input, k, shareOf(k));
+    const configured = k === 0 || !!mc.others[k - 1].crane;
+    if (configured) {
+      const r = evaluateOne(ci, pol, system, true);
+      results.push(r);
+      demands.push({
+        name: names[k],
+        gross: r.figures.grossLoad,
+        own: r.figures.grossLoad - shareOf(k),
+        capacity: lowerOf(
+          r.figures.chartCapacity,
+          si(k === 0 ? mc.lead.chartCapacity : mc.others[k - 1].chartCapacity),
+        ),
+      });
+    } else {
+      // version 1 form: only its chart capacity and own hook block are known
+      const g = grossLoadParts(ci).gross;
+      results.push(null);
+      demands.push({
+        name: names[k],
+        gross: g,
+        own: g - shareOf(k),
+        capacity: si(mc.others[k - 1].chartCapacity) ?? null,
+      });
+    }
+  }
+  const lead = results[0]!;
+  const ctx = { system, policy: pol } as Ctx;
+  const tandem = multiCraneCheck(ctx, plan, demands);
+  const checks: CheckResult[] = [];
+  for (const c of lead.checks) {
+    if (c.id === 'personnel') checks.push(tandem);
+    if (!PER_CRANE.has(c.id)) {
+      checks.push(c);
+      continue;
+    }
+    const items = prefixed(c, 0, names[0]);
+    results.forEach((r, k) => {
+      if (k === 0) return;
+      if (!r) {
+        items.push({
+          ...c.items[0],
+          id: `crane-${k + 1}.${c.items[0].id}`,
+          label: `${names[k]}: ${c.label}`,
+          status: 'not_applicable',
+          value: null,
+          limit: null,
+          limitType: null,
+          formula: [],
+          formulaText: '',
+          source: { kind: 'input', text: 'no data entered' },
+          message: 'Enter this crane’s configuration and chart rows to check it for its share.',
+        });
+        return;
+      }
+      const rc = r.checks.find((x) => x.id === c.id);
+      if (rc) items.push(...prefixed(rc, k, names[k]));
+    });
+    const merged = check(c.id, c.label, items);
+    checks.push(merged);
+  }
+  const cranes: CraneResult[] = names.map((name, k) => {
+    const r = results[k];
+    const p = plan.picks[k];
+    return {
+      index: k + 1,
+      name,
+      share: plan.shares ? plan.shares[k] : null,
+      grossLoad: demands[k].gross,
+      chartCapacity: demands[k].capacity,
+      pickPoint: p ? { x: p[0], y: p[1] } : null,
+      shareRange: plan.sensitivity ? { min: plan.sensitivity.min[k], max: plan.sensitivity.max[k] } : null,
+      overallStatus: r
+        ? overallOf(
+            [
+              ...r.checks,
+              {
+                ...tandem,
+                status: worst(tandem.items.filter((i) => i.id.endsWith(`-${k + 1}`)).map((i) => i.status)),
+              },
+            ],
+            r.discrepancies,
+          )
+        : worst(tandem.items.filter((i) => i.id.endsWith(`-${k + 1}`)).map((i) => i.status)) === 'fail'
+          ? 'fail'
+          : 'caution',
+      checks: r ? r.checks : [],
+      figures: r ? r.figures : null,
+    };
+  });
+  const fixes: Fix[] = [];
+  results.forEach((r, k) => {
+    if (r)
+      for (const fx of r.fixes)
+        fixes.push(
+          k === 0 ? fx : { ...fx, message: `${names[k]}: ${fx.message}`, text: `${names[k]}: ${fx.text}` },
+        );
+  });
+  return {
+    ...lead,
+    overallStatus: overallOf(checks, lead.discrepancies),
+    checks,
+    fixes,
+    cranes,
+    multiCrane: {
+      method: plan.method,
+      loadWeight: W,
+      cg: { x: plan.cg[0], y: plan.cg[1] },
+      spacing: plan.spacing,
+      sensitivityOffset: plan.sensitivity?.offset ?? null,
+      marginPct: tandemMarginPct(pol, n),
+    },
+  };
+}
+
+export function evaluateLift(
+  input: LiftInput,
+  policy?: Partial<SitePolicy> | null,
+  options: EvaluateOptions = {},
+): LiftResult {
+  const pol = resolvePolicy(policy);
+  const system: UnitSystem = options.units ?? 'metric';
+  const current = upgradeLiftInput(input);
+  return current.multiCrane ? evaluateMulti(current, pol, system) : evaluateOne(current, pol, system, false);
 }
 
 export interface InputIssue {

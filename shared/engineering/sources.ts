@@ -16,6 +16,10 @@ export const SOURCES = {
   asmeTipping: std(
     'ASME B30.5 §5-1.1.1 / SAE J765: rated load ≤ 85% of tipping load on outriggers, 75% on crawlers',
   ),
+  asmeBackward: {
+    kind: 'from_memory',
+    text: 'ASME B30.5 §5-1.1.2 backward stability (from memory: crawlers, CG within 70% of the distance to the backward fulcrum; outriggers or wheels, at least 15% of the weight on the boom-side supports); the same test read in ASME B30.4-2020 §4-1.3.4',
+  } as Source,
   slingAngle: std('Rigging handbooks, ASME B30.9 practice: leg tension = share ÷ sin(angle from horizontal)'),
   slingMinAngle: std('Rigging handbooks: leg angles below 30° from horizontal are not used'),
   chokerWire: std(

@@ -108,8 +108,8 @@ export interface Discrepancy {
 }
 
 export interface Fix {
-  checkId: 'capacity' | 'stability';
-  kind: 'extra_counterweight' | 'counterweight_arm' | 'max_radius' | 'max_gross_load';
+  checkId: 'capacity' | 'stability' | 'ground-bearing';
+  kind: 'extra_counterweight' | 'counterweight_arm' | 'max_radius' | 'max_gross_load' | 'mat_area';
   value: number;
   unit: UnitKind;
   message: string;
@@ -118,8 +118,29 @@ export interface Fix {
   formula: FormulaPart[];
 }
 
+/** One crane of a lift with several cranes (lead crane first). */
+export interface CraneResult {
+  /** 1-based position: 1 is the crane entered at the top of the input */
+  index: number;
+  name: string;
+  /** this crane's share of the load (N) from statics or as stated; null when not found */
+  share: number | null;
+  /** share plus this crane's own rigging, hook block, load line and deductions (N) */
+  grossLoad: number | null;
+  chartCapacity: number | null;
+  /** plan position of the pick point (m), in the plan frame of the input */
+  pickPoint: { x: number; y: number } | null;
+  /** the share's range when the centre of gravity moves by the sensitivity offset (N) */
+  shareRange: { min: number; max: number } | null;
+  overallStatus: Exclude<CheckStatus, 'not_applicable'>;
+  /** every single-crane check for this crane's share; empty when its configuration is not entered */
+  checks: CheckResult[];
+  figures: LiftFigures | null;
+}
+
 export interface LiftResult {
-  resultVersion: 1;
+  /** 2 adds `cranes` and `multiCrane` for lifts with several cranes; 1 results stay readable. */
+  resultVersion: 1 | 2;
   engineVersion: string;
   units: UnitSystem;
   overallStatus: Exclude<CheckStatus, 'not_applicable'>;
@@ -132,6 +153,18 @@ export interface LiftResult {
   /** Key computed figures in SI for plots (capacity curve, schematic, reactions). */
   figures: LiftFigures;
   cautions: string[];
+  /** Lifts with several cranes: each crane's share and checks (absent for one crane). */
+  cranes?: CraneResult[];
+  multiCrane?: {
+    method: 'two' | 'three' | 'stated' | 'none';
+    loadWeight: number;
+    cg: { x: number; y: number };
+    /** largest distance between two pick points (m) */
+    spacing: number;
+    /** the centre of gravity moved by this much for the sensitivity line (m) */
+    sensitivityOffset: number | null;
+    marginPct: number;
+  };
 }
 
 export interface LiftFigures {

@@ -20,7 +20,9 @@ import {
   SPEED_UNITS,
   VOLTAGE_UNITS,
   WEIGHT_UNITS,
+  TO_SI,
 } from '../engineering/units';
+import { same } from '../engineering/chart';
 
 const finite = (label: string) =>
   z.number({
@@ -52,17 +54,58 @@ function boundedNumber(label: string, b: Bounds) {
   return n;
 }
 
+/**
+ * Plausible upper bound of each kind of quantity, in SI (ours: common practice, no source). Each is
+ * well above any crane lift on record (the heaviest lifts are a few tens of thousands of tonnes, the
+ * tallest booms a few hundred metres) and keeps every product the engine forms finite.
+ */
+export const QUANTITY_MAX_SI = {
+  length: 2000,
+  weight: 100_000 * 1000 * TO_SI.kg,
+  pressure: 100e6,
+  speed: 100,
+  area: 10_000,
+  angle: 360,
+  voltage: 2e6,
+  moment: 1e12,
+} as const;
+
+const KIND_OF_UNITS = new Map<readonly string[], keyof typeof QUANTITY_MAX_SI>([
+  [LENGTH_UNITS, 'length'],
+  [WEIGHT_UNITS, 'weight'],
+  [PRESSURE_UNITS, 'pressure'],
+  [SPEED_UNITS, 'speed'],
+  [AREA_UNITS, 'area'],
+  [ANGLE_UNITS, 'angle'],
+  [VOLTAGE_UNITS, 'voltage'],
+  [MOMENT_UNITS, 'moment'],
+]);
+
+const limitText = (x: number) => x.toLocaleString('en-US', { maximumFractionDigits: x >= 100 ? 0 : 3 });
+
 function quantity<const U extends readonly [string, ...string[]]>(units: U, label: string, b: Bounds = {}) {
-  return z.object(
-    {
-      value: boundedNumber(label, b),
-      unit: z.enum(units, { error: `${label}: unit must be one of ${units.join(', ')}` }),
-    },
-    {
-      error: (iss) =>
-        iss.input === undefined ? `${label} is required` : `${label} must be an object { value, unit }`,
-    },
-  );
+  const kind = KIND_OF_UNITS.get(units);
+  const maxSI = kind ? QUANTITY_MAX_SI[kind] : Infinity;
+  return z
+    .object(
+      {
+        value: boundedNumber(label, b),
+        unit: z.enum(units, { error: `${label}: unit must be one of ${units.join(', ')}` }),
+      },
+      {
+        error: (iss) =>
+          iss.input === undefined ? `${label} is required` : `${label} must be an object { value, unit }`,
+      },
+    )
+    .superRefine((q, ctx) => {
+      const factor = TO_SI[q.unit as keyof typeof TO_SI];
+      if (Math.abs(q.value * factor) > maxSI)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['value'],
+          message: `${label} must be ${limitText(maxSI / factor)} ${q.unit} or less`,
+        });
+    });
 }
 
 const length = (label: string, b: Bounds = { min: 0 }) => quantity(LENGTH_UNITS, label, b);
@@ -184,7 +227,24 @@ export const Chart = z.object(
     rows: z
       .array(ChartRow, { error: 'chart.rows must be a list of chart rows' })
       .min(1, { error: 'chart.rows must list at least 1 row of the load chart' })
-      .max(2000, { error: 'chart.rows must list at most 2000 rows' }),
+      .max(2000, { error: 'chart.rows must list at most 2000 rows' })
+      .superRefine((rows, ctx) => {
+        // Two rows for the same boom length and radius leave the capacity ambiguous: name both.
+        const key = rows.map((r) => [
+          r.boomLength.value * TO_SI[r.boomLength.unit],
+          r.radius.value * TO_SI[r.radius.unit],
+        ]);
+        for (let i = 0; i < rows.length; i++)
+          for (let j = i + 1; j < rows.length; j++)
+            if (same(key[i][0], key[j][0]) && same(key[i][1], key[j][1])) {
+              ctx.addIssue({
+                code: 'custom',
+                path: [j],
+                message: `chart.rows[${i}] and chart.rows[${j}] list the same boom length and radius: keep one row`,
+              });
+              return;
+            }
+      }),
   },
   {
     error: (iss) =>
@@ -252,17 +312,37 @@ export const Load = z.object({
 });
 
 export const ROPE_TYPES = ['running', 'rotation_resistant'] as const;
-export const Reeving = z.object({
-  partsOfLine: count('reeving.partsOfLine', 1, 64),
-  sheavesPassed: count('reeving.sheavesPassed', 0, 80),
-  bearing: z.enum(['plain', 'roller'], { error: "reeving.bearing must be 'plain' or 'roller'" }),
-  hoistLinePull: positiveWeight('reeving.hoistLinePull').optional(),
-  ropeRatedLoad: positiveWeight('reeving.ropeRatedLoad').optional(),
-  ropeBreakingStrength: positiveWeight('reeving.ropeBreakingStrength').optional(),
-  ropeType: z
-    .enum(ROPE_TYPES, { error: "reeving.ropeType must be 'running' or 'rotation_resistant'" })
-    .optional(),
-});
+export const Reeving = z
+  .object({
+    partsOfLine: count('reeving.partsOfLine', 1, 64),
+    sheavesPassed: count('reeving.sheavesPassed', 0, 80),
+    bearing: z.enum(['plain', 'roller'], { error: "reeving.bearing must be 'plain' or 'roller'" }),
+    hoistLinePull: positiveWeight('reeving.hoistLinePull').optional(),
+    ropeRatedLoad: positiveWeight('reeving.ropeRatedLoad').optional(),
+    ropeBreakingStrength: positiveWeight('reeving.ropeBreakingStrength').optional(),
+    ropeType: z
+      .enum(ROPE_TYPES, { error: "reeving.ropeType must be 'running' or 'rotation_resistant'" })
+      .optional(),
+    /** Efficiency of each sheave from the planner's own data (1/K); replaces the bearing constant. */
+    sheaveEfficiency: boundedNumber('reeving.sheaveEfficiency', { min: 0.8, max: 1 }).optional(),
+    sheaveEfficiencySource: z.string().min(1).max(200).optional(),
+  })
+  .superRefine((r, ctx) => {
+    // With N parts the rope turns over a sheave between each pair of parts: at least N − 1 sheaves.
+    if (r.sheavesPassed < r.partsOfLine - 1)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['sheavesPassed'],
+        message: `reeving.sheavesPassed must be at least reeving.partsOfLine − 1 (${r.partsOfLine - 1}): ${r.partsOfLine} parts of line pass at least ${r.partsOfLine - 1} sheaves`,
+      });
+    if (r.sheaveEfficiency !== undefined && !r.sheaveEfficiencySource)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['sheaveEfficiencySource'],
+        message:
+          'reeving.sheaveEfficiencySource is required with a sheave efficiency (where the figure comes from)',
+      });
+  });
 
 export const SOIL_CLASSES = [
   'crystalline_bedrock',
@@ -350,27 +430,110 @@ export const Stated = z.object({
   linePull: weight('stated.linePull').optional(),
 });
 
-export const LiftInput = z.object({
-  schemaVersion: z.literal(1, { error: 'schemaVersion must be 1' }).optional(),
-  title: z.string().max(300).optional(),
-  crane: Crane,
-  chart: Chart,
-  load: Load,
-  rigging: Rigging.optional(),
-  hookBlock: z
-    .object({ weight: weight('hookBlock.weight'), height: length('hookBlock.height').optional() })
-    .optional(),
-  loadLineAllowance: weight('loadLineAllowance').optional(),
-  chartDeductions: z.array(z.object({ name, weight: weight('chartDeductions[].weight') })).optional(),
-  reeving: Reeving.optional(),
-  ground: Ground.optional(),
-  environment: Environment.optional(),
-  tandem: Tandem.optional(),
-  personnel: Personnel.optional(),
-  requiredLiftHeight: length('requiredLiftHeight').optional(),
-  site: SiteConditions.optional(),
-  stated: Stated.optional(),
+const HookBlock = (label: string) =>
+  z.object({ weight: weight(`${label}.weight`), height: length(`${label}.height`).optional() });
+
+const PlanPoint = (label: string) =>
+  z.object({ x: signedLength(`${label}.x`), y: signedLength(`${label}.y`) });
+
+/**
+ * A crane of a lift with several cranes, other than the one entered at the top of the input (the
+ * lead crane). Plan positions (pick points, the load's centre of gravity) share one plan frame of
+ * the planner's choosing, e.g. the load's own axes. `chartCapacity` without `crane` and `chart` is
+ * the version 1 form (only the multi-crane margin can be checked for such a crane).
+ */
+export const OtherCrane = z
+  .object({
+    name,
+    crane: Crane.optional(),
+    chart: Chart.optional(),
+    chartCapacity: positiveWeight('multiCrane.others[].chartCapacity').optional(),
+    rigging: Rigging.optional(),
+    hookBlock: HookBlock('multiCrane.others[].hookBlock').optional(),
+    loadLineAllowance: weight('multiCrane.others[].loadLineAllowance').optional(),
+    chartDeductions: z
+      .array(z.object({ name, weight: weight('multiCrane.others[].chartDeductions[].weight') }))
+      .optional(),
+    reeving: Reeving.optional(),
+    ground: Ground.optional(),
+    pickPoint: PlanPoint('multiCrane.others[].pickPoint').optional(),
+    statedShare: weight('multiCrane.others[].statedShare').optional(),
+  })
+  .superRefine((c, ctx) => {
+    if (!c.crane !== !c.chart)
+      ctx.addIssue({
+        code: 'custom',
+        path: [c.crane ? 'chart' : 'crane'],
+        message: 'multiCrane.others[]: enter both the crane configuration and its chart rows',
+      });
+    if (!c.crane && !c.chartCapacity)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['crane'],
+        message: 'multiCrane.others[]: enter the crane configuration and chart rows of each crane',
+      });
+  });
+
+/** Version 2: a lift with 2 to 4 cranes, each with its own configuration, rigging and pick point. */
+export const MultiCrane = z.object({
+  /** Plan position of the load's centre of gravity (default the origin of the plan frame). */
+  loadCg: PlanPoint('multiCrane.loadCg').optional(),
+  /** Sensitivity: the centre of gravity moved by this fraction of the pick spacing (default 0.05). */
+  cgOffsetFraction: boundedNumber('multiCrane.cgOffsetFraction', { min: 0, max: 0.5 }).optional(),
+  lead: z.object({
+    name,
+    /** capacity the plan states for this crane; the lower of it and the chart governs the margin */
+    chartCapacity: positiveWeight('multiCrane.lead.chartCapacity').optional(),
+    pickPoint: PlanPoint('multiCrane.lead.pickPoint').optional(),
+    statedShare: weight('multiCrane.lead.statedShare').optional(),
+  }),
+  others: z
+    .array(OtherCrane, { error: 'multiCrane.others must list the other cranes' })
+    .min(1, { error: 'multiCrane.others must list 1 to 3 cranes (2 to 4 cranes in all)' })
+    .max(3, { error: 'multiCrane.others must list 1 to 3 cranes (2 to 4 cranes in all)' }),
 });
+
+export const LIFT_INPUT_SCHEMA_VERSION = 2 as const;
+
+export const LiftInput = z
+  .object({
+    /** 1: several cranes as `tandem` (shares and capacities only); 2: several cranes as `multiCrane`. */
+    schemaVersion: z
+      .union([z.literal(1), z.literal(2)], { error: 'schemaVersion must be 1 or 2' })
+      .optional(),
+    title: z.string().max(300).optional(),
+    crane: Crane,
+    chart: Chart,
+    load: Load,
+    rigging: Rigging.optional(),
+    hookBlock: HookBlock('hookBlock').optional(),
+    loadLineAllowance: weight('loadLineAllowance').optional(),
+    chartDeductions: z.array(z.object({ name, weight: weight('chartDeductions[].weight') })).optional(),
+    reeving: Reeving.optional(),
+    ground: Ground.optional(),
+    environment: Environment.optional(),
+    /** Version 1 form of several cranes, kept so stored inputs load; upgradeLiftInput converts it. */
+    tandem: Tandem.optional(),
+    multiCrane: MultiCrane.optional(),
+    personnel: Personnel.optional(),
+    requiredLiftHeight: length('requiredLiftHeight').optional(),
+    site: SiteConditions.optional(),
+    stated: Stated.optional(),
+  })
+  .superRefine((l, ctx) => {
+    if (l.tandem && l.multiCrane)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['tandem'],
+        message: 'tandem and multiCrane both describe several cranes: keep multiCrane',
+      });
+    else if (l.tandem && l.schemaVersion === 2)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['tandem'],
+        message: 'tandem is the version 1 form of several cranes: with schemaVersion 2 enter multiCrane',
+      });
+  });
 
 export type LiftInput = z.infer<typeof LiftInput>;
 export type LiftInputRaw = z.input<typeof LiftInput>;

@@ -83,6 +83,21 @@ export const POLICY_DEFAULTS = {
     label: 'Minimum clearance between hook block and boom tip (m)',
     source: { kind: 'common_practice', text: 'Common practice, no source (keep clear of two-blocking)' },
   },
+  backwardCrawlerCgPct: {
+    value: 70,
+    label:
+      "Backward stability, crawlers: unloaded crane's CG at most this share of the distance to the backward fulcrum (%)",
+    source: {
+      kind: 'from_memory',
+      text: 'ASME B30.5 §5-1.1.2 (from memory; the same test read in ASME B30.4-2020 §4-1.3.4 with 60% for portal cranes)',
+    },
+  },
+  backwardBoomSideSupportPct: {
+    value: 15,
+    label:
+      "Backward stability, outriggers or wheels: unloaded crane's weight on the boom-side supports at least (%)",
+    source: { kind: 'from_memory', text: 'ASME B30.5 §5-1.1.2 (from memory)' },
+  },
   criticalGrossLoadN: {
     value: null,
     label: 'Site rule: gross loads at or above this weight are critical (N)',
@@ -130,6 +145,10 @@ export const SitePolicy = z.object({
     .min(0, { error: 'minBlockClearanceM must be between 0 and 20 m' })
     .max(20, { error: 'minBlockClearanceM must be between 0 and 20 m' })
     .default(D.minBlockClearanceM.value),
+  backwardCrawlerCgPct: pct('backwardCrawlerCgPct', 10, 100).default(D.backwardCrawlerCgPct.value),
+  backwardBoomSideSupportPct: pct('backwardBoomSideSupportPct', 0, 50).default(
+    D.backwardBoomSideSupportPct.value,
+  ),
   criticalGrossLoadN: z
     .number({ error: 'criticalGrossLoadN must be a finite number' })
     .gt(0, { error: 'criticalGrossLoadN must be greater than 0 N' })

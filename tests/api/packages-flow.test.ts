@@ -297,7 +297,7 @@ describe('calculations', () => {
     const { agent } = await newDraft();
     const res = await agent.post('/api/calculations').send({ input: example, units: 'imperial' });
     expect(res.status).toBe(200);
-    expect(res.body.resultVersion).toBe(1);
+    expect(res.body.resultVersion).toBe(2);
     expect(res.body.checks.map((c: { id: string }) => c.id)).toEqual(
       expect.arrayContaining(['gross-load', 'capacity', 'stability', 'power-line']),
     );

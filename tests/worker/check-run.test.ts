@@ -60,7 +60,7 @@ describe('the check-run worker', () => {
       const r = await t.ctx.dataSource.getRepository(Revision).findOneByOrFail({ id: revisionId });
       return r.checkStatus === 'done' ? r : null;
     });
-    expect(done.resultVersion).toBe(1);
+    expect(done.resultVersion).toBe(2);
     expect(done.policyUsed).toMatchObject({ minStabilityRatio: 1.5 });
     const after = await t.ctx.dataSource.getRepository(LiftPackage).findOneByOrFail({ id: pkg.id });
     expect(after.status).toBe('ready_for_review');

@@ -3,6 +3,7 @@
 // critical threshold (default 75%, USACE EM 385-1-1 §16.H). Chart read without upward
 // interpolation (chart.ts). A failed check gets fixes: the largest radius that restores the
 // limit (from the chart rows), and the heaviest gross load allowed at this radius.
+import { exceeds } from '../compare';
 import { columns, largestRadiusFor } from '../chart';
 import { check, f, item, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
@@ -61,11 +62,11 @@ export function capacityCheck(ctx: Ctx, fixes: Fix[]): CheckResult {
       message: 'Capacity read from the chart rows entered, never interpolated upward.',
     }),
   );
-  // 1e-9 %: unit conversions must not push an exact 75% or 85% over its limit
+  // compare.ts: unit conversions must not push an exact 75% or 85% over its limit
   const status =
-    pct - maxUse > 1e-9 || pct - 100 > 1e-9
+    !Number.isFinite(pct) || exceeds(pct, maxUse) || exceeds(pct, 100)
       ? 'fail'
-      : pct - policy.criticalThresholdPct > 1e-9
+      : exceeds(pct, policy.criticalThresholdPct)
         ? 'caution'
         : 'pass';
   items.push(

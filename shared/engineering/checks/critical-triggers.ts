@@ -4,6 +4,7 @@
 // considers critical), DOE-STD-1090 (consequence: hazardous or irreplaceable load), OSHA 1926.1408(a)
 // work zone near power lines (from memory), and site rules (over occupied areas or operating plant,
 // gross load at or above a site threshold).
+import { exceeds } from '../compare';
 import { check, item, type Ctx } from '../context';
 import { formatQuantity } from '../format';
 import { SOURCES } from '../sources';
@@ -16,7 +17,7 @@ export function criticalTriggers(ctx: Ctx): CriticalTrigger[] {
   const s = input.site ?? {};
   if (chart.capacity !== null && chart.capacity > 0) {
     const pct = (gross / chart.capacity) * 100;
-    if (pct - policy.criticalThresholdPct > 1e-9)
+    if (exceeds(pct, policy.criticalThresholdPct))
       // a hair over from rounding of unit conversions is not over
       out.push({
         id: 'capacity-threshold',
@@ -26,10 +27,15 @@ export function criticalTriggers(ctx: Ctx): CriticalTrigger[] {
         ),
       });
   }
-  if (input.tandem)
+  const craneCount = input.multiCrane
+    ? input.multiCrane.others.length + 1
+    : input.tandem
+      ? input.tandem.cranes.length
+      : 1;
+  if (craneCount > 1)
     out.push({
       id: 'tandem',
-      reason: `More than one crane (${input.tandem.cranes.length}) lifts the load.`,
+      reason: `More than one crane (${craneCount}) lifts the load.`,
       source: SOURCES.usaceCritical,
     });
   if (input.personnel)

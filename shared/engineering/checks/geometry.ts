@@ -3,6 +3,7 @@
 // Radius = pivot offset + L·cos(angle); tip height = pivot height + L·sin(angle) (plane geometry).
 // Gantry/A-frame: frame height H = √(leg² − (spread/2)²), outreach = H·sin(inclination),
 // apex height = H·cos(inclination). Minimum block clearance comes from the site policy.
+import { exceeds } from '../compare';
 import type { LiftInput } from '../../schemas/lift-input';
 import { SOURCES } from '../sources';
 import { check, f, item, statusMin, term, type Ctx, type Geometry } from '../context';
@@ -178,7 +179,7 @@ export function geometryCheck(ctx: Ctx, g: ReturnType<typeof computeGeometry>): 
       item(ctx, {
         id: 'geometry.radius',
         label: 'Radius',
-        status: differ > tol ? 'caution' : 'pass',
+        status: exceeds(differ, tol) ? 'caution' : 'pass',
         value: g.radius,
         unit: 'length',
         formula: f`radius = pivot offset ${term(g.pivotOffset, 'length')} + boom ${term(L, 'length')} × cos(${term(
@@ -186,12 +187,11 @@ export function geometryCheck(ctx: Ctx, g: ReturnType<typeof computeGeometry>): 
           'angle',
         )}) = ${term(g.radius, 'length')}`,
         source: SOURCES.statics,
-        message:
-          differ > tol
-            ? `The radius entered (${g.radiusEntered!.toFixed(2)} m) and the radius from the boom angle (${g.radiusFromAngle!.toFixed(
-                2,
-              )} m) differ; the longer one is used.`
-            : 'Horizontal distance from the centre of rotation to the hook.',
+        message: exceeds(differ, tol)
+          ? `The radius entered (${g.radiusEntered!.toFixed(2)} m) and the radius from the boom angle (${g.radiusFromAngle!.toFixed(
+              2,
+            )} m) differ; the longer one is used.`
+          : 'Horizontal distance from the centre of rotation to the hook.',
       }),
     );
   }

@@ -3,19 +3,24 @@
 //   R_i = V/4 ± M_L/(2·L) ± M_T/(2·B), with V the total weight, M_L = V·e_x and M_T = V·e_y its
 //   moments about the box centre, L and B the longitudinal and transverse spreads. When one R_i goes
 //   negative that support lifts off; the load is then shared by the other three (statically
-//   determinate) and the result is flagged.
+//   determinate) and the result is flagged. When the resultant lies outside the box no compressive
+//   reactions balance the crane: "no support solution", fail, and no force is reported.
+// Wind: for each slew the wind is tried from the directions that load each corner most, along the
+//   axes and straight out along the eccentricity; the largest reaction or pressure governs.
 // Crawlers: each track is an eccentric footing: p_max = V_t/(b·L)·(1 + 6e/L) when e ≤ L/6,
 //   2·V_t/(3·b·(L/2 − e)) when e > L/6 (triangular).
 // Pressure under the mats = reaction ÷ (mat area × mats per support), mats taken as rigid.
 // Allowable bearing: as entered (geotechnical value), else IBC Table 1806.2 presumptive value for
 // the soil class; mud, organic soils, peat and unprepared fill have none (geotechnical value needed).
+import { exceeds } from '../compare';
 import type { SoilClass } from '../../schemas/lift-input';
-import { planModel, resultant, SLEW_SWEEP, type PlanModel } from '../crane-model';
+import { planModel, resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
-import { gantryStatics } from './stability';
+import { gantryStatics, supportReactions } from './stability';
 import { SOURCES } from '../sources';
 import { si, TO_SI } from '../units';
-import type { CheckItem, CheckResult, LiftFigures, Source } from '../types';
+import type { CheckItem, CheckResult, Fix, LiftFigures, Source } from '../types';
+import { formatQuantity } from '../format';
 
 /** IBC Table 1806.2 (2012) presumptive load-bearing values, psf; null: none (geotechnical value). */
 export const IBC_1806_2_PSF: Readonly<Record<SoilClass, number | null>> = {
@@ -35,6 +40,14 @@ const SOIL_WORDS: Record<SoilClass, string> = {
   clay_silt: 'clay, sandy clay, silty clay, clayey silt, silt, sandy silt (CL, ML, MH, CH)',
   mud_organic_fill: 'mud, organic soil, peat or unprepared fill',
 };
+
+const NO_WIND = [0, 0] as const;
+const CALM = [undefined];
+
+/** The calm resultant moved by a wind moment M blowing along the plan direction dir. */
+function withWind(r: { V: number; ex: number; ey: number }, M: number, dir: readonly [number, number]) {
+  return r.V > 0 ? { V: r.V, ex: r.ex + (M * dir[0]) / r.V, ey: r.ey + (M * dir[1]) / r.V } : r;
+}
 
 /** Four-support reactions about the box centre; order right front, left front, left rear, right rear. */
 export function fourSupportReactions(V: number, ex: number, ey: number, a: number, b: number): number[] {
@@ -84,12 +97,26 @@ export function trackPeakPressure(
   e: number,
   L: number,
   w: number,
-): { p: number; shape: 'uniform' | 'trapezoidal' | 'triangular' | 'tipping' } {
+): {
+  p: number;
+  shape: 'uniform' | 'trapezoidal' | 'triangular' | 'tipping';
+  /** pressure at the light end of the track */
+  pMin: number;
+  /** length of track in contact with the ground */
+  contact: number;
+} {
   const ae = Math.abs(e);
-  if (ae === 0) return { p: Vt / (w * L), shape: 'uniform' };
-  if (ae <= L / 6) return { p: (Vt / (w * L)) * (1 + (6 * ae) / L), shape: 'trapezoidal' };
-  if (ae < L / 2) return { p: (2 * Vt) / (3 * w * (L / 2 - ae)), shape: 'triangular' };
-  return { p: Infinity, shape: 'tipping' };
+  if (ae === 0) return { p: Vt / (w * L), shape: 'uniform', pMin: Vt / (w * L), contact: L };
+  if (ae <= L / 6)
+    return {
+      p: (Vt / (w * L)) * (1 + (6 * ae) / L),
+      shape: 'trapezoidal',
+      pMin: (Vt / (w * L)) * (1 - (6 * ae) / L),
+      contact: L,
+    };
+  if (ae < L / 2)
+    return { p: (2 * Vt) / (3 * w * (L / 2 - ae)), shape: 'triangular', pMin: 0, contact: 3 * (L / 2 - ae) };
+  return { p: Infinity, shape: 'tipping', pMin: 0, contact: 0 };
 }
 
 function allowable(ctx: Ctx): { value: number | null; source: Source; message: string } {
@@ -133,6 +160,7 @@ function pressureItem(
   what: string,
   items: CheckItem[],
   figures: LiftFigures,
+  fixes?: Fix[],
 ) {
   figures.groundPressure = p;
   const al = allowable(ctx);
@@ -153,6 +181,28 @@ function pressureItem(
     );
     return;
   }
+  const mat = ctx.input.ground?.mat;
+  if (exceeds(p, al.value) && mat && fixes) {
+    // What would fix it: the mat area under each support that brings the pressure to the allowable
+    // (rigid mats, pressure = reaction ÷ area), and the number of mats of the size entered.
+    const need = R / al.value;
+    const one = si(mat.length)! * si(mat.width)!;
+    const count = Math.ceil(need / one - 1e-9);
+    fixes.push({
+      checkId: 'ground-bearing',
+      kind: 'mat_area',
+      value: need,
+      unit: 'area',
+      formula: f`bearing area = ${what} ${term(R, 'force')} ÷ allowable ${term(al.value, 'pressure')} = ${term(need, 'area')}`,
+      message: `Spread each support over at least ${formatQuantity(need, 'area', ctx.system)} (${count} mats of ${formatQuantity(
+        si(mat.length)!,
+        'length',
+        ctx.system,
+      )} × ${formatQuantity(si(mat.width)!, 'length', ctx.system)}, or one mat of ${formatQuantity(Math.sqrt(need), 'length', ctx.system)} square), on ground that carries it.`,
+      text: '',
+    });
+    fixes[fixes.length - 1].text = fixes[fixes.length - 1].message;
+  }
   items.push(
     item(ctx, {
       id: 'ground-bearing.pressure',
@@ -164,31 +214,67 @@ function pressureItem(
       unit: 'pressure',
       formula: [...formula, ' against allowable ', term(al.value, 'pressure')],
       source: al.source,
-      message:
-        p > al.value
-          ? 'Pressure under the mats exceeds the allowable bearing pressure.'
-          : 'Pressure under the mats against the allowable bearing pressure.',
+      message: exceeds(p, al.value)
+        ? 'Pressure under the mats exceeds the allowable bearing pressure.'
+        : 'Pressure under the mats against the allowable bearing pressure.',
     }),
   );
 }
 
-function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckItem[]) {
+function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckItem[], fixes?: Fix[]) {
   const entered = ctx.input.crane.slewAngle;
   const slews = entered ? [entered.value] : SLEW_SWEEP;
   let worst = { max: -Infinity, R: [0, 0, 0, 0], slew: 0, liftOff: -1, V: 0, ex: 0, ey: 0 };
+  let tips: { slew: number; edge: string; ex: number; ey: number; V: number } | null = null;
   for (const t of slews) {
-    const r = resultant(m, t);
-    const ex = r.ex - m.x0;
-    let R = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
-    let liftOff = -1;
-    let minI = 0;
-    for (let i = 1; i < 4; i++) if (R[i] < R[minI]) minI = i;
-    if (R[minI] < 0) {
-      liftOff = minI;
-      R = threeSupportReactions(r.V, ex, r.ey, m.a, m.b, minI);
+    const calm = resultant(m, t, NO_WIND);
+    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : CALM;
+    for (const dir of dirs) {
+      const r = dir ? withWind(calm, m.windMoment, dir) : calm;
+      const ex = r.ex - m.x0;
+      const R = supportReactions(r.V, ex, r.ey, m.a, m.b);
+      if (!R) {
+        // no compressive reactions balance the crane: it tips about the line the resultant is beyond
+        if (!tips) {
+          let e = 0;
+          let beyond = -Infinity;
+          m.edges.forEach((E, i) => {
+            const over = E.nx * r.ex + E.ny * r.ey - E.d;
+            if (over > beyond) {
+              beyond = over;
+              e = i;
+            }
+          });
+          tips = { slew: t, edge: m.edges[e].label, ex, ey: r.ey, V: r.V };
+        }
+        continue;
+      }
+      const four = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
+      let liftOff = -1;
+      for (let i = 0; i < 4; i++) if (four[i] < 0 && (liftOff < 0 || four[i] < four[liftOff])) liftOff = i;
+      const mx = Math.max(R[0], R[1], R[2], R[3]);
+      if (mx > worst.max * (1 + 1e-9)) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
     }
-    const mx = Math.max(R[0], R[1], R[2], R[3]);
-    if (mx > worst.max * (1 + 1e-9)) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
+  }
+  if (tips) {
+    figures.supportReactions = [];
+    figures.maxSupportReaction = null;
+    items.push(
+      item(ctx, {
+        id: 'ground-bearing.reactions',
+        label: 'Outrigger reactions',
+        status: 'fail',
+        value: null,
+        unit: 'weight',
+        formula: f`slew ${tips.slew.toFixed(0)}°: resultant ${term(tips.V, 'weight')} at eₓ ${term(tips.ex, 'length')}, e_y ${term(
+          tips.ey,
+          'length',
+        )} from the box centre, outside the box of half-length ${term(m.a, 'length')} and half-width ${term(m.b, 'length')}`,
+        source: SOURCES.rigidBase,
+        message: `No support solution: the crane tips about the ${tips.edge}. No set of compressive outrigger reactions balances it.`,
+      }),
+    );
+    return;
   }
   figures.supportReactions = m.supports.map((s, i) => ({
     label: s.label,
@@ -225,7 +311,7 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
   const mat = ctx.input.ground?.mat;
   if (mat) {
     const area = si(mat.length)! * si(mat.width)! * (mat.perSupport ?? 1);
-    pressureItem(ctx, worst.max / area, area, worst.max, 'largest reaction', items, figures);
+    pressureItem(ctx, worst.max / area, area, worst.max, 'largest reaction', items, figures, fixes);
   }
 }
 
@@ -235,16 +321,28 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
   const w = si(tr.shoeWidth)!;
   const entered = ctx.input.crane.slewAngle;
   const slews = entered ? [entered.value] : SLEW_SWEEP;
-  let worst = { p: -Infinity, Vt: 0, e: 0, slew: 0, shape: 'uniform' as string };
+  let worst = { p: -Infinity, Vt: 0, e: 0, slew: 0, shape: 'uniform' as string, pMin: 0, contact: 0 };
   for (const t of slews) {
-    const r = resultant(m, t);
-    const e = r.ex - m.x0;
-    const VL = (r.V * (m.b + r.ey)) / (2 * m.b);
-    const VR = (r.V * (m.b - r.ey)) / (2 * m.b);
-    for (const Vt of [VL, VR]) {
-      const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
-      if (tp.p > worst.p * (1 + 1e-9) || worst.p === -Infinity)
-        worst = { p: tp.p, Vt: Math.min(Math.max(Vt, 0), r.V), e, slew: t, shape: tp.shape };
+    const calm = resultant(m, t, NO_WIND);
+    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : CALM;
+    for (const dir of dirs) {
+      const r = dir ? withWind(calm, m.windMoment, dir) : calm;
+      const e = r.ex - m.x0;
+      const VL = (r.V * (m.b + r.ey)) / (2 * m.b);
+      const VR = (r.V * (m.b - r.ey)) / (2 * m.b);
+      for (const Vt of [VL, VR]) {
+        const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
+        if (tp.p > worst.p * (1 + 1e-9) || worst.p === -Infinity)
+          worst = {
+            p: tp.p,
+            Vt: Math.min(Math.max(Vt, 0), r.V),
+            e,
+            slew: t,
+            shape: tp.shape,
+            pMin: tp.pMin,
+            contact: tp.contact,
+          };
+      }
     }
   }
   const area = w * L;
@@ -282,9 +380,32 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
           : `Track ground pressure (eccentric footing, ${worst.shape}); mats under tracks are not modelled (area ${area.toFixed(2)} m² per track).`,
     }),
   );
+  items.push(trackContactItem(ctx, L, worst));
 }
 
-export function groundBearingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
+function trackContactItem(
+  ctx: Ctx,
+  L: number,
+  worst: { pMin: number; contact: number; p: number },
+): CheckItem {
+  return item(ctx, {
+    id: 'ground-bearing.track-contact',
+    label: 'Track length in contact (most loaded track)',
+    status: worst.contact > 0 ? 'pass' : 'fail',
+    value: worst.contact,
+    unit: 'length',
+    formula: f`contact ${term(worst.contact, 'length')} of ${term(L, 'length')}; pressure from ${term(worst.pMin, 'pressure')} to ${
+      Number.isFinite(worst.p) ? term(worst.p, 'pressure') : 'unbounded'
+    }`,
+    source: SOURCES.eccentricFooting,
+    message:
+      worst.contact < L
+        ? 'Part of the track lifts off the ground: the pressure is triangular over the length in contact.'
+        : 'The whole track bears on the ground.',
+  });
+}
+
+export function groundBearingCheck(ctx: Ctx, figures: LiftFigures, fixes?: Fix[]): CheckResult {
   const items: CheckItem[] = [];
   if (ctx.input.crane.type === 'gantry_a_frame') {
     const gs = gantryStatics(ctx);
@@ -312,13 +433,13 @@ export function groundBearingCheck(ctx: Ctx, figures: LiftFigures): CheckResult 
       }),
     );
     figures.maxSupportReaction = foot;
-    pressureItem(ctx, foot / area, area, foot, 'foot reaction', items, figures);
+    pressureItem(ctx, foot / area, area, foot, 'foot reaction', items, figures, fixes);
     return check('ground-bearing', 'Support reactions and ground bearing', items);
   }
   if (ctx.geometry.radius === null) return na(ctx, 'No radius entered.');
   const m = planModel(ctx, ctx.geometry.radius);
   if (!m) return na(ctx, 'Enter the crane weights and the outrigger spread or track geometry.');
-  if (m.kind === 'outriggers') outriggers(ctx, m, figures, items);
+  if (m.kind === 'outriggers') outriggers(ctx, m, figures, items, fixes);
   else crawler(ctx, m, items, figures);
   if (items.length === 1 && m.kind === 'outriggers')
     items.push(

@@ -1,6 +1,8 @@
-// Check 11 — personnel lifts (PRODUCT.md §11): platform, rigging, occupants and tools against the
+// Check 11 — personnel lifts (PRODUCT.md §11): platform, rigging, occupants, tools and everything
+// else on the hook (block, load-line allowance, chart deductions) against the
 // personnel limit of the rated capacity at the radius and configuration (site policy, default 50%:
 // OSHA 29 CFR 1926.1431), and occupants plus tools against the platform's own rating.
+import { exceeds } from '../compare';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
 import { si, siOr } from '../units';
@@ -24,7 +26,14 @@ export function personnelCheck(ctx: Ctx): CheckResult {
   const rig = siOr(p.riggingWeight, 0);
   const occ = (p.occupants ?? 0) * siOr(p.occupantWeight, 0);
   const tools = siOr(p.toolsWeight, 0);
-  const total = platform + rig + occ + tools;
+  // Everything on the hook counts, as in the capacity check (ASME B30.5: block, hook and rigging are
+  // part of the load): the hook block, load-line allowance and listed chart deductions as well.
+  const block = siOr(ctx.input.hookBlock?.weight, 0);
+  const line = siOr(ctx.input.loadLineAllowance, 0);
+  let deductions = 0;
+  for (const d of ctx.input.chartDeductions ?? []) deductions += si(d.weight)!;
+  const onHook = block + line + deductions;
+  const total = platform + rig + occ + tools + onHook;
   const items: CheckItem[] = [];
   const cap = ctx.chart.capacity;
   const pct = ctx.policy.personnelLimitPct;
@@ -54,12 +63,11 @@ export function personnelCheck(ctx: Ctx): CheckResult {
         formula: f`platform ${term(platform, 'weight')} + rigging ${term(rig, 'weight')} + occupants ${term(occ, 'weight')} + tools ${term(
           tools,
           'weight',
-        )} = ${term(total, 'weight')} against ${term(pct, 'percent')} of ${term(cap, 'weight')} = ${term(limit, 'weight')}`,
+        )} + hook block, load line and chart deductions ${term(onHook, 'weight')} = ${term(total, 'weight')} against ${term(pct, 'percent')} of ${term(cap, 'weight')} = ${term(limit, 'weight')}`,
         source: SOURCES.policy(`personnel limit ${pct}% (default: ${SOURCES.oshaPersonnel.text})`),
-        message:
-          total > limit
-            ? `Platform load is over ${pct}% of the rated capacity.`
-            : `Platform load within ${pct}% of the rated capacity.`,
+        message: exceeds(total, limit)
+          ? `Platform load is over ${pct}% of the rated capacity.`
+          : `Platform load within ${pct}% of the rated capacity.`,
       }),
     );
   }
@@ -76,7 +84,7 @@ export function personnelCheck(ctx: Ctx): CheckResult {
         unit: 'weight',
         formula: f`occupants ${term(occ, 'weight')} + tools ${term(tools, 'weight')} against platform rating ${term(rated, 'weight')}`,
         source: { kind: 'input', text: "platform manufacturer's rated load (entered)" },
-        message: occ + tools > rated ? 'The platform is overloaded.' : 'Within the platform rating.',
+        message: exceeds(occ + tools, rated) ? 'The platform is overloaded.' : 'Within the platform rating.',
       }),
     );
   }

@@ -3,6 +3,7 @@
 // up to 50 kV 10 ft; over 50 to 200 kV 15 ft; over 200 to 350 kV 20 ft; over 350 to 500 kV 25 ft;
 // over 500 to 750 kV 35 ft; over 750 to 1,000 kV 45 ft; over 1,000 kV set by the utility or a
 // registered professional engineer. "To" includes the upper value (200 kV → 15 ft).
+import { fallsShort } from '../compare';
 import { check, f, item, statusMin, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
 import { si, TO_SI } from '../units';
@@ -66,10 +67,9 @@ export function powerLineCheck(ctx: Ctx): CheckResult {
       unit: 'length',
       formula: f`closest approach ${term(dist, 'length')} against ${ft} ft (${term(lim, 'length')}) for ${term(volts, 'voltage')}`,
       source: SOURCES.oshaTableA,
-      message:
-        dist < lim
-          ? 'Closer than the minimum clearance for this voltage.'
-          : 'Clearance against OSHA Table A.',
+      message: fallsShort(dist, lim)
+        ? 'Closer than the minimum clearance for this voltage.'
+        : 'Clearance against OSHA Table A.',
     });
   });
   return check('power-line', 'Power-line clearance', items);

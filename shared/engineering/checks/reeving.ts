@@ -3,8 +3,11 @@
 // Lead-line factor = K^S (K − 1) / (K^N − 1), K the sheave bearing constant (Wire Rope Users Manual,
 // 4th ed.: 1.09 plain bronze-bushed, 1.04 roller), N parts of line, S rotating sheaves the line
 // passes from the dead end to the drum (formula from memory; reproduces the manual's tables).
+// A sheave efficiency from the planner's data (with its source) may replace the bearing constant.
+// Parts of line and sheaves are checked against each other in the input (S ≥ N − 1).
 // Rope rated load = breaking strength ÷ design factor (3.5 running rope, 5 rotation-resistant:
 // ASME B30.6/B30.22), unless a rated load is entered. Hook load taken as the gross load (conservative).
+import { exceeds } from '../compare';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
 import { si } from '../units';
@@ -35,13 +38,21 @@ export function reevingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
       }),
     ]);
   }
-  const K = SHEAVE_BEARING_CONSTANT[rv.bearing];
+  // A planner's own sheave efficiency e (with its source) gives K = 1/e in place of the bearing constant.
+  const K = rv.sheaveEfficiency !== undefined ? 1 / rv.sheaveEfficiency : SHEAVE_BEARING_CONSTANT[rv.bearing];
+  const kSource =
+    rv.sheaveEfficiency !== undefined
+      ? {
+          kind: 'input' as const,
+          text: `sheave efficiency ${rv.sheaveEfficiency} as entered (${rv.sheaveEfficiencySource ?? 'no source given'}); lead-line factor K^S(K−1)/(K^N−1) from memory`,
+        }
+      : null;
   const N = rv.partsOfLine;
   const S = rv.sheavesPassed;
   const factor = leadLineFactor(K, N, S);
   const pull = ctx.gross * factor;
   figures.linePull = pull;
-  const base = f`line pull = gross ${term(ctx.gross, 'weight')} × K^S(K−1)/(K^N−1) with K ${K}, N ${N}, S ${S} = ${term(
+  const base = f`line pull = gross ${term(ctx.gross, 'weight')} × K^S(K−1)/(K^N−1) with K ${Number(K.toFixed(4))}, N ${N}, S ${S} = ${term(
     ctx.gross,
     'weight',
   )} × ${factor.toFixed(4)} = ${term(pull, 'weight')}`;
@@ -57,11 +68,11 @@ export function reevingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
       limitType: hoist !== undefined ? 'max' : null,
       unit: 'weight',
       formula: hoist !== undefined ? [...base, ' against hoist line pull ', term(hoist, 'weight')] : base,
-      source: hoist !== undefined ? SOURCES.wrumFormula : SOURCES.wrumSheave,
+      source: kSource ?? (hoist !== undefined ? SOURCES.wrumFormula : SOURCES.wrumSheave),
       message:
         hoist === undefined
           ? 'No hoist line pull rating entered.'
-          : pull > hoist
+          : exceeds(pull, hoist)
             ? 'Line pull exceeds the hoist rating: add parts of line.'
             : 'Line pull against the hoist rating.',
     }),
@@ -94,10 +105,9 @@ export function reevingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
             : type === 'running'
               ? SOURCES.ropeRunning
               : SOURCES.ropeRotationResistant,
-        message:
-          pull > ropeLimit
-            ? 'Line pull exceeds the rope rated load.'
-            : 'Line pull against the rope rated load.',
+        message: exceeds(pull, ropeLimit)
+          ? 'Line pull exceeds the rope rated load.'
+          : 'Line pull against the rope rated load.',
       }),
     );
   }

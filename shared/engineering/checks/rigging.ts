@@ -7,6 +7,7 @@
 // Minimum leg angle: site policy (default 30°, rigging handbooks). Hitch capacity: vertical 1×,
 // choker 0.75× wire rope (rigging handbooks), 0.80× synthetic and chain (from memory), basket 2×
 // with vertical legs (rigging handbooks); the angle is already in the tension.
+import { exceeds, fallsShort } from '../compare';
 import type { LiftInput } from '../../schemas/lift-input';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
@@ -100,10 +101,9 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
             term(cap, 'weight'),
           ],
           source: hf.source,
-          message:
-            T > cap
-              ? `Sling ${legName} is overloaded in a ${sl.hitch} hitch.`
-              : `Sling ${legName} tension against its ${sl.hitch} hitch capacity.`,
+          message: exceeds(T, cap)
+            ? `Sling ${legName} is overloaded in a ${sl.hitch} hitch.`
+            : `Sling ${legName} tension against its ${sl.hitch} hitch capacity.`,
         }),
       );
       const ang = angles[i];
@@ -111,7 +111,7 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
         item(ctx, {
           id: `rigging.angle-${i + 1}`,
           label: `Sling ${legName} angle from horizontal`,
-          status: ang < policy.minSlingAngleDeg ? 'fail' : 'pass',
+          status: fallsShort(ang, policy.minSlingAngleDeg) ? 'fail' : 'pass',
           value: ang,
           limit: policy.minSlingAngleDeg,
           limitType: 'min',
@@ -123,8 +123,9 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
           source: SOURCES.policy(
             `minimum sling angle ${policy.minSlingAngleDeg}° (default: ${SOURCES.slingMinAngle.text})`,
           ),
-          message:
-            ang < policy.minSlingAngleDeg ? 'Sling leg flatter than the minimum angle.' : 'Sling leg angle.',
+          message: fallsShort(ang, policy.minSlingAngleDeg)
+            ? 'Sling leg flatter than the minimum angle.'
+            : 'Sling leg angle.',
         }),
       );
     }
@@ -146,10 +147,9 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
           unit: 'weight',
           formula: f`${leg ? 'largest leg tension' : 'load below the hook'} ${term(load, 'weight')} against WLL ${term(wll, 'weight')}`,
           source: { kind: 'input', text: 'working load limit as marked on the hardware (entered)' },
-          message:
-            load > wll
-              ? `${name} is loaded beyond its working load limit.`
-              : `${name} against its working load limit.`,
+          message: exceeds(load, wll)
+            ? `${name} is loaded beyond its working load limit.`
+            : `${name} against its working load limit.`,
         }),
       );
     });

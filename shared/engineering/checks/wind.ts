@@ -5,6 +5,7 @@
 // Limits: site policy wind limit (default 20 mph, common practice, no source; the manufacturer's chart
 // governs when lower); for personnel lifts the lower of that and the personnel limit (default 20 mph,
 // OSHA 29 CFR 1926.1431). Default drag coefficient 1.2 when none is entered (common practice, no source).
+import { exceeds } from '../compare';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
 import { si } from '../units';
@@ -69,7 +70,9 @@ export function windCheck(ctx: Ctx): CheckResult {
           : SOURCES.policy(
               "wind limit (default 20 mph, common practice, no source; the manufacturer's chart governs when lower)",
             ),
-      message: v > limit ? 'Wind above the limit: do not lift.' : 'Wind speed against the site limit.',
+      message: exceeds(v, limit)
+        ? 'Wind above the limit: do not lift.'
+        : 'Wind speed against the site limit.',
     }),
     item(ctx, {
       id: 'wind.force',

@@ -84,6 +84,8 @@ describe('example inputs', () => {
     'caution-capacity-critical.json': { overall: 'caution', check: ['capacity', 'caution'] },
     'caution-discrepancies.json': { overall: 'caution' },
     'caution-tandem.json': { overall: 'caution', check: ['critical-triggers', 'caution'] },
+    'caution-two-cranes.json': { overall: 'caution', check: ['tandem', 'pass'] },
+    'caution-three-cranes.json': { overall: 'caution', check: ['tandem', 'pass'] },
     'fail-capacity.json': { overall: 'fail', check: ['capacity', 'fail'] },
     'fail-outside-chart.json': { overall: 'fail', check: ['capacity', 'fail'] },
     'fail-stability.json': { overall: 'fail', check: ['stability', 'fail'] },
@@ -112,6 +114,19 @@ describe('example inputs', () => {
       expect(out.result.cautions.join(' ')).toMatch(/does not replace the crane manufacturer/);
     },
   );
+  it('when the two- and three-crane examples are checked, then every crane is checked for its share', () => {
+    for (const [name, n] of [
+      ['caution-two-cranes.json', 2],
+      ['caution-three-cranes.json', 3],
+    ] as const) {
+      const out = checkLift(example(name));
+      if (!out.ok) throw new Error('invalid');
+      expect(out.result.cranes).toHaveLength(n);
+      const total = out.result.cranes!.reduce((a, c) => a + c.share!, 0);
+      expect(total).toBeCloseTo(out.result.multiCrane!.loadWeight, 6);
+      for (const c of out.result.cranes!) expect(c.checks.length).toBeGreaterThan(5);
+    }
+  });
   it('when the discrepancy example is checked, then the understated gross load is flagged on the unsafe side', () => {
     const out = checkLift(example('caution-discrepancies.json'));
     if (!out.ok) throw new Error('invalid');
@@ -156,7 +171,7 @@ describe('command line', () => {
   it('when a failing example is checked as JSON, then it prints the result and exits 1', () => {
     const r = cli(EXAMPLES_DIR + 'fail-stability.json', '--format', 'json');
     expect(r.status).toBe(1);
-    expect(JSON.parse(r.stdout).resultVersion).toBe(1);
+    expect(JSON.parse(r.stdout).resultVersion).toBe(2);
   });
   it('when the file is missing or the input invalid, then a clear message and a non-zero exit', () => {
     const missing = cli('no-such-file.json');

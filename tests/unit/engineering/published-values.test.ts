@@ -66,11 +66,11 @@ describe('personnel — OSHA 29 CFR 1926.1431: platform, rigging and occupants �
     expect(POLICY_DEFAULTS.personnelLimitPct.source.text).toContain('1926.1431');
   });
 
-  it('when platform + rigging + occupants is 50% of the 24 t rated capacity, then it passes the limit; just over 50% fails', () => {
-    // chart capacity at 10 m = 24 t; 50% = 12 t
+  it('when platform, rigging, occupants and hook block are 50% of the 24 t rated capacity, then it passes the limit; just over 50% fails', () => {
+    // chart capacity at 10 m = 24 t; 50% = 12 t; the 0.5 t hook block counts (everything on the hook)
     const lift = outriggerLift();
     lift.personnel = {
-      platformWeight: q(11000, 'kg'),
+      platformWeight: q(10500, 'kg'),
       riggingWeight: q(500, 'kg'),
       occupants: 5,
       occupantWeight: q(100, 'kg'),
@@ -273,21 +273,26 @@ describe('tandem — share A = W·d_B/(d_A+d_B) (read) and margins 20/33/50% (Qu
     expect([2, 3, 4, 6].map((n) => tandemMarginPct(DEFAULT_POLICY, n))).toEqual([20, 33, 50, 50]);
   });
 
-  it('when crane A capacity is exactly 1.2 × its share, then it is at the limit; below fails', () => {
-    // load 10 t (no rigging), d_A 4 m, d_B 6 m → share A 6 t, required capacity 7.2 t
+  it('when crane B capacity is exactly 1.2 × its share, then it is at the limit; below fails', () => {
+    // load 10 t (no rigging), d_A 4 m, d_B 6 m → share A 6 t, share B 4 t, B needs 1.2 × 4 = 4.8 t.
+    // Crane A is the crane entered at the top: its own chart (24 t at 10 m) and block (0.5 t) count.
     const lift = outriggerLift();
     lift.tandem = {
       cranes: [
-        { pickPointDistance: q(4, 'm'), chartCapacity: q(7.2, 't') },
-        { pickPointDistance: q(6, 'm'), chartCapacity: q(20, 't') },
+        { pickPointDistance: q(4, 'm'), chartCapacity: q(24, 't') },
+        { pickPointDistance: q(6, 'm'), chartCapacity: q(4.8, 't') },
       ],
     };
-    const a = findItem(run(lift), 'tandem.crane-1');
-    expect(a.value! / G).toBeCloseTo(6000, 6);
-    expect(a.limit! / G).toBeCloseTo(6000, 6);
-    expect(a.status).not.toBe('fail');
-    lift.tandem.cranes[0].chartCapacity = q(7.1, 't');
-    expect(findItem(run(lift), 'tandem.crane-1').status).toBe('fail');
+    const r = run(lift);
+    const a = findItem(r, 'tandem.crane-1');
+    expect(a.value! / G).toBeCloseTo(6500, 6);
+    expect(a.limit! / G).toBeCloseTo(24000 / 1.2, 6);
+    const b = findItem(r, 'tandem.crane-2');
+    expect(b.value! / G).toBeCloseTo(4000, 6);
+    expect(b.limit! / G).toBeCloseTo(4000, 6);
+    expect(b.status).not.toBe('fail');
+    lift.tandem.cranes[1].chartCapacity = q(4.7, 't');
+    expect(findItem(run(lift), 'tandem.crane-2').status).toBe('fail');
     expect(checkOf(run(lift), 'tandem').status).toBe('fail');
   });
 });

@@ -68,6 +68,8 @@ export const POLICY_FIELDS: readonly PolicyField[] = [
     scale: 1,
     equivalent: (v: number) => `${sig3(v / 0.3048)} ft`,
   },
+  { name: 'backwardCrawlerCgPct', key: 'backwardCrawlerCgPct', unit: '%', scale: 1 },
+  { name: 'backwardBoomSideSupportPct', key: 'backwardBoomSideSupportPct', unit: '%', scale: 1 },
   {
     name: 'criticalGrossLoadN',
     key: 'criticalGrossLoadN',
@@ -96,6 +98,8 @@ const PolicyFormShape = z.object({
   discrepancyTolerancePct: text,
   cautionMarginPct: text,
   minBlockClearanceM: text,
+  backwardCrawlerCgPct: text,
+  backwardBoomSideSupportPct: text,
   criticalGrossLoadN: text,
 });
 

@@ -1,0 +1,91 @@
+// Defect 6, as a property: for any input the schema accepts — every quantity anywhere between zero
+// and its upper bound (QUANTITY_MAX_SI), in any unit — every number in the result is finite, and no
+// check or item whose value is missing or non-finite reports pass.
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { checkLift } from '@shared/engineering/evaluate';
+import { TO_SI, WEIGHT_UNITS, LENGTH_UNITS } from '@shared/engineering/units';
+import { QUANTITY_MAX_SI } from '@shared/schemas/lift-input';
+import type { LiftResult } from '@shared/engineering/types';
+import { badNumbers, outriggerLift, q } from './support';
+
+/** A magnitude from 0 to the bound, log-spread, with the bound itself and zero included. */
+const magnitude = (maxSI: number) =>
+  fc.oneof(
+    fc.constant(0),
+    fc.constant(maxSI),
+    fc.double({ min: -12, max: 0, noNaN: true }).map((e) => maxSI * 10 ** e),
+  );
+
+function passesWithoutValue(r: LiftResult): string[] {
+  const out: string[] = [];
+  for (const c of r.checks) {
+    if (c.status === 'pass' && (c.value === null || !Number.isFinite(c.value))) {
+      // a check passes only through its items; its headline may be informational
+      if (!c.items.some((i) => i.status === 'pass' && i.value !== null)) out.push(c.id);
+    }
+    for (const i of c.items)
+      if (i.status === 'pass' && (i.value === null || !Number.isFinite(i.value))) out.push(i.id);
+  }
+  return out;
+}
+
+describe('finite results for every accepted input', () => {
+  it('when any quantity takes any value up to its bound, then every result number is finite and nothing passes without a value', () => {
+    const W = QUANTITY_MAX_SI.weight;
+    const L = QUANTITY_MAX_SI.length;
+    fc.assert(
+      fc.property(
+        fc.record({
+          load: magnitude(W),
+          cw: magnitude(W),
+          carrier: magnitude(W),
+          arm: magnitude(L),
+          radius: magnitude(L),
+          boom: magnitude(L).map((x) => Math.max(x, 1e-3)),
+          spread: magnitude(L).map((x) => Math.max(x, 1e-3)),
+          mat: magnitude(L).map((x) => Math.max(x, 1e-3)),
+          wind: magnitude(QUANTITY_MAX_SI.speed),
+          area: magnitude(QUANTITY_MAX_SI.area),
+          cap: magnitude(W),
+          crawler: fc.boolean(),
+          slew: fc.option(fc.double({ min: 0, max: 360, noNaN: true }), { nil: undefined }),
+          wu: fc.constantFrom(...WEIGHT_UNITS),
+          lu: fc.constantFrom(...LENGTH_UNITS),
+        }),
+        (v) => {
+          const w = (si: number) => q(si / TO_SI[v.wu], v.wu);
+          const len = (si: number) => q(si / TO_SI[v.lu], v.lu);
+          const lift = outriggerLift();
+          lift.load = { weight: w(v.load), windArea: q(v.area, 'm2') };
+          lift.crane.boomLength = len(v.boom);
+          lift.crane.radius = len(Math.min(v.radius, v.boom));
+          lift.crane.counterweight = { weight: w(v.cw), cgBehindRotation: len(v.arm) };
+          lift.crane.carrier = { weight: w(v.carrier), cgRearOfRotation: len(0) };
+          if (v.slew === undefined) delete lift.crane.slewAngle;
+          else lift.crane.slewAngle = q(v.slew, 'deg');
+          if (v.crawler) {
+            lift.crane.type = 'mobile_crawler';
+            delete lift.crane.outriggers;
+            lift.crane.tracks = { length: len(v.spread), shoeWidth: len(v.mat), gauge: len(v.spread) };
+          } else
+            lift.crane.outriggers = { longitudinalSpread: len(v.spread), transverseSpread: len(v.spread) };
+          lift.chart.rows = [
+            { radius: len(0), boomLength: len(v.boom), capacity: w(v.cap) },
+            { radius: len(L), boomLength: len(v.boom), capacity: w(v.cap / 2) },
+          ];
+          lift.ground = { mat: { length: len(v.mat), width: len(v.mat) }, allowableBearing: q(200, 'kPa') };
+          lift.environment = { windSpeed: q(v.wind, 'm/s'), boomWindArea: q(v.area, 'm2') };
+          lift.reeving = { partsOfLine: 4, sheavesPassed: 5, bearing: 'plain', hoistLinePull: w(v.cap) };
+          lift.personnel = { platformWeight: w(v.load / 10) };
+          const out = checkLift(lift);
+          fc.pre(out.ok);
+          if (!out.ok) return;
+          expect(badNumbers(out.result)).toEqual([]);
+          expect(passesWithoutValue(out.result)).toEqual([]);
+        },
+      ),
+      { numRuns: 400 },
+    );
+  });
+});
