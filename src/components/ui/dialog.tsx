@@ -48,7 +48,9 @@ export function Dialog({
           >
             <div className="flex items-start justify-between gap-3 border-b border-rule px-5 py-3">
               <div>
-                <RadixDialog.Title className="text-[17px] font-black leading-tight">{title}</RadixDialog.Title>
+                <RadixDialog.Title className="text-[17px] font-black leading-tight">
+                  {title}
+                </RadixDialog.Title>
                 {description && (
                   <RadixDialog.Description asChild>
                     <div className="mt-1 text-[13.5px] text-ink-soft">{description}</div>
