@@ -2,8 +2,11 @@
 // look: each tab a label with a short count under it, the chosen one underlined in rust.
 // Panels stay mounted and are only hidden, so a half-written form in one survives a look at
 // another.
-import type { ReactNode } from 'react';
+import { createContext, useContext, type ReactNode } from 'react';
 import * as RadixTabs from '@radix-ui/react-tabs';
+
+// The chosen tab, for the panels to hide themselves with the hidden attribute (not CSS alone).
+const Chosen = createContext<string | null>(null);
 
 export type TabItem<T extends string> = { id: T; label: string; count?: string };
 
@@ -39,7 +42,7 @@ export function Tabs<T extends string>({
           </RadixTabs.Trigger>
         ))}
       </RadixTabs.List>
-      {children}
+      <Chosen.Provider value={value}>{children}</Chosen.Provider>
     </RadixTabs.Root>
   );
 }
@@ -53,8 +56,9 @@ export function TabPanel({
   children: ReactNode;
   className?: string;
 }) {
+  const chosen = useContext(Chosen);
   return (
-    <RadixTabs.Content forceMount value={value} className={`data-[state=inactive]:hidden ${className}`}>
+    <RadixTabs.Content forceMount value={value} hidden={chosen !== value} className={className}>
       {children}
     </RadixTabs.Content>
   );
