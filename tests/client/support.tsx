@@ -10,6 +10,16 @@ import { routes } from '@/app/router';
 import { AppProvider } from '@/app/provider';
 import { createQueryClient } from '@/lib/query-client';
 
+// jsdom does no layout and has no ResizeObserver; the split pane registers one. An observer
+// that never reports is what a browser without layout would give.
+if (typeof globalThis.ResizeObserver === 'undefined') {
+  globalThis.ResizeObserver = class {
+    observe() {}
+    unobserve() {}
+    disconnect() {}
+  };
+}
+
 export type Reply = { status: number; body?: unknown };
 export type Handler = (url: URL, init: RequestInit | undefined) => Reply | undefined;
 

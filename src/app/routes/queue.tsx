@@ -10,7 +10,7 @@ import { useCurrentUser } from '@/lib/auth';
 import { packageKeys } from '@/lib/query-client';
 import { PageHeader } from '@/components/layouts/page-header';
 import { PackageListView } from '@/features/packages/components/package-list-view';
-import type { PackageTableVariant } from '@/features/packages/components/package-table';
+import type { PackageTableVariant } from '@/features/packages/components/package-columns';
 import { usePackages } from '@/features/packages/api/get-packages';
 import { useSites } from '@/features/packages/api/get-sites';
 import { usePackageListParams } from '@/features/packages/hooks/use-package-list-params';

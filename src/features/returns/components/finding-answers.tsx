@@ -3,11 +3,11 @@
 import { useState } from 'react';
 import type { Finding } from '@shared/schemas/reviews';
 import { isApiError } from '@/lib/api-client';
-import { formatDateTime, plural } from '@/lib/format';
+import { plural } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/page-loading';
+import { FindingEntry } from '@/components/findings/finding-entry';
 import { useAnswerFinding } from '../api/findings';
-import { FindingState, SeverityBadge } from './finding-badges';
 
 const SEVERITY_ORDER = { blocking: 0, major: 1, minor: 2, note: 3 } as const;
 
@@ -118,43 +118,34 @@ export function FindingAnswers({
             key={finding.id}
             className="flex flex-col gap-1.5 border-b border-rule px-3 py-2.5 last:border-b-0"
           >
-            <div className="flex flex-wrap items-center gap-1.5 text-[12.5px]">
-              <SeverityBadge severity={finding.severity} />
-              <FindingState state={finding.state} />
-              <span className="text-ink-soft">
-                Revision {finding.revisionNumber}
-                {finding.pageNumber !== null && (
-                  <>
-                    {' · '}
-                    {stampedReturnUrl ? (
-                      <a
-                        href={`${stampedReturnUrl}#page=${finding.pageNumber}`}
-                        target="_blank"
-                        rel="noopener"
-                        className="font-bold text-verdigris underline underline-offset-2"
-                      >
-                        page {finding.pageNumber}
-                      </a>
-                    ) : (
-                      `page ${finding.pageNumber}`
-                    )}
-                  </>
-                )}
-                {finding.checkId && <> · check {finding.checkId}</>}
-              </span>
+            <div>
+              <FindingEntry
+                finding={finding}
+                reader="contractor"
+                answerLabel="Answer"
+                where={
+                  (finding.pageNumber !== null || finding.checkId) && (
+                    <>
+                      {finding.pageNumber !== null &&
+                        (stampedReturnUrl ? (
+                          <a
+                            href={`${stampedReturnUrl}#page=${finding.pageNumber}`}
+                            target="_blank"
+                            rel="noopener"
+                            className="font-bold text-verdigris underline underline-offset-2"
+                          >
+                            page {finding.pageNumber}
+                          </a>
+                        ) : (
+                          `page ${finding.pageNumber}`
+                        ))}
+                      {finding.pageNumber !== null && finding.checkId && ' · '}
+                      {finding.checkId && <>check {finding.checkId}</>}
+                    </>
+                  )
+                }
+              />
             </div>
-            <p className="whitespace-pre-line text-[13.5px]">{finding.text}</p>
-            <p className="text-[12px] text-ink-soft">
-              {finding.createdBy} · {formatDateTime(finding.createdAt)}
-            </p>
-            {finding.response !== null && (
-              <blockquote className="border-l-[3px] border-ready-edge bg-sheet-alt px-2.5 py-1.5 text-[13.5px]">
-                <span className="block text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft">
-                  Answer
-                </span>
-                <span className="whitespace-pre-line">{finding.response}</span>
-              </blockquote>
-            )}
             {canAnswer && finding.state !== 'closed' && (
               <AnswerForm key={finding.response ?? ''} packageId={packageId} finding={finding} />
             )}

@@ -5,9 +5,9 @@ import type { Finding, Markup } from '@shared/schemas/reviews';
 import { FINDING_SEVERITIES } from '@shared/schemas/reviews';
 import { Button } from '@/components/ui/button';
 import { isApiError } from '@/lib/api-client';
-import { formatDateTime } from '@/lib/format';
+import { FindingEntry } from '@/components/findings/finding-entry';
+import { SEVERITY_LABELS } from '@/components/findings/finding-marks';
 import { markupName } from '../lib/tools';
-import { FindingStateMark, SeverityMark, SEVERITY_LABELS } from './finding-marks';
 
 export type FindingDraft = {
   text: string;
@@ -75,7 +75,7 @@ export function FindingTarget({
   if (finding.fileId && fileNames.size > 1) parts.push(fileNames.get(finding.fileId) ?? 'an earlier file');
   if (finding.checkId) parts.push(checkLabels.get(finding.checkId) ?? finding.checkId);
   if (parts.length === 0) return null;
-  return <span className="text-[12px] text-ink-soft">{parts.join(' · ')}</span>;
+  return <>{parts.join(' · ')}</>;
 }
 
 export function FindingsPanel({
@@ -137,21 +137,13 @@ export function FindingsPanel({
           className="min-w-0 flex-1 text-left"
           aria-current={f.id === selectedFindingId ? 'true' : undefined}
         >
-          <span className="flex flex-wrap items-center gap-1.5">
-            <SeverityMark severity={f.severity} />
-            <FindingStateMark state={f.state} />
-            <FindingTarget finding={f} markups={markups} fileNames={fileNames} checkLabels={checkLabels} />
-          </span>
-          <span className="mt-1 block whitespace-pre-wrap text-[13px] leading-snug">{f.text}</span>
-          <span className="mt-0.5 block text-[11.5px] text-ink-soft">
-            Revision {f.revisionNumber} · {f.createdBy} · {formatDateTime(f.createdAt)}
-          </span>
-          {f.response && (
-            <span className="mt-1 block border-l-4 border-ready-edge bg-ready-tint px-2 py-1 text-[12.5px]">
-              <span className="font-bold">Contractor’s answer: </span>
-              {f.response}
-            </span>
-          )}
+          <FindingEntry
+            finding={f}
+            answerLabel="Contractor’s answer"
+            where={
+              <FindingTarget finding={f} markups={markups} fileNames={fileNames} checkLabels={checkLabels} />
+            }
+          />
         </button>
         {canChangeState && (
           <Button

@@ -8,7 +8,7 @@ import { CheckStatusMark } from '@/components/ui/check-status-mark';
 import { PageLoading } from '@/components/ui/page-loading';
 import { isApiError } from '@/lib/api-client';
 import { useCompare } from '../api/get-compare';
-import { FindingStateMark, SeverityMark } from './finding-marks';
+import { FindingEntry } from '@/components/findings/finding-entry';
 import { labelOfPath } from '@/lib/lift-steps';
 
 const STATUSES = ['pass', 'caution', 'fail', 'not_applicable'];
@@ -193,21 +193,12 @@ export function RevisionDifference({
         ) : (
           <ul>
             {carried.map((f) => (
-              <li key={f.id} className="border-b border-rule px-3 py-2 text-[13px] last:border-b-0">
-                <span className="flex flex-wrap items-center gap-1.5">
-                  <SeverityMark severity={f.severity} />
-                  <FindingStateMark state={f.state} />
-                  <span className="text-[12px] text-ink-soft">revision {f.revisionNumber}</span>
-                </span>
-                <p className="mt-1 whitespace-pre-wrap">{f.text}</p>
-                {f.response ? (
-                  <p className="mt-1 border-l-4 border-ready-edge bg-ready-tint px-2 py-1 text-[12.5px]">
-                    <span className="font-bold">Contractor’s answer: </span>
-                    {f.response}
-                  </p>
-                ) : (
-                  <p className="mt-1 text-[12.5px] text-ink-soft">No answer from the contractor.</p>
-                )}
+              <li key={f.id} className="border-b border-rule px-3 py-2 last:border-b-0">
+                <FindingEntry
+                  finding={f}
+                  answerLabel="Contractor’s answer"
+                  noAnswer="No answer from the contractor."
+                />
               </li>
             ))}
           </ul>

@@ -2,7 +2,8 @@
 // comma-separated, with or without a header row) into an editable table. Each column has
 // one unit for all its rows; changing it relabels the numbers, as the person typed them.
 import { useId, useState, type ClipboardEvent } from 'react';
-import { Controller, get, useFieldArray, useFormContext, useWatch, type FieldValues } from 'react-hook-form';
+import { Controller, get, useFieldArray, useWatch } from 'react-hook-form';
+import { liftPath, useLiftFormContext, type LiftFormValues } from '../../hooks/use-lift-form';
 import type { UnitSystem } from '@shared/schemas/common';
 import { Button } from '@/components/ui/button';
 import { parseChartRows } from '../../lib/chart-paste';
@@ -17,6 +18,12 @@ type Row = {
   capacity?: { value: number; unit: string };
   interpolationAllowed?: boolean;
 };
+type ChartRowDraft = NonNullable<NonNullable<NonNullable<LiftFormValues['chart']>['rows']>[number]>;
+
+/** The unit pickers offer only the schema's units for each column, so a row's units are the schema's. */
+function asDraft<T>(value: T): T & ChartRowDraft {
+  return value as T & ChartRowDraft;
+}
 
 const COLUMNS = [
   { key: 'radius', label: 'Radius', kind: 'length' },
@@ -36,7 +43,7 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
     getValues,
     setValue,
     formState: { errors },
-  } = useFormContext<FieldValues>();
+  } = useLiftFormContext();
   const { fields, append, remove, replace } = useFieldArray({ control, name: 'chart.rows' });
   const rows = (useWatch({ control, name: 'chart.rows' }) as Row[] | undefined) ?? [];
   const baseId = useId();
@@ -57,11 +64,10 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
     current.forEach((row, index) => {
       const q = row?.[key];
       if (q)
-        setValue(
-          `chart.rows.${index}.${key}`,
-          { value: q.value, unit },
-          { shouldDirty: true, shouldValidate: true },
-        );
+        setValue(`chart.rows.${index}.${key}`, asDraft({ [key]: { value: q.value, unit } })[key], {
+          shouldDirty: true,
+          shouldValidate: true,
+        });
     });
   }
 
@@ -78,7 +84,7 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
       capacity: { value: row.capacity, unit: next.capacity },
     }));
     const kept = ((getValues('chart.rows') as Row[] | undefined) ?? []).filter((row) => !isEmpty(row));
-    replace([...kept, ...newRows]);
+    replace([...kept, ...newRows].map(asDraft));
     const added = `${newRows.length} ${newRows.length === 1 ? 'row' : 'rows'} added`;
     setReport({
       text: parsed.skippedHeader
@@ -243,13 +249,13 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
 }
 
 function ChartCell({ name, id, label, unit }: { name: string; id: string; label: string; unit: string }) {
-  const { control } = useFormContext<FieldValues>();
+  const { control } = useLiftFormContext();
   const message = useFieldError(name);
   return (
     <>
       <Controller
         control={control}
-        name={name}
+        name={liftPath(name)}
         render={({ field }) => (
           <NumberText
             id={id}

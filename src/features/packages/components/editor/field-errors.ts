@@ -1,7 +1,8 @@
 // Reading react-hook-form's error tree: a quantity's error sits on its `.value` or on the
 // quantity itself, a list's on the list or on a row — the first message found is shown.
 import { createContext, useContext } from 'react';
-import { get, useFormContext, type FieldErrors, type FieldValues } from 'react-hook-form';
+import { get, type FieldErrors } from 'react-hook-form';
+import { useLiftFormContext, type Issues, type LiftFormValues } from '../../hooks/use-lift-form';
 
 export function firstMessage(node: unknown, depth = 0): string | undefined {
   if (!node || typeof node !== 'object' || depth > 6) return undefined;
@@ -15,7 +16,7 @@ export function firstMessage(node: unknown, depth = 0): string | undefined {
   return undefined;
 }
 
-export function errorAt(errors: FieldErrors<FieldValues>, path: string): string | undefined {
+export function errorAt(errors: FieldErrors<LiftFormValues>, path: string): string | undefined {
   return firstMessage(get(errors, path));
 }
 
@@ -31,13 +32,6 @@ export function errorPaths(node: unknown, prefix = '', out: string[] = [], depth
   return out;
 }
 
-/**
- * The schema's issues for the lift as it stands, by path ('crane.boomAngle.value'). The
- * form shows a field's issue once the field has been touched, or every issue after the
- * person tried to submit, beside react-hook-form's own errors (server errors, submit).
- */
-export type Issues = { byPath: Map<string, string>; showAll: boolean };
-
 export const IssuesContext = createContext<Issues>({ byPath: new Map(), showAll: false });
 
 export function issueUnder(byPath: Map<string, string>, path: string): string | undefined {
@@ -52,7 +46,7 @@ export function useFieldError(path: string): string | undefined {
   const { byPath, showAll } = useContext(IssuesContext);
   const {
     formState: { errors, touchedFields },
-  } = useFormContext<FieldValues>();
+  } = useLiftFormContext();
   const own = errorAt(errors, path);
   if (own) return own;
   if (showAll || get(touchedFields, path)) return issueUnder(byPath, path);

@@ -2,7 +2,8 @@
 // input (a quantity with its unit, a number, a choice, text, a tick box or a list of rows)
 // and, under it, the schema's message naming the limit that was broken.
 import { useId } from 'react';
-import { Controller, get, useFieldArray, useFormContext, type FieldValues } from 'react-hook-form';
+import { Controller, get, useFieldArray } from 'react-hook-form';
+import { liftListPath, liftPath, useLiftFormContext } from '../../hooks/use-lift-form';
 import type { UnitSystem } from '@shared/schemas/common';
 import { Button } from '@/components/ui/button';
 import type { FieldDef } from '@/lib/lift-steps';
@@ -46,12 +47,12 @@ function FieldInput({
   label: string;
   compact?: boolean;
 }) {
-  const { control } = useFormContext<FieldValues>();
+  const { control } = useLiftFormContext();
   const describedBy = invalid ? errorId : undefined;
   return (
     <Controller
       control={control}
-      name={name}
+      name={liftPath(name)}
       render={({ field }) => {
         switch (def.kind) {
           case 'quantity':
@@ -169,8 +170,8 @@ function ListField({ def, system }: { def: Extract<FieldDef, { kind: 'list' }>; 
   const {
     control,
     formState: { errors },
-  } = useFormContext<FieldValues>();
-  const { fields, append, remove } = useFieldArray({ control, name: def.path });
+  } = useLiftFormContext();
+  const { fields, append, remove } = useFieldArray({ control, name: liftListPath(def.path) });
   const baseId = useId();
   const node = get(errors, def.path) as { message?: string; root?: { message?: string } } | undefined;
   const schemaError = useFieldError(def.path);
