@@ -26,7 +26,16 @@ export type FieldGroup = {
 };
 
 export type StepId =
-  'crane' | 'chart' | 'load' | 'reeving' | 'ground' | 'hazards' | 'stated' | 'documents' | 'review';
+  | 'crane'
+  | 'chart'
+  | 'load'
+  | 'reeving'
+  | 'ground'
+  | 'hazards'
+  | 'cranes'
+  | 'stated'
+  | 'documents'
+  | 'review';
 
 export type Step = { id: StepId; title: string; groups: FieldGroup[] };
 
@@ -338,24 +347,6 @@ export const STEPS: Step[] = [
         ],
       },
       {
-        title: 'Tandem lift',
-        fields: [
-          {
-            kind: 'list',
-            path: 'tandem.cranes',
-            label: 'Cranes sharing the load (2 to 8)',
-            addLabel: 'Add a crane',
-            columns: [
-              { kind: 'text', path: 'name', label: 'Crane' },
-              q('pickPointDistance', 'Pick point from load CG', 'length'),
-              q('share', 'Share', 'weight'),
-              q('chartCapacity', 'Chart capacity', 'weight'),
-              q('ownHookWeight', 'Own hook weight', 'weight'),
-            ],
-          },
-        ],
-      },
-      {
         title: 'Personnel platform',
         fields: [
           q('personnel.platformWeight', 'Platform weight', 'weight'),
@@ -383,6 +374,8 @@ export const STEPS: Step[] = [
       },
     ],
   },
+  // Fields in src/lib/multi-crane-steps.ts (the editor's MultiCraneEditor).
+  { id: 'cranes', title: 'Several cranes', groups: [] },
   {
     id: 'stated',
     title: 'Stated figures',
@@ -422,7 +415,8 @@ const STEP_BY_ROOT: Record<string, StepId> = {
   reeving: 'reeving',
   ground: 'ground',
   environment: 'hazards',
-  tandem: 'hazards',
+  tandem: 'cranes',
+  multiCrane: 'cranes',
   personnel: 'hazards',
   site: 'hazards',
   requiredLiftHeight: 'hazards',

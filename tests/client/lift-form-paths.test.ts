@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { LiftInput } from '@shared/schemas/lift-input';
 import { STEPS, type FieldDef } from '@/lib/lift-steps';
+import { multiCraneCatalogue } from '@/lib/multi-crane-steps';
 
 /** Unwraps optional, nullable, default and pipe layers down to the schema that holds the shape. */
 function core(schema: z.ZodType): z.ZodType {
@@ -39,6 +40,12 @@ function catalogue(): { path: string; def: FieldDef }[] {
         if (def.kind === 'list')
           for (const column of def.columns) out.push({ path: `${def.path}.0.${column.path}`, def: column });
       }
+  // the several-cranes step (crane 2's fields stand for every other crane)
+  for (const def of multiCraneCatalogue()) {
+    out.push({ path: def.path, def });
+    if (def.kind === 'list')
+      for (const column of def.columns) out.push({ path: `${def.path}.0.${column.path}`, def: column });
+  }
   return out;
 }
 

@@ -17,6 +17,7 @@ import {
 import { zodResolver } from '@hookform/resolvers/zod';
 import { LiftInput, type LiftInputRaw } from '@shared/schemas/lift-input';
 import type { PackageDetail } from '@shared/schemas/packages';
+import { upgradeLiftInput } from '@shared/engineering/upgrade';
 import { prune } from '../lib/prune';
 
 export type LiftFormValues = DeepPartial<LiftInputRaw>;
@@ -50,7 +51,17 @@ const liftResolver: Resolver<LiftFormValues, unknown, LiftInput> = (values, cont
 
 /** A saved draft's inputs as form values: stored drafts are partial lifts of the same shape. */
 export function formValues(inputs: PackageDetail['current']['inputs']): LiftFormValues {
-  return inputs as LiftFormValues;
+  const draft = inputs as LiftFormValues & { tandem?: { cranes?: unknown[] } };
+  // A version 1 draft with several cranes (`tandem`) opens as version 2 (`multiCrane`), through the
+  // same converter the engine applies to stored inputs; a draft too incomplete to convert stays.
+  if (draft?.tandem?.cranes?.length) {
+    try {
+      return upgradeLiftInput(draft as unknown as LiftInput) as unknown as LiftFormValues;
+    } catch {
+      return draft;
+    }
+  }
+  return draft;
 }
 
 export function useLiftForm(detail: PackageDetail) {

@@ -37,15 +37,17 @@ function isEmpty(row: Row | undefined): boolean {
   return !row || (!row.radius && !row.boomLength && !row.capacity);
 }
 
-export function ChartRowsEditor({ system }: { system: UnitSystem }) {
+/** `base` is where the chart sits: 'chart' for the crane at the top, 'multiCrane.others.N.chart' for another. */
+export function ChartRowsEditor({ system, base = 'chart' }: { system: UnitSystem; base?: string }) {
+  const rowsPath = `${base}.rows` as 'chart.rows';
   const {
     control,
     getValues,
     setValue,
     formState: { errors },
   } = useLiftFormContext();
-  const { fields, append, remove, replace } = useFieldArray({ control, name: 'chart.rows' });
-  const rows = (useWatch({ control, name: 'chart.rows' }) as Row[] | undefined) ?? [];
+  const { fields, append, remove, replace } = useFieldArray({ control, name: rowsPath });
+  const rows = (useWatch({ control, name: rowsPath }) as Row[] | undefined) ?? [];
   const baseId = useId();
   const [pasteText, setPasteText] = useState('');
   const [report, setReport] = useState<{ text: string; problems: string[] } | null>(null);
@@ -60,11 +62,11 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
 
   function changeUnit(key: ColumnKey, unit: string) {
     setUnits((current) => ({ ...current, [key]: unit }));
-    const current = (getValues('chart.rows') as Row[] | undefined) ?? [];
+    const current = (getValues(rowsPath) as Row[] | undefined) ?? [];
     current.forEach((row, index) => {
       const q = row?.[key];
       if (q)
-        setValue(`chart.rows.${index}.${key}`, asDraft({ [key]: { value: q.value, unit } })[key], {
+        setValue(`${rowsPath}.${index}.${key}`, asDraft({ [key]: { value: q.value, unit } })[key], {
           shouldDirty: true,
           shouldValidate: true,
         });
@@ -83,7 +85,7 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
       boomLength: { value: row.boomLength, unit: next.boomLength },
       capacity: { value: row.capacity, unit: next.capacity },
     }));
-    const kept = ((getValues('chart.rows') as Row[] | undefined) ?? []).filter((row) => !isEmpty(row));
+    const kept = ((getValues(rowsPath) as Row[] | undefined) ?? []).filter((row) => !isEmpty(row));
     replace([...kept, ...newRows].map(asDraft));
     const added = `${newRows.length} ${newRows.length === 1 ? 'row' : 'rows'} added`;
     setReport({
@@ -102,8 +104,8 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
     addPasted(text);
   }
 
-  const node = get(errors, 'chart.rows') as { message?: string; root?: { message?: string } } | undefined;
-  const chartError = useFieldError('chart');
+  const node = get(errors, rowsPath) as { message?: string; root?: { message?: string } } | undefined;
+  const chartError = useFieldError(base);
   const listError = node?.message ?? node?.root?.message ?? (fields.length === 0 ? chartError : undefined);
 
   return (
@@ -190,7 +192,7 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
               <tr key={row.id} className="border-t border-rule align-top even:bg-sheet-alt">
                 <td className="px-2 py-1 tabular text-ink-soft">{index + 1}</td>
                 {COLUMNS.map((column) => {
-                  const name = `chart.rows.${index}.${column.key}`;
+                  const name = `${rowsPath}.${index}.${column.key}`;
                   const id = `${baseId}-${index}-${column.key}`;
                   return (
                     <td key={column.key} className="px-2 py-1">
@@ -206,7 +208,7 @@ export function ChartRowsEditor({ system }: { system: UnitSystem }) {
                 <td className="px-2 py-1">
                   <Controller
                     control={control}
-                    name={`chart.rows.${index}.interpolationAllowed`}
+                    name={`${rowsPath}.${index}.interpolationAllowed`}
                     render={({ field }) => (
                       <input
                         type="checkbox"

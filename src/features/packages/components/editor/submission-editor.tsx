@@ -7,13 +7,14 @@ import { FormProvider } from 'react-hook-form';
 import { useSearchParams } from 'react-router-dom';
 import type { UnitSystem } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
-import { labelOfPath, STEPS, stepOfPath, type StepId } from '@/lib/lift-steps';
+import { STEPS, stepOfPath, type StepId } from '@/lib/lift-steps';
+import { labelOfAnyPath } from '@/lib/multi-crane-steps';
 import { draftInputs } from '../../lib/prune';
 import { useDraftAutosave } from '../../hooks/use-draft-autosave';
 import { formValues, isTouched, useLiftForm, useLiftIssues, useLiftValues } from '../../hooks/use-lift-form';
 import { useSubmitRevision } from '../../hooks/use-submit-revision';
-import { LiftField } from './lift-field';
 import { ChartRowsEditor } from './chart-rows-editor';
+import { FieldGroups, MultiCraneEditor } from './multi-crane-editor';
 import { LiveCheckPanel } from './live-check-panel';
 import { DocumentsStep } from './documents-step';
 import { EditorHeader } from './editor-header';
@@ -122,22 +123,9 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
             <h2 id="step-title" className="mb-3 text-[17px] font-black">
               {index + 1}. {current.title}
             </h2>
-            {current.groups
-              .filter((group) => !group.when || group.when(live))
-              .map((group) => (
-                <fieldset key={group.title} className="mb-4 border-t border-rule pt-2">
-                  <legend className="pr-2 text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft">
-                    {group.title}
-                  </legend>
-                  {group.note && <p className="mb-2 text-[12.5px] text-ink-soft">{group.note}</p>}
-                  <div className="grid grid-cols-[repeat(auto-fill,minmax(13.5rem,1fr))] gap-x-4 gap-y-3">
-                    {group.fields.map((def) => (
-                      <LiftField key={def.path} def={def} system={system} />
-                    ))}
-                  </div>
-                </fieldset>
-              ))}
+            <FieldGroups groups={current.groups} values={live} system={system} />
             {step === 'chart' && <ChartRowsEditor system={system} />}
+            {step === 'cranes' && <MultiCraneEditor system={system} />}
             {step === 'documents' && (
               <DocumentsStep
                 detail={detail}
@@ -161,7 +149,7 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
                 }}
                 problems={problemPaths.map((path) => ({
                   step: stepOfPath(path),
-                  label: labelOfPath(path),
+                  label: labelOfAnyPath(path),
                   message: '',
                 }))}
                 planMissing={submission.planMissing}
