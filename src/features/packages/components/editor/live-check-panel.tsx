@@ -11,8 +11,9 @@ import { sortChecks, sortDiscrepancies } from '@/components/lift/result-order';
 import { formatCheckLimit, formatCheckValue } from '@/components/lift/result-format';
 import { FixList, ResultCautions } from '@/components/lift/fixes-and-triggers';
 import { withoutLabel } from '@/components/lift/discrepancy-list';
+import { CraneShares } from '@/components/lift/crane-shares';
 import { prune } from '../../lib/prune';
-import { labelOfPath } from '@/lib/lift-steps';
+import { labelOfAnyPath } from '@/lib/multi-crane-steps';
 
 type Outcome =
   | { ok: true; result: LiftResult }
@@ -30,7 +31,7 @@ export function runLiveCheck(values: unknown, system: UnitSystem): Outcome {
       const path = issue.path.map(String).join('.');
       if (seen.has(path)) continue;
       seen.add(path);
-      missing.push({ path, label: labelOfPath(path), message: issue.message });
+      missing.push({ path, label: labelOfAnyPath(path), message: issue.message });
     }
     return { ok: false, missing: missing.slice(0, SHOW_MISSING), total: missing.length };
   }
@@ -96,6 +97,7 @@ function LiveResult({ result, system }: { result: LiftResult; system: UnitSystem
         <dt className="text-ink-soft">Critical lift</dt>
         <dd className="text-right font-bold">{result.critical.isCritical ? 'Yes' : 'No'}</dd>
       </dl>
+      <CraneShares result={result} system={system} compact />
       {disagreements.length > 0 && (
         <section
           aria-label="Stated figures that disagree"
