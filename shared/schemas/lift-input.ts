@@ -279,6 +279,8 @@ export const SlingSet = z.object({
   }),
   hitch: z.enum(HITCHES, { error: `rigging.slings.hitch must be one of ${HITCHES.join(', ')}` }),
   ratedLoadVertical: positiveWeight('rigging.slings.ratedLoadVertical (per leg)'),
+  /** choker hitch: the angle of choke (180° = sling straight through the eye; default over 120°) */
+  chokeAngle: angle('rigging.slings.chokeAngle', 0, 180).optional(),
   weight: weight('rigging.slings.weight').optional(),
   legs: z.array(SlingLeg).min(1, { error: 'rigging.slings.legs must list 1 or 2 legs' }).max(2, {
     error: 'rigging.slings.legs must list 1 or 2 legs (for more legs enter the two that carry the load)',

@@ -220,6 +220,7 @@ export const STEPS: Step[] = [
             options: HITCHES.map((h) => [h, h[0].toUpperCase() + h.slice(1)] as const),
           },
           q('rigging.slings.ratedLoadVertical', 'Rated load per leg (vertical)', 'weight'),
+          q('rigging.slings.chokeAngle', 'Angle of choke (choker hitch)', 'angle'),
           q('rigging.slings.weight', 'Sling weight', 'weight'),
           {
             kind: 'list',

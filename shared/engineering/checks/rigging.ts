@@ -6,8 +6,11 @@
 // practice). A leg given by length and horizontal distance from the hook has cos θ = distance/length.
 // Minimum leg angle: site policy (default 30°, rigging handbooks). Hitch capacity: vertical 1×,
 // choker 0.75× wire rope (rigging handbooks), 0.80× synthetic and chain (from memory), basket 2×
-// with vertical legs (rigging handbooks); the angle is already in the tension.
-import { exceeds, fallsShort } from '../compare';
+// with vertical legs (rigging handbooks); the angle is already in the tension. A choker with a
+// stated angle of choke below 120° is rated lower again by the ASME B30.9 choke-angle table (read in
+// sling makers' reproductions of it). Each leg's vertical share at its pick point is reported
+// (T · sin θ; the shares add up to the weight below the hook's rigging).
+import { atLeast, exceeds, fallsShort } from '../compare';
 import type { LiftInput } from '../../schemas/lift-input';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
@@ -48,6 +51,15 @@ export function hitchFactor(
   return { factor: 0.8, source: material === 'synthetic' ? SOURCES.chokerSynthetic : SOURCES.chokerChain };
 }
 
+/** ASME B30.9 choke-angle table: share of the choker rating kept at an angle of choke (degrees). */
+export function chokeAngleFactor(deg: number): number {
+  if (exceeds(deg, 120)) return 1;
+  if (atLeast(deg, 90)) return 0.87;
+  if (atLeast(deg, 60)) return 0.74;
+  if (atLeast(deg, 30)) return 0.62;
+  return 0.49;
+}
+
 export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
   const r = ctx.input.rigging;
   const { policy } = ctx;
@@ -75,7 +87,19 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
           'ratio',
         )} = ${term(tensions[0], 'weight')}`;
     }
-    const hf = hitchFactor(sl.hitch, sl.material);
+    const base = hitchFactor(sl.hitch, sl.material);
+    const choke = sl.hitch === 'choker' && sl.chokeAngle ? sl.chokeAngle.value : null;
+    const cf = choke === null ? 1 : chokeAngleFactor(choke);
+    const hf =
+      cf === 1
+        ? base
+        : {
+            factor: base.factor * cf,
+            source: {
+              kind: base.source.kind,
+              text: `${base.source.text}; ${SOURCES.chokeAngle.text}`,
+            } as Source,
+          };
     const wll = si(sl.ratedLoadVertical)!;
     const cap = wll * hf.factor;
     for (let i = 0; i < tensions.length; i++) {
@@ -97,7 +121,9 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
             sl.hitch,
             ' capacity ',
             term(wll, 'weight'),
-            ` × ${hf.factor} = `,
+            cf === 1
+              ? ` × ${hf.factor} = `
+              : ` × ${base.factor} × choke-angle factor ${cf} (angle of choke ${Math.round(choke! * 10) / 10}°) = `,
             term(cap, 'weight'),
           ],
           source: hf.source,
@@ -107,6 +133,21 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
         }),
       );
       const ang = angles[i];
+      const V = T * Math.sin(ang * DEG);
+      items.push(
+        item(ctx, {
+          id: `rigging.vertical-${i + 1}`,
+          label: `Vertical share at the pick point of ${legName}`,
+          status: 'pass',
+          value: V,
+          limit: null,
+          limitType: null,
+          unit: 'weight',
+          formula: f`V = T ${term(T, 'weight')} × sin(${term(ang, 'angle')}) = ${term(V, 'weight')}`,
+          source: SOURCES.verticalShare,
+          message: `The pick point of ${legName} carries this much of the weight vertically.`,
+        }),
+      );
       items.push(
         item(ctx, {
           id: `rigging.angle-${i + 1}`,
