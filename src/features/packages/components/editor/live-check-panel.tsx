@@ -87,6 +87,11 @@ function LiveResult({ result, system }: { result: LiftResult; system: UnitSystem
   const f = result.figures;
   return (
     <div className="flex flex-col gap-2 text-[13px]">
+      {result.cranes && (
+        <p className="text-[12px] text-ink-soft">
+          Figures below: crane 1 ({result.cranes[0].name}) for its share; each check covers every crane.
+        </p>
+      )}
       <dl className="grid grid-cols-2 gap-x-3 gap-y-0.5">
         <dt className="text-ink-soft">Gross load</dt>
         <dd className="text-right font-bold tabular">{formatQuantity(f.grossLoad, 'weight', system)}</dd>
