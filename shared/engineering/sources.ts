@@ -37,6 +37,10 @@ export const SOURCES = {
     'ASME B30.9 choke-angle table (read as reproduced in sling makers’ instructions): choker rating × 1.00 over 120°, 0.87 at 90–120°, 0.74 at 60–89°, 0.62 at 30–59°, 0.49 at 0–29°',
   ),
   verticalShare: std('Statics: the vertical share of a leg = its tension × sin(angle from horizontal)'),
+  trackMats: {
+    kind: 'common_practice',
+    text: 'Rigid mats under a crawler track spread its pressure across the mat length (common practice, no source)',
+  } as Source,
   basket: std('Rigging handbooks: basket hitch with vertical legs = 2 × vertical rating'),
   ibc1806: std('International Building Code Table 1806.2 (2012), presumptive load-bearing values'),
   wrumSheave: std(

@@ -9,10 +9,12 @@
 //   axes and straight out along the eccentricity; the largest reaction or pressure governs.
 // Crawlers: each track is an eccentric footing: p_max = V_t/(b·L)·(1 + 6e/L) when e ≤ L/6,
 //   2·V_t/(3·b·(L/2 − e)) when e > L/6 (triangular).
-// Pressure under the mats = reaction ÷ (mat area × mats per support), mats taken as rigid.
+// Pressure under the mats = reaction ÷ (mat area × mats per support), mats taken as rigid. Crawler
+//   tracks on mats (mat length across the track, mats per support laid along it covering the length
+//   in contact): the track pressure × shoe width ÷ mat length (rigid mats; common practice, no source).
 // Allowable bearing: as entered (geotechnical value), else IBC Table 1806.2 presumptive value for
 // the soil class; mud, organic soils, peat and unprepared fill have none (geotechnical value needed).
-import { exceeds } from '../compare';
+import { atLeast, exceeds } from '../compare';
 import type { SoilClass } from '../../schemas/lift-input';
 import { planModel, resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
@@ -347,13 +349,33 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
   }
   const area = w * L;
   const tipping = !Number.isFinite(worst.p);
+  // Mats under the tracks (rigid mats, as under outriggers; common practice, no source): mats of
+  // `length` across the track laid side by side along it, `perSupport` per track. When they cover
+  // the length in contact, the track's pressure is spread over the mat length instead of the shoe.
+  const mat = ctx.input.ground?.mat;
+  let spread: { across: number; cover: number; applied: boolean } | null = null;
+  if (mat && !tipping) {
+    const across = si(mat.length)!;
+    const cover = si(mat.width)! * (mat.perSupport ?? 1);
+    spread = { across, cover, applied: atLeast(cover, worst.contact) && exceeds(across, w) };
+  }
+  const trackP = worst.p;
+  if (spread?.applied)
+    worst = { ...worst, p: (worst.p * w) / spread.across, pMin: (worst.pMin * w) / spread.across };
   figures.groundPressure = tipping ? null : worst.p;
   const formula = f`slew ${worst.slew.toFixed(0)}°: track load ${term(worst.Vt, 'weight')}, eccentricity ${term(
     Math.abs(worst.e),
     'length',
   )} on track length ${term(L, 'length')} (L/6 = ${term(L / 6, 'length')}), shoe ${term(w, 'length')} → ${worst.shape} pressure, peak ${
     tipping ? 'unbounded' : ''
-  }${tipping ? '' : term(worst.p, 'pressure')}`;
+  }${tipping ? '' : term(trackP, 'pressure')}`;
+  if (spread?.applied)
+    formula.push(
+      ...f`; on mats ${term(spread.across, 'length')} across the track: × shoe ${term(w, 'length')} ÷ ${term(
+        spread.across,
+        'length',
+      )} = ${term(worst.p, 'pressure')} on the ground`,
+    );
   const al = allowable(ctx);
   const status = tipping
     ? 'fail'
@@ -365,19 +387,29 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
   items.push(
     item(ctx, {
       id: 'ground-bearing.pressure',
-      label: 'Peak track bearing pressure',
+      label: spread?.applied ? 'Peak bearing pressure under the track mats' : 'Peak track bearing pressure',
       status,
       value: tipping ? null : worst.p,
       limit: al.value,
       limitType: al.value === null ? null : 'max',
       unit: 'pressure',
       formula: al.value === null ? formula : [...formula, ' against allowable ', term(al.value, 'pressure')],
-      source: al.value === null ? al.source : al.source,
+      source: spread?.applied
+        ? { kind: 'common_practice', text: `${SOURCES.trackMats.text}; allowable: ${al.source.text}` }
+        : al.source,
       message: tipping
         ? 'The resultant falls outside the track: the crane would tip.'
         : al.value === null
           ? al.message
-          : `Track ground pressure (eccentric footing, ${worst.shape}); mats under tracks are not modelled (area ${area.toFixed(2)} m² per track).`,
+          : spread?.applied
+            ? `Track pressure (eccentric footing, ${worst.shape}) spread across the mats under the track.`
+            : spread
+              ? `Track ground pressure (eccentric footing, ${worst.shape}) on the shoes alone: the mats entered (${formatQuantity(
+                  spread.cover,
+                  'length',
+                  ctx.system,
+                )} along the track) do not cover the ${formatQuantity(worst.contact, 'length', ctx.system)} in contact or are no wider than the shoe.`
+              : `Track ground pressure (eccentric footing, ${worst.shape}); no mats entered (area ${area.toFixed(2)} m² per track).`,
     }),
   );
   items.push(trackContactItem(ctx, L, worst));
