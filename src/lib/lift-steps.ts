@@ -304,7 +304,12 @@ export const STEPS: Step[] = [
         title: 'Mats and ground',
         note: 'Give the allowable bearing pressure from the ground report, or the soil class for a presumptive value.',
         fields: [
-          q('ground.mat.length', 'Mat length', 'length'),
+          q(
+            'ground.mat.length',
+            'Mat length',
+            'length',
+            'Under crawler tracks: the length across the track.',
+          ),
           q('ground.mat.width', 'Mat width', 'length'),
           { kind: 'number', path: 'ground.mat.perSupport', label: 'Mats per support', integer: true },
           q('ground.allowableBearing', 'Allowable bearing pressure', 'pressure'),
