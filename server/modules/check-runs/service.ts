@@ -7,7 +7,6 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { evaluateLift } from '@shared/engineering/evaluate';
 import type { CheckRunStatus } from '@shared/schemas/check-runs';
 import { LiftInput } from '@shared/schemas/lift-input';
-import { SitePolicy } from '@shared/schemas/site-policy';
 import { AppError } from '../../lib/app-error';
 import { withTimeout, type Queues } from '../../lib/queues';
 import { AuditEvent } from '../audit/audit-event.entity';
@@ -16,15 +15,11 @@ import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { packageDetail } from '../packages/service';
 import { Site } from '../sites/site.entity';
+import { sitePolicy } from '../sites/site-policy';
 
 export class InvalidLiftData extends Error {}
 
 export type ProgressFn = (percent: number, step: string) => Promise<void> | void;
-
-/** The site's policy: its overrides over the engine's defaults. */
-export function sitePolicy(site: Site) {
-  return SitePolicy.parse(site.reviewPolicy ?? {});
-}
 
 export async function runCheck(
   dataSource: DataSource,
