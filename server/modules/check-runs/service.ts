@@ -59,14 +59,13 @@ export async function runCheck(
   const worstStatus = result.overallStatus;
   const openDiscrepancies = result.discrepancies.filter((d) => d.status === 'discrepancy').length;
   await dataSource.transaction(async (m) => {
-    // jsonb columns: TypeORM's deep-partial type cannot describe an open record, hence the casts.
     await m.getRepository(Revision).update(revision.id, {
       checkStatus: 'done',
       checkProgress: 100,
       checkError: null,
-      results: result as never,
+      results: result,
       resultVersion: result.resultVersion,
-      policyUsed: { ...policy, siteId: site.id, policyVersion: site.policyVersion } as never,
+      policyUsed: { ...policy, siteId: site.id, policyVersion: site.policyVersion },
       checkedAt: new Date(),
     });
     const current = await m.getRepository(LiftPackage).findOneByOrFail({ id: pkg.id });

@@ -14,7 +14,9 @@ import {
   UpdateDateColumn,
   VersionColumn,
 } from 'typeorm';
+import type { LiftResult } from '@shared/engineering/types';
 import type { CheckStatus } from '@shared/schemas/packages';
+import type { SitePolicy } from '@shared/schemas/site-policy';
 import type { Decision, PackageStatus } from '@shared/schemas/common';
 import { Organisation } from '../organisations/organisation.entity';
 import { Site } from '../sites/site.entity';
@@ -65,6 +67,9 @@ export class LiftPackage {
 
 export type RevisionState = 'draft' | 'submitted';
 
+/** The site policy a check run used, with the site and the policy's version at the time. */
+export type PolicyUsed = SitePolicy & { siteId: string; policyVersion: number };
+
 @Entity({ name: 'revisions' })
 @Check('revisions_state_check', `state IN ('draft', 'submitted')`)
 @Index('revisions_package_idx', ['packageId', 'number'])
@@ -86,8 +91,9 @@ export class Revision {
   @Column({ type: 'int', name: 'check_progress', default: 0 }) checkProgress: number;
   @Column({ type: 'varchar', length: 500, name: 'check_error', nullable: true }) checkError: string | null;
   @Column({ type: 'int', name: 'result_version', nullable: true }) resultVersion: number | null;
-  @Column({ type: 'jsonb', nullable: true }) results: Record<string, unknown> | null;
-  @Column({ type: 'jsonb', name: 'policy_used', nullable: true }) policyUsed: Record<string, unknown> | null;
+  /** Written by the check run; read through readStoredResult() (shared/engineering/stored-result.ts). */
+  @Column({ type: 'jsonb', nullable: true }) results: LiftResult | null;
+  @Column({ type: 'jsonb', name: 'policy_used', nullable: true }) policyUsed: PolicyUsed | null;
   @Column({ type: 'timestamptz', name: 'checked_at', nullable: true }) checkedAt: Date | null;
   /** Stated figures the engineer accepted despite a discrepancy, with the reason. */
   @Column({ type: 'jsonb', name: 'accepted_figures', default: [] })

@@ -118,7 +118,7 @@ export async function revisionDetail(dataSource: DataSource, revision: Revision)
       resultVersion: revision.resultVersion,
       checkedAt: revision.checkedAt?.toISOString() ?? null,
     },
-    results: revision.results,
+    results: revision.results ? { ...revision.results } : null,
     files: files.map(toFileSummary),
     acceptedFigures: (revision.acceptedFigures ?? []).map((a) => ({
       figure: a.figure,
