@@ -25,7 +25,7 @@ import { frameOf, inDisplayFrame, isolateOriginalContent } from './page-frame-pd
 import { embedLato } from './text-pdf';
 import type { StampInput } from './stamp-input';
 
-export type { MarkupKind, StampInput } from './stamp-input';
+export type { StampInput } from './stamp-input';
 
 export class StampInputError extends Error {
   constructor(message: string) {
