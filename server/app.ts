@@ -9,7 +9,7 @@ import { pinoHttp } from 'pino-http';
 import { randomUUID } from 'node:crypto';
 import type { AppContext } from './context';
 import { logger } from './lib/logger';
-import { openApiDocument } from './lib/openapi';
+import { openApiDocument } from './openapi';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { adminRoutes } from './modules/admin/routes';
 import { authRoutes } from './modules/auth/routes';
@@ -22,7 +22,6 @@ import { returnRoutes } from './modules/returns/routes';
 import { reviewRoutes } from './modules/reviews/routes';
 import { siteRoutes } from './modules/sites/routes';
 import { verifyRoutes } from './modules/verify/routes';
-import './openapi-routes';
 
 export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   const app = express();

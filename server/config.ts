@@ -63,3 +63,20 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
 export function appUrl(config: Config): string {
   return config.APP_URL ?? `http://${config.HOST}:${config.PORT}`;
 }
+
+// Settings read before, or without, the full configuration (the seed, the TypeORM CLI, the mail
+// catcher's process and the logger must start with only these set). The defaults are those of `Env`.
+export function databaseSettings(env: NodeJS.ProcessEnv = process.env): { url?: string; poolSize: number } {
+  return { url: env.DATABASE_URL, poolSize: Number(env.DB_POOL_SIZE ?? 10) };
+}
+
+export function logSettings(env: NodeJS.ProcessEnv = process.env): { level: string; service: string } {
+  return {
+    level: env.LOG_LEVEL ?? (env.NODE_ENV === 'test' ? 'silent' : 'info'),
+    service: env.CP_SERVICE ?? 'api',
+  };
+}
+
+export function mailCatcherPort(env: NodeJS.ProcessEnv = process.env): number {
+  return Number(env.CP_SMTP_PORT ?? 2526);
+}

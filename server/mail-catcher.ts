@@ -1,14 +1,15 @@
 // The fake SMTP server as its own process (started by the start command when SMTP_URL is
 // not set).
 import 'reflect-metadata';
+import { databaseSettings, mailCatcherPort } from './config';
 import { createDataSource } from './db/data-source';
 import { startMailCatcher } from './lib/mail-catcher';
 import { logger } from './lib/logger';
 
 async function main() {
-  const ds = createDataSource(process.env.DATABASE_URL);
+  const ds = createDataSource(databaseSettings().url);
   await ds.initialize();
-  const catcher = await startMailCatcher(ds, { port: Number(process.env.CP_SMTP_PORT ?? 2526) });
+  const catcher = await startMailCatcher(ds, { port: mailCatcherPort() });
   logger.info({ url: catcher.url }, 'local outbox (fake SMTP) listening');
   const stop = async () => {
     await catcher.close();

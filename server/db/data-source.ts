@@ -2,10 +2,11 @@
 // TypeORM CLI (`npm run migration:run`). Schema changes go through migrations only.
 import 'reflect-metadata';
 import { DataSource } from 'typeorm';
+import { databaseSettings } from '../config';
 import { ENTITIES } from './entities';
 import { MIGRATIONS } from './migrations';
 
-export function createDataSource(url = process.env.DATABASE_URL): DataSource {
+export function createDataSource(url = databaseSettings().url): DataSource {
   if (!url) throw new Error('DATABASE_URL is not set');
   return new DataSource({
     type: 'postgres',
@@ -16,6 +17,6 @@ export function createDataSource(url = process.env.DATABASE_URL): DataSource {
     migrationsRun: false,
     migrationsTransactionMode: 'each',
     logging: false,
-    extra: { max: Number(process.env.DB_POOL_SIZE ?? 10), connectionTimeoutMillis: 5000 },
+    extra: { max: databaseSettings().poolSize, connectionTimeoutMillis: 5000 },
   });
 }

@@ -57,10 +57,6 @@ export function describeRoute(doc: RouteDoc) {
   });
 }
 
-export function describedRoutes(): string[] {
-  return [...described];
-}
-
 let cachedDoc: unknown = null;
 
 export function openApiDocument() {

@@ -6,7 +6,16 @@
 // radii or boom lengths the chart does not rate the lift: `outside` says why, capacity is null.
 // Between two listed boom lengths both bracketing columns are read (each at its next longer radius)
 // and the lower capacity is used, since a shorter boom may rate less at the same radius.
-import type { ChartLookup } from './context';
+
+/** How the chart was read at the lift's radius and boom (the context carries it to the checks). */
+export interface ChartLookup {
+  capacity: number | null;
+  /** words describing how the capacity was read */
+  method: string;
+  outside: string | null;
+  radiusUsed: number | null;
+  boomLengthUsed: number | null;
+}
 
 export interface ChartRowSI {
   radius: number;

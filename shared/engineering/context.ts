@@ -8,6 +8,7 @@
 // - pass: otherwise.  not_applicable: the data the check needs is absent (the message says what).
 import type { LiftInput } from '../schemas/lift-input';
 import type { SitePolicy } from '../schemas/site-policy';
+import type { ChartLookup, ChartRowSI } from './chart';
 import { atLeast, atMost } from './compare';
 import { formatFormula } from './format';
 import type {
@@ -33,15 +34,6 @@ export interface Geometry {
   unreachable: boolean;
 }
 
-export interface ChartLookup {
-  capacity: number | null;
-  /** words describing how the capacity was read */
-  method: string;
-  outside: string | null;
-  radiusUsed: number | null;
-  boomLengthUsed: number | null;
-}
-
 export interface Ctx {
   input: LiftInput;
   policy: SitePolicy;
@@ -52,7 +44,7 @@ export interface Ctx {
   geometry: Geometry;
   chart: ChartLookup;
   /** chart rows in SI */
-  rows: import('./chart').ChartRowSI[];
+  rows: ChartRowSI[];
   /** wind force on the load and boom (N) and their heights (m), filled by the wind module */
   wind: { loadForce: number; boomForce: number; loadHeight: number; boomHeight: number } | null;
 }

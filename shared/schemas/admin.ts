@@ -130,3 +130,23 @@ export const CaughtMail = z.object({
   html: z.string().nullable(),
   receivedAt: z.string(),
 });
+
+/** A contractor or site owner on the desk, with how many people it has (GET /api/admin/organisations). */
+export const AdminOrganisation = z.object({
+  id: z.uuid(),
+  name: z.string(),
+  kind: OrganisationKind,
+  people: z.number().int(),
+});
+export type AdminOrganisation = z.infer<typeof AdminOrganisation>;
+export const OrganisationList = z.object({ items: z.array(AdminOrganisation) });
+export type OrganisationList = z.infer<typeof OrganisationList>;
+
+/** GET/PATCH /api/me/profile: the signed-in person's own settings. */
+export const Profile = z.object({
+  name: z.string(),
+  email: z.string(),
+  unitSystem: UnitSystem,
+  notifyReminders: z.boolean(),
+});
+export type Profile = z.infer<typeof Profile>;

@@ -57,6 +57,3 @@ export const ErrorBody = z.object({
   }),
 });
 export type ErrorBody = z.infer<typeof ErrorBody>;
-
-export const Id = z.uuid();
-export const IsoDate = z.iso.date();

@@ -195,3 +195,44 @@ export const Verification = z.object({
   supersededBy: z.number().int().nullable(),
 });
 export type Verification = z.infer<typeof Verification>;
+
+export const FindingList = z.object({ items: z.array(Finding) });
+export type FindingList = z.infer<typeof FindingList>;
+
+/** GET /api/engineers: the engineers of record a coordinator may assign, with their open packages. */
+export const Engineer = z.object({
+  id: z.uuid(),
+  name: z.string(),
+  email: z.string(),
+  openPackages: z.number().int(),
+});
+export type Engineer = z.infer<typeof Engineer>;
+export const EngineerList = z.object({ items: z.array(Engineer) });
+export type EngineerList = z.infer<typeof EngineerList>;
+
+/** POST /api/assignments: how many packages were assigned, and to whom. */
+export const AssignResult = z.object({
+  assigned: z.number().int(),
+  engineer: z.object({ id: z.uuid(), name: z.string(), email: z.string() }),
+});
+export type AssignResult = z.infer<typeof AssignResult>;
+
+const CompareSide = z.object({ status: z.string(), value: z.number().nullable() }).nullable();
+
+/** GET /api/packages/:id/compare: the inputs that changed between two revisions and every check in each. */
+export const RevisionCompare = z.object({
+  from: z.number().int(),
+  to: z.number().int(),
+  inputs: z.array(z.object({ path: z.string(), from: z.unknown(), to: z.unknown() })),
+  checks: z.array(
+    z.object({
+      id: z.string(),
+      label: z.string(),
+      unit: z.string(),
+      from: CompareSide,
+      to: CompareSide,
+      changed: z.boolean(),
+    }),
+  ),
+});
+export type RevisionCompare = z.infer<typeof RevisionCompare>;

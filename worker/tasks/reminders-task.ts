@@ -1,13 +1,12 @@
 // The daily reminder run, a BullMQ job scheduler (REMINDER_CRON in REMINDER_TIME_ZONE).
 // Its messages go through the job hand-off like every other message.
-import type { Redis } from 'ioredis';
 import { appUrl } from '../../server/config';
 import type { AppContext } from '../../server/context';
 import { logger } from '../../server/lib/logger';
 import { QUEUE_NAMES } from '../../server/lib/queues';
 import { stageReminders } from '../../server/modules/mail/reminders';
 import { dispatchMail } from '../../server/modules/mail/service';
-import { startTask, type TaskDefinition } from './task';
+import type { TaskDefinition } from './task';
 
 export function todayIn(timeZone: string, now = new Date()): string {
   return new Intl.DateTimeFormat('en-CA', {
@@ -46,8 +45,4 @@ export function remindersTask(ctx: AppContext): TaskDefinition<Record<string, ne
       logger.error({ reason }, 'the daily reminder run failed for good; the next run tries again');
     },
   };
-}
-
-export function startRemindersWorker(ctx: AppContext, connection: Redis) {
-  return startTask(ctx, connection, remindersTask(ctx));
 }

@@ -35,16 +35,6 @@ import {
   updateSite,
 } from './service';
 
-export const OrganisationList = z.object({
-  items: z.array(
-    z.object({
-      id: z.uuid(),
-      name: z.string(),
-      kind: z.enum(['contractor', 'owner']),
-      people: z.number().int(),
-    }),
-  ),
-});
 export const IdParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }) });
 export const PeopleQuery = z.object({
   organisationId: z.uuid().optional(),

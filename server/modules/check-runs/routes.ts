@@ -1,32 +1,11 @@
 // The check run of a package's current revision: where it is (for the package page) and
 // "run the check again" after it could not run (contractor or reviewer). Thin routes.
 import { Router } from 'express';
-import { CheckRunStatus } from '@shared/schemas/check-runs';
-import { PackageDetail } from '@shared/schemas/packages';
 import type { AppContext } from '../../context';
-import { describeRoute } from '../../lib/openapi';
 import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { PackageIdParams } from '../packages/routes';
 import { checkRunStatus, retryCheck } from './service';
-
-describeRoute({
-  method: 'get',
-  path: '/packages/:id/check-run',
-  summary: "The current revision's check run and where its job is (waiting for the queue, queued, running)",
-  tags: ['packages'],
-  params: PackageIdParams,
-  response: CheckRunStatus,
-});
-describeRoute({
-  method: 'post',
-  path: '/packages/:id/check-run/retry',
-  summary: 'Run a check that could not run again (contractor or reviewer; 409 unless it failed)',
-  tags: ['packages'],
-  params: PackageIdParams,
-  response: PackageDetail,
-  status: 202,
-});
 
 export function checkRunRoutes(ctx: AppContext): Router {
   const router = Router();

@@ -7,7 +7,6 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { evaluateLift } from '@shared/engineering/evaluate';
 import type { CheckRunStatus } from '@shared/schemas/check-runs';
 import { LiftInput } from '@shared/schemas/lift-input';
-import { SitePolicy } from '@shared/schemas/site-policy';
 import { AppError } from '../../lib/app-error';
 import { withTimeout, type Queues } from '../../lib/queues';
 import { AuditEvent } from '../audit/audit-event.entity';
@@ -16,15 +15,11 @@ import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { packageDetail } from '../packages/service';
 import { Site } from '../sites/site.entity';
+import { sitePolicy } from '../sites/site-policy';
 
 export class InvalidLiftData extends Error {}
 
 export type ProgressFn = (percent: number, step: string) => Promise<void> | void;
-
-/** The site's policy: its overrides over the engine's defaults. */
-export function sitePolicy(site: Site) {
-  return SitePolicy.parse(site.reviewPolicy ?? {});
-}
 
 export async function runCheck(
   dataSource: DataSource,
@@ -64,14 +59,13 @@ export async function runCheck(
   const worstStatus = result.overallStatus;
   const openDiscrepancies = result.discrepancies.filter((d) => d.status === 'discrepancy').length;
   await dataSource.transaction(async (m) => {
-    // jsonb columns: TypeORM's deep-partial type cannot describe an open record, hence the casts.
     await m.getRepository(Revision).update(revision.id, {
       checkStatus: 'done',
       checkProgress: 100,
       checkError: null,
-      results: result as never,
+      results: result,
       resultVersion: result.resultVersion,
-      policyUsed: { ...policy, siteId: site.id, policyVersion: site.policyVersion } as never,
+      policyUsed: { ...policy, siteId: site.id, policyVersion: site.policyVersion },
       checkedAt: new Date(),
     });
     const current = await m.getRepository(LiftPackage).findOneByOrFail({ id: pkg.id });

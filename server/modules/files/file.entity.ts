@@ -1,15 +1,26 @@
 // An uploaded PDF: its bytes live behind the storage interface under storage_key.
-import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import {
+  Check,
+  Column,
+  CreateDateColumn,
+  Entity,
+  ForeignKey,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+} from 'typeorm';
+import { User } from '../users/user.entity';
 import { Revision } from '../packages/package.entity';
 
 export type FileKind = 'lift_plan' | 'supporting';
 
 @Entity({ name: 'uploaded_files' })
+@Check('uploaded_files_kind_check', `kind IN ('lift_plan', 'supporting')`)
 export class UploadedFile {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ type: 'uuid', name: 'revision_id' }) revisionId: string;
   @ManyToOne(() => Revision, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'revision_id' })
+  @JoinColumn({ name: 'revision_id', foreignKeyConstraintName: 'uploaded_files_revision_id_fkey' })
   revision?: Revision;
   @Column({ type: 'varchar', length: 20 }) kind: FileKind;
   @Column({ type: 'varchar', length: 255, name: 'original_name' }) originalName: string;
@@ -17,6 +28,8 @@ export class UploadedFile {
   @Column({ type: 'bigint', name: 'size_bytes' }) sizeBytes: string;
   @Column({ type: 'int' }) pages: number;
   @Column({ type: 'varchar', length: 300, name: 'storage_key' }) storageKey: string;
-  @Column({ type: 'uuid', name: 'uploaded_by_id' }) uploadedById: string;
+  @ForeignKey(() => User, { name: 'uploaded_files_uploaded_by_id_fkey' })
+  @Column({ type: 'uuid', name: 'uploaded_by_id' })
+  uploadedById: string;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }

@@ -1,16 +1,34 @@
 // Mail the desk sends (one row per recipient and event, deduplicated by key) and, for the
 // embedded set-up, what the local fake SMTP server received.
-import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
+import {
+  Check,
+  Column,
+  CreateDateColumn,
+  Entity,
+  ForeignKey,
+  Index,
+  PrimaryGeneratedColumn,
+  Unique,
+} from 'typeorm';
+import { LiftPackage } from '../packages/package.entity';
+import { User } from '../users/user.entity';
 
 export type MailEvent = 'submitted' | 'assigned' | 'returned' | 'resubmitted' | 'reminder' | 'invite';
 
 @Entity({ name: 'mail_messages' })
+@Check('mail_messages_status_check', `status IN ('queued', 'sent', 'failed')`)
+@Index('mail_messages_status_idx', ['status', 'createdAt'])
+@Unique('mail_messages_dedupe_key_key', ['dedupeKey'])
 export class MailMessage {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ type: 'varchar', length: 40 }) event: MailEvent;
   @Column({ type: 'varchar', length: 200, name: 'dedupe_key' }) dedupeKey: string;
-  @Column({ type: 'uuid', name: 'package_id', nullable: true }) packageId: string | null;
-  @Column({ type: 'uuid', name: 'recipient_id', nullable: true }) recipientId: string | null;
+  @ForeignKey(() => LiftPackage, { name: 'mail_messages_package_id_fkey', onDelete: 'SET NULL' })
+  @Column({ type: 'uuid', name: 'package_id', nullable: true })
+  packageId: string | null;
+  @ForeignKey(() => User, { name: 'mail_messages_recipient_id_fkey', onDelete: 'SET NULL' })
+  @Column({ type: 'uuid', name: 'recipient_id', nullable: true })
+  recipientId: string | null;
   @Column({ type: 'varchar', length: 254, name: 'to_address' }) toAddress: string;
   @Column({ type: 'varchar', length: 300 }) subject: string;
   @Column({ type: 'text', name: 'text_body' }) textBody: string;
@@ -23,6 +41,7 @@ export class MailMessage {
 }
 
 @Entity({ name: 'caught_mail' })
+@Index('caught_mail_received_idx', ['receivedAt'])
 export class CaughtMail {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ type: 'varchar', length: 300, name: 'message_id', nullable: true }) messageId: string | null;

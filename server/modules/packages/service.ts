@@ -13,7 +13,7 @@ import { AuditEvent } from '../audit/audit-event.entity';
 import { UploadedFile } from '../files/file.entity';
 import { toFileSummary } from '../files/service';
 import { User } from '../users/user.entity';
-import { sitePolicy } from '../check-runs/service';
+import { sitePolicy } from '../sites/site-policy';
 import { LiftPackage, Revision } from './package.entity';
 import { findScopedPackage, scopedPackages } from './package-scope';
 
@@ -118,7 +118,7 @@ export async function revisionDetail(dataSource: DataSource, revision: Revision)
       resultVersion: revision.resultVersion,
       checkedAt: revision.checkedAt?.toISOString() ?? null,
     },
-    results: revision.results,
+    results: revision.results ? { ...revision.results } : null,
     files: files.map(toFileSummary),
     acceptedFigures: (revision.acceptedFigures ?? []).map((a) => ({
       figure: a.figure,

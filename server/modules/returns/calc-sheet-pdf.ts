@@ -10,7 +10,7 @@ import { formatFormula, formatQuantity } from '@shared/engineering/format';
 import type { CheckItem, CheckStatus, LiftResult, UnitSystem } from '@shared/engineering/types';
 import { drawSideView, SIDE_VIEW_HEIGHT, sideViewUnavailableReason } from './draw-side-view';
 import { DECISION_SHAPES, SHORT_CAUTION } from './draw-stamp-block';
-import type { StampInput } from './stamp-pdf';
+import type { StampInput } from './stamp-input';
 import {
   drawStatusShape,
   fitText,

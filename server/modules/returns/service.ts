@@ -5,6 +5,7 @@
 import { randomBytes } from 'node:crypto';
 import type { DataSource } from 'typeorm';
 import { DECISION_LABELS } from '@shared/schemas/common';
+import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
 import { QUEUE_NAMES, type Queues } from '../../lib/queues';
 import { sha256, type Storage } from '../../lib/storage';
@@ -206,7 +207,7 @@ export async function buildReturn(
     },
     calculation: {
       inputs: revision.inputs,
-      result: revision.results as never,
+      result: readStoredResult(revision.results),
       units: engineer.unitSystem,
       findings: findings.map((f) => ({
         text: f.text,

@@ -18,60 +18,14 @@
 // block and the footer are drawn upright and placed as the page is displayed
 // (page-frame-pdf.ts).
 import { PDFDocument } from 'pdf-lib';
-import type { LiftResult } from '@shared/engineering/types';
 import { buildCalculationSheet, drawSheetHeader } from './calc-sheet-pdf';
 import { drawMarkups } from './draw-markups';
 import { drawFooter, drawStampBlock } from './draw-stamp-block';
 import { frameOf, inDisplayFrame, isolateOriginalContent } from './page-frame-pdf';
 import { embedLato } from './text-pdf';
+import type { StampInput } from './stamp-input';
 
-export type MarkupKind = 'rectangle' | 'ellipse' | 'cloud' | 'arrow' | 'text' | 'pin';
-
-export interface StampInput {
-  /** The lift plan first, then the supporting PDFs. */
-  documents: Array<{ fileId: string; name: string; bytes: Uint8Array }>;
-  markups: Array<{
-    fileId: string;
-    pageNumber: number;
-    kind: MarkupKind;
-    geometry: Record<string, number>;
-    colour: 'rust' | 'cobalt' | 'verdigris' | 'graphite';
-    text: string | null;
-    number: number | null;
-  }>;
-  stamp: {
-    decision: 'accepted' | 'accepted_as_noted' | 'revise_and_resubmit' | 'rejected';
-    reference: string;
-    title: string;
-    revision: number;
-    site: string;
-    contractor: string;
-    engineer: string;
-    reviewer: string;
-    /** ISO date-times. */
-    decidedAt: string;
-    issuedAt: string;
-    timeZone: string;
-    conditions: string;
-    verificationCode: string;
-    verificationUrl: string;
-  };
-  calculation: {
-    /** The raw LiftInput JSON. */
-    inputs: Record<string, unknown>;
-    result: LiftResult | null;
-    units: 'metric' | 'imperial';
-    findings: Array<{
-      text: string;
-      severity: string;
-      state: string;
-      response: string | null;
-      checkId: string | null;
-      pageNumber: number | null;
-    }>;
-    acceptedFigures: Array<{ figure: string; reason: string; engineer: string }>;
-  };
-}
+export type { StampInput } from './stamp-input';
 
 export class StampInputError extends Error {
   constructor(message: string) {

@@ -1,6 +1,7 @@
 // The difference between two revisions of a package: every input that changed (by JSON
 // path) and every check whose status or value moved, for the engineer's side-by-side view.
 import type { DataSource } from 'typeorm';
+import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
 import { Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
@@ -50,10 +51,8 @@ export async function compareRevisions(
     if (JSON.stringify(fa.get(path)) !== JSON.stringify(fb.get(path)))
       inputs.push({ path, from: fa.get(path), to: fb.get(path) });
   }
-  const checksOf = (r: Revision) =>
-    new Map(
-      (((r.results as { checks?: CheckLike[] } | null)?.checks ?? []) as CheckLike[]).map((c) => [c.id, c]),
-    );
+  const checksOf = (r: Revision): Map<string, CheckLike> =>
+    new Map((readStoredResult(r.results)?.checks ?? []).map((c) => [c.id, c]));
   const ca = checksOf(a);
   const cb = checksOf(b);
   const checks = [...new Set([...ca.keys(), ...cb.keys()])].map((id) => {

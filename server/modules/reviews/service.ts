@@ -10,6 +10,7 @@ import type {
   MarkupBody,
   DecisionBody,
 } from '@shared/schemas/reviews';
+import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
 import type { Queues } from '../../lib/queues';
 import { AuditEvent } from '../audit/audit-event.entity';
@@ -383,10 +384,9 @@ export async function acceptFigure(
   const pkg = await packageUnderReview(ds, user, packageId, 'Figures can be accepted');
   await ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
-    const discrepancies = (
-      (revision.results as { discrepancies?: Array<{ figure: string; status: string }> } | null)
-        ?.discrepancies ?? []
-    ).filter((d) => d.status === 'discrepancy');
+    const discrepancies = (readStoredResult(revision.results)?.discrepancies ?? []).filter(
+      (d) => d.status === 'discrepancy',
+    );
     if (!discrepancies.some((d) => d.figure === figure)) {
       throw AppError.badRequest(`figure: ${figure} is not a discrepancy of this revision`, [
         { path: 'figure', message: 'figure must be one of the revision’s discrepancies' },
@@ -394,7 +394,7 @@ export async function acceptFigure(
     }
     const accepted = (revision.acceptedFigures ?? []).filter((a) => a.figure !== figure);
     accepted.push({ figure, reason, engineerId: user.id, engineer: user.name, at: new Date().toISOString() });
-    await m.getRepository(Revision).update(revision.id, { acceptedFigures: accepted as never });
+    await m.getRepository(Revision).update(revision.id, { acceptedFigures: accepted });
     const open = discrepancies.filter((d) => !accepted.some((a) => a.figure === d.figure)).length;
     await m.getRepository(LiftPackage).update(pkg.id, { openDiscrepancies: open });
     await audit(m, user, pkg.id, 'figure.accepted', { figure, reason, revision: revision.number });

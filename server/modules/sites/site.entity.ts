@@ -8,25 +8,24 @@ import {
   ManyToOne,
   PrimaryColumn,
   PrimaryGeneratedColumn,
+  Unique,
 } from 'typeorm';
 import { Organisation } from '../organisations/organisation.entity';
 import { User } from '../users/user.entity';
 
 @Entity({ name: 'sites' })
+@Unique('sites_code_key', ['code'])
 export class Site {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ type: 'uuid', name: 'owner_organisation_id' }) ownerOrganisationId: string;
   @ManyToOne(() => Organisation)
-  @JoinColumn({ name: 'owner_organisation_id' })
+  @JoinColumn({ name: 'owner_organisation_id', foreignKeyConstraintName: 'sites_owner_organisation_id_fkey' })
   owner?: Organisation;
   @Column({ type: 'varchar', length: 200 }) name: string;
   @Column({ type: 'varchar', length: 20 }) code: string;
   @Column({ type: 'varchar', length: 300, default: '' }) address: string;
   @Column({ type: 'varchar', length: 60, name: 'time_zone', default: 'UTC' }) timeZone: string;
-  @Column({ type: 'jsonb', name: 'review_policy', default: () => "'{}'::jsonb" }) reviewPolicy: Record<
-    string,
-    unknown
-  >;
+  @Column({ type: 'jsonb', name: 'review_policy', default: {} }) reviewPolicy: Record<string, unknown>;
   @Column({ type: 'int', name: 'policy_version', default: 1 }) policyVersion: number;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }
@@ -36,9 +35,9 @@ export class SiteMember {
   @PrimaryColumn({ type: 'uuid', name: 'site_id' }) siteId: string;
   @PrimaryColumn({ type: 'uuid', name: 'user_id' }) userId: string;
   @ManyToOne(() => Site, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'site_id' })
+  @JoinColumn({ name: 'site_id', foreignKeyConstraintName: 'site_members_site_id_fkey' })
   site?: Site;
   @ManyToOne(() => User, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'user_id' })
+  @JoinColumn({ name: 'user_id', foreignKeyConstraintName: 'site_members_user_id_fkey' })
   user?: User;
 }

@@ -1,8 +1,10 @@
 // A person who signs in. token_version ends every session of a person when it changes.
 import {
+  Check,
   Column,
   CreateDateColumn,
   Entity,
+  Index,
   JoinColumn,
   ManyToOne,
   PrimaryGeneratedColumn,
@@ -12,11 +14,17 @@ import type { Role, UnitSystem } from '@shared/schemas/common';
 import { Organisation } from '../organisations/organisation.entity';
 
 @Entity({ name: 'users' })
+@Check('users_role_check', `role IN ('contractor', 'reviewer', 'engineer', 'admin')`)
+@Check('users_unit_system_check', `unit_system IN ('metric', 'imperial')`)
+@Index('users_invite_token_idx', ['inviteTokenHash'], {
+  unique: true,
+  where: `invite_token_hash IS NOT NULL`,
+})
 export class User {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ type: 'uuid', name: 'organisation_id' }) organisationId: string;
   @ManyToOne(() => Organisation, { onDelete: 'RESTRICT' })
-  @JoinColumn({ name: 'organisation_id' })
+  @JoinColumn({ name: 'organisation_id', foreignKeyConstraintName: 'users_organisation_id_fkey' })
   organisation?: Organisation;
   @Column({ type: 'varchar', length: 254 }) email: string;
   @Column({ type: 'varchar', length: 200 }) name: string;

@@ -18,7 +18,8 @@ import { atLeast, exceeds } from '../compare';
 import type { SoilClass } from '../../schemas/lift-input';
 import { planModel, resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
-import { gantryStatics, supportReactions } from './stability';
+import { gantryStatics } from './stability';
+import { fourSupportReactions, supportReactions } from './support-reactions';
 import { SOURCES } from '../sources';
 import { si, TO_SI } from '../units';
 import type { CheckItem, CheckResult, Fix, LiftFigures, Source } from '../types';
@@ -49,48 +50,6 @@ const CALM = [undefined];
 /** The calm resultant moved by a wind moment M blowing along the plan direction dir. */
 function withWind(r: { V: number; ex: number; ey: number }, M: number, dir: readonly [number, number]) {
   return r.V > 0 ? { V: r.V, ex: r.ex + (M * dir[0]) / r.V, ey: r.ey + (M * dir[1]) / r.V } : r;
-}
-
-/** Four-support reactions about the box centre; order right front, left front, left rear, right rear. */
-export function fourSupportReactions(V: number, ex: number, ey: number, a: number, b: number): number[] {
-  const sx = [-1, -1, 1, 1];
-  const sy = [-1, 1, 1, -1];
-  const out = [0, 0, 0, 0];
-  for (let i = 0; i < 4; i++) out[i] = V / 4 + (V * ex * sx[i]) / (4 * a) + (V * ey * sy[i]) / (4 * b);
-  return out;
-}
-
-/** Reactions with support `off` lifted: three-support statics (ΣV, ΣM about both axes). */
-export function threeSupportReactions(
-  V: number,
-  ex: number,
-  ey: number,
-  a: number,
-  b: number,
-  off: number,
-): number[] {
-  const px = [-a, -a, a, a];
-  const py = [-b, b, b, -b];
-  const idx = [0, 1, 2, 3].filter((i) => i !== off);
-  const [i, j, k] = idx;
-  // [1 1 1; x_i x_j x_k; y_i y_j y_k] R = [V, V ex, V ey]
-  const m = [
-    [1, 1, 1],
-    [px[i], px[j], px[k]],
-    [py[i], py[j], py[k]],
-  ];
-  const rhs = [V, V * ex, V * ey];
-  const det3 = (q: number[][]) =>
-    q[0][0] * (q[1][1] * q[2][2] - q[1][2] * q[2][1]) -
-    q[0][1] * (q[1][0] * q[2][2] - q[1][2] * q[2][0]) +
-    q[0][2] * (q[1][0] * q[2][1] - q[1][1] * q[2][0]);
-  const D = det3(m);
-  const out = [0, 0, 0, 0];
-  for (let c = 0; c < 3; c++) {
-    const mc = m.map((row, r) => row.map((v, cc) => (cc === c ? rhs[r] : v)));
-    out[idx[c]] = det3(mc) / D;
-  }
-  return out;
 }
 
 /** Peak bearing pressure under a track carrying Vt with eccentricity e along its length L, width w. */

@@ -20,7 +20,7 @@ import {
 import { columns, same as sameRow } from '../chart';
 import { check, f, item, statusMax, statusMin, term, type Ctx } from '../context';
 import { gantryFrame } from './geometry';
-import { fourSupportReactions, threeSupportReactions } from './ground-bearing';
+import { supportReactions } from './support-reactions';
 import { formatFormula, formatQuantity } from '../format';
 import { SOURCES } from '../sources';
 import { DEG, si, siOr } from '../units';
@@ -599,21 +599,4 @@ export function backwardStability(ctx: Ctx): CheckItem[] {
     );
   }
   return items;
-}
-
-/**
- * Four-support reactions of a rigid base with lift-off (order right front, left front, left rear,
- * right rear); null when no set of compressive reactions balances it (the resultant is outside).
- */
-export function supportReactions(V: number, ex: number, ey: number, a: number, b: number): number[] | null {
-  if (Math.abs(ex) > a * (1 + 1e-12) || Math.abs(ey) > b * (1 + 1e-12)) return null;
-  let R = fourSupportReactions(V, ex, ey, a, b);
-  let minI = 0;
-  for (let i = 1; i < 4; i++) if (R[i] < R[minI]) minI = i;
-  if (R[minI] < 0) {
-    R = threeSupportReactions(V, ex, ey, a, b, minI);
-    // a resultant right on the diagonal: the fourth reaction is round-off; never report a pull
-    for (let i = 0; i < 4; i++) if (R[i] < 0) R[i] = 0;
-  }
-  return R;
 }

@@ -1,8 +1,8 @@
 // /packages/:id: the package for every role (read-only but for the contractor's draft
 // actions): its facts, the check run live while it runs, the recomputed results with the
 // discrepancies first, the plots, the files and the revision history.
+import { readStoredResult } from '@shared/engineering/stored-result';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import type { LiftResult } from '@shared/engineering/types';
 import { homeFor, useCurrentUser } from '@/lib/auth';
 import { isApiError } from '@/lib/api-client';
 import { PageHeader } from '@/components/layouts/page-header';
@@ -18,11 +18,6 @@ import { PackageResults } from '@/features/packages/components/detail/package-re
 import { FileRow } from '@/features/packages/components/editor/documents-step';
 import { ReturnsPanel } from '@/features/returns/components/returns-panel';
 import { ResubmissionPanel } from '@/features/returns/components/resubmission-panel';
-
-function isLiftResult(value: unknown): value is LiftResult {
-  const v = value as Partial<LiftResult> | null;
-  return Boolean(v && Array.isArray(v.checks) && Array.isArray(v.discrepancies) && v.figures && v.policy);
-}
 
 export default function PackageDetailRoute() {
   const { id = '' } = useParams();
@@ -63,7 +58,7 @@ export default function PackageDetailRoute() {
   const current = data.current;
   const contractor = user.role === 'contractor';
   const editable = contractor && current.state === 'draft';
-  const result = isLiftResult(current.results) ? current.results : null;
+  const result = readStoredResult(current.results);
   const plan = current.files.filter((file) => file.kind === 'lift_plan');
   const supporting = current.files.filter((file) => file.kind === 'supporting');
   // Returned for changes: answer the findings and start the next revision; while that

@@ -2,20 +2,15 @@
 // contractors and site owners on the desk, with how many people each has.
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { OrganisationKind } from '@shared/schemas/common';
-import type { OrganisationBody, OrganisationPatch } from '@shared/schemas/admin';
+import {
+  AdminOrganisation,
+  OrganisationList,
+  type OrganisationBody,
+  type OrganisationPatch,
+} from '@shared/schemas/admin';
 import { api, request } from '@/lib/api-client';
 import { organisationKeys } from '@/lib/query-client';
 import { adminKeys } from './admin-keys';
-
-export const AdminOrganisation = z.object({
-  id: z.uuid(),
-  name: z.string(),
-  kind: OrganisationKind,
-  people: z.number().int(),
-});
-export type AdminOrganisation = z.infer<typeof AdminOrganisation>;
-const OrganisationList = z.object({ items: z.array(AdminOrganisation) });
 
 export function getOrganisations(signal?: AbortSignal) {
   return api.get('/api/admin/organisations', OrganisationList, { signal });

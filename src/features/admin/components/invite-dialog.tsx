@@ -12,7 +12,7 @@ import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { FormAlert, FormField, inputClasses, selectClasses } from '@/components/ui/form-field';
 import { Spinner } from '@/components/ui/page-loading';
-import type { AdminOrganisation } from '../api/organisations';
+import type { AdminOrganisation } from '@shared/schemas/admin';
 import { useInvitePerson, type Person } from '../api/people';
 import { ORGANISATION_KIND_LABELS } from '../lib/labels';
 

@@ -8,7 +8,8 @@ import { OrganisationBody, OrganisationPatch } from '@shared/schemas/admin';
 import { isApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { FormAlert, FormField, inputClasses } from '@/components/ui/form-field';
-import { useCreateOrganisation, useRenameOrganisation, type AdminOrganisation } from '../api/organisations';
+import type { AdminOrganisation } from '@shared/schemas/admin';
+import { useCreateOrganisation, useRenameOrganisation } from '../api/organisations';
 
 type NewOrganisation = z.input<typeof OrganisationBody>;
 

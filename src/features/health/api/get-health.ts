@@ -1,15 +1,8 @@
 // GET /api/health: whether the database and the job queue answer. The server answers 503
 // with the same body when either is down, so a 503 is read as a report, not a failure.
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
+import { HealthResponse } from '@shared/schemas/health';
 import { healthKeys } from '@/lib/query-client';
-
-export const HealthResponse = z.object({
-  status: z.enum(['ok', 'degraded']),
-  database: z.object({ ok: z.boolean() }),
-  queue: z.object({ ok: z.boolean() }),
-});
-export type HealthResponse = z.infer<typeof HealthResponse>;
 
 export async function getHealth(signal?: AbortSignal): Promise<HealthResponse> {
   const response = await fetch('/api/health', {

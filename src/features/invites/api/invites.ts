@@ -8,8 +8,6 @@ import { MeResponse } from '@shared/schemas/auth';
 import { api } from '@/lib/api-client';
 import { authKeys } from '@/lib/query-client';
 
-export type InviteInfo = z.infer<typeof InviteInfo>;
-
 export const inviteKeys = {
   all: ['invites'] as const,
   token: (token: string) => [...inviteKeys.all, token] as const,

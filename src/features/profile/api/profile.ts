@@ -3,18 +3,9 @@
 // which every page reads its units from, so the whole desk re-renders in the new units.
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { UnitSystem } from '@shared/schemas/common';
-import type { PasswordChangeBody, ProfilePatch } from '@shared/schemas/admin';
+import { Profile, type PasswordChangeBody, type ProfilePatch } from '@shared/schemas/admin';
 import { api, request } from '@/lib/api-client';
 import { authKeys } from '@/lib/query-client';
-
-export const Profile = z.object({
-  name: z.string(),
-  email: z.string(),
-  unitSystem: UnitSystem,
-  notifyReminders: z.boolean(),
-});
-export type Profile = z.infer<typeof Profile>;
 
 export const profileKeys = {
   all: ['profile'] as const,

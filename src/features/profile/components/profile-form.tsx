@@ -9,7 +9,8 @@ import { isApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { FormAlert, FormField, inputClasses } from '@/components/ui/form-field';
 import { Spinner } from '@/components/ui/page-loading';
-import { useUpdateProfile, type Profile } from '../api/profile';
+import type { Profile } from '@shared/schemas/admin';
+import { useUpdateProfile } from '../api/profile';
 
 const ProfileForm = ProfilePatch.required();
 type ProfileForm = z.infer<typeof ProfileForm>;

@@ -1,13 +1,9 @@
 // The engineer's findings on a package (every revision) and the contractor's answers:
 // GET /api/packages/:id/findings, PATCH /api/packages/:id/findings/:findingId {response}.
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { Finding } from '@shared/schemas/reviews';
+import { FindingList, type Finding } from '@shared/schemas/reviews';
 import { api, request } from '@/lib/api-client';
 import { packageKeys } from '@/lib/query-client';
-
-export const FindingList = z.object({ items: z.array(Finding) });
-export type FindingList = z.infer<typeof FindingList>;
 
 // The cache holds the list itself (Finding[]), the same shape the review workspace keeps
 // under this key, so both pages can share it.

@@ -3,26 +3,9 @@
 // is being built the list is asked for again every second; when it is ready the package
 // itself (now "returned") is read again.
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
+import { ReturnList, StampedReturn } from '@shared/schemas/returns';
 import { api } from '@/lib/api-client';
 import { packageKeys } from '@/lib/query-client';
-
-export const StampedReturn = z.object({
-  id: z.uuid(),
-  revisionId: z.uuid(),
-  state: z.enum(['pending', 'ready', 'failed']),
-  progress: z.number(),
-  error: z.string().nullable().optional(),
-  sha256: z.string().nullable(),
-  pages: z.number().int().nullable(),
-  verificationCode: z.string(),
-  createdAt: z.string(),
-  readyAt: z.string().nullable().optional(),
-});
-export type StampedReturn = z.infer<typeof StampedReturn>;
-
-export const ReturnList = z.object({ items: z.array(StampedReturn) });
-export type ReturnList = z.infer<typeof ReturnList>;
 
 export const POLL_MS = 1000;
 

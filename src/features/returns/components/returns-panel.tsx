@@ -10,7 +10,8 @@ import { formatDateTime, plural } from '@/lib/format';
 import { packageKeys } from '@/lib/query-client';
 import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/page-loading';
-import { returnFileUrl, useIssueReturn, useReturns, verifyPath, type StampedReturn } from '../api/returns';
+import type { StampedReturn } from '@shared/schemas/returns';
+import { returnFileUrl, useIssueReturn, useReturns, verifyPath } from '../api/returns';
 import { shortHash, STAMP_STEPS, stepAt } from '../lib/stamp-steps';
 import { CopyButton } from './copy-button';
 

@@ -2,15 +2,9 @@
 // packages. All or nothing: the server refuses the whole request if one package cannot
 // take an engineer.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
+import { AssignResult } from '@shared/schemas/reviews';
 import { api, isApiError } from '@/lib/api-client';
 import { engineerKeys, packageKeys } from '@/lib/query-client';
-
-export const AssignResult = z.object({
-  assigned: z.number().int(),
-  engineer: z.object({ id: z.uuid(), name: z.string(), email: z.string() }),
-});
-export type AssignResult = z.infer<typeof AssignResult>;
 
 export type AssignInput = { packageIds: string[]; engineerId: string };
 

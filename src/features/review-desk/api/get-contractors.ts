@@ -1,15 +1,9 @@
 // GET /api/admin/organisations (administrators only): the contractor organisations that
 // work on the desk's sites, for the queue's contractor filter.
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
+import { OrganisationList } from '@shared/schemas/admin';
 import { api } from '@/lib/api-client';
 import { organisationKeys } from '@/lib/query-client';
-
-const OrganisationList = z.object({
-  items: z.array(
-    z.object({ id: z.uuid(), name: z.string(), kind: z.enum(['contractor', 'owner']), people: z.number() }),
-  ),
-});
 
 export type Contractor = { id: string; name: string };
 

@@ -1,17 +1,9 @@
 // GET /api/engineers: the engineers of record a coordinator may assign, with how many
 // packages each has open (coordinators and administrators only).
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
+import { EngineerList } from '@shared/schemas/reviews';
 import { api } from '@/lib/api-client';
 import { engineerKeys } from '@/lib/query-client';
-
-export const EngineerList = z.object({
-  items: z.array(
-    z.object({ id: z.uuid(), name: z.string(), email: z.string(), openPackages: z.number().int() }),
-  ),
-});
-export type EngineerList = z.infer<typeof EngineerList>;
-export type Engineer = EngineerList['items'][number];
 
 export function getEngineers(signal?: AbortSignal): Promise<EngineerList> {
   return api.get('/api/engineers', EngineerList, { signal });

@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/page-loading';
 import { plural } from '@/lib/format';
 import { explainAssignError, useAssignEngineer } from '../api/assign-engineer';
-import type { Engineer } from '../api/get-engineers';
+import type { Engineer } from '@shared/schemas/reviews';
 
 export function AssignBar({
   selected,

@@ -4,7 +4,7 @@
 import type { PackageSummary } from '@shared/schemas/packages';
 import { Spinner } from '@/components/ui/page-loading';
 import { explainAssignError, useAssignEngineer } from '../api/assign-engineer';
-import type { Engineer } from '../api/get-engineers';
+import type { Engineer } from '@shared/schemas/reviews';
 
 const ASSIGNABLE = new Set(['ready_for_review', 'with_engineer', 'checking', 'check_failed']);
 

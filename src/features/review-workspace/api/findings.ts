@@ -1,12 +1,9 @@
 // GET /api/packages/:id/findings (every revision's, with its state and the contractor's
 // answer), POST a new one and PATCH one open or closed. Both writes answer the whole list.
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { Finding, type FindingBody } from '@shared/schemas/reviews';
+import { FindingList, type Finding, type FindingBody } from '@shared/schemas/reviews';
 import { api, request } from '@/lib/api-client';
 import { packagePath, reviewKeys } from './review-keys';
-
-const FindingList = z.object({ items: z.array(Finding) });
 
 export function getFindings(packageId: string, signal?: AbortSignal): Promise<Finding[]> {
   return api.get(`${packagePath(packageId)}/findings`, FindingList, { signal }).then((list) => list.items);

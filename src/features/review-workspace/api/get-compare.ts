@@ -1,28 +1,9 @@
 // GET /api/packages/:id/compare?from=&to=: the inputs that changed between two revisions
 // and every check's status and value in each.
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
+import { RevisionCompare } from '@shared/schemas/reviews';
 import { api } from '@/lib/api-client';
 import { packagePath, reviewKeys } from './review-keys';
-
-const Side = z.object({ status: z.string(), value: z.number().nullable() }).nullable();
-
-export const RevisionCompare = z.object({
-  from: z.number().int(),
-  to: z.number().int(),
-  inputs: z.array(z.object({ path: z.string(), from: z.unknown(), to: z.unknown() })),
-  checks: z.array(
-    z.object({
-      id: z.string(),
-      label: z.string(),
-      unit: z.string(),
-      from: Side,
-      to: Side,
-      changed: z.boolean(),
-    }),
-  ),
-});
-export type RevisionCompare = z.infer<typeof RevisionCompare>;
 
 export function getCompare(
   packageId: string,

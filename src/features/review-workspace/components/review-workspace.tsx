@@ -4,10 +4,10 @@
 // — for a resubmission — what changed since the previous revision. Keyboard first.
 // This file composes; the state lives in ../hooks (document view, markup editing, the finding
 // being written, the keyboard map) and the pieces in their own files.
+import { readStoredResult } from '@shared/engineering/stored-result';
 import { useMemo, useState } from 'react';
 import type { CurrentUser } from '@shared/schemas/auth';
 import { DECISION_LABELS } from '@shared/schemas/common';
-import type { LiftResult } from '@shared/engineering/types';
 import type { PackageDetail } from '@shared/schemas/packages';
 import type { Finding } from '@shared/schemas/reviews';
 import { SplitPane } from '@/components/ui/split-pane';
@@ -35,11 +35,6 @@ type Tab = 'checks' | 'findings' | 'decision' | 'difference';
 const MIN_COLUMN = 340;
 const MAX_COLUMN = 900;
 
-function isLiftResult(value: unknown): value is LiftResult {
-  const v = value as Partial<LiftResult> | null;
-  return Boolean(v && Array.isArray(v.checks) && Array.isArray(v.discrepancies) && v.figures);
-}
-
 const panelClass = 'min-h-0 flex-1 overflow-y-auto';
 
 export function ReviewWorkspace({ detail, user }: { detail: PackageDetail; user: CurrentUser }) {
@@ -47,7 +42,7 @@ export function ReviewWorkspace({ detail, user }: { detail: PackageDetail; user:
   const current = detail.current;
   const access = workspaceAccess(user, detail);
   const files = current.files;
-  const result = isLiftResult(current.results) ? current.results : null;
+  const result = readStoredResult(current.results);
   const markupsQuery = useMarkups(pkg.id);
   const findingsQuery = useFindings(pkg.id);
   const setFindingState = useSetFindingState(pkg.id);

@@ -1,0 +1,125 @@
+// The OpenAPI description of the reviews routes (routes.ts beside it), from the zod schemas they validate with.
+import { PackageDetail } from '@shared/schemas/packages';
+import {
+  AcceptFigureBody,
+  AssignBody,
+  AssignResult,
+  DecisionBody,
+  EngineerList,
+  FindingBody,
+  FindingList,
+  FindingUpdateBody,
+  Markup,
+  MarkupBody,
+  RevisionCompare,
+} from '@shared/schemas/reviews';
+import { z } from 'zod';
+import { PackageIdParams } from '../packages/routes';
+import { CompareQuery, FindingParams, MarkupParams, MarkupQuery } from './routes';
+import { describeRoute } from '../../lib/openapi';
+
+describeRoute({
+  method: 'get',
+  path: '/engineers',
+  summary: 'Engineers of your organisation with their open packages (reviewer, admin)',
+  tags: ['review'],
+  response: EngineerList,
+});
+describeRoute({
+  method: 'post',
+  path: '/assignments',
+  summary: 'Assign or reassign an engineer to one or many packages (reviewer)',
+  tags: ['review'],
+  body: AssignBody,
+  response: AssignResult,
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/markups',
+  summary: 'Markups of a revision, in PDF page coordinates',
+  tags: ['review'],
+  params: PackageIdParams,
+  query: MarkupQuery,
+  response: z.object({ items: z.array(Markup) }),
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/markups',
+  summary: 'Add a markup (assigned engineer)',
+  tags: ['review'],
+  params: PackageIdParams,
+  body: MarkupBody,
+  response: Markup,
+  status: 201,
+});
+describeRoute({
+  method: 'delete',
+  path: '/packages/:id/markups/:markupId',
+  summary: 'Remove a markup (assigned engineer)',
+  tags: ['review'],
+  params: MarkupParams,
+  status: 204,
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/findings',
+  summary: 'Findings of every revision with their state',
+  tags: ['review'],
+  params: PackageIdParams,
+  response: FindingList,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/findings',
+  summary: 'Raise a finding on a page, a markup or a check (assigned engineer)',
+  tags: ['review'],
+  params: PackageIdParams,
+  body: FindingBody,
+  response: FindingList,
+  status: 201,
+});
+describeRoute({
+  method: 'patch',
+  path: '/packages/:id/findings/:findingId',
+  summary: 'Answer (contractor) or close/reopen (engineer) a finding',
+  tags: ['review'],
+  params: FindingParams,
+  body: FindingUpdateBody,
+  response: FindingList,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/accepted-figures',
+  summary: 'Accept a stated figure that differs, with a reason (assigned engineer)',
+  tags: ['review'],
+  params: PackageIdParams,
+  body: AcceptFigureBody,
+  response: PackageDetail,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/decision',
+  summary: 'Record the decision (assigned engineer); 409 when the package changed since baseVersion',
+  tags: ['review'],
+  params: PackageIdParams,
+  body: DecisionBody,
+  response: PackageDetail,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/revisions',
+  summary: 'Start the next revision after Revise and resubmit or Rejected (contractor)',
+  tags: ['review'],
+  params: PackageIdParams,
+  response: PackageDetail,
+  status: 201,
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/compare',
+  summary: 'Inputs and check results that differ between two revisions',
+  tags: ['review'],
+  params: PackageIdParams,
+  query: CompareQuery,
+  response: RevisionCompare,
+});

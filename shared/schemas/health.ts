@@ -1,0 +1,15 @@
+// GET /api/health: whether the database and the job queue answer (503 with the same body when either
+// is down; `error` names the outage with the code the error handler uses).
+import { z } from 'zod';
+
+const Probe = z.object({ ok: z.boolean(), error: z.string().optional() });
+
+export const HealthResponse = z.object({
+  status: z.enum(['ok', 'degraded']),
+  database: Probe,
+  queue: Probe,
+  error: z
+    .object({ code: z.enum(['database_unavailable', 'queue_unavailable']), message: z.string() })
+    .optional(),
+});
+export type HealthResponse = z.infer<typeof HealthResponse>;

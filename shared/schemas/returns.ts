@@ -1,0 +1,19 @@
+// Stamped returns of a package, as GET/POST /api/packages/:id/returns answer them.
+import { z } from 'zod';
+
+export const StampedReturn = z.object({
+  id: z.uuid(),
+  revisionId: z.uuid(),
+  state: z.enum(['pending', 'ready', 'failed']),
+  progress: z.number().int(),
+  error: z.string().nullable(),
+  sha256: z.string().nullable(),
+  pages: z.number().int().nullable(),
+  verificationCode: z.string(),
+  createdAt: z.string(),
+  readyAt: z.string().nullable(),
+});
+export type StampedReturn = z.infer<typeof StampedReturn>;
+
+export const ReturnList = z.object({ items: z.array(StampedReturn) });
+export type ReturnList = z.infer<typeof ReturnList>;
