@@ -194,6 +194,8 @@ export interface BuiltReturn {
   pages: number;
   /** SHA-256 of the signing certificate, when signed. */
   signingCertificateSha256: string | null;
+  /** Size of what the desk adds (overlays, fonts and the calculation sheet) before combining. */
+  overlayBytes: number;
 }
 
 /** Build the return into `outFile`. The documents are only read. */
@@ -246,7 +248,11 @@ export async function buildStampedReturnFile(
       await signReturn(outFile, assembled, field, options.signer);
       fingerprint = options.signer.fingerprint;
     }
-    return { pages: overlay.total, signingCertificateSha256: fingerprint };
+    return {
+      pages: overlay.total,
+      signingCertificateSha256: fingerprint,
+      overlayBytes: overlay.bytes.length,
+    };
   } finally {
     await rm(work, { recursive: true, force: true });
   }
