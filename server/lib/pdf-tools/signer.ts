@@ -24,6 +24,8 @@ export interface Signer {
   subject: string;
   /** A detached CMS SignedData over a document whose sha-256 is `digest`. */
   sign(digest: Buffer): Promise<Buffer>;
+  /** Bytes one signature takes (measured once), so the placeholder is no larger than needed. */
+  signatureSize: number;
 }
 
 export class SigningSetupError extends Error {
@@ -73,9 +75,10 @@ export async function signerFrom(certsDer: Buffer[], keyPkcs8: Buffer): Promise<
   const essCertIdV2 = new asn1js.Sequence({
     value: [new asn1js.Sequence({ value: [new asn1js.OctetString({ valueHex: toArrayBuffer(certHash) })] })],
   });
-  return {
+  const signer = {
     fingerprint: certHash.toString('hex'),
     subject,
+    signatureSize: 0,
     async sign(digest: Buffer) {
       const signedData = new pkijs.SignedData({
         version: 1,
@@ -107,6 +110,8 @@ export async function signerFrom(certsDer: Buffer[], keyPkcs8: Buffer): Promise<
       return Buffer.from(info.toSchema().toBER(false));
     },
   };
+  signer.signatureSize = (await signer.sign(Buffer.alloc(32))).length;
+  return signer;
 }
 
 /** Read a PKCS#12 file: the key and the certificate it belongs to, then the rest of the chain. */

@@ -186,8 +186,8 @@ export interface SignatureField {
   date: Date;
 }
 
-/** Bytes reserved for the CMS (hex doubles it): room for a certificate chain of a few certificates. */
-export const SIGNATURE_BYTES = 16384;
+/** Room left in the placeholder beyond the signer's measured signature size. */
+const SIGNATURE_SLACK = 64;
 const BYTE_RANGE_PLACEHOLDER = '[0 0000000000 0000000000 0000000000]';
 
 async function digestRanges(file: string, ranges: Array<[number, number]>): Promise<Buffer> {
@@ -205,6 +205,7 @@ async function digestRanges(file: string, ranges: Array<[number, number]>): Prom
 }
 
 export async function signReturn(file: string, a: Assembled, field: SignatureField, signer: Signer) {
+  const SIGNATURE_BYTES = signer.signatureSize + SIGNATURE_SLACK;
   let next = a.xref.size;
   const sigNum = next++;
   const widgetNum = next++;

@@ -179,7 +179,7 @@ async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
     });
   });
   out.getPages().slice(0, originalCount).forEach(carrierPage);
-  const bytes = await out.save({ useObjectStreams: false });
+  const bytes = await out.save({ useObjectStreams: false, objectsPerTick: Infinity });
   return { bytes, originalCount, total, field: field as { rect: Box } | null };
 }
 
