@@ -152,3 +152,14 @@ describe('signing settings', () => {
     expect(() => loadConfig({ ...env, SIGNING_P12_PASSPHRASE: 'secret' })).not.toThrow();
   });
 });
+
+describe('signed return file', () => {
+  it('when a signed return is built to a file, then the sha-256 it reports is that of the file', async () => {
+    const { buildStampedReturnFile } = await import('@server/modules/returns/stamp-pdf');
+    const out = join(dir, 'to-file.pdf');
+    const built = await buildStampedReturnFile(await stampInput(), out, { signer, workDir: dir });
+    expect(built.sha256).toBe(createHash('sha256').update(readFileSync(out)).digest('hex'));
+    expect(built.signingCertificateSha256).toBe(signer.fingerprint);
+    expect(pdfsig(out)).toContain('Signature is Valid');
+  });
+});

@@ -66,7 +66,7 @@ export async function readStructure(file: string): Promise<QpdfStructure> {
 /**
  * Copy `inputs` (each file with an optional page range, qpdf syntax) into `out`, in order.
  * Streams are preserved as they are; non-stream objects go into object streams, which keeps
- * the structure compact. The /ID is derived from the content, so one input gives one output.
+ * the structure compact. One input gives one output.
  */
 export async function concatenate(inputs: Array<{ file: string; range?: string }>, out: string) {
   const pages = inputs.flatMap((i) => (i.range ? [i.file, i.range] : [i.file]));
@@ -75,7 +75,9 @@ export async function concatenate(inputs: Array<{ file: string; range?: string }
       '--empty',
       '--stream-data=preserve',
       '--object-streams=generate',
-      '--deterministic-id',
+      // A fixed /ID here (hashing the whole output for it would be another pass over the
+      // package); the return's incremental updates write its own /ID.
+      '--static-id',
       '--pages',
       ...pages,
       '--',

@@ -37,6 +37,8 @@ export interface DocumentInfo {
   author: string;
   keywords: string;
   date: Date;
+  /** The file identifier (hex), unique to the return. */
+  id: string;
 }
 
 export interface Assembled {
@@ -159,12 +161,12 @@ export async function assembleReturn(
     '/CreationDate': date,
     '/ModDate': date,
   });
-  const id = trailer['/ID'];
+  const id: QValue = [`b:${info.id}`, `b:${info.id}`];
   const xrefBefore = await readXrefState(file, next);
   const written = await appendIncrement(file, xrefBefore, objects, {
     '/Root': rootRef,
     '/Info': infoRef,
-    ...(id !== undefined ? { '/ID': id } : {}),
+    '/ID': id,
   });
   return {
     xref: written.state,
@@ -190,21 +192,27 @@ export interface SignatureField {
 const SIGNATURE_SLACK = 64;
 const BYTE_RANGE_PLACEHOLDER = '[0 0000000000 0000000000 0000000000]';
 
-async function digestRanges(file: string, ranges: Array<[number, number]>): Promise<Buffer> {
-  const hash = createHash('sha256');
-  for (const [start, length] of ranges) {
-    if (length === 0) continue;
-    await new Promise<void>((resolveRead, reject) => {
-      const rs = createReadStream(file, { start, end: start + length - 1, highWaterMark: 1 << 20 });
-      rs.on('data', (chunk) => hash.update(chunk));
-      rs.on('end', () => resolveRead());
-      rs.on('error', reject);
-    });
-  }
-  return hash.digest();
+function feed(file: string, start: number, length: number, sinks: Array<(chunk: Buffer) => void>) {
+  return new Promise<void>((resolveRead, reject) => {
+    if (length === 0) return resolveRead();
+    const rs = createReadStream(file, { start, end: start + length - 1, highWaterMark: 1 << 20 });
+    rs.on('data', (chunk) => sinks.forEach((sink) => sink(chunk as Buffer)));
+    rs.on('end', () => resolveRead());
+    rs.on('error', reject);
+  });
 }
 
-export async function signReturn(file: string, a: Assembled, field: SignatureField, signer: Signer) {
+/**
+ * Sign the return. Returns the sha-256 of the signed file: the one read of the document feeds
+ * both the signature's digest and the file's, which continues over the signature and the short
+ * tail after it once they are known.
+ */
+export async function signReturn(
+  file: string,
+  a: Assembled,
+  field: SignatureField,
+  signer: Signer,
+): Promise<string> {
   const SIGNATURE_BYTES = signer.signatureSize + SIGNATURE_SLACK;
   let next = a.xref.size;
   const sigNum = next++;
@@ -280,15 +288,19 @@ export async function signReturn(file: string, a: Assembled, field: SignatureFie
       undefined,
       byteRangeAt,
     );
-    await fh.sync();
-    const digest = await digestRanges(file, [
-      [0, contentsAt],
-      [contentsEnd, length - contentsEnd],
-    ]);
-    const cms = await signer.sign(digest);
+    const ranges = createHash('sha256');
+    const whole = createHash('sha256');
+    await feed(file, 0, contentsAt, [(c) => ranges.update(c), (c) => whole.update(c)]);
+    const tail: Buffer[] = [];
+    await feed(file, contentsEnd, length - contentsEnd, [(c) => ranges.update(c), (c) => tail.push(c)]);
+    const cms = await signer.sign(ranges.digest());
     if (cms.length > SIGNATURE_BYTES)
       throw new Error(`the signature needs ${cms.length} bytes, more than the ${SIGNATURE_BYTES} reserved`);
-    await fh.write(Buffer.from(cms.toString('hex').toUpperCase(), 'latin1'), 0, undefined, contentsAt + 1);
+    const hex = cms.toString('hex').toUpperCase();
+    await fh.write(Buffer.from(hex, 'latin1'), 0, undefined, contentsAt + 1);
+    whole.update(Buffer.from(`<${hex.padEnd(SIGNATURE_BYTES * 2, '0')}>`, 'latin1'));
+    for (const c of tail) whole.update(c);
+    return whole.digest('hex');
   } finally {
     await fh.close();
   }

@@ -12,7 +12,7 @@ import { DECISION_LABELS } from '@shared/schemas/common';
 import { AppError } from '../../lib/app-error';
 import { QUEUE_NAMES, type Queues } from '../../lib/queues';
 import type { Signer } from '../../lib/pdf-tools/signer';
-import { sha256OfFile, type Storage } from '../../lib/storage';
+import type { Storage } from '../../lib/storage';
 import { AuditEvent } from '../audit/audit-event.entity';
 import { handOff, latestIntent, nextRound, recordIntent, type Intent } from '../jobs/intents';
 import { stageMail } from '../mail/service';
@@ -255,8 +255,9 @@ export async function buildReturn(
     pages = built.pages;
     signingCertificateSha256 = built.signingCertificateSha256;
     await step(85, 'storing the return');
-    // The stored sha-256 is of the signed file, exactly as it is stored.
-    digest = await sha256OfFile(out);
+    // The stored sha-256 is of the signed file, exactly as it is stored (computed in the same
+    // read of the file as the signature's digest).
+    digest = built.sha256;
     await storage.putFile(storageKey, out);
   } catch (err) {
     // A document qpdf refuses is bad data: retrying cannot help, and the reviewer sees why.

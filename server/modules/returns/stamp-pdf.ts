@@ -26,12 +26,14 @@
 // block and the footer are drawn upright and placed as the page is displayed
 // (page-frame-pdf.ts). The overlay's Form XObject has the identity matrix and the page's
 // MediaBox as its BBox, so it draws in the original page's own user space.
+import { createHash } from 'node:crypto';
 import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { PDFDocument, PDFName, PDFNumber } from 'pdf-lib';
 import type { LiftResult } from '@shared/engineering/types';
 import type { Signer } from '../../lib/pdf-tools/signer';
+import { sha256OfFile } from '../../lib/storage';
 import { concatenate, QpdfError, readStructure, inherited, type QValue } from '../../lib/pdf-tools/qpdf';
 import { buildCalculationSheet, drawSheetHeader } from './calc-sheet-pdf';
 import { drawMarkups } from './draw-markups';
@@ -194,6 +196,8 @@ export interface BuiltReturn {
   pages: number;
   /** SHA-256 of the signing certificate, when signed. */
   signingCertificateSha256: string | null;
+  /** sha-256 of the finished file. */
+  sha256: string;
   /** Size of what the desk adds (overlays, fonts and the calculation sheet) before combining. */
   overlayBytes: number;
 }
@@ -236,8 +240,13 @@ export async function buildStampedReturnFile(
       author: stamp.engineer,
       keywords: [stamp.reference, `revision ${stamp.revision}`, stamp.verificationCode].join(' '),
       date: issued,
+      // Unique to the return, and the same when the same return is built again.
+      id: createHash('md5')
+        .update([stamp.reference, stamp.revision, stamp.verificationCode, stamp.issuedAt].join('\n'))
+        .digest('hex'),
     });
     let fingerprint: string | null = null;
+    let digest: string | null = null;
     if (options.signer) {
       const field: SignatureField = {
         rect: overlay.field?.rect ?? [0, 0, 0, 0],
@@ -245,10 +254,11 @@ export async function buildStampedReturnFile(
         reason: `Stamped return: ${stamp.reference} revision ${stamp.revision}, verification code ${stamp.verificationCode}`,
         date: issued,
       };
-      await signReturn(outFile, assembled, field, options.signer);
+      digest = await signReturn(outFile, assembled, field, options.signer);
       fingerprint = options.signer.fingerprint;
     }
     return {
+      sha256: digest ?? (await sha256OfFile(outFile)),
       pages: overlay.total,
       signingCertificateSha256: fingerprint,
       overlayBytes: overlay.bytes.length,
