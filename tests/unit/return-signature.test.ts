@@ -83,11 +83,12 @@ describe('signed stamped return', () => {
 
   it('when one byte of the signed return is changed, then pdfsig reports the signature broken', () => {
     const tampered = Buffer.from(signed);
-    // One letter of the document information's keywords ("revision" → "revisiom"), inside the
-    // signed range and harmless to the file's structure.
-    const at = tampered.indexOf('revision 2 CP7K');
-    expect(at).toBeGreaterThan(0);
-    tampered[at + 7] = 0x6d;
+    // One byte of the first original page's own content stream (inside the signed range).
+    const own = pagesOf(returnFile)[0].contents[1].split(' ')[0];
+    const obj = tampered.indexOf(`\n${own} 0 obj`);
+    expect(obj).toBeGreaterThan(0);
+    const at = tampered.indexOf('stream\n', obj) + 'stream\n'.length + 5;
+    tampered[at] ^= 0x01;
     const file = join(dir, 'tampered.pdf');
     writeFileSync(file, tampered);
     const report = pdfsig(file);

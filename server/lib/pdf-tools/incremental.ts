@@ -4,6 +4,7 @@
 // the size of the package. The section is written in the form the file already uses (an
 // uncompressed cross-reference stream after a stream, a classic table after a table).
 import { open, stat } from 'node:fs/promises';
+import { deflateSync } from 'node:zlib';
 import type { QValue } from './qpdf';
 
 /** PDF syntax written as it is (an operator string, a prepared hex string). */
@@ -129,14 +130,37 @@ export interface AppendResult {
 export async function appendIncrement(
   file: string,
   prev: XrefState,
-  objects: NewObject[],
+  allObjects: NewObject[],
   trailer: { [key: string]: PdfValue },
+  /** Put the dictionaries (not streams) into one compressed object stream, after a stream xref. */
+  pack = false,
 ): Promise<AppendResult> {
   let offset = (await stat(file)).size;
   const chunks: Buffer[] = [Buffer.from('\n', 'latin1')];
   offset += 1;
   const offsets = new Map<number, number>();
   const dictOffsets = new Map<number, number>();
+  const packed = pack && prev.xrefStream ? allObjects.filter((o) => !o.stream).slice(0, 60_000) : [];
+  const objects = allObjects.filter((o) => !packed.includes(o));
+  const packedIndex = new Map<number, number>();
+  let objStmNum = 0;
+  if (packed.length > 0) {
+    objStmNum = Math.max(prev.size - 1, ...allObjects.map((o) => o.num)) + 1;
+    const bodies = packed.map((o) => Buffer.from(`${serialise(o.dict)}\n`, 'latin1'));
+    let header = '';
+    let at = 0;
+    packed.forEach((o, i) => {
+      header += `${o.num} ${at} `;
+      at += bodies[i].length;
+      packedIndex.set(o.num, i);
+    });
+    const head = Buffer.from(`${header}\n`, 'latin1');
+    objects.push({
+      num: objStmNum,
+      dict: { '/Type': '/ObjStm', '/N': packed.length, '/First': head.length, '/Filter': '/FlateDecode' },
+      stream: deflateSync(Buffer.concat([head, ...bodies])),
+    });
+  }
   for (const o of objects) {
     const bytes = objectBytes(o);
     offsets.set(o.num, offset);
@@ -144,22 +168,29 @@ export async function appendIncrement(
     chunks.push(bytes);
     offset += bytes.length;
   }
-  const maxNum = Math.max(prev.size - 1, ...objects.map((o) => o.num));
+  const maxNum = Math.max(prev.size - 1, ...allObjects.map((o) => o.num), objStmNum);
   const xrefOffset = offset;
   let state: XrefState;
   if (prev.xrefStream) {
     const xrefNum = maxNum + 1;
     const size = xrefNum + 1;
     offsets.set(xrefNum, xrefOffset);
-    const nums = [...objects.map((o) => o.num), xrefNum];
+    const nums = [...allObjects.map((o) => o.num), ...(objStmNum ? [objStmNum] : []), xrefNum];
     const groups = runs(nums);
     const rows: Buffer[] = [];
     for (const [, group] of groups)
       for (const n of group) {
         const row = Buffer.alloc(8);
-        row[0] = 1;
-        row.writeUIntBE(offsets.get(n)!, 1, 5);
-        row.writeUInt16BE(0, 6);
+        const inStream = packedIndex.get(n);
+        if (inStream !== undefined) {
+          row[0] = 2;
+          row.writeUIntBE(objStmNum, 1, 5);
+          row.writeUInt16BE(inStream, 6);
+        } else {
+          row[0] = 1;
+          row.writeUIntBE(offsets.get(n)!, 1, 5);
+          row.writeUInt16BE(0, 6);
+        }
         rows.push(row);
       }
     const xref = objectBytes({

@@ -163,11 +163,17 @@ export async function assembleReturn(
   });
   const id: QValue = [`b:${info.id}`, `b:${info.id}`];
   const xrefBefore = await readXrefState(file, next);
-  const written = await appendIncrement(file, xrefBefore, objects, {
-    '/Root': rootRef,
-    '/Info': infoRef,
-    '/ID': id,
-  });
+  const written = await appendIncrement(
+    file,
+    xrefBefore,
+    objects,
+    {
+      '/Root': rootRef,
+      '/Info': infoRef,
+      '/ID': id,
+    },
+    true,
+  );
   return {
     xref: written.state,
     rootRef,
