@@ -6,6 +6,7 @@ import 'reflect-metadata';
 import type { Worker } from 'bullmq';
 import { connect, handleProcessEvents, StartupError } from '../server/bootstrap';
 import { loadConfig } from '../server/config';
+import { signerFor } from '../server/lib/pdf-tools/signer';
 import { logger } from '../server/lib/logger';
 import { createRedis } from '../server/lib/redis';
 import type { Intent } from '../server/modules/jobs/intents';
@@ -26,12 +27,18 @@ handleProcessEvents('worker', (code) => close(code));
 
 async function main() {
   const config = loadConfig();
+  // The signing certificate is read (or the desk's own made) before any job can need it.
+  const signer = await signerFor(config);
+  logger.info(
+    { certificateSha256: signer.fingerprint, subject: signer.subject },
+    'stamped returns are signed',
+  );
   const ctx = await connect(config);
   const connection = createRedis(config.REDIS_URL, { forWorker: true });
   connection.on('error', () => undefined);
   const tasks: Array<TaskDefinition<Record<string, string>>> = [
     checkRunTask(ctx, config.CHECK_CONCURRENCY),
-    stampTask(ctx, 1),
+    stampTask(ctx, 1, signer),
     remindersTask(ctx),
   ];
   if (config.SMTP_URL) tasks.push(mailTask(ctx, config.SMTP_URL));

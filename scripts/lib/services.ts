@@ -90,10 +90,10 @@ export const DEBIAN_PACKAGES: DebianPackage[] = [
   },
   {
     name: 'poppler-utils',
-    binaries: ['pdftotext', 'pdftoppm', 'pdfinfo'],
+    binaries: ['pdftotext', 'pdftoppm', 'pdfinfo', 'pdfsig'],
     purposes: ['test'],
-    why: 'reading stamped returns back in the tests',
-    present: () => ['pdftotext', 'pdftoppm', 'pdfinfo'].every((b) => which(b) !== null),
+    why: "reading stamped returns back in the tests and checking the return's signature independently",
+    present: () => ['pdftotext', 'pdftoppm', 'pdfinfo', 'pdfsig'].every((b) => which(b) !== null),
   },
   {
     name: 'chromium',

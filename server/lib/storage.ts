@@ -1,6 +1,7 @@
 // Where file bytes live. The embedded default is a folder under the data directory;
 // another backend (an object store) implements the same three calls.
 import { createHash } from 'node:crypto';
+import { createReadStream } from 'node:fs';
 import fs from 'node:fs/promises';
 import path from 'node:path';
 
@@ -8,6 +9,10 @@ export interface Storage {
   put(key: string, bytes: Uint8Array): Promise<void>;
   get(key: string): Promise<Uint8Array>;
   delete(key: string): Promise<void>;
+  /** Store the file at `file`, moving it when it can (large files never pass through memory). */
+  putFile(key: string, file: string): Promise<void>;
+  /** Write the stored bytes to the local file `dest`. */
+  getFile(key: string, dest: string): Promise<void>;
 }
 
 export class LocalFolderStorage implements Storage {
@@ -27,6 +32,19 @@ export class LocalFolderStorage implements Storage {
     await fs.rename(tmp, file);
   }
 
+  async putFile(key: string, source: string) {
+    const file = this.resolve(key);
+    await fs.mkdir(path.dirname(file), { recursive: true });
+    const tmp = `${file}.${process.pid}.tmp`;
+    await fs.rename(source, tmp).catch(() => fs.copyFile(source, tmp));
+    await fs.rename(tmp, file);
+  }
+
+  async getFile(key: string, dest: string) {
+    // A hard link when both are on one file system (stored files are never changed in place).
+    await fs.link(this.resolve(key), dest).catch(() => fs.copyFile(this.resolve(key), dest));
+  }
+
   async get(key: string) {
     return new Uint8Array(await fs.readFile(this.resolve(key)));
   }
@@ -38,4 +56,11 @@ export class LocalFolderStorage implements Storage {
 
 export function sha256(bytes: Uint8Array): string {
   return createHash('sha256').update(bytes).digest('hex');
+}
+
+/** The sha-256 of a file, streamed from disk. */
+export async function sha256OfFile(file: string): Promise<string> {
+  const hash = createHash('sha256');
+  for await (const chunk of createReadStream(file, { highWaterMark: 1 << 20 })) hash.update(chunk as Buffer);
+  return hash.digest('hex');
 }

@@ -191,6 +191,8 @@ export const Verification = z.object({
   decidedOn: z.string(),
   issuedOn: z.string(),
   sha256: z.string(),
+  /** SHA-256 of the certificate that signed the return; null for a return made before signing. */
+  signingCertificateSha256: z.string().nullable().default(null),
   current: z.boolean(),
   supersededBy: z.number().int().nullable(),
 });

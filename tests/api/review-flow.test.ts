@@ -344,6 +344,7 @@ describe('the stamped return, verification and resubmission', () => {
       'reference',
       'revision',
       'sha256',
+      'signingCertificateSha256',
       'supersededBy',
       'title',
     ]);

@@ -24,6 +24,7 @@ function verification(overrides: Partial<Verification> = {}): Verification {
     decidedOn: '2030-03-01T09:00:00.000Z',
     issuedOn: '2030-03-02T10:00:00.000Z',
     sha256: SHA,
+    signingCertificateSha256: null,
     current: true,
     supersededBy: null,
     ...overrides,
@@ -46,6 +47,26 @@ function answer(reply: Reply) {
 }
 
 describe('public verification', () => {
+  it('when the return is signed, then the page shows the certificate fingerprint and says a PDF reader can check the signature', async () => {
+    answer({
+      status: 200,
+      body: verification({ signingCertificateSha256: '5ea1ed00' + 'fedcba98'.repeat(7) }),
+    });
+    renderApp(`/verify/${CODE}`);
+    await answerHeading();
+    expect(screen.getByText('SHA-256 of the signing certificate')).toBeTruthy();
+    expect(screen.getByText('5ea1ed00')).toBeTruthy();
+    expect(screen.getByText(/A PDF reader can check the signature/)).toBeTruthy();
+  });
+
+  it('when the return was issued before signing, then the page says so instead of a fingerprint', async () => {
+    answer({ status: 200, body: verification() });
+    renderApp(`/verify/${CODE}`);
+    await answerHeading();
+    expect(screen.getByText('This return was issued before returns were signed.')).toBeTruthy();
+    expect(screen.queryByText('SHA-256 of the signing certificate')).toBeNull();
+  });
+
   it('when the code is the current accepted revision, then that is the one answer, with the facts below and no sign-in', async () => {
     const fetchMock = answer({ status: 200, body: verification() });
     renderApp(`/verify/${CODE}`);

@@ -211,9 +211,9 @@ describe('buildStampedReturn', () => {
 
   it('when the return is built, then the uploaded PDFs are byte for byte unchanged', async () => {
     const fresh = await stampInput();
-    const before = fresh.documents.map((d) => sha(d.bytes));
+    const before = fresh.documents.map((d) => sha(d.bytes!));
     await buildStampedReturn(fresh);
-    expect(fresh.documents.map((d) => sha(d.bytes))).toEqual(before);
+    expect(fresh.documents.map((d) => sha(d.bytes!))).toEqual(before);
   });
 
   it('when the same input is built twice, then the page count, the text and the bytes are the same', async () => {

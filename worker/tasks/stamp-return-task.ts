@@ -7,10 +7,13 @@ import { appUrl } from '../../server/config';
 import type { AppContext } from '../../server/context';
 import { QUEUE_NAMES, type StampJob } from '../../server/lib/queues';
 import { dispatchMail } from '../../server/modules/mail/service';
+import path from 'node:path';
+import { signerFor, type Signer } from '../../server/lib/pdf-tools/signer';
 import { buildReturn, markReturnFailed } from '../../server/modules/returns/service';
 import { startTask, type TaskDefinition, type TaskTiming } from './task';
 
-export function stampTask(ctx: AppContext, concurrency: number): TaskDefinition<StampJob> {
+/** `signer` defaults to the configured one (SIGNING_P12_FILE, else the desk's own). */
+export function stampTask(ctx: AppContext, concurrency: number, signer?: Signer): TaskDefinition<StampJob> {
   return {
     queue: QUEUE_NAMES.stamp,
     concurrency,
@@ -22,6 +25,10 @@ export function stampTask(ctx: AppContext, concurrency: number): TaskDefinition<
         job.data.returnId,
         appUrl(ctx.config),
         (percent, step) => job.updateProgress({ percent, step }),
+        {
+          signer: signer ?? (await signerFor(ctx.config)),
+          workDir: path.join(ctx.config.DATA_DIR, 'work'),
+        },
       );
       if (!outcome.skipped) await dispatchMail(ctx.queues, outcome.mailIds);
       return { skipped: outcome.skipped };

@@ -84,8 +84,19 @@ function conditionLines(text: string, fonts: Fonts, size: number, width: number,
   return [...lines.slice(0, maxLines - 1), last.trimEnd() + tail];
 }
 
-/** Draw the stamp block; must run inside the first page's display frame. */
-export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s: StampBlockData) {
+/** A box in the display frame. */
+export interface FrameBox {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
+
+/**
+ * Draw the stamp block; must run inside the first page's display frame. Returns the box of its
+ * verification rows in the display frame: the return's visible signature field goes there.
+ */
+export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s: StampBlockData): FrameBox {
   const W = STAMP_WIDTH;
   const H = STAMP_HEIGHT;
   const margin = Math.min(18, frame.width * 0.04, frame.height * 0.04);
@@ -189,7 +200,9 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
     font: fonts.black,
     color: INK,
   });
+  const verifyTop = y + 8;
   y -= 7;
+  const verifyBottom = y - 2.5;
   page.drawText(fitText(s.verificationUrl, fonts.regular, 5.5, fullW - 38), {
     x: pad + 38,
     y,
@@ -208,6 +221,12 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
     }),
   );
   page.pushOperators(popGraphicsState());
+  return {
+    x: ox + pad * k,
+    y: oy + verifyBottom * k,
+    width: fullW * k,
+    height: (verifyTop - verifyBottom) * k,
+  };
 }
 
 /** "REF rev N — page n of m", small, bottom right, on a white backing. Inside the display frame. */

@@ -3,12 +3,16 @@
 // sheet), stores it with its sha-256 and marks the package returned. One return per
 // decision: issuing twice or retrying the job gives the same single return.
 import { randomBytes } from 'node:crypto';
+import { mkdir, mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { UnrecoverableError } from 'bullmq';
 import type { DataSource } from 'typeorm';
 import { DECISION_LABELS } from '@shared/schemas/common';
-import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
 import { QUEUE_NAMES, type Queues } from '../../lib/queues';
-import { sha256, type Storage } from '../../lib/storage';
+import type { Signer } from '../../lib/pdf-tools/signer';
+import type { Storage } from '../../lib/storage';
 import { AuditEvent } from '../audit/audit-event.entity';
 import { handOff, latestIntent, nextRound, recordIntent, type Intent } from '../jobs/intents';
 import { stageMail } from '../mail/service';
@@ -21,7 +25,7 @@ import { Finding, Markup, StampedReturn } from '../reviews/review.entity';
 import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
-import { buildStampedReturn } from './stamp-pdf';
+import { buildStampedReturnFile, StampInputError } from './stamp-pdf';
 
 const BASE32 = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ234567';
 
@@ -139,6 +143,13 @@ export async function readReturn(
 
 export type ProgressFn = (percent: number, step: string) => Promise<void> | void;
 
+export interface BuildReturnOptions {
+  /** Signs the return; without one (some tests) it is left unsigned. */
+  signer?: Signer | null;
+  /** Folder for the build's files, best on the storage's file system. */
+  workDir?: string;
+}
+
 /** The stamp job's work. Safe to run again: a ready return is left as it is. */
 export async function buildReturn(
   ds: DataSource,
@@ -146,6 +157,7 @@ export async function buildReturn(
   returnId: string,
   appUrl: string,
   progress: ProgressFn = () => undefined,
+  options: BuildReturnOptions = {},
 ) {
   const ret = await ds.getRepository(StampedReturn).findOneBy({ id: returnId });
   if (!ret) throw new Error(`stamped return ${returnId} does not exist`);
@@ -174,68 +186,94 @@ export async function buildReturn(
     .getRepository(Finding)
     .find({ where: { packageId: pkg.id }, order: { createdAt: 'ASC' } });
   await step(20, 'reading the original pages');
-  const documents = [];
-  for (const f of files)
-    documents.push({ fileId: f.id, name: f.originalName, bytes: await storage.get(f.storageKey) });
-  await step(40, 'burning in markups and the stamp');
-  const pdf = await buildStampedReturn({
-    documents,
-    markups: markups.map((mk) => ({
-      fileId: mk.fileId,
-      pageNumber: mk.pageNumber,
-      kind: mk.kind,
-      geometry: mk.geometry as Record<string, number>,
-      colour: mk.colour as 'rust',
-      text: mk.text,
-      number: mk.number,
-    })),
-    stamp: {
-      decision: decision.decision,
-      reference: pkg.reference,
-      title: pkg.title,
-      revision: revision.number,
-      site: site.name,
-      contractor: contractor.name,
-      engineer: engineer.name,
-      reviewer: reviewer.name,
-      decidedAt: decision.createdAt.toISOString(),
-      issuedAt: ret.createdAt.toISOString(),
-      timeZone: site.timeZone,
-      conditions: decision.conditions,
-      verificationCode: ret.verificationCode,
-      verificationUrl: `${appUrl}/verify/${ret.verificationCode}`,
-    },
-    calculation: {
-      inputs: revision.inputs,
-      result: readStoredResult(revision.results),
-      units: engineer.unitSystem,
-      findings: findings.map((f) => ({
-        text: f.text,
-        severity: f.severity,
-        state: f.state,
-        response: f.response,
-        checkId: f.checkId,
-        pageNumber: f.pageNumber,
-      })),
-      acceptedFigures: (revision.acceptedFigures ?? []).map((a) => ({
-        figure: a.figure,
-        reason: a.reason,
-        engineer: a.engineer,
-      })),
-    },
-  });
-  await step(85, 'storing the return');
+  const workRoot = options.workDir ?? tmpdir();
+  await mkdir(workRoot, { recursive: true });
+  const work = await mkdtemp(path.join(workRoot, 'return-'));
+  let pages: number;
+  let digest: string;
+  let signingCertificateSha256: string | null;
   const storageKey = `returns/${pkg.id}/${ret.id}.pdf`;
-  await storage.put(storageKey, pdf);
-  const { PDFDocument } = await import('pdf-lib');
-  const pages = (await PDFDocument.load(pdf, { updateMetadata: false })).getPageCount();
+  try {
+    const documents = [];
+    for (const [i, f] of files.entries()) {
+      const file = path.join(work, `original-${i}.pdf`);
+      await storage.getFile(f.storageKey, file);
+      documents.push({ fileId: f.id, name: f.originalName, file });
+    }
+    await step(40, 'burning in markups and the stamp');
+    const out = path.join(work, 'return.pdf');
+    const built = await buildStampedReturnFile(
+      {
+        documents,
+        markups: markups.map((mk) => ({
+          fileId: mk.fileId,
+          pageNumber: mk.pageNumber,
+          kind: mk.kind,
+          geometry: mk.geometry as Record<string, number>,
+          colour: mk.colour as 'rust',
+          text: mk.text,
+          number: mk.number,
+        })),
+        stamp: {
+          decision: decision.decision,
+          reference: pkg.reference,
+          title: pkg.title,
+          revision: revision.number,
+          site: site.name,
+          contractor: contractor.name,
+          engineer: engineer.name,
+          reviewer: reviewer.name,
+          decidedAt: decision.createdAt.toISOString(),
+          issuedAt: ret.createdAt.toISOString(),
+          timeZone: site.timeZone,
+          conditions: decision.conditions,
+          verificationCode: ret.verificationCode,
+          verificationUrl: `${appUrl}/verify/${ret.verificationCode}`,
+        },
+        calculation: {
+          inputs: revision.inputs,
+          result: readStoredResult(revision.results),
+          units: engineer.unitSystem,
+          findings: findings.map((f) => ({
+            text: f.text,
+            severity: f.severity,
+            state: f.state,
+            response: f.response,
+            checkId: f.checkId,
+            pageNumber: f.pageNumber,
+          })),
+          acceptedFigures: (revision.acceptedFigures ?? []).map((a) => ({
+            figure: a.figure,
+            reason: a.reason,
+            engineer: a.engineer,
+          })),
+        },
+      },
+      out,
+      { signer: options.signer, workDir: work },
+    );
+    pages = built.pages;
+    signingCertificateSha256 = built.signingCertificateSha256;
+    await step(85, 'storing the return');
+    // The stored sha-256 is of the signed file, exactly as it is stored (computed in the same
+    // read of the file as the signature's digest).
+    digest = built.sha256;
+    await storage.putFile(storageKey, out);
+  } catch (err) {
+    // A document qpdf refuses is bad data: retrying cannot help, and the reviewer sees why.
+    if (err instanceof StampInputError) throw new UnrecoverableError(err.message);
+    throw err;
+  } finally {
+    await rm(work, { recursive: true, force: true });
+  }
   const mailIds = await ds.transaction(async (m) => {
     const updated = await m
       .createQueryBuilder()
       .update(StampedReturn)
       .set({
         state: 'ready',
-        sha256: sha256(pdf),
+        sha256: digest,
+        signingCertificateSha256,
         storageKey,
         pages,
         progress: 100,

@@ -5,8 +5,8 @@ import type { LiftResult } from '@shared/engineering/types';
 export type MarkupKind = 'rectangle' | 'ellipse' | 'cloud' | 'arrow' | 'text' | 'pin';
 
 export interface StampInput {
-  /** The lift plan first, then the supporting PDFs. */
-  documents: Array<{ fileId: string; name: string; bytes: Uint8Array }>;
+  /** The lift plan first, then the supporting PDFs: a file on disk, or bytes (tests). */
+  documents: Array<{ fileId: string; name: string; file?: string; bytes?: Uint8Array }>;
   markups: Array<{
     fileId: string;
     pageNumber: number;

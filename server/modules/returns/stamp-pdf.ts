@@ -1,14 +1,22 @@
-// The stamped return as a pure function: the package's PDFs, the engineer's markups, the
-// decision and the calculation in; the bytes of one new PDF out. No database and no files
-// other than the Lato fonts from node_modules, and no clock: the PDF's dates come from
-// stamp.issuedAt, so the same input gives the same pages and text.
+// The stamped return: the package's PDFs, the engineer's markups, the decision and the
+// calculation in; one new PDF file out, built at the cost of a copy. No database, and no
+// clock: the PDF's dates come from stamp.issuedAt, so the same input gives the same bytes.
 //
-// What it holds, in order:
-// 1. every page of every document, copied (the uploaded bytes are only read), with that
-//    page's markups burned in as vector drawing;
-// 2. on the first page, the stamp block (draw-stamp-block.ts);
-// 3. the calculation sheet on A4 pages (calc-sheet-pdf.ts);
-// and on every page a "REF rev N — page n of m" footer.
+// How it is built (DEVELOPERS.md, "The stamped return"):
+// 1. qpdf reads each document's page boxes (qpdf --json, no stream data). A damaged
+//    document is refused with qpdf's message.
+// 2. pdf-lib draws only what the desk adds, in a small "overlay" PDF: for each original page a
+//    carrier page with the same boxes and /Rotate whose drawing (markups, the stamp block on the
+//    first page, the footer) is a Form XObject, then the calculation sheet's pages.
+// 3. qpdf copies the original pages, the carriers and the sheet into one file
+//    (--stream-data=preserve: every original content and image stream byte for byte).
+// 4. An incremental update (pdf-tools/incremental.ts) gives each original page a /Contents
+//    array [q, its own streams, Q + the overlay's Do], drops the carriers from the page tree
+//    and writes the document information.
+// 5. With a signer, a second incremental update adds the signature (signature dictionary,
+//    visible field over the stamp block's verification rows, /AcroForm), the digest of the
+//    byte ranges is streamed from disk with Node's sha-256, and the CMS from pdf-tools/signer.ts
+//    is written into the placeholder in place.
 //
 // Coordinates: markup geometry is in PDF points in the page's unrotated space, measured from
 // the lower-left corner of its visible box (CropBox, else MediaBox), as the review viewer
@@ -16,12 +24,22 @@
 // Rotated pages (/Rotate 90, 180, 270): markups stay at their stored unrotated positions
 // (they are in the same space as the page's content), while text, pin numbers, the stamp
 // block and the footer are drawn upright and placed as the page is displayed
-// (page-frame-pdf.ts).
-import { PDFDocument } from 'pdf-lib';
+// (page-frame-pdf.ts). The overlay's Form XObject has the identity matrix and the page's
+// MediaBox as its BBox, so it draws in the original page's own user space.
+import { createHash } from 'node:crypto';
+import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { PDFDocument, PDFName, PDFNumber } from 'pdf-lib';
+import type { Signer } from '../../lib/pdf-tools/signer';
+import { sha256OfFile } from '../../lib/storage';
+import { concatenate, QpdfError, readStructure, inherited, type QValue } from '../../lib/pdf-tools/qpdf';
 import { buildCalculationSheet, drawSheetHeader } from './calc-sheet-pdf';
 import { drawMarkups } from './draw-markups';
-import { drawFooter, drawStampBlock } from './draw-stamp-block';
-import { frameOf, inDisplayFrame, isolateOriginalContent } from './page-frame-pdf';
+import { drawFooter, drawStampBlock, type FrameBox } from './draw-stamp-block';
+import { displayToUser, frameOf, inDisplayFrame, type PageFrame } from './page-frame-pdf';
+import { carrierPage } from './overlay-carrier';
+import { assembleReturn, signReturn, type SignatureField } from './return-structure';
 import { embedLato } from './text-pdf';
 import type { StampInput } from './stamp-input';
 
@@ -39,51 +57,74 @@ function pdfDate(iso: string): Date {
   return Number.isNaN(d.getTime()) ? new Date(0) : d;
 }
 
-export async function buildStampedReturn(input: StampInput): Promise<Uint8Array> {
-  const { stamp } = input;
-  if (input.documents.length === 0) throw new StampInputError('The return needs at least one PDF document.');
-  const issued = pdfDate(stamp.issuedAt);
-  const out = await PDFDocument.create({ updateMetadata: false });
-  out.setTitle(`${stamp.reference} rev ${stamp.revision} — stamped return`);
-  out.setSubject(stamp.title);
-  out.setAuthor(stamp.engineer);
-  out.setCreator('Counterpoise');
-  out.setProducer('Counterpoise stamped return (pdf-lib)');
-  out.setKeywords([stamp.reference, `revision ${stamp.revision}`, stamp.verificationCode]);
-  out.setCreationDate(issued);
-  out.setModificationDate(issued);
-  const fonts = await embedLato(out);
+type Box = [number, number, number, number];
 
-  // 1. The original pages with their markups.
+function boxOf(v: QValue | undefined): Box | null {
+  if (!Array.isArray(v) || v.length !== 4 || !v.every((n) => typeof n === 'number')) return null;
+  const [a, b, c, d] = v as number[];
+  return [Math.min(a, c), Math.min(b, d), Math.max(a, c), Math.max(b, d)];
+}
+
+interface OriginalPage {
+  media: Box;
+  crop: Box | null;
+  rotate: number;
+}
+
+/** Each page's boxes and rotation, read by qpdf; a document qpdf cannot read is refused. */
+async function originalPages(file: string, name: string): Promise<OriginalPage[]> {
+  try {
+    const s = await readStructure(file);
+    return s.pages.map((p) => ({
+      media: boxOf(inherited(s, p.object, '/MediaBox')) ?? [0, 0, 612, 792],
+      crop: boxOf(inherited(s, p.object, '/CropBox')),
+      rotate: Number(inherited(s, p.object, '/Rotate') ?? 0) || 0,
+    }));
+  } catch (err) {
+    if (err instanceof QpdfError)
+      throw new StampInputError(`${name} could not be read as a PDF (${err.message}).`);
+    throw err;
+  }
+}
+
+/** A box in the display frame as a rectangle in the page's user space. */
+function userRect(frame: PageFrame, b: FrameBox): Box {
+  const [a, bb, c, d, e, f] = displayToUser(frame);
+  const pts = [
+    [b.x, b.y],
+    [b.x + b.width, b.y],
+    [b.x, b.y + b.height],
+    [b.x + b.width, b.y + b.height],
+  ].map(([x, y]) => [a * x + c * y + e, bb * x + d * y + f]);
+  const xs = pts.map((p) => p[0]);
+  const ys = pts.map((p) => p[1]);
+  return [Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)];
+}
+
+/** The overlay PDF: a carrier page per original page, then the calculation sheet. */
+async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
+  const { stamp } = input;
+  const out = await PDFDocument.create({ updateMetadata: false });
+  const fonts = await embedLato(out);
+  let field: { rect: Box } | null = null;
   let first = true;
-  for (const doc of input.documents) {
-    let src: PDFDocument;
-    try {
-      src = await PDFDocument.load(doc.bytes, { updateMetadata: false });
-    } catch (err) {
-      throw new StampInputError(
-        `${doc.name} could not be read as a PDF (${err instanceof Error ? err.message : String(err)}).`,
-      );
-    }
-    const copies = await out.copyPages(src, src.getPageIndices());
-    copies.forEach((page, i) => {
-      out.addPage(page);
-      isolateOriginalContent(page);
+  input.documents.forEach((doc, d) => {
+    originals[d].forEach((o, i) => {
+      const page = out.addPage([o.media[2] - o.media[0], o.media[3] - o.media[1]]);
+      page.setMediaBox(o.media[0], o.media[1], o.media[2] - o.media[0], o.media[3] - o.media[1]);
+      if (o.crop) page.setCropBox(o.crop[0], o.crop[1], o.crop[2] - o.crop[0], o.crop[3] - o.crop[1]);
+      if (o.rotate) page.node.set(PDFName.of('Rotate'), PDFNumber.of(o.rotate));
       const frame = frameOf(page);
       const marks = input.markups.filter((m) => m.fileId === doc.fileId && m.pageNumber === i + 1);
       inDisplayFrame(page, frame, () => {
         drawMarkups(page, frame, marks, fonts);
-        if (first) drawStampBlock(page, frame, fonts, stamp);
+        if (first) field = { rect: userRect(frame, drawStampBlock(page, frame, fonts, stamp)) };
       });
       first = false;
     });
-  }
+  });
   const originalCount = out.getPageCount();
-
-  // 2. The calculation sheet.
   buildCalculationSheet(out, fonts, input);
-
-  // 3. Page numbers now that the total is known.
   const total = out.getPageCount();
   out.getPages().forEach((page, i) => {
     const footer = `${stamp.reference} rev ${stamp.revision} — page ${i + 1} of ${total}`;
@@ -93,6 +134,102 @@ export async function buildStampedReturn(input: StampInput): Promise<Uint8Array>
       drawFooter(page, frame, fonts, footer);
     });
   });
+  out.getPages().slice(0, originalCount).forEach(carrierPage);
+  const bytes = await out.save({ useObjectStreams: false, objectsPerTick: Infinity });
+  return { bytes, originalCount, total, field: field as { rect: Box } | null };
+}
 
-  return out.save({ useObjectStreams: false });
+export interface BuildOptions {
+  /** Sign the return (PAdES baseline B) as its last incremental update. */
+  signer?: Signer | null;
+  /** Folder for the intermediate files (the system's temporary folder by default). */
+  workDir?: string;
+}
+
+export interface BuiltReturn {
+  pages: number;
+  /** SHA-256 of the signing certificate, when signed. */
+  signingCertificateSha256: string | null;
+  /** sha-256 of the finished file. */
+  sha256: string;
+  /** Size of what the desk adds (overlays, fonts and the calculation sheet) before combining. */
+  overlayBytes: number;
+}
+
+/** Build the return into `outFile`. The documents are only read. */
+export async function buildStampedReturnFile(
+  input: StampInput,
+  outFile: string,
+  options: BuildOptions = {},
+): Promise<BuiltReturn> {
+  const { stamp } = input;
+  if (input.documents.length === 0) throw new StampInputError('The return needs at least one PDF document.');
+  const work = await mkdtemp(path.join(options.workDir ?? tmpdir(), 'cp-stamp-'));
+  try {
+    const files: string[] = [];
+    for (const [i, doc] of input.documents.entries()) {
+      if (doc.file) files.push(doc.file);
+      else {
+        const f = path.join(work, `doc-${i}.pdf`);
+        await writeFile(f, doc.bytes ?? new Uint8Array());
+        files.push(f);
+      }
+    }
+    const originals: OriginalPage[][] = [];
+    for (const [i, doc] of input.documents.entries()) originals.push(await originalPages(files[i], doc.name));
+    const overlay = await buildOverlay(input, originals);
+    const overlayFile = path.join(work, 'overlay.pdf');
+    await writeFile(overlayFile, overlay.bytes);
+    try {
+      await concatenate([...files.map((file) => ({ file })), { file: overlayFile }], outFile);
+    } catch (err) {
+      if (err instanceof QpdfError)
+        throw new StampInputError(`The package could not be combined (${err.message}).`);
+      throw err;
+    }
+    const issued = pdfDate(stamp.issuedAt);
+    const assembled = await assembleReturn(outFile, overlay.originalCount, {
+      title: `${stamp.reference} rev ${stamp.revision} — stamped return`,
+      subject: stamp.title,
+      author: stamp.engineer,
+      keywords: [stamp.reference, `revision ${stamp.revision}`, stamp.verificationCode].join(' '),
+      date: issued,
+      // Unique to the return, and the same when the same return is built again.
+      id: createHash('md5')
+        .update([stamp.reference, stamp.revision, stamp.verificationCode, stamp.issuedAt].join('\n'))
+        .digest('hex'),
+    });
+    let fingerprint: string | null = null;
+    let digest: string | null = null;
+    if (options.signer) {
+      const field: SignatureField = {
+        rect: overlay.field?.rect ?? [0, 0, 0, 0],
+        name: `Desk signature ${stamp.reference} rev ${stamp.revision}`,
+        reason: `Stamped return: ${stamp.reference} revision ${stamp.revision}, verification code ${stamp.verificationCode}`,
+        date: issued,
+      };
+      digest = await signReturn(outFile, assembled, field, options.signer);
+      fingerprint = options.signer.fingerprint;
+    }
+    return {
+      sha256: digest ?? (await sha256OfFile(outFile)),
+      pages: overlay.total,
+      signingCertificateSha256: fingerprint,
+      overlayBytes: overlay.bytes.length,
+    };
+  } finally {
+    await rm(work, { recursive: true, force: true });
+  }
+}
+
+/** The same, in memory: for tests and small packages. */
+export async function buildStampedReturn(input: StampInput, options: BuildOptions = {}): Promise<Uint8Array> {
+  const work = await mkdtemp(path.join(options.workDir ?? tmpdir(), 'cp-return-'));
+  try {
+    const out = path.join(work, 'return.pdf');
+    await buildStampedReturnFile(input, out, { ...options, workDir: work });
+    return new Uint8Array(await readFile(out));
+  } finally {
+    await rm(work, { recursive: true, force: true });
+  }
 }

@@ -116,8 +116,23 @@ export function safeText(text: string, font: PDFFont, keepNewlines = false): str
   return out;
 }
 
+// Measuring runs fontkit's layout, the slowest part of drawing a sheet: widths at size 1 are
+// kept per font name (the embedded names are fixed, so every return shares them), per process.
+const widthCache = new Map<string, Map<string, number>>();
+
 export function widthOf(text: string, font: PDFFont, size: number): number {
-  return font.widthOfTextAtSize(text, size);
+  let widths = widthCache.get(font.name);
+  if (!widths) {
+    widths = new Map();
+    widthCache.set(font.name, widths);
+  }
+  let w = widths.get(text);
+  if (w === undefined) {
+    w = font.widthOfTextAtSize(text, 1);
+    if (widths.size > 50_000) widths.clear();
+    widths.set(text, w);
+  }
+  return w * size;
 }
 
 /** Break text (already safe) into lines no wider than `width`; long words break by character. */

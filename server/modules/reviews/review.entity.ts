@@ -130,6 +130,8 @@ export class StampedReturn {
   @Column({ type: 'varchar', length: 64, name: 'verification_code' }) verificationCode: string;
   @Column({ type: 'varchar', length: 20, default: 'pending' }) state: 'pending' | 'ready' | 'failed';
   @Column({ type: 'char', length: 64, nullable: true }) sha256: string | null;
+  @Column({ type: 'char', length: 64, name: 'signing_certificate_sha256', nullable: true })
+  signingCertificateSha256: string | null;
   @Column({ type: 'varchar', length: 300, name: 'storage_key', nullable: true }) storageKey: string | null;
   @ForeignKey(() => User, { name: 'stamped_returns_issued_by_id_fkey' })
   @Column({ type: 'uuid', name: 'issued_by_id' })

@@ -1,5 +1,6 @@
 // The public verification answer for a stamped return's code (no sign-in): the package
-// title, revision, decision, dates, the return's sha-256 and whether a later revision
+// title, revision, decision, dates, the return's sha-256, the fingerprint of the certificate
+// that signed it, and whether a later revision
 // supersedes it — nothing else. Unknown and malformed codes get the same plain 404.
 import { Router } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
@@ -76,6 +77,7 @@ export function verifyRoutes(ctx: AppContext): Router {
       decidedOn: decision.createdAt.toISOString(),
       issuedOn: (ret.readyAt ?? ret.createdAt).toISOString(),
       sha256: ret.sha256!,
+      signingCertificateSha256: ret.signingCertificateSha256,
       current: !later && newerReturn === 0,
       supersededBy: later?.number ?? null,
     });

@@ -162,6 +162,22 @@ export function VerificationDetails({ v, code }: { v: Verification; code: string
           A PDF whose fingerprint differs is not this stamped return.
         </span>
       </Row>
+      <Row label="Digital signature">
+        {v.signingCertificateSha256 ? (
+          <>
+            <span className="block text-[17px] font-normal">
+              The stamped PDF is digitally signed by the review desk. A PDF reader can check the signature: it
+              reports whether the file was changed after signing.
+            </span>
+            <span className="mt-2 block text-[14px] font-bold uppercase tracking-[0.08em] text-ink-soft">
+              SHA-256 of the signing certificate
+            </span>
+            <HashGroups hash={v.signingCertificateSha256} />
+          </>
+        ) : (
+          <span className="text-[17px] font-normal">This return was issued before returns were signed.</span>
+        )}
+      </Row>
       <Row label="Verification code">
         <span className="break-all font-mono font-normal">{code}</span>
       </Row>

@@ -1,0 +1,233 @@
+// npm run bench:stamp: times the stamped return against qpdf's own overlay on the same files.
+// Generates (once, in the system's temporary folder) a 1-page package, a 200-page vector package
+// and a ~95 MB 60-page scanned package of random-noise images (nothing compresses), builds the
+// full signed return of each with a few markups in a child process of its own (so its peak
+// resident memory is that build's alone, from process.resourceUsage().maxRSS), times
+// `qpdf IN --overlay STAMP --to=1 --from=1 -- OUT` on the same files in the same run, and prints
+// seconds, peak RSS, sizes and the four targets of the stamping issue with their ratios.
+//
+// The real job (request → ready through PostgreSQL, Redis, storage and the stored sha-256) is
+// not timed here: this script runs the builder alone.
+import { execFileSync, spawnSync } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { deflateSync } from 'node:zlib';
+import { PDFDocument, PDFName, rgb, StandardFonts } from 'pdf-lib';
+
+const DIR = path.join(tmpdir(), 'cp-bench-stamp');
+const ROUNDS = 3;
+
+async function vectorPackage(pages: number): Promise<Uint8Array> {
+  const doc = await PDFDocument.create();
+  const font = await doc.embedFont(StandardFonts.Helvetica);
+  for (let p = 0; p < pages; p++) {
+    const page = doc.addPage([841.89, 595.28]);
+    page.drawText(`Lift plan sheet ${p + 1}`, { x: 40, y: 560, size: 14, font });
+    for (let i = 0; i < 120; i++)
+      page.drawLine({
+        start: { x: 40 + ((i * 37) % 700), y: 40 + ((i * 53) % 480) },
+        end: { x: 60 + ((i * 91) % 700), y: 60 + ((i * 29) % 480) },
+        thickness: 0.5,
+        color: rgb(0.2, 0.2, 0.2),
+      });
+    for (let i = 0; i < 30; i++)
+      page.drawText(`Note ${i}: rigging and exclusion zone detail`, {
+        x: 50,
+        y: 500 - i * 14,
+        size: 8,
+        font,
+      });
+  }
+  return doc.save();
+}
+
+/**
+ * 60 pages, each one 800×660 RGB image of random bytes (~1.58 MB): Flate-encoded as scans
+ * usually are, which for noise leaves them as large as they were.
+ */
+async function scannedPackage(): Promise<Uint8Array> {
+  const doc = await PDFDocument.create();
+  const w = 800;
+  const h = 660;
+  for (let p = 0; p < 60; p++) {
+    const img = doc.context.stream(deflateSync(randomBytes(w * h * 3), { level: 1 }), {
+      Filter: 'FlateDecode',
+      Type: 'XObject',
+      Subtype: 'Image',
+      Width: w,
+      Height: h,
+      ColorSpace: 'DeviceRGB',
+      BitsPerComponent: 8,
+    });
+    const ref = doc.context.register(img);
+    const page = doc.addPage([595.28, 841.89]);
+    page.node.setXObject(PDFName.of('Scan'), ref);
+    const contentRef = doc.context.register(doc.context.stream('q 595.28 0 0 841.89 0 0 cm /Scan Do Q', {}));
+    page.node.addContentStream(contentRef);
+  }
+  return doc.save();
+}
+
+/** A 1-page overlay, as the issue's qpdf command uses. */
+async function overlayPdf(): Promise<Uint8Array> {
+  const doc = await PDFDocument.create();
+  const font = await doc.embedFont(StandardFonts.HelveticaBold);
+  const page = doc.addPage([595.28, 841.89]);
+  page.drawRectangle({
+    x: 340,
+    y: 680,
+    width: 230,
+    height: 150,
+    borderColor: rgb(0, 0, 0),
+    borderWidth: 1.4,
+  });
+  page.drawText('REVIEW STAMP', { x: 350, y: 810, size: 8, font });
+  return doc.save();
+}
+
+function ensure(file: string, make: () => Promise<Uint8Array>) {
+  if (existsSync(file)) return Promise.resolve();
+  return make().then((b) => writeFileSync(file, b));
+}
+
+interface ChildResult {
+  cold: number;
+  warm: number[];
+  maxRssMb: number;
+  pages: number;
+  returnBytes: number;
+  overlayBytes: number;
+}
+
+/** In the child: build the signed return `rounds` times, report times and peak RSS. */
+async function child(file: string, rounds: number) {
+  const { buildStampedReturnFile } = await import('../server/modules/returns/stamp-pdf');
+  const { loadSigner } = await import('../server/lib/pdf-tools/signer');
+  const { stampInput } = await import('../tests/unit/stamp-fixtures');
+  const signer = await loadSigner({ DATA_DIR: path.join(DIR, 'desk') });
+  const base = await stampInput();
+  const id = base.documents[0].fileId;
+  const input = {
+    ...base,
+    documents: [{ fileId: id, name: path.basename(file), file }],
+    markups: base.markups.map((m) => ({ ...m, fileId: id })),
+  };
+  const out = path.join(DIR, `${path.basename(file)}.return.pdf`);
+  const times: number[] = [];
+  let built = { pages: 0, overlayBytes: 0 };
+  for (let r = 0; r <= rounds; r++) {
+    rmSync(out, { force: true });
+    const t = process.hrtime.bigint();
+    built = await buildStampedReturnFile(input, out, { signer, workDir: DIR });
+    times.push(Number(process.hrtime.bigint() - t) / 1e9);
+  }
+  const result: ChildResult = {
+    cold: times[0],
+    warm: times.slice(1),
+    maxRssMb: process.resourceUsage().maxRSS / 1024,
+    pages: built.pages,
+    returnBytes: statSync(out).size,
+    overlayBytes: built.overlayBytes,
+  };
+  process.stdout.write(`RESULT ${JSON.stringify(result)}\n`);
+}
+
+function runChild(file: string): ChildResult {
+  // spawns: node
+  const r = spawnSync(
+    process.execPath,
+    ['--import', 'tsx', process.argv[1], '--child', file, String(ROUNDS)],
+    {
+      encoding: 'utf8',
+      maxBuffer: 16 * 1024 * 1024,
+    },
+  );
+  const line = r.stdout.split('\n').find((l) => l.startsWith('RESULT '));
+  if (!line) throw new Error(`the builder failed on ${file}:\n${r.stderr}`);
+  return JSON.parse(line.slice(7)) as ChildResult;
+}
+
+function qpdfOverlay(file: string, stamp: string): number {
+  const out = path.join(DIR, 'qpdf-overlay-out.pdf');
+  const times: number[] = [];
+  for (let r = 0; r < ROUNDS; r++) {
+    const t = process.hrtime.bigint();
+    execFileSync('qpdf', [file, '--overlay', stamp, '--to=1', '--from=1', '--', out]);
+    times.push(Number(process.hrtime.bigint() - t) / 1e9);
+  }
+  rmSync(out, { force: true });
+  return Math.min(...times);
+}
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+const f = (n: number, d = 2) => n.toFixed(d);
+
+async function main() {
+  mkdirSync(DIR, { recursive: true });
+  const files = {
+    '1 page': path.join(DIR, 'one-page.pdf'),
+    '200 pages vector': path.join(DIR, 'vector-200.pdf'),
+    '60 pages scanned': path.join(DIR, 'scanned-60.pdf'),
+  };
+  const stamp = path.join(DIR, 'stamp-overlay.pdf');
+  await ensure(files['1 page'], () => vectorPackage(1));
+  await ensure(files['200 pages vector'], () => vectorPackage(200));
+  await ensure(files['60 pages scanned'], scannedPackage);
+  await ensure(stamp, overlayPdf);
+
+  const rows: Array<{ name: string; input: number; r: ChildResult; qpdf: number }> = [];
+  for (const [name, file] of Object.entries(files)) {
+    const r = runChild(file);
+    rows.push({ name, input: statSync(file).size, r, qpdf: qpdfOverlay(file, stamp) });
+  }
+  console.log(
+    `stamped return, signed; builder in its own process; ${ROUNDS} warm builds after one cold build\n`,
+  );
+  console.log(
+    'package            input MB  pages  cold s  warm s (median)  qpdf overlay s  peak RSS MB  return MB  overlay+sheet MB',
+  );
+  for (const { name, input, r, qpdf } of rows)
+    console.log(
+      `${name.padEnd(18)} ${f(input / 1e6).padStart(8)}  ${String(r.pages).padStart(5)}  ${f(r.cold).padStart(6)}  ${f(
+        median(r.warm),
+      ).padStart(15)}  ${f(qpdf, 3).padStart(14)}  ${f(r.maxRssMb, 0).padStart(11)}  ${f(
+        r.returnBytes / 1e6,
+        3,
+      ).padStart(9)}  ${f(r.overlayBytes / 1e6, 3).padStart(16)}`,
+    );
+  const one = rows[0];
+  const big = rows[2];
+  const sizeDependent = median(big.r.warm) - median(one.r.warm);
+  const ratio = sizeDependent / big.qpdf;
+  const growth = big.r.maxRssMb - one.r.maxRssMb;
+  console.log('\ntargets');
+  console.log(
+    `  size-dependent part t(95 MB) − t(1 page) = ${f(sizeDependent)} s = ${f(ratio)} × qpdf overlay (${f(
+      big.qpdf,
+      3,
+    )} s); target ≤ 2.5 ×: ${ratio <= 2.5 ? 'met' : 'NOT met'}`,
+  );
+  console.log(
+    `  fixed part t(1 page) = ${f(median(one.r.warm))} s warm, ${f(one.r.cold)} s cold (first return in a process); target ≤ 0.5 s: ${
+      median(one.r.warm) <= 0.5 ? 'met (warm)' : 'NOT met (warm)'
+    }${one.r.cold <= 0.5 ? ', met cold' : ', not met cold'}`,
+  );
+  console.log(
+    `  peak RSS growth 1 page → 95 MB = ${f(growth, 0)} MB; target ≤ 150 MB: ${growth <= 150 ? 'met' : 'NOT met'}`,
+  );
+  for (const { name, input, r } of rows) {
+    const limit = (input + r.overlayBytes) * 1.02;
+    console.log(
+      `  size ${name}: ${f(r.returnBytes / 1e6, 3)} MB ≤ (input ${f(input / 1e6, 3)} + overlay and sheet ${f(
+        r.overlayBytes / 1e6,
+        3,
+      )}) × 1.02 = ${f(limit / 1e6, 3)} MB: ${r.returnBytes <= limit ? 'met' : 'NOT met'}`,
+    );
+  }
+  console.log('  through the real job (request → ready): not measured by this script');
+}
+
+if (process.argv[2] === '--child') await child(process.argv[3], Number(process.argv[4] ?? 1));
+else await main();
