@@ -9,7 +9,7 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { isApiError } from '@/lib/api-client';
 import { useCompare } from '../api/get-compare';
 import { FindingEntry } from '@/components/findings/finding-entry';
-import { labelOfPath } from '@/lib/lift-steps';
+import { labelOfPath } from '@shared/catalogue/lift-fields';
 
 const STATUSES = ['pass', 'caution', 'fail', 'not_applicable'];
 

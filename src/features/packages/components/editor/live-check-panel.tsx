@@ -12,7 +12,7 @@ import { formatCheckLimit, formatCheckValue } from '@/components/lift/result-for
 import { FixList, ResultCautions } from '@/components/lift/fixes-and-triggers';
 import { withoutLabel } from '@/components/lift/discrepancy-list';
 import { prune } from '../../lib/prune';
-import { labelOfPath } from '@/lib/lift-steps';
+import { labelOfPath } from '@shared/catalogue/lift-fields';
 
 type Outcome =
   | { ok: true; result: LiftResult }

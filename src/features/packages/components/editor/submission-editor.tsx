@@ -7,7 +7,7 @@ import { FormProvider } from 'react-hook-form';
 import { useSearchParams } from 'react-router-dom';
 import type { UnitSystem } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
-import { labelOfPath, STEPS, stepOfPath, type StepId } from '@/lib/lift-steps';
+import { labelOfPath, STEPS, stepOfPath, type StepId } from '@shared/catalogue/lift-fields';
 import { draftInputs } from '../../lib/prune';
 import { useDraftAutosave } from '../../hooks/use-draft-autosave';
 import { formValues, isTouched, useLiftForm, useLiftIssues, useLiftValues } from '../../hooks/use-lift-form';
