@@ -7,6 +7,7 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import fontkit from '@pdf-lib/fontkit';
 import { rgb, type Color, type PDFDocument, type PDFFont, type PDFPage } from 'pdf-lib';
+import { CHECK_STATUS_WORDS } from '@shared/vocabulary/check-statuses';
 
 export interface Fonts {
   regular: PDFFont;
@@ -160,41 +161,8 @@ export function fitText(text: string, font: PDFFont, size: number, width: number
   return t.slice(0, cut).trimEnd() + '…';
 }
 
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-
-function zoned(iso: string, timeZone: string): Record<string, string> | null {
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return null;
-  let fmt: Intl.DateTimeFormat;
-  try {
-    fmt = new Intl.DateTimeFormat('en-US', {
-      timeZone,
-      year: 'numeric',
-      month: 'numeric',
-      day: 'numeric',
-      hour: '2-digit',
-      minute: '2-digit',
-      hourCycle: 'h23',
-    });
-  } catch {
-    return zoned(iso, 'UTC');
-  }
-  return Object.fromEntries(fmt.formatToParts(d).map((p) => [p.type, p.value]));
-}
-
-/** "14 Mar 2027" in the site's time zone (UTC when the zone is unknown). */
-export function tradeDate(iso: string, timeZone: string): string {
-  const p = zoned(iso, timeZone);
-  if (!p) return '—';
-  return `${Number(p.day)} ${MONTHS[Number(p.month) - 1]} ${p.year}`;
-}
-
-/** "14 Mar 2027 16:05" in the site's time zone. */
-export function tradeDateTime(iso: string, timeZone: string): string {
-  const p = zoned(iso, timeZone);
-  if (!p) return '—';
-  return `${tradeDate(iso, timeZone)} ${p.hour}:${p.minute}`;
-}
+// Dates and status words are declared once in shared/vocabulary.
+export { tradeDate, tradeDateTime } from '@shared/vocabulary/dates';
 
 /** Ink and paper: greyscale-safe, the hierarchy carried by weight and size, not hue. */
 export const INK = rgb(0.086, 0.098, 0.11); // #16191c
@@ -211,12 +179,7 @@ export function hexColour(hex: string): Color {
 }
 
 export type StatusKey = 'pass' | 'caution' | 'fail' | 'not_applicable';
-export const STATUS_WORDS: Record<StatusKey, string> = {
-  pass: 'PASS',
-  caution: 'CAUTION',
-  fail: 'FAIL',
-  not_applicable: 'N/A',
-};
+export const STATUS_WORDS: Record<StatusKey, string> = CHECK_STATUS_WORDS;
 
 /**
  * The status shape, the same family as the screens: a tick in a circle (pass), an

@@ -1,12 +1,6 @@
 // The outcome of one check (pass, caution, fail, not applicable) as word + shape + colour.
 import type { CheckStatus } from '@shared/schemas/packages';
-
-export const CHECK_STATUS_LABELS: Record<CheckStatus, string> = {
-  pass: 'Pass',
-  caution: 'Caution',
-  fail: 'Fail',
-  not_applicable: 'Not applicable',
-};
+import { CHECK_STATUS_LABELS } from '@shared/vocabulary/check-statuses';
 
 const STYLES: Record<CheckStatus, string> = {
   pass: 'bg-pass-tint text-pass-ink',

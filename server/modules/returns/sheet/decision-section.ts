@@ -5,6 +5,7 @@ import type { LiftResult, UnitSystem } from '@shared/engineering/types';
 import { CAUTIONS, SHORT_CAUTION } from '@shared/vocabulary/cautions';
 import { CHECK_STATUS_WORDS } from '@shared/vocabulary/check-statuses';
 import { DECISION_SHAPES } from '../draw-stamp-block';
+import { tradeDateTime } from '@shared/vocabulary/dates';
 import type { StampInput } from '../stamp-pdf';
 import {
   drawStatusShape,
@@ -14,7 +15,6 @@ import {
   INK_SOFT,
   PAPER_ALT,
   RULE_STRONG,
-  tradeDateTime,
   widthOf,
   wrapText,
 } from '../text-pdf';

@@ -2,8 +2,9 @@
 // the stamped return once the total page count is known.
 import type { PDFPage } from 'pdf-lib';
 import { DECISION_LABELS } from '@shared/schemas/common';
+import { tradeDate } from '@shared/vocabulary/dates';
 import type { StampInput } from '../stamp-pdf';
-import { fitText, GRAPHITE, INK, INK_SOFT, tradeDate, widthOf, type Fonts } from '../text-pdf';
+import { fitText, GRAPHITE, INK, INK_SOFT, widthOf, type Fonts } from '../text-pdf';
 import { LEFT, PAGE_H, RIGHT, WIDTH } from './layout';
 
 export function drawSheetHeader(page: PDFPage, fonts: Fonts, input: StampInput, n: number, total: number) {
