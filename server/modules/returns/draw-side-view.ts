@@ -8,6 +8,7 @@ import { formatQuantity, sig3, toDisplay } from '@shared/engineering/format';
 import { TO_SI, type AnyUnit } from '@shared/engineering/units';
 import type { LiftResult, UnitSystem } from '@shared/engineering/types';
 import { INK, INK_SOFT, RULE, safeText, WHITE, widthOf, wrapText, type Fonts } from './text-pdf';
+import { squareGrid } from '@shared/drawing/plot-ticks';
 
 export const SIDE_VIEW_HEIGHT = 430;
 const TIPPING = rgb(0.25, 0.25, 0.25);
@@ -37,14 +38,6 @@ export function sideViewUnavailableReason(inputs: unknown, result: LiftResult): 
   )
     return 'Not drawn: the boom length, boom angle or radius is missing.';
   return null;
-}
-
-function niceStep(range: number, target: number): number {
-  if (!(range > 0)) return 1;
-  const raw = range / target;
-  const p = 10 ** Math.floor(Math.log10(raw));
-  const u = raw / p;
-  return (u < 1.5 ? 1 : u < 3 ? 2 : u < 7 ? 5 : 10) * p;
 }
 
 function label(
@@ -141,15 +134,15 @@ export function drawSideView(
 
   // Grid at round display units, heights labelled.
   const lu = toDisplay(1, 'length', system);
-  const step = niceStep((xMax - xMin) * lu.value, 8);
-  for (let v = Math.ceil((xMin * lu.value) / step) * step; v <= xMax * lu.value; v += step)
+  const grid = squareGrid(xMin * lu.value, xMax * lu.value, yMax * lu.value);
+  for (const v of grid.x)
     page.drawLine({
       start: { x: X(v / lu.value), y: ground },
       end: { x: X(v / lu.value), y: Y(yMax) },
       thickness: 0.5,
       color: GRID,
     });
-  for (let v = 0; v <= yMax * lu.value; v += step) {
+  for (const v of grid.y) {
     page.drawLine({
       start: { x: X(xMin), y: Y(v / lu.value) },
       end: { x: right, y: Y(v / lu.value) },
@@ -361,7 +354,7 @@ export function drawSideView(
     );
   }
   for (const args of queued) label(...args);
-  const caption = `To scale in the plane of the boom over the support line nearest the load; grid ${Number(step.toPrecision(6))} ${lu.unit}.${
+  const caption = `To scale in the plane of the boom over the support line nearest the load; grid ${Number(grid.step.toPrecision(6))} ${lu.unit}.${
     f.overturningMoment !== null
       ? ` Overturning ${formatQuantity(f.overturningMoment, 'moment', system)} against resisting ${formatQuantity(f.resistingMoment, 'moment', system)}${f.stabilityRatio !== null ? `, ratio ${sig3(f.stabilityRatio)} (site minimum ${sig3(result.policy.minStabilityRatio)})` : ''}.`
       : ''

@@ -5,7 +5,7 @@
 import { formatQuantity, sig3, toDisplay } from '@shared/engineering/format';
 import { TO_SI, type AnyUnit } from '@shared/engineering/units';
 import type { LiftResult, UnitSystem } from '@shared/engineering/types';
-import { niceStep } from './plot-scale';
+import { squareGrid } from '@shared/drawing/plot-ticks';
 
 type RawQ = { value?: unknown; unit?: unknown } | undefined;
 function si(q: unknown): number | null {
@@ -68,11 +68,7 @@ export function CraneSideView({
   const ground = Y(0);
 
   const lu = toDisplay(1, 'length', system);
-  const step = niceStep((xMax - xMin) * lu.value, 8);
-  const xt: number[] = [];
-  for (let v = Math.ceil((xMin * lu.value) / step) * step; v <= xMax * lu.value; v += step) xt.push(v);
-  const yt: number[] = [];
-  for (let v = 0; v <= yMax * lu.value; v += step) yt.push(v);
+  const { x: xt, y: yt, step } = squareGrid(xMin * lu.value, xMax * lu.value, yMax * lu.value);
 
   const loadArm = radius - fulcrum;
   const cwArm = cw !== null ? cw + fulcrum : null;
