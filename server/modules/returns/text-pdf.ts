@@ -8,6 +8,7 @@ import { createRequire } from 'node:module';
 import fontkit from '@pdf-lib/fontkit';
 import { rgb, type Color, type PDFDocument, type PDFFont, type PDFPage } from 'pdf-lib';
 import { CHECK_STATUS_WORDS } from '@shared/vocabulary/check-statuses';
+import { GLYPH_BOX, STATUS_GLYPHS, type GlyphTone } from '@shared/drawing/status-glyphs';
 
 export interface Fonts {
   regular: PDFFont;
@@ -187,38 +188,29 @@ export const STATUS_WORDS: Record<StatusKey, string> = CHECK_STATUS_WORDS;
  * dotted circle (not applicable). (x, y) is the lower-left corner of a `size`-point square.
  */
 export function drawStatusShape(page: PDFPage, status: StatusKey, x: number, y: number, size: number) {
-  const s = size / 14;
-  const at = { x, y: y + size, scale: s };
-  const stroke = { borderColor: INK, borderWidth: 1.5, borderLineCap: 1 as const };
-  switch (status) {
-    case 'pass':
-      page.drawCircle({ x: x + 7 * s, y: y + 7 * s, size: 5.8 * s, ...stroke, borderWidth: 1.4 * s });
-      page.drawSvgPath('M4.3 7.2 L6.2 9 L9.8 5', { ...at, ...stroke, borderWidth: 1.6 });
-      break;
-    case 'caution':
-      page.drawSvgPath('M7 1.4 L12.8 11.8 H1.2 Z', { ...at, ...stroke, borderWidth: 1.4 });
-      page.drawSvgPath('M7 5.2 V8', { ...at, ...stroke, borderWidth: 1.6 });
-      page.drawCircle({ x: x + 7 * s, y: y + 4 * s, size: 0.8 * s, color: INK });
-      break;
-    case 'fail':
-      page.drawSvgPath('M4.6 1.2 H9.4 L12.8 4.6 V9.4 L9.4 12.8 H4.6 L1.2 9.4 V4.6 Z', { ...at, color: INK });
-      page.drawSvgPath('M5 5 L9 9 M9 5 L5 9', {
-        ...at,
-        borderColor: WHITE,
-        borderWidth: 1.6,
-        borderLineCap: 1,
-      });
-      break;
-    case 'not_applicable':
+  const s = size / GLYPH_BOX;
+  const tone = (t: GlyphTone | undefined) =>
+    t === undefined ? undefined : t === 'paper' ? WHITE : t === 'soft' ? INK_SOFT : INK;
+  for (const part of STATUS_GLYPHS[status]) {
+    if (part.kind === 'circle')
       page.drawCircle({
-        x: x + 7 * s,
-        y: y + 7 * s,
-        size: 5.8 * s,
-        borderColor: INK_SOFT,
-        borderWidth: 1.2 * s,
-        borderDashArray: [1.6 * s, 1.6 * s],
+        x: x + part.cx * s,
+        y: y + size - part.cy * s,
+        size: part.r * s,
+        color: tone(part.fill),
+        borderColor: tone(part.stroke),
+        borderWidth: part.stroke ? (part.width ?? 1) * s : undefined,
+        borderDashArray: part.dash ? [part.dash * s, part.dash * s] : undefined,
       });
-      page.drawSvgPath('M4.5 7 H9.5', { ...at, borderColor: INK_SOFT, borderWidth: 1.4, borderLineCap: 1 });
-      break;
+    else
+      page.drawSvgPath(part.d, {
+        x,
+        y: y + size,
+        scale: s,
+        color: tone(part.fill),
+        borderColor: tone(part.stroke),
+        borderWidth: part.stroke ? part.width : undefined,
+        borderLineCap: part.stroke ? 1 : undefined,
+      });
   }
 }
