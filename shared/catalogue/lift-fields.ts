@@ -4,34 +4,11 @@
 import { CRANE_TYPES, HITCHES, ROPE_TYPES, SLING_MATERIALS, SOIL_CLASSES } from '@shared/schemas/lift-input';
 import { CRANE_TYPE_LABELS } from '@shared/vocabulary/crane-types';
 import { STATED_FIGURE_LABELS } from '@shared/vocabulary/stated-figures';
+import { SOIL_LABELS } from '@shared/vocabulary/soil-classes';
 import type { QuantityKind } from '@shared/vocabulary/units';
+import type { FieldDef, Step, StepId } from './field-types';
 
-export type FieldDef =
-  | { kind: 'quantity'; path: string; label: string; q: QuantityKind; hint?: string }
-  | { kind: 'number'; path: string; label: string; integer?: boolean; suffix?: string; hint?: string }
-  | {
-      kind: 'select';
-      path: string;
-      label: string;
-      options: readonly (readonly [string, string])[];
-      hint?: string;
-    }
-  | { kind: 'text'; path: string; label: string; hint?: string }
-  | { kind: 'checkbox'; path: string; label: string; hint?: string }
-  | { kind: 'list'; path: string; label: string; columns: FieldDef[]; addLabel: string; hint?: string };
-
-export type FieldGroup = {
-  title: string;
-  note?: string;
-  fields: FieldDef[];
-  /** Shown only when this returns true for the form's values (e.g. outriggers for a mobile crane). */
-  when?: (values: Record<string, unknown>) => boolean;
-};
-
-export type StepId =
-  'crane' | 'chart' | 'load' | 'reeving' | 'ground' | 'hazards' | 'stated' | 'documents' | 'review';
-
-export type Step = { id: StepId; title: string; groups: FieldGroup[] };
+export type { FieldDef, FieldGroup, Step, StepId } from './field-types';
 
 const craneType = (values: Record<string, unknown>) =>
   (values.crane as { type?: string } | undefined)?.type ?? '';
@@ -43,15 +20,6 @@ const q = (path: string, label: string, kind: QuantityKind, hint?: string): Fiel
   q: kind,
   hint,
 });
-
-const SOIL_LABELS: Record<(typeof SOIL_CLASSES)[number], string> = {
-  crystalline_bedrock: 'Crystalline bedrock',
-  sedimentary_rock: 'Sedimentary rock',
-  sandy_gravel: 'Sandy gravel or gravel',
-  sand_silty_clayey: 'Sand, silty or clayey sand',
-  clay_silt: 'Clay, silt',
-  mud_organic_fill: 'Mud, organic soil or unprepared fill',
-};
 
 export const STEPS: Step[] = [
   {
