@@ -1,6 +1,7 @@
 // The one field catalogue of the lift input: the submission editor's steps and the fields on
-// each, described once so the form, the step list's error marks, the mapping of server field
-// errors and the calculation sheet's inputs section all agree.
+// each, described once so the form, the step list's error marks and the mapping of server field
+// errors agree. Lives in shared/ so the server can read it too; the calculation sheet's inputs
+// section does not yet print from it (it shares the crane-type and stated-figure words).
 import { CRANE_TYPES, HITCHES, ROPE_TYPES, SLING_MATERIALS, SOIL_CLASSES } from '@shared/schemas/lift-input';
 import { CRANE_TYPE_LABELS } from '@shared/vocabulary/crane-types';
 import { STATED_FIGURE_LABELS } from '@shared/vocabulary/stated-figures';
