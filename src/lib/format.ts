@@ -1,7 +1,8 @@
 // Dates as the trade writes them on paper ("14 Mar 2027") and the urgency beside them.
 // Planned lift dates are calendar dates (no time of day), so they are compared as dates
-// in UTC, never shifted by the browser's time zone.
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+// in UTC, never shifted by the browser's time zone. Month names come from shared/vocabulary.
+import { MONTHS, tradeDateOf } from '@shared/vocabulary/dates';
+
 const DAY_MS = 86_400_000;
 
 /** Midnight UTC of a YYYY-MM-DD string (or the date part of an ISO timestamp). */
@@ -20,7 +21,7 @@ export function formatDate(value: string | null | undefined): string {
   const day = calendarDay(value);
   if (day === null) return value;
   const date = new Date(day);
-  return `${date.getUTCDate()} ${MONTHS[date.getUTCMonth()]} ${date.getUTCFullYear()}`;
+  return tradeDateOf(date.getUTCFullYear(), date.getUTCMonth() + 1, date.getUTCDate());
 }
 
 /** A timestamp shown in the reader's local time, e.g. "14 Mar 2027, 09:05". */

@@ -1,10 +1,10 @@
-// The form's fields are named by string paths in the field catalogue (lift-steps), and the
+// The form's fields are named by string paths in the field catalogue (shared/catalogue/lift-fields), and the
 // form turns them into typed paths with liftPath(). These tests keep that honest: every
 // catalogue path leads to a field of the shared lift-input schema.
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { LiftInput } from '@shared/schemas/lift-input';
-import { STEPS, type FieldDef } from '@/lib/lift-steps';
+import { STEPS, type FieldDef } from '@shared/catalogue/lift-fields';
 import { multiCraneCatalogue } from '@/lib/multi-crane-steps';
 
 /** Unwraps optional, nullable, default and pipe layers down to the schema that holds the shape. */

@@ -3,15 +3,16 @@
 // outline of arcs), an arrow with a filled head, free text, and numbered pins (a filled disc
 // with the number in white). Called inside the page's display frame (page-frame-pdf.ts).
 import type { PDFPage } from 'pdf-lib';
-import { MARKUP_COLOURS } from '@shared/schemas/reviews';
+import { MARKUP_COLOURS, type MarkupColour } from '@shared/schemas/reviews';
+import type { MarkupKind } from '@shared/vocabulary/markups';
 import { markupToDisplay, type PageFrame } from './page-frame-pdf';
 import { fitText, hexColour, safeText, WHITE, wrapText, type Fonts } from './text-pdf';
 import { cloudPath } from '@shared/drawing/cloud-path';
 
 export interface MarkupToDraw {
-  kind: 'rectangle' | 'ellipse' | 'cloud' | 'arrow' | 'text' | 'pin';
+  kind: MarkupKind;
   geometry: Record<string, number>;
-  colour: 'rust' | 'cobalt' | 'verdigris' | 'graphite';
+  colour: MarkupColour;
   text: string | null;
   number: number | null;
 }

@@ -5,47 +5,16 @@
 // greyscale. Mobile cranes only: a gantry's frame and backstay are described in words.
 import { rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import { formatQuantity, sig3, toDisplay } from '@shared/engineering/format';
-import { TO_SI, type AnyUnit } from '@shared/engineering/units';
 import type { LiftResult, UnitSystem } from '@shared/engineering/types';
 import { INK, INK_SOFT, RULE, safeText, WHITE, widthOf, wrapText, type Fonts } from './text-pdf';
+import { squareGrid } from '@shared/drawing/plot-ticks';
+import { sideViewScene, sideViewUnavailableReason } from '@shared/drawing/side-view';
 
 export const SIDE_VIEW_HEIGHT = 430;
 const TIPPING = rgb(0.25, 0.25, 0.25);
 const GRID = rgb(0.93, 0.92, 0.89);
 
-type Obj = Record<string, unknown>;
-const at = (o: unknown, ...keys: string[]): unknown =>
-  keys.reduce<unknown>((v, k) => (v && typeof v === 'object' ? (v as Obj)[k] : undefined), o);
-
-function si(q: unknown): number | null {
-  const v = q as { value?: unknown; unit?: unknown } | undefined;
-  if (!v || typeof v.value !== 'number' || !Number.isFinite(v.value)) return null;
-  const f = TO_SI[v.unit as AnyUnit];
-  return f === undefined ? null : v.value * f;
-}
-
-/** Why the side view cannot be drawn, or null when it can. */
-export function sideViewUnavailableReason(inputs: unknown, result: LiftResult): string | null {
-  if (at(inputs, 'crane', 'type') === 'gantry_a_frame')
-    return 'Not drawn for a gantry or A-frame: the frame, backstay and ballast moments are in the stability check above.';
-  if (!result.figures.tipping)
-    return 'Not drawn: the stability check found no tipping line (supports or crane weights missing).';
-  if (
-    si(at(inputs, 'crane', 'boomLength')) === null ||
-    result.figures.boomAngleDeg === null ||
-    result.figures.radius === null
-  )
-    return 'Not drawn: the boom length, boom angle or radius is missing.';
-  return null;
-}
-
-function niceStep(range: number, target: number): number {
-  if (!(range > 0)) return 1;
-  const raw = range / target;
-  const p = 10 ** Math.floor(Math.log10(raw));
-  const u = raw / p;
-  return (u < 1.5 ? 1 : u < 3 ? 2 : u < 7 ? 5 : 10) * p;
-}
+export { sideViewUnavailableReason };
 
 function label(
   page: PDFPage,
@@ -106,26 +75,12 @@ export function drawSideView(
   system: UnitSystem,
 ) {
   const f = result.figures;
-  const crane = at(inputs, 'crane');
-  // The tipping line the stability check used, so the drawing shows the same arms.
-  const fulcrum = f.tipping!.distanceAlongBoom;
-  const boomLength = si(at(crane, 'boomLength'))!;
-  const angle = f.boomAngleDeg!;
-  const radius = f.radius!;
-  const pivotOffset = si(at(crane, 'pivotOffset')) ?? 0;
-  const pivotHeight = si(at(crane, 'pivotHeight')) ?? 2;
-  const cw = si(at(crane, 'counterweight', 'cgBehindRotation'));
-  const cwWeight = si(at(crane, 'counterweight', 'weight'));
-  const loadLength = si(at(inputs, 'load', 'length')) ?? 2;
-  const loadHeight = si(at(inputs, 'load', 'height')) ?? 1.5;
-  const tipX = pivotOffset + boomLength * Math.cos((angle * Math.PI) / 180);
-  const tipY = pivotHeight + boomLength * Math.sin((angle * Math.PI) / 180);
-  const behind = Math.max(fulcrum, (cw ?? 0) + 1.2);
+  const scene = sideViewScene(inputs, result);
+  if (!scene) return;
+  const { fulcrum, angle, radius, pivotOffset, pivotHeight, tipX, tipY, cw, cwWeight } = scene;
+  const { loadLength, loadHeight, xMin, xMax, yMax, boomLength } = scene;
 
   const M = { left: 38, right: 10, top: 14, bottom: 78 };
-  const xMin = -behind - 1.5;
-  const xMax = Math.max(radius + loadLength / 2, tipX) + 1.5;
-  const yMax = tipY + 1.5;
   const pw = box.width - M.left - M.right;
   const ph = box.height - M.top - M.bottom;
   const scale = Math.min(pw / (xMax - xMin), ph / yMax);
@@ -141,15 +96,15 @@ export function drawSideView(
 
   // Grid at round display units, heights labelled.
   const lu = toDisplay(1, 'length', system);
-  const step = niceStep((xMax - xMin) * lu.value, 8);
-  for (let v = Math.ceil((xMin * lu.value) / step) * step; v <= xMax * lu.value; v += step)
+  const grid = squareGrid(xMin * lu.value, xMax * lu.value, yMax * lu.value);
+  for (const v of grid.x)
     page.drawLine({
       start: { x: X(v / lu.value), y: ground },
       end: { x: X(v / lu.value), y: Y(yMax) },
       thickness: 0.5,
       color: GRID,
     });
-  for (let v = 0; v <= yMax * lu.value; v += step) {
+  for (const v of grid.y) {
     page.drawLine({
       start: { x: X(xMin), y: Y(v / lu.value) },
       end: { x: right, y: Y(v / lu.value) },
@@ -361,7 +316,7 @@ export function drawSideView(
     );
   }
   for (const args of queued) label(...args);
-  const caption = `To scale in the plane of the boom over the support line nearest the load; grid ${Number(step.toPrecision(6))} ${lu.unit}.${
+  const caption = `To scale in the plane of the boom over the support line nearest the load; grid ${Number(grid.step.toPrecision(6))} ${lu.unit}.${
     f.overturningMoment !== null
       ? ` Overturning ${formatQuantity(f.overturningMoment, 'moment', system)} against resisting ${formatQuantity(f.resistingMoment, 'moment', system)}${f.stabilityRatio !== null ? `, ratio ${sig3(f.stabilityRatio)} (site minimum ${sig3(result.policy.minStabilityRatio)})` : ''}.`
       : ''

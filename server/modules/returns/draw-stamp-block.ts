@@ -22,11 +22,11 @@ import {
   type Fonts,
   type StatusKey,
 } from './text-pdf';
+import { SHORT_CAUTION } from '@shared/vocabulary/cautions';
 
 export const STAMP_WIDTH = 230;
 export const STAMP_HEIGHT = 150;
-export const SHORT_CAUTION =
-  "Checks arithmetic and consistency only; does not replace the manufacturer's chart, a qualified person or local codes.";
+export { SHORT_CAUTION };
 
 export type DecisionKey = 'accepted' | 'accepted_as_noted' | 'revise_and_resubmit' | 'rejected';
 

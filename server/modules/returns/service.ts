@@ -9,6 +9,7 @@ import path from 'node:path';
 import { UnrecoverableError } from 'bullmq';
 import type { DataSource } from 'typeorm';
 import { DECISION_LABELS } from '@shared/schemas/common';
+import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
 import { QUEUE_NAMES, type Queues } from '../../lib/queues';
 import type { Signer } from '../../lib/pdf-tools/signer';

@@ -7,6 +7,8 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import fontkit from '@pdf-lib/fontkit';
 import { rgb, type Color, type PDFDocument, type PDFFont, type PDFPage } from 'pdf-lib';
+import { CHECK_STATUS_WORDS } from '@shared/vocabulary/check-statuses';
+import { GLYPH_BOX, STATUS_GLYPHS, type GlyphTone } from '@shared/drawing/status-glyphs';
 
 export interface Fonts {
   regular: PDFFont;
@@ -175,41 +177,8 @@ export function fitText(text: string, font: PDFFont, size: number, width: number
   return t.slice(0, cut).trimEnd() + '…';
 }
 
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-
-function zoned(iso: string, timeZone: string): Record<string, string> | null {
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return null;
-  let fmt: Intl.DateTimeFormat;
-  try {
-    fmt = new Intl.DateTimeFormat('en-US', {
-      timeZone,
-      year: 'numeric',
-      month: 'numeric',
-      day: 'numeric',
-      hour: '2-digit',
-      minute: '2-digit',
-      hourCycle: 'h23',
-    });
-  } catch {
-    return zoned(iso, 'UTC');
-  }
-  return Object.fromEntries(fmt.formatToParts(d).map((p) => [p.type, p.value]));
-}
-
-/** "14 Mar 2027" in the site's time zone (UTC when the zone is unknown). */
-export function tradeDate(iso: string, timeZone: string): string {
-  const p = zoned(iso, timeZone);
-  if (!p) return '—';
-  return `${Number(p.day)} ${MONTHS[Number(p.month) - 1]} ${p.year}`;
-}
-
-/** "14 Mar 2027 16:05" in the site's time zone. */
-export function tradeDateTime(iso: string, timeZone: string): string {
-  const p = zoned(iso, timeZone);
-  if (!p) return '—';
-  return `${tradeDate(iso, timeZone)} ${p.hour}:${p.minute}`;
-}
+// Dates and status words are declared once in shared/vocabulary.
+export { tradeDate, tradeDateTime } from '@shared/vocabulary/dates';
 
 /** Ink and paper: greyscale-safe, the hierarchy carried by weight and size, not hue. */
 export const INK = rgb(0.086, 0.098, 0.11); // #16191c
@@ -226,12 +195,7 @@ export function hexColour(hex: string): Color {
 }
 
 export type StatusKey = 'pass' | 'caution' | 'fail' | 'not_applicable';
-export const STATUS_WORDS: Record<StatusKey, string> = {
-  pass: 'PASS',
-  caution: 'CAUTION',
-  fail: 'FAIL',
-  not_applicable: 'N/A',
-};
+export const STATUS_WORDS: Record<StatusKey, string> = CHECK_STATUS_WORDS;
 
 /**
  * The status shape, the same family as the screens: a tick in a circle (pass), an
@@ -239,38 +203,29 @@ export const STATUS_WORDS: Record<StatusKey, string> = {
  * dotted circle (not applicable). (x, y) is the lower-left corner of a `size`-point square.
  */
 export function drawStatusShape(page: PDFPage, status: StatusKey, x: number, y: number, size: number) {
-  const s = size / 14;
-  const at = { x, y: y + size, scale: s };
-  const stroke = { borderColor: INK, borderWidth: 1.5, borderLineCap: 1 as const };
-  switch (status) {
-    case 'pass':
-      page.drawCircle({ x: x + 7 * s, y: y + 7 * s, size: 5.8 * s, ...stroke, borderWidth: 1.4 * s });
-      page.drawSvgPath('M4.3 7.2 L6.2 9 L9.8 5', { ...at, ...stroke, borderWidth: 1.6 });
-      break;
-    case 'caution':
-      page.drawSvgPath('M7 1.4 L12.8 11.8 H1.2 Z', { ...at, ...stroke, borderWidth: 1.4 });
-      page.drawSvgPath('M7 5.2 V8', { ...at, ...stroke, borderWidth: 1.6 });
-      page.drawCircle({ x: x + 7 * s, y: y + 4 * s, size: 0.8 * s, color: INK });
-      break;
-    case 'fail':
-      page.drawSvgPath('M4.6 1.2 H9.4 L12.8 4.6 V9.4 L9.4 12.8 H4.6 L1.2 9.4 V4.6 Z', { ...at, color: INK });
-      page.drawSvgPath('M5 5 L9 9 M9 5 L5 9', {
-        ...at,
-        borderColor: WHITE,
-        borderWidth: 1.6,
-        borderLineCap: 1,
-      });
-      break;
-    case 'not_applicable':
+  const s = size / GLYPH_BOX;
+  const tone = (t: GlyphTone | undefined) =>
+    t === undefined ? undefined : t === 'paper' ? WHITE : t === 'soft' ? INK_SOFT : INK;
+  for (const part of STATUS_GLYPHS[status]) {
+    if (part.kind === 'circle')
       page.drawCircle({
-        x: x + 7 * s,
-        y: y + 7 * s,
-        size: 5.8 * s,
-        borderColor: INK_SOFT,
-        borderWidth: 1.2 * s,
-        borderDashArray: [1.6 * s, 1.6 * s],
+        x: x + part.cx * s,
+        y: y + size - part.cy * s,
+        size: part.r * s,
+        color: tone(part.fill),
+        borderColor: tone(part.stroke),
+        borderWidth: part.stroke ? (part.width ?? 1) * s : undefined,
+        borderDashArray: part.dash ? [part.dash * s, part.dash * s] : undefined,
       });
-      page.drawSvgPath('M4.5 7 H9.5', { ...at, borderColor: INK_SOFT, borderWidth: 1.4, borderLineCap: 1 });
-      break;
+    else
+      page.drawSvgPath(part.d, {
+        x,
+        y: y + size,
+        scale: s,
+        color: tone(part.fill),
+        borderColor: tone(part.stroke),
+        borderWidth: part.stroke ? part.width : undefined,
+        borderLineCap: part.stroke ? 1 : undefined,
+      });
   }
 }

@@ -5,7 +5,7 @@
 import { formatPercent, formatQuantity } from '@shared/engineering/format';
 import { TO_SI, type AnyUnit } from '@shared/engineering/units';
 import type { LiftResult, UnitSystem } from '@shared/engineering/types';
-import { niceStep } from './plot-scale';
+import { niceTicks } from '@shared/drawing/plot-ticks';
 import { toDisplay } from '@shared/engineering/format';
 
 type RawQ = { value?: unknown; unit?: unknown } | undefined;
@@ -79,12 +79,8 @@ export function CapacityPlot({
   const maxUse = result.policy.maxChartUsePct / 100;
   const critical = result.policy.criticalThresholdPct / 100;
 
-  const xStep = niceStep(xMax * lf);
-  const yStep = niceStep(yMax * wf);
-  const xTicks: number[] = [];
-  for (let v = 0; v <= xMax * lf + 1e-9; v += xStep) xTicks.push(v);
-  const yTicks: number[] = [];
-  for (let v = 0; v <= yMax * wf + 1e-9; v += yStep) yTicks.push(v);
+  const xTicks = niceTicks(0, xMax * lf);
+  const yTicks = niceTicks(0, yMax * wf);
 
   const lift = f.radius !== null ? { px: x(f.radius), py: y(f.grossLoad) } : null;
   const endLabel = (scale: number) => y(Math.min(points[points.length - 2]?.c ?? last.c, last.c) * scale);

@@ -3,22 +3,9 @@
 // the counterweight, and the two moment arms about the tipping line. Fills are hatches
 // and outlines rather than colours, so the drawing reads in greyscale.
 import { formatQuantity, sig3, toDisplay } from '@shared/engineering/format';
-import { TO_SI, type AnyUnit } from '@shared/engineering/units';
 import type { LiftResult, UnitSystem } from '@shared/engineering/types';
-import { niceStep } from './plot-scale';
-
-type RawQ = { value?: unknown; unit?: unknown } | undefined;
-function si(q: unknown): number | null {
-  const v = q as RawQ;
-  if (!v || typeof v.value !== 'number' || !Number.isFinite(v.value)) return null;
-  const factor = TO_SI[v.unit as AnyUnit];
-  return factor === undefined ? null : v.value * factor;
-}
-const at = (obj: unknown, ...keys: string[]): unknown =>
-  keys.reduce<unknown>(
-    (o, k) => (o && typeof o === 'object' ? (o as Record<string, unknown>)[k] : undefined),
-    obj,
-  );
+import { squareGrid } from '@shared/drawing/plot-ticks';
+import { sideViewScene } from '@shared/drawing/side-view';
 
 const W = 680;
 const H = 470;
@@ -34,32 +21,17 @@ export function CraneSideView({
   system: UnitSystem;
 }) {
   const f = result.figures;
-  const crane = at(inputs, 'crane');
   // The tipping line the stability check used, so the drawing shows the same arms.
-  const fulcrum = f.tipping?.distanceAlongBoom ?? null;
-  const boomLength = si(at(crane, 'boomLength'));
-  const angle = f.boomAngleDeg;
-  const radius = f.radius;
-  if (fulcrum === null || boomLength === null || angle === null || radius === null) {
+  const scene = sideViewScene(inputs, result);
+  if (!scene) {
     return (
       <p className="text-[13px] text-ink-soft">
         The side view is drawn for mobile cranes with outriggers or tracks, a boom length and a radius.
       </p>
     );
   }
-  const pivotOffset = si(at(crane, 'pivotOffset')) ?? 0;
-  const pivotHeight = si(at(crane, 'pivotHeight')) ?? 2;
-  const cw = si(at(crane, 'counterweight', 'cgBehindRotation'));
-  const cwWeight = si(at(crane, 'counterweight', 'weight'));
-  const loadLength = si(at(inputs, 'load', 'length')) ?? 2;
-  const loadHeight = si(at(inputs, 'load', 'height')) ?? 1.5;
-  const tipX = pivotOffset + boomLength * Math.cos((angle * Math.PI) / 180);
-  const tipY = pivotHeight + boomLength * Math.sin((angle * Math.PI) / 180);
-  const behind = Math.max(fulcrum, (cw ?? 0) + 1.2);
-
-  const xMin = -behind - 1.5;
-  const xMax = Math.max(radius + loadLength / 2, tipX) + 1.5;
-  const yMax = tipY + 1.5;
+  const { fulcrum, radius, pivotOffset, pivotHeight, tipX, tipY, cw, cwWeight } = scene;
+  const { loadLength, loadHeight, xMin, xMax, yMax, boomLength, angle } = scene;
   const pw = W - M.left - M.right;
   const ph = H - M.top - M.bottom;
   const scale = Math.min(pw / (xMax - xMin), ph / yMax);
@@ -68,14 +40,9 @@ export function CraneSideView({
   const ground = Y(0);
 
   const lu = toDisplay(1, 'length', system);
-  const step = niceStep((xMax - xMin) * lu.value, 8);
-  const xt: number[] = [];
-  for (let v = Math.ceil((xMin * lu.value) / step) * step; v <= xMax * lu.value; v += step) xt.push(v);
-  const yt: number[] = [];
-  for (let v = 0; v <= yMax * lu.value; v += step) yt.push(v);
+  const { x: xt, y: yt, step } = squareGrid(xMin * lu.value, xMax * lu.value, yMax * lu.value);
 
-  const loadArm = radius - fulcrum;
-  const cwArm = cw !== null ? cw + fulcrum : null;
+  const { loadArm, cwArm } = scene;
   const len = (m: number) => formatQuantity(m, 'length', system);
   const dimY1 = ground + 48;
   const dimY2 = ground + 76;

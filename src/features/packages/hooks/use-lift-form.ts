@@ -1,6 +1,6 @@
 // The submission form's values, typed from the shared lift-input schema: a draft of the
 // schema's input (every field may still be empty), judged by the schema as it would be sent
-// (empty fields and groups left out first). The field catalogue (lift-steps) names fields by
+// (empty fields and groups left out first). The field catalogue (shared/catalogue/lift-fields) names fields by
 // string path; liftPath() is the one place such a path becomes a form path, and a client test
 // checks every catalogue path against the schema.
 import { useMemo } from 'react';

@@ -1,5 +1,6 @@
 // The markup tools and colours, with the names and keys the workspace shows.
 import { MARKUP_COLOURS, type MarkupColour } from '@shared/schemas/reviews';
+import { MARKUP_COLOUR_NAMES, MARKUP_KIND_LABELS } from '@shared/vocabulary/markups';
 
 export type Tool = 'select' | 'rectangle' | 'ellipse' | 'cloud' | 'arrow' | 'text' | 'pin';
 
@@ -13,23 +14,11 @@ export const TOOLS: ReadonlyArray<{ tool: Tool; label: string; key: string; hint
   { tool: 'pin', label: 'Pin', key: '7', hint: 'Click to drop a numbered pin' },
 ];
 
-export const COLOUR_NAMES: Record<MarkupColour, string> = {
-  rust: 'Rust',
-  cobalt: 'Cobalt',
-  verdigris: 'Verdigris',
-  graphite: 'Graphite',
-};
+export const COLOUR_NAMES = MARKUP_COLOUR_NAMES;
 
 export const COLOURS = Object.keys(MARKUP_COLOURS) as MarkupColour[];
 
-export const KIND_LABELS: Record<string, string> = {
-  rectangle: 'Box',
-  ellipse: 'Oval',
-  cloud: 'Cloud',
-  arrow: 'Arrow',
-  text: 'Text',
-  pin: 'Pin',
-};
+export const KIND_LABELS: Record<string, string> = MARKUP_KIND_LABELS;
 
 export function markupName(m: { kind: string; number: number | null; pageNumber: number }): string {
   const name = m.kind === 'pin' && m.number != null ? `Pin ${m.number}` : (KIND_LABELS[m.kind] ?? m.kind);

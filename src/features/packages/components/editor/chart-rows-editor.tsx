@@ -7,7 +7,7 @@ import { liftPath, useLiftFormContext, type LiftFormValues } from '../../hooks/u
 import type { UnitSystem } from '@shared/schemas/common';
 import { Button } from '@/components/ui/button';
 import { parseChartRows } from '../../lib/chart-paste';
-import { defaultUnit, unitLabel, UNITS_BY_KIND } from '@/lib/input-units';
+import { defaultUnit, unitLabel, UNITS_BY_KIND } from '@shared/vocabulary/units';
 import { NumberText } from './number-text';
 import { ErrorText } from './lift-field';
 import { useFieldError } from './field-errors';

@@ -1,4 +1,4 @@
-// One field of the submission form from its description in lift-steps.ts: the label, the
+// One field of the submission form from its description in shared/catalogue/lift-fields.ts: the label, the
 // input (a quantity with its unit, a number, a choice, text, a tick box or a list of rows)
 // and, under it, the schema's message naming the limit that was broken.
 import { useId } from 'react';
@@ -6,7 +6,7 @@ import { Controller, get, useFieldArray } from 'react-hook-form';
 import { liftListPath, liftPath, useLiftFormContext } from '../../hooks/use-lift-form';
 import type { UnitSystem } from '@shared/schemas/common';
 import { Button } from '@/components/ui/button';
-import type { FieldDef } from '@/lib/lift-steps';
+import type { FieldDef } from '@shared/catalogue/lift-fields';
 import { QuantityInput, type QuantityValue } from './quantity-input';
 import { NumberText } from './number-text';
 import { useFieldError } from './field-errors';

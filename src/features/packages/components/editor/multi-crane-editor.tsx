@@ -3,7 +3,7 @@
 // point). The crane entered in the first steps is crane 1. Fields come from multi-crane-steps.
 import { useFieldArray, useWatch } from 'react-hook-form';
 import type { UnitSystem } from '@shared/schemas/common';
-import type { FieldGroup } from '@/lib/lift-steps';
+import type { FieldGroup } from '@shared/catalogue/lift-fields';
 import { MAX_OTHER_CRANES, MULTI_CRANE_GROUPS, otherCraneGroups } from '@/lib/multi-crane-steps';
 import { Button } from '@/components/ui/button';
 import { useLiftFormContext } from '../../hooks/use-lift-form';

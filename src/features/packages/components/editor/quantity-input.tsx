@@ -2,7 +2,7 @@
 // unit selector relabels the number (it does not convert it). An empty box means the
 // quantity is not given; the unit chosen is kept for when a number is typed.
 import { useState } from 'react';
-import { defaultUnit, unitLabel, UNITS_BY_KIND, type QuantityKind } from '@/lib/input-units';
+import { defaultUnit, unitLabel, UNITS_BY_KIND, type QuantityKind } from '@shared/vocabulary/units';
 import type { UnitSystem } from '@shared/schemas/common';
 import { NumberText } from './number-text';
 

@@ -1,6 +1,6 @@
 // The last step: the package's title and planned lift date, and what still needs attention
 // before the revision can be submitted, step by step, each a way back to that step.
-import { STEPS, type StepId } from '@/lib/lift-steps';
+import { STEPS, type StepId } from '@shared/catalogue/lift-fields';
 import type { Problem } from '../../hooks/use-submit-revision';
 
 export function ReviewStep({

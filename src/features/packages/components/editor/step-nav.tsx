@@ -1,5 +1,5 @@
 // The list of the form's steps, the current one marked, and ✕ beside each step with errors.
-import { STEPS, type StepId } from '@/lib/lift-steps';
+import { STEPS, type StepId } from '@shared/catalogue/lift-fields';
 
 export function StepNav({
   step,

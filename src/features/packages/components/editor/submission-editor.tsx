@@ -7,7 +7,7 @@ import { FormProvider } from 'react-hook-form';
 import { useSearchParams } from 'react-router-dom';
 import type { UnitSystem } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
-import { STEPS, stepOfPath, type StepId } from '@/lib/lift-steps';
+import { STEPS, stepOfPath, type StepId } from '@shared/catalogue/lift-fields';
 import { labelOfAnyPath } from '@/lib/multi-crane-steps';
 import { draftInputs } from '../../lib/prune';
 import { useDraftAutosave } from '../../hooks/use-draft-autosave';

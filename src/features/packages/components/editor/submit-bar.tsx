@@ -2,7 +2,7 @@
 // has passed the checks here — the confirmation that submitting freezes the revision.
 import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/page-loading';
-import { STEPS, type StepId } from '@/lib/lift-steps';
+import { STEPS, type StepId } from '@shared/catalogue/lift-fields';
 import type { useSubmitRevision } from '../../hooks/use-submit-revision';
 
 export function SubmitBar({

@@ -1,43 +1,15 @@
-// The submission editor's steps and the fields on each, described once so the form, the
-// step list's error marks and the mapping of server field errors all agree.
+// The one field catalogue of the lift input: the submission editor's steps and the fields on
+// each, described once so the form, the step list's error marks and the mapping of server field
+// errors agree. Lives in shared/ so the server can read it too; the calculation sheet's inputs
+// section does not yet print from it (it shares the crane-type and stated-figure words).
 import { CRANE_TYPES, HITCHES, ROPE_TYPES, SLING_MATERIALS, SOIL_CLASSES } from '@shared/schemas/lift-input';
-import type { QuantityKind } from './input-units';
+import { CRANE_TYPE_LABELS } from '@shared/vocabulary/crane-types';
+import { STATED_FIGURE_LABELS } from '@shared/vocabulary/stated-figures';
+import { SOIL_LABELS } from '@shared/vocabulary/soil-classes';
+import type { QuantityKind } from '@shared/vocabulary/units';
+import type { FieldDef, Step, StepId } from './field-types';
 
-export type FieldDef =
-  | { kind: 'quantity'; path: string; label: string; q: QuantityKind; hint?: string }
-  | { kind: 'number'; path: string; label: string; integer?: boolean; suffix?: string; hint?: string }
-  | {
-      kind: 'select';
-      path: string;
-      label: string;
-      options: readonly (readonly [string, string])[];
-      hint?: string;
-    }
-  | { kind: 'text'; path: string; label: string; hint?: string }
-  | { kind: 'checkbox'; path: string; label: string; hint?: string }
-  | { kind: 'list'; path: string; label: string; columns: FieldDef[]; addLabel: string; hint?: string };
-
-export type FieldGroup = {
-  title: string;
-  note?: string;
-  fields: FieldDef[];
-  /** Shown only when this returns true for the form's values (e.g. outriggers for a mobile crane). */
-  when?: (values: Record<string, unknown>) => boolean;
-};
-
-export type StepId =
-  | 'crane'
-  | 'chart'
-  | 'load'
-  | 'reeving'
-  | 'ground'
-  | 'hazards'
-  | 'cranes'
-  | 'stated'
-  | 'documents'
-  | 'review';
-
-export type Step = { id: StepId; title: string; groups: FieldGroup[] };
+export type { FieldDef, FieldGroup, Step, StepId } from './field-types';
 
 const craneType = (values: Record<string, unknown>) =>
   (values.crane as { type?: string } | undefined)?.type ?? '';
@@ -49,21 +21,6 @@ const q = (path: string, label: string, kind: QuantityKind, hint?: string): Fiel
   q: kind,
   hint,
 });
-
-const CRANE_TYPE_LABELS: Record<(typeof CRANE_TYPES)[number], string> = {
-  mobile_outriggers: 'Mobile crane on outriggers',
-  mobile_crawler: 'Crawler crane',
-  gantry_a_frame: 'Gantry or A-frame',
-};
-
-const SOIL_LABELS: Record<(typeof SOIL_CLASSES)[number], string> = {
-  crystalline_bedrock: 'Crystalline bedrock',
-  sedimentary_rock: 'Sedimentary rock',
-  sandy_gravel: 'Sandy gravel or gravel',
-  sand_silty_clayey: 'Sand, silty or clayey sand',
-  clay_silt: 'Clay, silt',
-  mud_organic_fill: 'Mud, organic soil or unprepared fill',
-};
 
 export const STEPS: Step[] = [
   {
@@ -390,18 +347,23 @@ export const STEPS: Step[] = [
         title: 'Figures stated in your lift plan',
         note: 'Each figure is compared with the recomputed one; a difference past the site’s tolerance is flagged for the engineer.',
         fields: [
-          q('stated.grossLoad', 'Gross load', 'weight'),
-          q('stated.radius', 'Radius', 'length'),
-          q('stated.boomAngle', 'Boom angle', 'angle'),
-          q('stated.chartCapacity', 'Chart capacity', 'weight'),
-          { kind: 'number', path: 'stated.percentOfChart', label: 'Percent of chart', suffix: '%' },
-          q('stated.overturningMoment', 'Overturning moment', 'moment'),
-          q('stated.resistingMoment', 'Resisting moment', 'moment'),
-          { kind: 'number', path: 'stated.stabilityRatio', label: 'Stability ratio' },
-          q('stated.maxSupportReaction', 'Largest support reaction', 'weight'),
-          q('stated.groundPressure', 'Ground bearing pressure', 'pressure'),
-          q('stated.maxSlingTension', 'Largest sling tension', 'weight'),
-          q('stated.linePull', 'Line pull', 'weight'),
+          q('stated.grossLoad', STATED_FIGURE_LABELS.grossLoad, 'weight'),
+          q('stated.radius', STATED_FIGURE_LABELS.radius, 'length'),
+          q('stated.boomAngle', STATED_FIGURE_LABELS.boomAngle, 'angle'),
+          q('stated.chartCapacity', STATED_FIGURE_LABELS.chartCapacity, 'weight'),
+          {
+            kind: 'number',
+            path: 'stated.percentOfChart',
+            label: STATED_FIGURE_LABELS.percentOfChart,
+            suffix: '%',
+          },
+          q('stated.overturningMoment', STATED_FIGURE_LABELS.overturningMoment, 'moment'),
+          q('stated.resistingMoment', STATED_FIGURE_LABELS.resistingMoment, 'moment'),
+          { kind: 'number', path: 'stated.stabilityRatio', label: STATED_FIGURE_LABELS.stabilityRatio },
+          q('stated.maxSupportReaction', STATED_FIGURE_LABELS.maxSupportReaction, 'weight'),
+          q('stated.groundPressure', STATED_FIGURE_LABELS.groundPressure, 'pressure'),
+          q('stated.maxSlingTension', STATED_FIGURE_LABELS.maxSlingTension, 'weight'),
+          q('stated.linePull', STATED_FIGURE_LABELS.linePull, 'weight'),
         ],
       },
     ],

@@ -1,0 +1,58 @@
+// Sections 4 to 6 of the calculation sheet and its closing note: why the lift is critical, the
+// fixes the check suggests, and the crane's side view to scale.
+import type { LiftResult } from '@shared/engineering/types';
+import { SHORT_CAUTION } from '@shared/vocabulary/cautions';
+import { drawSideView, SIDE_VIEW_HEIGHT, sideViewUnavailableReason } from '../draw-side-view';
+import type { StampInput } from '../stamp-input';
+import { INK_SOFT, RULE } from '../text-pdf';
+import { LEFT, RIGHT, WIDTH, type Flow } from './layout';
+
+export { SIDE_VIEW_HEIGHT };
+
+export function criticalSection(flow: Flow, result: LiftResult | null) {
+  if (!result) flow.para('No result.');
+  else if (result.critical.triggers.length === 0) flow.para('No critical-lift trigger applies.');
+  else
+    for (const t of result.critical.triggers) {
+      flow.para(`• ${t.reason}`, { font: flow.fonts.bold, gap: 0 });
+      flow.para(t.source.text, { size: 7.3, color: INK_SOFT, indent: 9 });
+    }
+}
+
+export function fixesSection(flow: Flow, result: LiftResult | null) {
+  if (!result || result.fixes.length === 0) flow.para('None: no failed capacity or stability check to fix.');
+  else for (const f of result.fixes) flow.para(`• ${f.text}`);
+}
+
+export function sideViewSection(flow: Flow, input: StampInput) {
+  const { result, units, inputs } = input.calculation;
+  const reason = result ? sideViewUnavailableReason(inputs, result) : 'No result to draw from.';
+  if (reason || !result) flow.para(reason ?? '');
+  else {
+    flow.need(SIDE_VIEW_HEIGHT + 4);
+    drawSideView(
+      flow.page,
+      flow.fonts,
+      { x: LEFT, y: flow.y - SIDE_VIEW_HEIGHT, width: WIDTH, height: SIDE_VIEW_HEIGHT },
+      inputs,
+      result,
+      units,
+    );
+    flow.y -= SIDE_VIEW_HEIGHT + 6;
+  }
+}
+
+export function closingNote(flow: Flow, result: LiftResult | null) {
+  flow.need(24);
+  flow.y -= 8;
+  flow.page.drawLine({
+    start: { x: LEFT, y: flow.y },
+    end: { x: RIGHT, y: flow.y },
+    thickness: 0.4,
+    color: RULE,
+  });
+  flow.para(
+    `${result ? `Engine ${result.engineVersion}, result version ${result.resultVersion}. ` : ''}Values recomputed in SI and shown to three significant figures; inputs as entered. ${SHORT_CAUTION}`,
+    { size: 7, color: INK_SOFT },
+  );
+}

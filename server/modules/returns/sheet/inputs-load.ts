@@ -1,0 +1,63 @@
+// The load, hook block, allowances and rigging as the contractor entered them.
+import { pairs, type Flow } from './layout';
+import { add, arr, asEntered, obj, str } from './read-inputs';
+import type { Obj } from './read-inputs';
+
+export function loadInputs(flow: Flow, inputs: Obj) {
+  const load = obj(inputs.load) ?? {};
+  const l: [string, string][] = [];
+  add(l, 'Load', str(load.description));
+  add(l, 'Weight', asEntered(load.weight));
+  const dims = [load.length, load.width, load.height].map(asEntered);
+  if (dims.some(Boolean)) add(l, 'Size (L × W × H)', dims.map((d) => d ?? '—').join(' × '));
+  add(l, 'Wind area', asEntered(load.windArea));
+  add(l, 'Drag coefficient', typeof load.dragCoefficient === 'number' ? String(load.dragCoefficient) : null);
+  add(l, 'Hook block', asEntered(obj(inputs.hookBlock)?.weight));
+  add(l, 'Hook block height', asEntered(obj(inputs.hookBlock)?.height));
+  add(l, 'Load-line allowance', asEntered(inputs.loadLineAllowance));
+  for (const d of arr(inputs.chartDeductions))
+    add(l, `Chart deduction: ${str(obj(d)?.name) ?? 'unnamed'}`, asEntered(obj(d)?.weight));
+  add(l, 'Required lift height', asEntered(inputs.requiredLiftHeight));
+  flow.subheading('Load');
+  pairs(flow, l);
+}
+
+export function riggingInputs(flow: Flow, inputs: Obj) {
+  const rig = obj(inputs.rigging);
+  if (rig) {
+    const r: [string, string][] = [];
+    for (const it of arr(rig.items)) add(r, str(obj(it)?.name) ?? 'Rigging item', asEntered(obj(it)?.weight));
+    const s = obj(rig.slings);
+    if (s) {
+      add(
+        r,
+        'Slings',
+        `${str(s.name) ?? 'sling set'}: ${String(s.material ?? '')}, ${String(s.hitch ?? '')} hitch`,
+      );
+      add(r, 'Sling rating (vertical, per leg)', asEntered(s.ratedLoadVertical));
+      add(r, 'Sling weight', asEntered(s.weight));
+      arr(s.legs).forEach((leg, i) => {
+        const lg = obj(leg) ?? {};
+        const bits = [
+          asEntered(lg.angle) && `${asEntered(lg.angle)} from horizontal`,
+          asEntered(lg.length) && `length ${asEntered(lg.length)}`,
+          asEntered(lg.horizontalDistance) && `${asEntered(lg.horizontalDistance)} from the hook`,
+        ].filter(Boolean);
+        add(r, `Leg ${i + 1}${str(lg.name) ? ` (${str(lg.name)})` : ''}`, bits.join(', ') || '—');
+      });
+    }
+    for (const h of arr(rig.hardware)) {
+      const hw = obj(h) ?? {};
+      add(
+        r,
+        str(hw.name) ?? 'Hardware',
+        `WLL ${asEntered(hw.wll) ?? '—'}${asEntered(hw.weight) ? `, weighs ${asEntered(hw.weight)}` : ''}${hw.carries === 'leg' ? ', one per leg' : ''}`,
+      );
+    }
+    add(r, 'Rigging height', asEntered(rig.height));
+    if (r.length) {
+      flow.subheading('Rigging');
+      pairs(flow, r);
+    }
+  }
+}
