@@ -4,11 +4,13 @@ import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import { SignInBody } from '@shared/schemas/auth';
 import type { AppContext } from '../../context';
 import { AppError } from '../../lib/app-error';
-import { currentUser, requireAuth } from '../../middleware/auth';
+import { currentUser, optionalSession, requireAuth } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { SESSION_COOKIE } from './passport';
 import { RedisRateLimitStore } from './rate-limit-store';
-import { issueToken, signIn } from './service';
+import { signIn } from './service';
+import { startSession } from './session-cookie';
+import { revokeSession } from './sessions';
 
 export function authRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -36,19 +38,15 @@ export function authRoutes(ctx: AppContext): Router {
   router.post('/auth/sign-in', signInLimit, validate({ body: SignInBody }), async (req, res) => {
     const body = valid(req, 'body', SignInBody);
     const { user, tokenVersion } = await signIn(ctx.dataSource, body.email, body.password);
-    const token = issueToken(user.id, tokenVersion, config.JWT_SECRET, config.SESSION_HOURS);
-    res.cookie(SESSION_COOKIE, token, {
-      httpOnly: true,
-      sameSite: 'lax',
-      secure,
-      path: '/',
-      maxAge: config.SESSION_HOURS * 3600_000,
-    });
+    await startSession(ctx, res, user.id, tokenVersion);
     req.log?.info({ userId: user.id }, 'signed in');
     res.json({ user });
   });
 
-  router.post('/auth/sign-out', (_req, res) => {
+  // Sign-out revokes the server-side session, so the old token is refused from now on even
+  // when a copy of it survives the cleared cookie.
+  router.post('/auth/sign-out', optionalSession(ctx), async (req, res) => {
+    if (req.sessionId) await revokeSession(ctx.dataSource, req.sessionId);
     res.clearCookie(SESSION_COOKIE, { httpOnly: true, sameSite: 'lax', secure, path: '/' });
     res.status(204).end();
   });

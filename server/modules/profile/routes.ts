@@ -9,8 +9,9 @@ import { AppError } from '../../lib/app-error';
 import { currentUser, requireAuth } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { acceptInvite, findInvite } from '../admin/service';
-import { SESSION_COOKIE, toAuthUser } from '../auth/passport';
-import { hashPassword, issueToken } from '../auth/service';
+import { toAuthUser } from '../auth/passport';
+import { hashPassword } from '../auth/service';
+import { startSession } from '../auth/session-cookie';
 import { User } from '../users/user.entity';
 
 export const TokenParams = z.object({ token: z.string().min(10).max(100) });
@@ -18,19 +19,8 @@ export const TokenParams = z.object({ token: z.string().min(10).max(100) });
 export function profileRoutes(ctx: AppContext): Router {
   const router = Router();
   const ds = ctx.dataSource;
-  const secure = (ctx.config.APP_URL ?? '').startsWith('https://');
   const setSession = (res: Response, userId: string, tokenVersion: number) =>
-    res.cookie(
-      SESSION_COOKIE,
-      issueToken(userId, tokenVersion, ctx.config.JWT_SECRET, ctx.config.SESSION_HOURS),
-      {
-        httpOnly: true,
-        sameSite: 'lax',
-        secure,
-        path: '/',
-        maxAge: ctx.config.SESSION_HOURS * 3600_000,
-      },
-    );
+    startSession(ctx, res, userId, tokenVersion);
   const profileOf = (u: User) => ({
     name: u.name,
     email: u.email,
@@ -71,7 +61,7 @@ export function profileRoutes(ctx: AppContext): Router {
         passwordHash: await hashPassword(body.newPassword),
         tokenVersion: user.tokenVersion + 1,
       });
-      setSession(res, user.id, user.tokenVersion + 1);
+      await setSession(res, user.id, user.tokenVersion + 1);
       res.status(204).end();
     },
   );
@@ -96,7 +86,7 @@ export function profileRoutes(ctx: AppContext): Router {
         token,
         await hashPassword(valid(req, 'body', AcceptInviteBody).password),
       );
-      setSession(res, user.id, user.tokenVersion);
+      await setSession(res, user.id, user.tokenVersion);
       res.json({ user: toAuthUser(user) });
     },
   );
