@@ -1,13 +1,11 @@
 // Sign-in, sign-out and the signed-in person (GET /api/me).
 import { Router } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import { SignInBody } from '@shared/schemas/auth';
 import type { AppContext } from '../../context';
-import { AppError } from '../../lib/app-error';
 import { currentUser, optionalSession, requireAuth } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { SESSION_COOKIE } from './passport';
-import { RedisRateLimitStore } from './rate-limit-store';
+import { signInLimits } from './rate-limits';
 import { signIn } from './service';
 import { startSession } from './session-cookie';
 import { revokeSession } from './sessions';
@@ -17,25 +15,9 @@ export function authRoutes(ctx: AppContext): Router {
   const { config } = ctx;
   const secure = (config.APP_URL ?? '').startsWith('https://');
 
-  const signInLimit = rateLimit({
-    windowMs: config.SIGN_IN_WINDOW_MINUTES * 60_000,
-    limit: config.SIGN_IN_LIMIT,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    store: new RedisRateLimitStore(ctx.redis, `${config.REDIS_PREFIX}:rl:sign-in:`),
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}:${String(req.body?.email ?? '').toLowerCase()}`,
-    passOnStoreError: true,
-    handler: (_req, _res, next, options) =>
-      next(
-        new AppError(
-          429,
-          'too_many_attempts',
-          `Too many sign-in attempts. Wait ${Math.ceil(options.windowMs / 60_000)} minutes and try again.`,
-        ),
-      ),
-  });
+  const signInLimit = signInLimits(ctx);
 
-  router.post('/auth/sign-in', signInLimit, validate({ body: SignInBody }), async (req, res) => {
+  router.post('/auth/sign-in', ...signInLimit, validate({ body: SignInBody }), async (req, res) => {
     const body = valid(req, 'body', SignInBody);
     const { user, tokenVersion } = await signIn(ctx.dataSource, body.email, body.password);
     await startSession(ctx, res, user.id, tokenVersion);

@@ -11,6 +11,7 @@ import { valid, validate } from '../../middleware/validate';
 import { acceptInvite, findInvite } from '../admin/service';
 import { toAuthUser } from '../auth/passport';
 import { hashPassword } from '../auth/service';
+import { byAddress, limiter } from '../auth/rate-limits';
 import { startSession } from '../auth/session-cookie';
 import { User } from '../users/user.entity';
 
@@ -44,9 +45,26 @@ export function profileRoutes(ctx: AppContext): Router {
     },
   );
 
+  const passwordLimit = limiter(ctx, {
+    name: 'password-change',
+    windowMs: ctx.config.SIGN_IN_WINDOW_MINUTES * 60_000,
+    limit: ctx.config.PASSWORD_CHANGE_LIMIT,
+    key: (req, res) => req.user?.id ?? byAddress(req, res),
+    message: 'Too many password changes in a short time. Wait a few minutes and try again.',
+  });
+  const inviteLimit = limiter(ctx, {
+    name: 'invite-lookup',
+    windowMs: ctx.config.SIGN_IN_WINDOW_MINUTES * 60_000,
+    limit: ctx.config.INVITE_LOOKUP_LIMIT,
+    key: byAddress,
+    code: 'too_many_requests',
+    message: 'Too many invitation look-ups from this address. Wait a few minutes and try again.',
+  });
+
   router.post(
     '/me/password',
     requireAuth(ctx.passport),
+    passwordLimit,
     validate({ body: PasswordChangeBody }),
     async (req, res) => {
       const body = valid(req, 'body', PasswordChangeBody);
@@ -66,7 +84,7 @@ export function profileRoutes(ctx: AppContext): Router {
     },
   );
 
-  router.get('/invites/:token', validate({ params: TokenParams }), async (req, res) => {
+  router.get('/invites/:token', inviteLimit, validate({ params: TokenParams }), async (req, res) => {
     const user = await findInvite(ds, valid(req, 'params', TokenParams).token);
     res.json({
       email: user.email,
@@ -78,6 +96,7 @@ export function profileRoutes(ctx: AppContext): Router {
 
   router.post(
     '/invites/:token',
+    inviteLimit,
     validate({ params: TokenParams, body: AcceptInviteBody }),
     async (req, res) => {
       const { token } = valid(req, 'params', TokenParams);
