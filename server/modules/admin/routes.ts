@@ -200,7 +200,16 @@ export function adminRoutes(ctx: AppContext): Router {
 
   router.post('/admin/mail/:id/retry', validate({ params: IdParams }), async (req, res) => {
     const { id } = valid(req, 'params', IdParams);
-    const msg = await ds.getRepository(MailMessage).findOneBy({ id, status: 'failed' });
+    // The same desk filter as the outbox: another desk's message is a plain 404.
+    const org = currentUser(req).organisationId;
+    const msg = await ds
+      .getRepository(MailMessage)
+      .createQueryBuilder('mm')
+      .leftJoin('users', 'u', 'u.id = mm.recipient_id')
+      .leftJoin('organisations', 'o', 'o.id = u.organisation_id')
+      .where('mm.id = :id AND mm.status = :status', { id, status: 'failed' })
+      .andWhere('(u.organisation_id = :org OR o.desk_owner_id = :org)', { org })
+      .getOne();
     if (!msg) throw AppError.notFound('failed message');
     await ds.getRepository(MailMessage).update(id, { status: 'queued' });
     await ctx.queues.mail.remove(`mail-${id}`).catch(() => undefined);
