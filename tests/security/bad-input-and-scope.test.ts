@@ -198,3 +198,39 @@ describe('look-ups scoped to the desk', () => {
     expect(ok.status).toBe(200);
   });
 });
+
+describe("owner-side view of a contractor's draft revision", () => {
+  it('when a contractor uploads to a draft revision 2, then the reviewer sees no event (no file name) of it', async () => {
+    const w = await makeWorld(t.ctx.dataSource);
+    const pkg = await makePackage(t.ctx.dataSource, {
+      contractor: w.contractorA,
+      site: w.site,
+      createdBy: w.plannerA,
+      status: 'draft',
+    });
+    const revisions = t.ctx.dataSource.getRepository(Revision);
+    // Revision 1 was submitted and returned; revision 2 is the contractor's new draft.
+    await revisions.update({ packageId: pkg.id, number: 1 }, { state: 'submitted', submittedAt: new Date() });
+    await revisions.save({ packageId: pkg.id, number: 2, state: 'draft', inputs: {}, checkStatus: 'none' });
+    await t.ctx.dataSource.getRepository(LiftPackage).update(pkg.id, { currentRevision: 2, status: 'draft' });
+    await t.ctx.dataSource.query(
+      `INSERT INTO audit_events (package_id, organisation_id, actor_id, action, detail)
+       VALUES ($1, $2, $3, 'file.added', $4), ($1, $2, $3, 'revision.submitted', $5)`,
+      [
+        pkg.id,
+        w.contractorA.id,
+        w.plannerA.id,
+        JSON.stringify({ revision: 2, name: 'secret-draft-plan.pdf' }),
+        JSON.stringify({ revision: 1 }),
+      ],
+    );
+    const contractor = await signedIn(t.app, w.plannerA.email);
+    const own = await contractor.get(`/api/packages/${pkg.id}`);
+    expect(JSON.stringify(own.body.events)).toContain('secret-draft-plan.pdf');
+    const reviewer = await signedIn(t.app, w.reviewer.email);
+    const seen = await reviewer.get(`/api/packages/${pkg.id}`);
+    expect(seen.status).toBe(200);
+    expect(JSON.stringify(seen.body.events)).not.toContain('secret-draft-plan.pdf');
+    expect(seen.body.events.map((e: { action: string }) => e.action)).toContain('revision.submitted');
+  });
+});
