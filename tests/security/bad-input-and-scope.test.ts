@@ -234,3 +234,26 @@ describe("owner-side view of a contractor's draft revision", () => {
     expect(seen.body.events.map((e: { action: string }) => e.action)).toContain('revision.submitted');
   });
 });
+
+describe('invitation links', () => {
+  it('when an admin reads caught mail holding an invitation, then the link itself is not shown', async () => {
+    const w = await makeWorld(t.ctx.dataSource);
+    const token = 'Abc123_secret-invite-token-value';
+    await t.ctx.dataSource.query(
+      `INSERT INTO caught_mail (envelope_from, envelope_to, subject, text_body, html_body, raw_size)
+       VALUES ('desk@test.example', $1, 'You are invited', $2, $3, 100)`,
+      [
+        [w.reviewer.email],
+        `Set your password: http://desk.example/invite/${token}`,
+        `<a href="http://desk.example/invite/${token}">Set your password</a>`,
+      ],
+    );
+    const admin = await signedIn(t.app, w.admin.email);
+    const res = await admin.get('/api/admin/mail/caught');
+    expect(res.status).toBe(200);
+    const mine = res.body.items.filter((m: { to: string[] }) => m.to.includes(w.reviewer.email));
+    expect(mine).toHaveLength(1);
+    expect(mine[0].text).toContain('/invite/[link sent to the recipient]');
+    expect(JSON.stringify(mine)).not.toContain(token);
+  });
+});

@@ -57,6 +57,14 @@ export const MailQuery = z.object({
   pageSize: z.coerce.number().int().min(1).max(200, 'pageSize must be at most 200').default(50),
 });
 
+/**
+ * An invitation link works once, for the person invited: the admin reading caught mail sees
+ * that a link was sent, not the link itself.
+ */
+export function hideInviteLinks(text: string): string {
+  return text.replace(/\/invite\/[A-Za-z0-9_-]+/g, '/invite/[link sent to the recipient]');
+}
+
 export function adminRoutes(ctx: AppContext): Router {
   const router = Router();
   const ds = ctx.dataSource;
@@ -191,8 +199,8 @@ export function adminRoutes(ctx: AppContext): Router {
         from: r.envelope_from,
         to: r.envelope_to,
         subject: r.subject,
-        text: r.text_body,
-        html: r.html_body,
+        text: hideInviteLinks(r.text_body),
+        html: r.html_body === null ? null : hideInviteLinks(r.html_body),
         receivedAt: new Date(r.received_at).toISOString(),
       })),
     });
