@@ -7,10 +7,12 @@ import express from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { randomUUID } from 'node:crypto';
+import { trustProxySetting } from './config';
 import type { AppContext } from './context';
-import { logger } from './lib/logger';
+import { logger, redactUrl } from './lib/logger';
 import { openApiDocument } from './openapi';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
+import { contentTypeGuard, csrfGuard, inputTextGuard, verifyJsonDepth } from './middleware/request-guards';
 import { adminRoutes } from './modules/admin/routes';
 import { authRoutes } from './modules/auth/routes';
 import { calculationRoutes } from './modules/calculations/routes';
@@ -26,7 +28,9 @@ import { verifyRoutes } from './modules/verify/routes';
 export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // X-Forwarded-For is believed only when a proxy is configured (TRUST_PROXY); otherwise
+  // any client could rotate its address past the rate limits with one header.
+  app.set('trust proxy', trustProxySetting(ctx.config.TRUST_PROXY));
   // Served over plain http on a loopback or LAN address, HSTS and the upgrade directive
   // would send browsers to an https port that does not exist.
   const https = (ctx.config.APP_URL ?? '').startsWith('https://');
@@ -48,10 +52,16 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
       logger,
       genReqId: (req) => (req.headers['x-request-id'] as string) || randomUUID(),
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      serializers: {
+        req: (req: { url?: string }) => ({ ...req, url: redactUrl(req.url) }),
+      },
     }),
   );
   app.use(cookieParser());
-  app.use('/api', express.json({ limit: '2mb' }));
+  app.use('/api', csrfGuard(ctx.config.APP_URL ? new URL(ctx.config.APP_URL).origin : null));
+  app.use('/api', contentTypeGuard);
+  app.use('/api', express.json({ limit: '2mb', verify: verifyJsonDepth }));
+  app.use('/api', inputTextGuard);
 
   app.use('/api', healthRoutes(ctx));
   app.use('/api', authRoutes(ctx));

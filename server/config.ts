@@ -27,6 +27,21 @@ const Env = z
       .default(100 * 1024 * 1024),
     UPLOAD_MAX_PAGES: z.coerce.number().int().min(1).default(500),
     SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
+    // Sign-in attempts per window from one address (any e-mail: password spraying) and for
+    // one account (from any address).
+    SIGN_IN_ADDRESS_LIMIT: z.coerce.number().int().min(1).default(30),
+    SIGN_IN_ACCOUNT_LIMIT: z.coerce.number().int().min(1).default(20),
+    PASSWORD_CHANGE_LIMIT: z.coerce.number().int().min(1).default(5),
+    INVITE_LOOKUP_LIMIT: z.coerce.number().int().min(1).default(20),
+    // Which proxies' X-Forwarded-For to believe: unset = none (the socket address counts),
+    // or a list Express understands ("loopback", "10.0.0.0/8,127.0.0.1", a hop count "1").
+    TRUST_PROXY: z
+      .string()
+      .regex(
+        /^[0-9a-fA-F.:/,\s a-z]{1,500}$/,
+        'TRUST_PROXY must be a hop count, "loopback", or addresses/subnets separated by commas',
+      )
+      .optional(),
     VERIFY_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(30),
     SIGN_IN_WINDOW_MINUTES: z.coerce.number().min(0.01).default(15),
     REDIS_PREFIX: z
@@ -72,6 +87,16 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   }
   if (env === process.env) cached = parsed.data;
   return parsed.data;
+}
+
+/** Express's "trust proxy" value for TRUST_PROXY: false when unset. */
+export function trustProxySetting(value: string | undefined): boolean | number | string[] {
+  if (!value || !value.trim()) return false;
+  if (/^\d+$/.test(value.trim())) return Number(value.trim());
+  return value
+    .split(',')
+    .map((v) => v.trim())
+    .filter(Boolean);
 }
 
 export function appUrl(config: Config): string {

@@ -14,6 +14,8 @@ declare global {
     }
     interface Request {
       valid?: Record<string, unknown>;
+      /** The server-side session the token names (set by passport). */
+      sessionId?: string;
     }
   }
 }

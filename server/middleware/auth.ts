@@ -48,3 +48,14 @@ export function currentUser(req: Request): Express.User {
   if (!req.user) throw AppError.unauthorised();
   return req.user;
 }
+
+/** Reads the session when there is a valid one and carries on either way (sign-out). */
+export function optionalSession(ctx: { passport: PassportStatic }): RequestHandler {
+  return (req, res, next) => {
+    ctx.passport.authenticate('jwt', { session: false }, (err: unknown, user: Express.User | false) => {
+      if (err) return next(err);
+      if (user) req.user = user;
+      next();
+    })(req, res, next);
+  };
+}

@@ -74,6 +74,15 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
       'too_large',
       `The request body is larger than the limit of ${err.limit} bytes.`,
     );
+  } else if (
+    err instanceof Error &&
+    /^(Unexpected end of form|Multipart: Boundary not found|Malformed part header|Unexpected end of multipart data)/.test(
+      err.message,
+    )
+  ) {
+    error = new AppError(400, 'bad_upload', `The upload is not a complete multipart body: ${err.message}.`, [
+      { path: 'file', message: 'the multipart body must end with its closing boundary' },
+    ]);
   } else if (err?.code === 'LIMIT_FILE_SIZE') {
     error = new AppError(413, 'file_too_large', err.message, [
       { path: err.field ?? 'file', message: err.message },

@@ -109,7 +109,13 @@ export const SaveDraftBody = z.object({
     .nullable()
     .optional(),
   inputs: z.record(z.string(), z.unknown()).optional(),
-  baseUpdatedAt: z.string().optional(),
+  // A malformed value must not silently skip the stale-save guard.
+  baseUpdatedAt: z.iso
+    .datetime({
+      offset: true,
+      message: "baseUpdatedAt must be a date-time (ISO 8601), the draft's updatedAt",
+    })
+    .optional(),
 });
 export type SaveDraftBody = z.infer<typeof SaveDraftBody>;
 

@@ -24,6 +24,12 @@ export function isApiError(error: unknown): error is ApiError {
   return error instanceof ApiError;
 }
 
+/**
+ * Sent with every state-changing request: the server refuses a signed-in change without it
+ * (a form or a no-cors fetch from another site cannot set a custom header).
+ */
+export const CSRF_HEADER = { 'X-CSRF-Guard': '1' } as const;
+
 type Query = Record<string, string | number | undefined | null>;
 
 type RequestOptions = {
@@ -81,6 +87,7 @@ export async function request<T>(
   const { method = 'GET', body, query, signal } = options;
   const headers: Record<string, string> = { Accept: 'application/json' };
   if (body !== undefined) headers['Content-Type'] = 'application/json';
+  if (method !== 'GET') Object.assign(headers, CSRF_HEADER);
 
   let response: Response;
   try {

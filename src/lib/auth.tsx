@@ -70,9 +70,27 @@ export function homeFor(user: Pick<CurrentUser, 'role'>): string {
 
 /** Accepts only a same-site path for ?next=, so a crafted link cannot send people elsewhere. */
 export function safeNextPath(next: string | null): string | null {
-  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return null;
-  if (next.startsWith('/sign-in')) return null;
-  return next;
+  if (!next) return null;
+  let decoded = next;
+  try {
+    decoded = decodeURIComponent(next);
+  } catch {
+    return null;
+  }
+  for (const form of [next, decoded]) {
+    // Browsers drop tabs and newlines inside URLs ("/\t/evil" becomes "//evil") and read a
+    // backslash as a slash, so any control character or whitespace is refused outright.
+    // eslint-disable-next-line no-control-regex -- control characters are exactly what is refused
+    if (/[\u0000-\u001f\u007f\s]/.test(form)) return null;
+    if (!form.startsWith('/') || form.startsWith('//') || form.startsWith('/\\')) return null;
+  }
+  // Resolved against a placeholder origin, a same-origin path keeps that origin.
+  const base = 'http://desk.invalid';
+  const url = new URL(next, base);
+  if (url.origin !== base) return null;
+  const path = `${url.pathname}${url.search}${url.hash}`;
+  if (path.startsWith('/sign-in')) return null;
+  return path;
 }
 
 export function signInPathFor(location: { pathname: string; search: string; hash?: string }): string {

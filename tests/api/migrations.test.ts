@@ -47,12 +47,12 @@ describe('migrations', () => {
         ]),
       );
       const count = async (sql: string) => Number((await ds.query(sql))[0].n);
-      // The last migration adds the return's signing certificate; the one before it the job intents.
+      // The last migration adds the sessions table; the one before it the return's signing certificate.
       const lastMigration = async () => [
+        await count(`SELECT count(*) AS n FROM information_schema.tables WHERE table_name = 'sessions'`),
         await count(
           `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'stamped_returns' AND column_name = 'signing_certificate_sha256'`,
         ),
-        await count(`SELECT count(*) AS n FROM information_schema.tables WHERE table_name = 'job_intents'`),
       ];
       expect(await lastMigration()).toEqual([1, 1]);
       await ds.undoLastMigration();

@@ -32,6 +32,15 @@ describe('links and query strings', () => {
     expect(safeNextPath('https://evil.example')).toBeNull();
     expect(safeNextPath('/\\evil.example')).toBeNull();
     expect(safeNextPath('/sign-in?next=/queue')).toBeNull();
+    // Tab, newline and encoded variants of "//" (the security review's cases).
+    expect(safeNextPath('/\t/evil.example')).toBeNull();
+    expect(safeNextPath('/\n/evil.example')).toBeNull();
+    expect(safeNextPath('/\r\n/evil.example')).toBeNull();
+    expect(safeNextPath('/%2F/evil.example')).toBeNull();
+    expect(safeNextPath('/%5Cevil.example')).toBeNull();
+    expect(safeNextPath('/%09/evil.example')).toBeNull();
+    expect(safeNextPath('/%E0%A4%A')).toBeNull();
+    expect(safeNextPath('/packages/abc#files')).toBe('/packages/abc#files');
   });
 
   it('when a query has empty values, then they are left out and the order is kept', () => {

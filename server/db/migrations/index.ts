@@ -5,6 +5,7 @@ import { ReviewDesk1764640000000 } from './1764640000000-review-desk';
 import { PeopleAndMail1764650000000 } from './1764650000000-people-and-mail';
 import { JobIntents1764670000000 } from './1764670000000-job-intents';
 import { ReturnSignature1764690000000 } from './1764690000000-return-signature';
+import { Sessions1764700000000 } from './1764700000000-sessions';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
@@ -13,4 +14,5 @@ export const MIGRATIONS = [
   PeopleAndMail1764650000000,
   JobIntents1764670000000,
   ReturnSignature1764690000000,
+  Sessions1764700000000,
 ];

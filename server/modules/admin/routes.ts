@@ -47,6 +47,14 @@ export const MailQuery = z.object({
   pageSize: z.coerce.number().int().min(1).max(200, 'pageSize must be at most 200').default(50),
 });
 
+/**
+ * An invitation link works once, for the person invited: the admin reading caught mail sees
+ * that a link was sent, not the link itself.
+ */
+export function hideInviteLinks(text: string): string {
+  return text.replace(/\/invite\/[A-Za-z0-9_-]+/g, '/invite/[link sent to the recipient]');
+}
+
 export function adminRoutes(ctx: AppContext): Router {
   const router = Router();
   const ds = ctx.dataSource;
@@ -181,8 +189,8 @@ export function adminRoutes(ctx: AppContext): Router {
         from: r.envelope_from,
         to: r.envelope_to,
         subject: r.subject,
-        text: r.text_body,
-        html: r.html_body,
+        text: hideInviteLinks(r.text_body),
+        html: r.html_body === null ? null : hideInviteLinks(r.html_body),
         receivedAt: new Date(r.received_at).toISOString(),
       })),
     });
@@ -190,7 +198,16 @@ export function adminRoutes(ctx: AppContext): Router {
 
   router.post('/admin/mail/:id/retry', validate({ params: IdParams }), async (req, res) => {
     const { id } = valid(req, 'params', IdParams);
-    const msg = await ds.getRepository(MailMessage).findOneBy({ id, status: 'failed' });
+    // The same desk filter as the outbox: another desk's message is a plain 404.
+    const org = currentUser(req).organisationId;
+    const msg = await ds
+      .getRepository(MailMessage)
+      .createQueryBuilder('mm')
+      .leftJoin('users', 'u', 'u.id = mm.recipient_id')
+      .leftJoin('organisations', 'o', 'o.id = u.organisation_id')
+      .where('mm.id = :id AND mm.status = :status', { id, status: 'failed' })
+      .andWhere('(u.organisation_id = :org OR o.desk_owner_id = :org)', { org })
+      .getOne();
     if (!msg) throw AppError.notFound('failed message');
     await ds.getRepository(MailMessage).update(id, { status: 'queued' });
     await ctx.queues.mail.remove(`mail-${id}`).catch(() => undefined);

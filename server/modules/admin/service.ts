@@ -210,7 +210,8 @@ export async function setPolicy(
   overrides: Record<string, unknown>,
 ) {
   const site = await ownSite(ds, admin, id);
-  const unknownKeys = Object.keys(overrides).filter((k) => !(k in POLICY_DEFAULTS));
+  // Own keys only: `in` would let inherited names (constructor, toString) through.
+  const unknownKeys = Object.keys(overrides).filter((k) => !Object.hasOwn(POLICY_DEFAULTS, k));
   if (unknownKeys.length) {
     throw AppError.badRequest(
       `overrides.${unknownKeys[0]}: not a policy limit`,

@@ -1,17 +1,22 @@
 // passport-jwt reads the session token from the httpOnly cookie. The token names the
-// user and their token version; deactivating someone or signing them out everywhere
-// bumps the version, so older tokens stop working at once.
+// user, their token version and the server-side session (`sid`); deactivating someone or
+// signing them out everywhere bumps the version, and signing out revokes the session, so
+// older tokens stop working at once. A token without `exp`, or whose `sub` or `sid` is not
+// an id, is refused (401) before the database is asked.
 import type { Request } from 'express';
 import { Passport } from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import type { DataSource } from 'typeorm';
 import { User } from '../users/user.entity';
+import { isUuid, sessionIsLive } from './sessions';
 
 export const SESSION_COOKIE = 'cp_session';
 
 export interface TokenPayload {
   sub: string;
   tv: number;
+  sid: string;
+  exp?: number;
 }
 
 export function createPassport(dataSource: DataSource, secret: string) {
@@ -24,15 +29,28 @@ export function createPassport(dataSource: DataSource, secret: string) {
         ]),
         secretOrKey: secret,
         algorithms: ['HS256'],
+        passReqToCallback: true,
       },
-      (payload: TokenPayload, done: (err: unknown, user?: Express.User | false) => void) => {
-        dataSource
-          .getRepository(User)
-          .findOne({ where: { id: payload.sub }, relations: { organisation: true } })
-          .then((user) => {
-            if (!user || !user.active || user.tokenVersion !== payload.tv || !user.organisation) {
+      (req: Request, payload: TokenPayload, done: (err: unknown, user?: Express.User | false) => void) => {
+        if (
+          typeof payload?.exp !== 'number' ||
+          !isUuid(payload.sub) ||
+          !isUuid(payload.sid) ||
+          typeof payload.tv !== 'number'
+        ) {
+          return done(null, false);
+        }
+        Promise.all([
+          dataSource
+            .getRepository(User)
+            .findOne({ where: { id: payload.sub }, relations: { organisation: true } }),
+          sessionIsLive(dataSource, payload.sid, payload.sub),
+        ])
+          .then(([user, live]) => {
+            if (!live || !user || !user.active || user.tokenVersion !== payload.tv || !user.organisation) {
               return done(null, false);
             }
+            req.sessionId = payload.sid;
             done(null, toAuthUser(user));
           })
           .catch((err) => done(err));

@@ -1,54 +1,34 @@
 // Sign-in, sign-out and the signed-in person (GET /api/me).
 import { Router } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import { SignInBody } from '@shared/schemas/auth';
 import type { AppContext } from '../../context';
-import { AppError } from '../../lib/app-error';
-import { currentUser, requireAuth } from '../../middleware/auth';
+import { currentUser, optionalSession, requireAuth } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { SESSION_COOKIE } from './passport';
-import { RedisRateLimitStore } from './rate-limit-store';
-import { issueToken, signIn } from './service';
+import { signInLimits } from './rate-limits';
+import { signIn } from './service';
+import { startSession } from './session-cookie';
+import { revokeSession } from './sessions';
 
 export function authRoutes(ctx: AppContext): Router {
   const router = Router();
   const { config } = ctx;
   const secure = (config.APP_URL ?? '').startsWith('https://');
 
-  const signInLimit = rateLimit({
-    windowMs: config.SIGN_IN_WINDOW_MINUTES * 60_000,
-    limit: config.SIGN_IN_LIMIT,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    store: new RedisRateLimitStore(ctx.redis, `${config.REDIS_PREFIX}:rl:sign-in:`),
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}:${String(req.body?.email ?? '').toLowerCase()}`,
-    passOnStoreError: true,
-    handler: (_req, _res, next, options) =>
-      next(
-        new AppError(
-          429,
-          'too_many_attempts',
-          `Too many sign-in attempts. Wait ${Math.ceil(options.windowMs / 60_000)} minutes and try again.`,
-        ),
-      ),
-  });
+  const signInLimit = signInLimits(ctx);
 
-  router.post('/auth/sign-in', signInLimit, validate({ body: SignInBody }), async (req, res) => {
+  router.post('/auth/sign-in', ...signInLimit, validate({ body: SignInBody }), async (req, res) => {
     const body = valid(req, 'body', SignInBody);
     const { user, tokenVersion } = await signIn(ctx.dataSource, body.email, body.password);
-    const token = issueToken(user.id, tokenVersion, config.JWT_SECRET, config.SESSION_HOURS);
-    res.cookie(SESSION_COOKIE, token, {
-      httpOnly: true,
-      sameSite: 'lax',
-      secure,
-      path: '/',
-      maxAge: config.SESSION_HOURS * 3600_000,
-    });
+    await startSession(ctx, res, user.id, tokenVersion);
     req.log?.info({ userId: user.id }, 'signed in');
     res.json({ user });
   });
 
-  router.post('/auth/sign-out', (_req, res) => {
+  // Sign-out revokes the server-side session, so the old token is refused from now on even
+  // when a copy of it survives the cleared cookie.
+  router.post('/auth/sign-out', optionalSession(ctx), async (req, res) => {
+    if (req.sessionId) await revokeSession(ctx.dataSource, req.sessionId);
     res.clearCookie(SESSION_COOKIE, { httpOnly: true, sameSite: 'lax', secure, path: '/' });
     res.status(204).end();
   });

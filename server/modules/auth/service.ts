@@ -28,7 +28,13 @@ export async function signIn(dataSource: DataSource, email: string, password: st
   return { user: toAuthUser(user), tokenVersion: user.tokenVersion };
 }
 
-export function issueToken(userId: string, tokenVersion: number, secret: string, hours: number): string {
-  const payload: TokenPayload = { sub: userId, tv: tokenVersion };
+export function issueToken(
+  userId: string,
+  tokenVersion: number,
+  sessionId: string,
+  secret: string,
+  hours: number,
+): string {
+  const payload: TokenPayload = { sub: userId, tv: tokenVersion, sid: sessionId };
   return jwt.sign(payload, secret, { algorithm: 'HS256', expiresIn: Math.round(hours * 3600) });
 }

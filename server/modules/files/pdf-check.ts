@@ -73,7 +73,18 @@ export async function inspectPdf(
       field('PDF must not be encrypted'),
     );
   }
-  const pages = doc.getPageCount();
+  let pages: number;
+  try {
+    // A file with a PDF header but no catalog (or no page tree) throws here.
+    pages = doc.getPageCount();
+  } catch (error) {
+    throw new AppError(
+      422,
+      'unreadable_pdf',
+      `The file starts like a PDF but has no readable catalog or page tree: ${(error as Error).message.slice(0, 200)}`,
+      field('PDF has no catalog or page tree'),
+    );
+  }
   if (pages < 1) throw new AppError(400, 'truncated_pdf', 'The PDF has no pages.', field('PDF has no pages'));
   if (pages > limits.maxPages) {
     throw new AppError(

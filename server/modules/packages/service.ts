@@ -153,6 +153,14 @@ export async function packageDetail(
       : revisions.find((r) => r.number === full.currentRevision);
   if (!current)
     throw new AppError(500, 'internal', `package ${full.reference} has no revision ${full.currentRevision}`);
+  // Owner-side people do not see the contractor's work on a draft revision (file names and
+  // all) until it is submitted.
+  const draftNumbers = new Set(revisions.filter((r) => r.state !== 'submitted').map((r) => r.number));
+  const hiddenRevision = (detail: Record<string, unknown> | null) =>
+    !!user &&
+    user.role !== 'contractor' &&
+    typeof detail?.revision === 'number' &&
+    draftNumbers.has(detail.revision);
   const events = await dataSource
     .getRepository(AuditEvent)
     .createQueryBuilder('e')
@@ -186,7 +194,9 @@ export async function packageDetail(
     current: await revisionDetail(dataSource, current),
     sitePolicy: sitePolicy(full.site!),
     decision: await decisionSummary(dataSource, full.id),
-    events: events.map((e) => ({ ...e, at: new Date(e.at).toISOString() })),
+    events: events
+      .filter((e) => !hiddenRevision(e.detail))
+      .map((e) => ({ ...e, at: new Date(e.at).toISOString() })),
   };
 }
 

@@ -9,8 +9,10 @@ import { AppError } from '../../lib/app-error';
 import { currentUser, requireAuth } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { acceptInvite, findInvite } from '../admin/service';
-import { SESSION_COOKIE, toAuthUser } from '../auth/passport';
-import { hashPassword, issueToken } from '../auth/service';
+import { toAuthUser } from '../auth/passport';
+import { hashPassword } from '../auth/service';
+import { byAddress, limiter } from '../auth/rate-limits';
+import { startSession } from '../auth/session-cookie';
 import { User } from '../users/user.entity';
 
 export const TokenParams = z.object({ token: z.string().min(10).max(100) });
@@ -18,19 +20,8 @@ export const TokenParams = z.object({ token: z.string().min(10).max(100) });
 export function profileRoutes(ctx: AppContext): Router {
   const router = Router();
   const ds = ctx.dataSource;
-  const secure = (ctx.config.APP_URL ?? '').startsWith('https://');
   const setSession = (res: Response, userId: string, tokenVersion: number) =>
-    res.cookie(
-      SESSION_COOKIE,
-      issueToken(userId, tokenVersion, ctx.config.JWT_SECRET, ctx.config.SESSION_HOURS),
-      {
-        httpOnly: true,
-        sameSite: 'lax',
-        secure,
-        path: '/',
-        maxAge: ctx.config.SESSION_HOURS * 3600_000,
-      },
-    );
+    startSession(ctx, res, userId, tokenVersion);
   const profileOf = (u: User) => ({
     name: u.name,
     email: u.email,
@@ -54,9 +45,26 @@ export function profileRoutes(ctx: AppContext): Router {
     },
   );
 
+  const passwordLimit = limiter(ctx, {
+    name: 'password-change',
+    windowMs: ctx.config.SIGN_IN_WINDOW_MINUTES * 60_000,
+    limit: ctx.config.PASSWORD_CHANGE_LIMIT,
+    key: (req, res) => req.user?.id ?? byAddress(req, res),
+    message: 'Too many password changes in a short time. Wait a few minutes and try again.',
+  });
+  const inviteLimit = limiter(ctx, {
+    name: 'invite-lookup',
+    windowMs: ctx.config.SIGN_IN_WINDOW_MINUTES * 60_000,
+    limit: ctx.config.INVITE_LOOKUP_LIMIT,
+    key: byAddress,
+    code: 'too_many_requests',
+    message: 'Too many invitation look-ups from this address. Wait a few minutes and try again.',
+  });
+
   router.post(
     '/me/password',
     requireAuth(ctx.passport),
+    passwordLimit,
     validate({ body: PasswordChangeBody }),
     async (req, res) => {
       const body = valid(req, 'body', PasswordChangeBody);
@@ -71,12 +79,12 @@ export function profileRoutes(ctx: AppContext): Router {
         passwordHash: await hashPassword(body.newPassword),
         tokenVersion: user.tokenVersion + 1,
       });
-      setSession(res, user.id, user.tokenVersion + 1);
+      await setSession(res, user.id, user.tokenVersion + 1);
       res.status(204).end();
     },
   );
 
-  router.get('/invites/:token', validate({ params: TokenParams }), async (req, res) => {
+  router.get('/invites/:token', inviteLimit, validate({ params: TokenParams }), async (req, res) => {
     const user = await findInvite(ds, valid(req, 'params', TokenParams).token);
     res.json({
       email: user.email,
@@ -88,6 +96,7 @@ export function profileRoutes(ctx: AppContext): Router {
 
   router.post(
     '/invites/:token',
+    inviteLimit,
     validate({ params: TokenParams, body: AcceptInviteBody }),
     async (req, res) => {
       const { token } = valid(req, 'params', TokenParams);
@@ -96,7 +105,7 @@ export function profileRoutes(ctx: AppContext): Router {
         token,
         await hashPassword(valid(req, 'body', AcceptInviteBody).password),
       );
-      setSession(res, user.id, user.tokenVersion);
+      await setSession(res, user.id, user.tokenVersion);
       res.json({ user: toAuthUser(user) });
     },
   );

@@ -1,6 +1,7 @@
 // The review: reviewers assign engineers; the assigned engineer marks up pages, raises
 // findings, accepts contractor figures with a reason and records the decision; the
 // contractor answers findings and starts the next revision. Every change is audited.
+import { stateRefusal } from '@shared/rules/package-status';
 import type { DataSource, EntityManager } from 'typeorm';
 import { In, IsNull } from 'typeorm';
 import type {
@@ -344,6 +345,12 @@ export async function updateFinding(
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const finding = await ds.getRepository(Finding).findOneBy({ id: findingId, packageId: pkg.id });
   if (!finding) throw AppError.notFound('finding');
+  // The status machine says when each side may touch a finding (409 otherwise).
+  const refusal =
+    user.role === 'contractor'
+      ? stateRefusal('answer_finding', pkg.status, 'Findings can be answered')
+      : stateRefusal('close_or_reopen_finding', pkg.status, 'Findings can be closed or reopened');
+  if (refusal) throw new AppError(409, 'wrong_state', refusal);
   await ds.transaction(async (m) => {
     if (user.role === 'contractor') {
       if (body.response === undefined || body.response.length === 0) {

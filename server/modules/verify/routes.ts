@@ -3,12 +3,11 @@
 // that signed it, and whether a later revision
 // supersedes it — nothing else. Unknown and malformed codes get the same plain 404.
 import { Router } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
 import { DECISION_LABELS } from '@shared/schemas/common';
 import type { AppContext } from '../../context';
 import { AppError } from '../../lib/app-error';
-import { RedisRateLimitStore } from '../auth/rate-limit-store';
+import { byAddress, limiter } from '../auth/rate-limits';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { DecisionRecord, StampedReturn } from '../reviews/review.entity';
 
@@ -16,16 +15,13 @@ const Code = z.string().regex(/^[A-Z2-7]{24}$/);
 
 export function verifyRoutes(ctx: AppContext): Router {
   const router = Router();
-  const limit = rateLimit({
+  const limit = limiter(ctx, {
+    name: 'verify',
     windowMs: 60_000,
     limit: ctx.config.VERIFY_LIMIT_PER_MINUTE,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    store: new RedisRateLimitStore(ctx.redis, `${ctx.config.REDIS_PREFIX}:rl:verify:`),
-    keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''),
-    passOnStoreError: true,
-    handler: (_req, _res, next) =>
-      next(new AppError(429, 'too_many_requests', 'Too many look-ups. Wait a minute and try again.')),
+    key: byAddress,
+    code: 'too_many_requests',
+    message: 'Too many look-ups. Wait a minute and try again.',
   });
 
   router.get('/verify/:code', limit, async (req, res) => {

@@ -8,7 +8,8 @@ import { env, eventually, PEOPLE, WAIT, type Person } from './browser';
 import { liftPlanPdf } from './pdf';
 
 export async function apiAs(person: Person): Promise<APIRequestContext> {
-  const api = await request.newContext({ baseURL: env().baseUrl });
+  // The desk's pages send the CSRF guard header with every change; so does this context.
+  const api = await request.newContext({ baseURL: env().baseUrl, extraHTTPHeaders: { 'X-CSRF-Guard': '1' } });
   const res = await api.post('/api/auth/sign-in', {
     data: { email: PEOPLE[person], password: DEMO_PASSWORD },
   });

@@ -4,7 +4,7 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { CaughtMail, MailMessage } from '@shared/schemas/admin';
-import { api, apiErrorFrom } from '@/lib/api-client';
+import { api, apiErrorFrom, CSRF_HEADER } from '@/lib/api-client';
 import { adminKeys, type MailFilters } from './admin-keys';
 
 export type MailMessage = z.infer<typeof MailMessage>;
@@ -50,7 +50,7 @@ export async function retryMail(id: string): Promise<void> {
   try {
     response = await fetch(`/api/admin/mail/${encodeURIComponent(id)}/retry`, {
       method: 'POST',
-      headers: { Accept: 'application/json' },
+      headers: { Accept: 'application/json', ...CSRF_HEADER },
       credentials: 'include',
     });
   } catch {

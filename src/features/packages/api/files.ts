@@ -2,7 +2,7 @@
 // XMLHttpRequest so the bytes sent can be shown), DELETE …/files/:fileId, and the link
 // that opens a stored PDF.
 import { FileSummary, type FileKind } from '@shared/schemas/packages';
-import { api, apiErrorFrom, ApiError } from '@/lib/api-client';
+import { api, apiErrorFrom, ApiError, CSRF_HEADER } from '@/lib/api-client';
 
 export function fileUrl(packageId: string, fileId: string): string {
   return `/api/packages/${encodeURIComponent(packageId)}/files/${encodeURIComponent(fileId)}`;
@@ -22,6 +22,7 @@ export function uploadFile(
     xhr.open('POST', `/api/packages/${encodeURIComponent(packageId)}/files`);
     xhr.withCredentials = true;
     xhr.setRequestHeader('Accept', 'application/json');
+    for (const [name, value] of Object.entries(CSRF_HEADER)) xhr.setRequestHeader(name, value);
     xhr.upload.onprogress = (event) => {
       onProgress({ loaded: event.loaded, total: event.lengthComputable ? event.total : file.size });
     };

@@ -2,7 +2,7 @@
 // updatedAt this tab last saw; the server answers 409 stale_draft when another tab saved
 // since, and 409 already_submitted once the revision is frozen.
 import { PackageDetail, type SaveDraftBody } from '@shared/schemas/packages';
-import { api } from '@/lib/api-client';
+import { api, CSRF_HEADER } from '@/lib/api-client';
 
 export function saveDraft(id: string, body: SaveDraftBody): Promise<PackageDetail> {
   return api.put(`/api/packages/${encodeURIComponent(id)}/draft`, body, PackageDetail);
@@ -13,7 +13,7 @@ export function saveDraftOnExit(id: string, body: SaveDraftBody): void {
   try {
     void fetch(`/api/packages/${encodeURIComponent(id)}/draft`, {
       method: 'PUT',
-      headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
+      headers: { 'Content-Type': 'application/json', Accept: 'application/json', ...CSRF_HEADER },
       body: JSON.stringify(body),
       credentials: 'include',
       keepalive: true,

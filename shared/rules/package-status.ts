@@ -1,0 +1,60 @@
+// The package status machine: which status may follow which, who makes each move, and which
+// actions a package allows in each status. Services ask it before they change anything (a
+// wrong-state action answers 409 with the message below); the client asks it to decide what
+// to offer. Statuses: draft → checking (check_failed) → ready_for_review → with_engineer →
+// decided → returned; a return as Revise and resubmit or Rejected lets the contractor start
+// the next revision (draft again).
+import type { PackageStatus, Role } from '../schemas/common';
+
+type Mover = Role | 'system';
+
+export const TRANSITIONS: Record<PackageStatus, Partial<Record<PackageStatus, readonly Mover[]>>> = {
+  draft: { checking: ['contractor'] },
+  checking: { ready_for_review: ['system'], check_failed: ['system'] },
+  check_failed: { checking: ['contractor', 'reviewer'] },
+  ready_for_review: { with_engineer: ['reviewer'] },
+  with_engineer: { with_engineer: ['reviewer'], decided: ['engineer'] },
+  decided: { returned: ['engineer', 'system'] },
+  returned: { draft: ['contractor'] },
+};
+
+/** Whether `by` may move a package from `from` to `to`. */
+export function canMove(from: PackageStatus, to: PackageStatus, by: Mover): boolean {
+  return TRANSITIONS[from]?.[to]?.includes(by) ?? false;
+}
+
+export type PackageAction =
+  | 'edit_draft'
+  | 'answer_finding'
+  | 'raise_finding'
+  | 'close_or_reopen_finding'
+  | 'edit_markups'
+  | 'record_decision';
+
+/** The statuses in which each action is allowed, and the words that say so. */
+export const ACTION_STATES: Record<PackageAction, { states: readonly PackageStatus[]; when: string }> = {
+  edit_draft: { states: ['draft'], when: 'while the package is a draft' },
+  // The contractor answers once the package is back with them: returned, or the next draft.
+  answer_finding: {
+    states: ['returned', 'draft'],
+    when: 'once the package has been returned to the contractor',
+  },
+  raise_finding: { states: ['with_engineer'], when: 'while the package is with the engineer' },
+  // The engineer settles findings until the return is issued.
+  close_or_reopen_finding: {
+    states: ['with_engineer', 'decided'],
+    when: 'while the package is with the engineer, before the return',
+  },
+  edit_markups: { states: ['with_engineer'], when: 'while the package is with the engineer' },
+  record_decision: { states: ['with_engineer'], when: 'while the package is with the engineer' },
+};
+
+export function actionAllowed(action: PackageAction, status: PackageStatus): boolean {
+  return ACTION_STATES[action].states.includes(status);
+}
+
+/** Null when the action is allowed in this status, otherwise the sentence to answer with. */
+export function stateRefusal(action: PackageAction, status: PackageStatus, what: string): string | null {
+  if (actionAllowed(action, status)) return null;
+  return `${what} only ${ACTION_STATES[action].when}; this package is ${status.replace(/_/g, ' ')}.`;
+}
