@@ -50,7 +50,7 @@ const healthy = async () => (await fetch(`${base()}/api/health`)).status === 200
 async function api(cookie: string, method: string, url: string, body?: unknown) {
   const res = await fetch(`${base()}${url}`, {
     method,
-    headers: { cookie, ...(body ? { 'content-type': 'application/json' } : {}) },
+    headers: { cookie, 'x-csrf-guard': '1', ...(body ? { 'content-type': 'application/json' } : {}) },
     body: body ? JSON.stringify(body) : undefined,
   });
   return { status: res.status, body: await res.json().catch(() => null) };
@@ -98,7 +98,7 @@ describe('the launcher', () => {
     form.append('file', new Blob([Buffer.from(await makePdf(2))], { type: 'application/pdf' }), 'plan.pdf');
     const upload = await fetch(`${base()}/api/packages/${packageId}/files`, {
       method: 'POST',
-      headers: { cookie: contractor },
+      headers: { cookie: contractor, 'x-csrf-guard': '1' },
       body: form,
     });
     expect(upload.status).toBe(201);
