@@ -1,8 +1,9 @@
 // The return's structure after qpdf has copied the pages into one file: two small incremental
 // updates written at the end of that file, never touching the bytes before it.
-// - assembleReturn: each original page paints its carrier's overlay form after its own content
-//   (wrapped in q … Q so a graphics state it leaves behind cannot leak into the overlay), the
-//   carriers leave the page tree, and the document information is written.
+// - assembleReturn: each original page paints its overlay form (named by the overlay's index
+//   page, overlay-carrier.ts) after its own content (wrapped in q … Q so a graphics state it
+//   leaves behind cannot leak into the overlay), the index page leaves the page tree, and the
+//   document information is written.
 // - signReturn: the desk's signature (PAdES baseline B, /ETSI.CAdES.detached) as a visible
 //   signature field over the stamp block's verification rows; the digest of the byte ranges is
 //   streamed from disk with Node's sha-256 and the CMS is written into the placeholder in place.
@@ -83,7 +84,9 @@ export async function assembleReturn(
   const pagesRef = String(catalog['/Pages']);
   const pagesDict = dictOf(s, pagesRef) ?? {};
   const pageRefs = s.pages.map((p) => p.object);
-  if (pageRefs.length < 2 * originalCount) throw new Error('the combined file lacks the overlay pages');
+  if (pageRefs.length < originalCount + 1) throw new Error('the combined file lacks the overlay index page');
+  const indexRes = asDict(resolve(s, dictOf(s, pageRefs[originalCount])?.['/Resources']));
+  const forms = asDict(resolve(s, indexRes['/XObject']));
   let next = Number(trailer['/Size'] ?? s.maxObjectId + 1);
   const objects: NewObject[] = [];
   const add = (dict: NewObject['dict'], stream?: Buffer) => {
@@ -98,10 +101,8 @@ export async function assembleReturn(
 
   for (let i = 0; i < originalCount; i++) {
     const pageRef = pageRefs[i];
-    const carrierRef = pageRefs[originalCount + i];
     const page = dictOf(s, pageRef) ?? {};
-    const carrierRes = asDict(resolve(s, dictOf(s, carrierRef)?.['/Resources']));
-    const form = asDict(resolve(s, carrierRes['/XObject']))[`/${CARRIER_FORM}`];
+    const form = forms[`/${CARRIER_FORM}${i}`];
     if (typeof form !== 'string') throw new Error(`the overlay of page ${i + 1} is missing`);
     const resources = { ...asDict(inherited(s, pageRef, '/Resources')) };
     const xobjects = { ...asDict(resolve(s, resources['/XObject'])) };
@@ -133,7 +134,7 @@ export async function assembleReturn(
     }
     objects.push({ num: Number(pageRef.split(' ')[0]), dict });
   }
-  const kept = [...pageRefs.slice(0, originalCount), ...pageRefs.slice(2 * originalCount)];
+  const kept = [...pageRefs.slice(0, originalCount), ...pageRefs.slice(originalCount + 1)];
   // qpdf writes a flat page tree; pages under another node are re-parented to the root above.
   for (const p of kept.slice(originalCount)) {
     const d = dictOf(s, p) ?? {};
