@@ -75,11 +75,15 @@ export async function assembleReturn(
   const s = await readStructure(file);
   const trailer = trailerOf(s);
   const rootRef = String(trailer['/Root']);
+  // Nothing from the upload may act in or draw over the return: the originals' document
+  // actions, JavaScript, attached files and form (AcroForm, XFA) are left out of the catalog.
   const catalog = { ...(dictOf(s, rootRef) ?? {}) };
-  if (catalog['/AcroForm'] !== undefined) {
-    const acro = { ...asDict(resolve(s, catalog['/AcroForm'])) };
-    if (acro['/Fields'] !== undefined) acro['/Fields'] = resolve(s, acro['/Fields']) ?? [];
-    catalog['/AcroForm'] = acro;
+  for (const key of ['/OpenAction', '/AA', '/AcroForm']) delete catalog[key];
+  const names = asDict(resolve(s, catalog['/Names']));
+  if (catalog['/Names'] !== undefined) {
+    const kept = { ...names };
+    for (const key of ['/JavaScript', '/EmbeddedFiles']) delete kept[key];
+    catalog['/Names'] = kept;
   }
   const pagesRef = String(catalog['/Pages']);
   const pagesDict = dictOf(s, pagesRef) ?? {};
@@ -97,7 +101,7 @@ export async function assembleReturn(
   const open = add({}, Buffer.from('q\n', 'latin1'));
   const closers = new Map<string, string>();
   let firstPage: Assembled['firstPage'] = {};
-  let firstPageAnnots: PdfValue[] = [];
+  const firstPageAnnots: PdfValue[] = [];
 
   for (let i = 0; i < originalCount; i++) {
     const pageRef = pageRefs[i];
@@ -116,8 +120,11 @@ export async function assembleReturn(
       closers.set(name, close);
     }
     const own = s.pages[i].contents;
+    // The page's content only: its annotations (comments, stamps, links, attachments,
+    // widgets) and page actions are not carried.
+    const { '/Annots': _annots, '/AA': _aa, ...pageRest } = page;
     const dict: { [key: string]: PdfValue } = {
-      ...page,
+      ...pageRest,
       '/Contents': [open, ...own, close],
       '/Resources': resources,
     };
@@ -127,11 +134,7 @@ export async function assembleReturn(
       if (v !== undefined) dict[key] = v;
     }
     dict['/Parent'] = pagesRef;
-    if (i === 0) {
-      firstPage = dict;
-      const annots = resolve(s, page['/Annots']);
-      firstPageAnnots = Array.isArray(annots) ? annots : [];
-    }
+    if (i === 0) firstPage = dict;
     objects.push({ num: Number(pageRef.split(' ')[0]), dict });
   }
   const kept = [...pageRefs.slice(0, originalCount), ...pageRefs.slice(originalCount + 1)];
@@ -147,6 +150,7 @@ export async function assembleReturn(
       objects.push({ num: Number(p.split(' ')[0]), dict });
     }
   }
+  objects.push({ num: Number(rootRef.split(' ')[0]), dict: catalog as { [key: string]: PdfValue } });
   objects.push({
     num: Number(pagesRef.split(' ')[0]),
     dict: { ...pagesDict, '/Kids': kept, '/Count': kept.length },
