@@ -19,6 +19,9 @@ import { runMigrations } from './lib/migrate';
 export interface JobFigure {
   file: string;
   seconds: number[];
+  /** Of the same runs: waiting in the queue, and the worker's run (BullMQ's own timestamps). */
+  queuedSeconds: number[];
+  runSeconds: number[];
   pages: number;
 }
 
@@ -75,16 +78,14 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
     const figures: JobFigure[] = [];
     for (const file of files) {
       const bytes = readFileSync(file);
-      const figure: JobFigure = { file, seconds: [], pages: 0 };
+      const figure: JobFigure = { file, seconds: [], queuedSeconds: [], runSeconds: [], pages: 0 };
       for (let round = 0; round < 2; round++) {
         const created = must(
-          await contractor
-            .post('/api/packages')
-            .send({
-              title: `Bench ${path.basename(file)} ${round}`,
-              siteId: w.site.id,
-              plannedLiftDate: '2030-03-14',
-            }),
+          await contractor.post('/api/packages').send({
+            title: `Bench ${path.basename(file)} ${round}`,
+            siteId: w.site.id,
+            plannedLiftDate: '2030-03-14',
+          }),
           201,
           'create package',
         );
@@ -143,6 +144,15 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
         const sha = createHash('sha256').update(dl.body).digest('hex');
         if (sha !== item.sha256) throw new Error(`the stored sha-256 of ${file} does not match the download`);
         figure.pages = item.pages;
+        const [decision] = await ctx.dataSource.query(
+          'SELECT id FROM decisions WHERE package_id = $1 ORDER BY created_at DESC LIMIT 1',
+          [id],
+        );
+        const job = await ctx.queues.stamp.getJob(`stamp-${decision.id}`);
+        if (job?.processedOn && job.finishedOn) {
+          figure.queuedSeconds.push((job.processedOn - job.timestamp) / 1000);
+          figure.runSeconds.push((job.finishedOn - job.processedOn) / 1000);
+        }
       }
       figures.push(figure);
     }

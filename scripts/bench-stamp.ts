@@ -247,11 +247,11 @@ async function main() {
   console.log(
     '\nthrough the real job (request → ready: API, queue, worker, storage, stored sha-256; the app and worker in one process)',
   );
-  console.log('package            pages  cold s  warm s');
+  console.log('package            pages  cold s  warm s  (warm: queued s, worker run s)');
   Object.keys(files).forEach((name, i) => {
     const fig = job.figures[i];
     console.log(
-      `${name.padEnd(18)} ${String(fig.pages).padStart(5)}  ${f(fig.seconds[0]).padStart(6)}  ${f(fig.seconds[1]).padStart(6)}`,
+      `${name.padEnd(18)} ${String(fig.pages).padStart(5)}  ${f(fig.seconds[0]).padStart(6)}  ${f(fig.seconds[1]).padStart(6)}  (${f(fig.queuedSeconds[1] ?? NaN)}, ${f(fig.runSeconds[1] ?? NaN)})`,
     );
   });
   const jobOne = job.figures[0].seconds[1];
