@@ -78,6 +78,9 @@ export async function concatenate(inputs: Array<{ file: string; range?: string }
       // A fixed /ID here (hashing the whole output for it would be another pass over the
       // package); the return's incremental updates write its own /ID.
       '--static-id',
+      // Keep every page's resources as they are: the overlay's index page names forms it does
+      // not draw itself, and "auto" would drop them as unreferenced.
+      '--remove-unreferenced-resources=no',
       '--pages',
       ...pages,
       '--',

@@ -229,13 +229,34 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   };
 }
 
+/** The footer's type and colours, shared with the footer-only forms (overlay-carrier.ts). */
+export const FOOTER = { size: 7, panelOpacity: 0.9, ink: [0.086, 0.098, 0.11] as const };
+
+export interface FooterLayout {
+  text: string;
+  x: number;
+  y: number;
+  width: number;
+}
+
+/** Where the footer's text goes in the display frame, bottom right. */
+export function footerLayout(frame: PageFrame, fonts: Fonts, text: string): FooterLayout {
+  const t = fitText(text, fonts.bold, FOOTER.size, frame.width - 24);
+  const w = widthOf(t, fonts.bold, FOOTER.size);
+  return { text: t, x: frame.width - 14 - w, y: 9, width: w };
+}
+
 /** "REF rev N — page n of m", small, bottom right, on a white backing. Inside the display frame. */
 export function drawFooter(page: PDFPage, frame: PageFrame, fonts: Fonts, text: string) {
-  const size = 7;
-  const t = fitText(text, fonts.bold, size, frame.width - 24);
-  const w = widthOf(t, fonts.bold, size);
-  const x = frame.width - 14 - w;
-  const y = 9;
-  page.drawRectangle({ x: x - 3, y: y - 2.5, width: w + 6, height: size + 4, color: WHITE, opacity: 0.9 });
+  const size = FOOTER.size;
+  const { text: t, x, y, width: w } = footerLayout(frame, fonts, text);
+  page.drawRectangle({
+    x: x - 3,
+    y: y - 2.5,
+    width: w + 6,
+    height: size + 4,
+    color: WHITE,
+    opacity: FOOTER.panelOpacity,
+  });
   page.drawText(t, { x, y, size, font: fonts.bold, color: INK });
 }

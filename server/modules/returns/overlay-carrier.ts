@@ -1,13 +1,40 @@
-// Turns a page of the overlay PDF into a carrier: what was drawn on it becomes a Form XObject
-// (identity matrix, the page's MediaBox as BBox, the drawing's own resources), the page
-// itself keeps only a /Resources entry /CPStamp naming that form and no content. qpdf copies
-// the carrier with its form and fonts into the return; the return's incremental update then
-// paints /CPStamp on the original page and leaves the carrier out of the page tree.
-import { PDFArray, PDFContentStream, PDFName, PDFRef, type PDFPage } from 'pdf-lib';
+// What the desk adds to each original page travels in the overlay PDF as one Form XObject per
+// original page (identity matrix, the page's MediaBox as BBox, its own resources), all named in
+// the /Resources of a single "index" page, /CPStamp0 … /CPStamp<n-1>. qpdf copies the index page
+// with its forms and fonts into the return; the return's incremental update then paints form i
+// on original page i and leaves the index page out of the page tree.
+//
+// Only a page with something of its own (markups, the stamp block) is drawn on a pdf-lib page
+// (a scratch page, removed again once its drawing is a form). A page that carries only the
+// footer gets a small form written here directly: the footer's white panel and one line of
+// text in the shared bold font and transparency state, so its cost is a few hundred bytes and
+// no page layout.
+import {
+  PDFArray,
+  PDFContentStream,
+  PDFDict,
+  PDFName,
+  PDFRef,
+  type PDFDocument,
+  type PDFFont,
+  type PDFPage,
+} from 'pdf-lib';
+import { FOOTER, type FooterLayout } from './draw-stamp-block';
+import { displayToUser, type PageFrame } from './page-frame-pdf';
 
 export const CARRIER_FORM = 'CPStamp';
 
-export function carrierPage(page: PDFPage) {
+type Box = [number, number, number, number];
+
+function asForm(dict: PDFDict, media: Box, resources: PDFDict | undefined, doc: PDFDocument) {
+  dict.set(PDFName.of('Type'), PDFName.of('XObject'));
+  dict.set(PDFName.of('Subtype'), PDFName.of('Form'));
+  dict.set(PDFName.of('BBox'), doc.context.obj(media));
+  dict.set(PDFName.of('Resources'), resources ?? doc.context.obj({}));
+}
+
+/** What was drawn on a scratch page, as a Form XObject in that page's user space. */
+export function pageForm(page: PDFPage): PDFRef {
   const ctx = page.doc.context;
   const contents = page.node.Contents();
   const refs = contents instanceof PDFArray ? contents.asArray() : contents ? [contents] : [];
@@ -18,14 +45,55 @@ export function carrierPage(page: PDFPage) {
   const stream = ctx.lookup(ref);
   if (!(stream instanceof PDFContentStream))
     throw new Error('the overlay page content is not a content stream');
-  const media = page.getMediaBox();
-  stream.dict.set(PDFName.of('Type'), PDFName.of('XObject'));
-  stream.dict.set(PDFName.of('Subtype'), PDFName.of('Form'));
-  stream.dict.set(
-    PDFName.of('BBox'),
-    ctx.obj([media.x, media.y, media.x + media.width, media.y + media.height]),
-  );
-  stream.dict.set(PDFName.of('Resources'), page.node.Resources() ?? ctx.obj({}));
-  page.node.set(PDFName.of('Resources'), ctx.obj({ XObject: { [CARRIER_FORM]: ref } }));
-  page.node.set(PDFName.of('Contents'), ctx.obj([]));
+  const m = page.getMediaBox();
+  asForm(stream.dict, [m.x, m.y, m.x + m.width, m.y + m.height], page.node.Resources(), page.doc);
+  return ref;
+}
+
+const num = (n: number) => String(Math.round(n * 1000) / 1000);
+
+/** Footer-only forms of one return share one resources dictionary (bold font, 0.9 opacity). */
+export class FooterForms {
+  private resources: PDFRef | null = null;
+
+  constructor(
+    private readonly doc: PDFDocument,
+    private readonly bold: PDFFont,
+  ) {}
+
+  private sharedResources(): PDFRef {
+    if (!this.resources) {
+      const ctx = this.doc.context;
+      const gs = ctx.register(ctx.obj({ Type: 'ExtGState', ca: FOOTER.panelOpacity }));
+      this.resources = ctx.register(ctx.obj({ Font: { F: this.bold.ref }, ExtGState: { G: gs } }));
+    }
+    return this.resources;
+  }
+
+  /** The footer as drawFooter draws it, as a form for a page with `media` and `frame`. */
+  form(media: Box, frame: PageFrame, layout: FooterLayout): PDFRef {
+    const ctx = this.doc.context;
+    const [a, b, c, d, e, f] = displayToUser(frame);
+    const [r, g, bl] = FOOTER.ink;
+    const hex = this.bold.encodeText(layout.text).toString();
+    const ops = [
+      `q ${[a, b, c, d, e, f].map(num).join(' ')} cm`,
+      `q /G gs 1 1 1 rg ${num(layout.x - 3)} ${num(layout.y - 2.5)} ${num(layout.width + 6)} ${num(FOOTER.size + 4)} re f Q`,
+      `BT ${num(r)} ${num(g)} ${num(bl)} rg /F ${FOOTER.size} Tf 1 0 0 1 ${num(layout.x)} ${num(layout.y)} Tm ${hex} Tj ET`,
+      'Q',
+    ].join('\n');
+    const stream = ctx.stream(ops, {});
+    asForm(stream.dict, media, undefined, this.doc);
+    stream.dict.set(PDFName.of('Resources'), this.sharedResources());
+    return ctx.register(stream);
+  }
+}
+
+/** The index page: its resources name form i as /CPStamp<i>; it has no content. */
+export function indexPage(doc: PDFDocument, forms: PDFRef[]) {
+  const page = doc.insertPage(0, [10, 10]);
+  const xobjects: Record<string, PDFRef> = {};
+  forms.forEach((ref, i) => (xobjects[`${CARRIER_FORM}${i}`] = ref));
+  page.node.set(PDFName.of('Resources'), doc.context.obj({ XObject: xobjects }));
+  page.node.set(PDFName.of('Contents'), doc.context.obj([]));
 }

@@ -1,8 +1,9 @@
 // The return's structure after qpdf has copied the pages into one file: two small incremental
 // updates written at the end of that file, never touching the bytes before it.
-// - assembleReturn: each original page paints its carrier's overlay form after its own content
-//   (wrapped in q … Q so a graphics state it leaves behind cannot leak into the overlay), the
-//   carriers leave the page tree, and the document information is written.
+// - assembleReturn: each original page paints its overlay form (named by the overlay's index
+//   page, overlay-carrier.ts) after its own content (wrapped in q … Q so a graphics state it
+//   leaves behind cannot leak into the overlay), the index page leaves the page tree, and the
+//   document information is written.
 // - signReturn: the desk's signature (PAdES baseline B, /ETSI.CAdES.detached) as a visible
 //   signature field over the stamp block's verification rows; the digest of the byte ranges is
 //   streamed from disk with Node's sha-256 and the CMS is written into the placeholder in place.
@@ -74,16 +75,22 @@ export async function assembleReturn(
   const s = await readStructure(file);
   const trailer = trailerOf(s);
   const rootRef = String(trailer['/Root']);
+  // Nothing from the upload may act in or draw over the return: the originals' document
+  // actions, JavaScript, attached files and form (AcroForm, XFA) are left out of the catalog.
   const catalog = { ...(dictOf(s, rootRef) ?? {}) };
-  if (catalog['/AcroForm'] !== undefined) {
-    const acro = { ...asDict(resolve(s, catalog['/AcroForm'])) };
-    if (acro['/Fields'] !== undefined) acro['/Fields'] = resolve(s, acro['/Fields']) ?? [];
-    catalog['/AcroForm'] = acro;
+  for (const key of ['/OpenAction', '/AA', '/AcroForm']) delete catalog[key];
+  const names = asDict(resolve(s, catalog['/Names']));
+  if (catalog['/Names'] !== undefined) {
+    const kept = { ...names };
+    for (const key of ['/JavaScript', '/EmbeddedFiles']) delete kept[key];
+    catalog['/Names'] = kept;
   }
   const pagesRef = String(catalog['/Pages']);
   const pagesDict = dictOf(s, pagesRef) ?? {};
   const pageRefs = s.pages.map((p) => p.object);
-  if (pageRefs.length < 2 * originalCount) throw new Error('the combined file lacks the overlay pages');
+  if (pageRefs.length < originalCount + 1) throw new Error('the combined file lacks the overlay index page');
+  const indexRes = asDict(resolve(s, dictOf(s, pageRefs[originalCount])?.['/Resources']));
+  const forms = asDict(resolve(s, indexRes['/XObject']));
   let next = Number(trailer['/Size'] ?? s.maxObjectId + 1);
   const objects: NewObject[] = [];
   const add = (dict: NewObject['dict'], stream?: Buffer) => {
@@ -94,14 +101,12 @@ export async function assembleReturn(
   const open = add({}, Buffer.from('q\n', 'latin1'));
   const closers = new Map<string, string>();
   let firstPage: Assembled['firstPage'] = {};
-  let firstPageAnnots: PdfValue[] = [];
+  const firstPageAnnots: PdfValue[] = [];
 
   for (let i = 0; i < originalCount; i++) {
     const pageRef = pageRefs[i];
-    const carrierRef = pageRefs[originalCount + i];
     const page = dictOf(s, pageRef) ?? {};
-    const carrierRes = asDict(resolve(s, dictOf(s, carrierRef)?.['/Resources']));
-    const form = asDict(resolve(s, carrierRes['/XObject']))[`/${CARRIER_FORM}`];
+    const form = forms[`/${CARRIER_FORM}${i}`];
     if (typeof form !== 'string') throw new Error(`the overlay of page ${i + 1} is missing`);
     const resources = { ...asDict(inherited(s, pageRef, '/Resources')) };
     const xobjects = { ...asDict(resolve(s, resources['/XObject'])) };
@@ -115,8 +120,11 @@ export async function assembleReturn(
       closers.set(name, close);
     }
     const own = s.pages[i].contents;
+    // The page's content only: its annotations (comments, stamps, links, attachments,
+    // widgets) and page actions are not carried.
+    const { '/Annots': _annots, '/AA': _aa, ...pageRest } = page;
     const dict: { [key: string]: PdfValue } = {
-      ...page,
+      ...pageRest,
       '/Contents': [open, ...own, close],
       '/Resources': resources,
     };
@@ -126,14 +134,10 @@ export async function assembleReturn(
       if (v !== undefined) dict[key] = v;
     }
     dict['/Parent'] = pagesRef;
-    if (i === 0) {
-      firstPage = dict;
-      const annots = resolve(s, page['/Annots']);
-      firstPageAnnots = Array.isArray(annots) ? annots : [];
-    }
+    if (i === 0) firstPage = dict;
     objects.push({ num: Number(pageRef.split(' ')[0]), dict });
   }
-  const kept = [...pageRefs.slice(0, originalCount), ...pageRefs.slice(2 * originalCount)];
+  const kept = [...pageRefs.slice(0, originalCount), ...pageRefs.slice(originalCount + 1)];
   // qpdf writes a flat page tree; pages under another node are re-parented to the root above.
   for (const p of kept.slice(originalCount)) {
     const d = dictOf(s, p) ?? {};
@@ -146,6 +150,7 @@ export async function assembleReturn(
       objects.push({ num: Number(p.split(' ')[0]), dict });
     }
   }
+  objects.push({ num: Number(rootRef.split(' ')[0]), dict: catalog as { [key: string]: PdfValue } });
   objects.push({
     num: Number(pagesRef.split(' ')[0]),
     dict: { ...pagesDict, '/Kids': kept, '/Count': kept.length },

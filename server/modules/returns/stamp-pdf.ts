@@ -5,13 +5,14 @@
 // How it is built (DEVELOPERS.md, "The stamped return"):
 // 1. qpdf reads each document's page boxes (qpdf --json, no stream data). A damaged
 //    document is refused with qpdf's message.
-// 2. pdf-lib draws only what the desk adds, in a small "overlay" PDF: for each original page a
-//    carrier page with the same boxes and /Rotate whose drawing (markups, the stamp block on the
-//    first page, the footer) is a Form XObject, then the calculation sheet's pages.
-// 3. qpdf copies the original pages, the carriers and the sheet into one file
+// 2. pdf-lib draws only what the desk adds, in a small "overlay" PDF: one Form XObject per
+//    original page (markups, the stamp block on the first page, the footer), all named by one
+//    index page (overlay-carrier.ts; a footer-only page costs one small form, no page), then
+//    the calculation sheet's pages.
+// 3. qpdf copies the original pages, the index page and the sheet into one file
 //    (--stream-data=preserve: every original content and image stream byte for byte).
 // 4. An incremental update (pdf-tools/incremental.ts) gives each original page a /Contents
-//    array [q, its own streams, Q + the overlay's Do], drops the carriers from the page tree
+//    array [q, its own streams, Q + its form's Do], drops the index page from the page tree
 //    and writes the document information.
 // 5. With a signer, a second incremental update adds the signature (signature dictionary,
 //    visible field over the stamp block's verification rows, /AcroForm), the digest of the
@@ -30,15 +31,15 @@ import { createHash } from 'node:crypto';
 import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { PDFDocument, PDFName, PDFNumber } from 'pdf-lib';
+import { PDFDocument, PDFName, PDFNumber, type PDFPage } from 'pdf-lib';
 import type { Signer } from '../../lib/pdf-tools/signer';
 import { sha256OfFile } from '../../lib/storage';
 import { concatenate, QpdfError, readStructure, inherited, type QValue } from '../../lib/pdf-tools/qpdf';
 import { buildCalculationSheet, drawSheetHeader } from './calc-sheet-pdf';
 import { drawMarkups } from './draw-markups';
-import { drawFooter, drawStampBlock, type FrameBox } from './draw-stamp-block';
+import { drawFooter, drawStampBlock, footerLayout, type FrameBox } from './draw-stamp-block';
 import { displayToUser, frameOf, inDisplayFrame, type PageFrame } from './page-frame-pdf';
-import { carrierPage } from './overlay-carrier';
+import { FooterForms, indexPage, pageForm } from './overlay-carrier';
 import { assembleReturn, signReturn, type SignatureField } from './return-structure';
 import { embedLato } from './text-pdf';
 import type { StampInput } from './stamp-input';
@@ -101,40 +102,69 @@ function userRect(frame: PageFrame, b: FrameBox): Box {
   return [Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)];
 }
 
-/** The overlay PDF: a carrier page per original page, then the calculation sheet. */
+function frameFromBoxes(o: OriginalPage): PageFrame {
+  const v = o.crop ?? o.media;
+  const box = { x: v[0], y: v[1], width: v[2] - v[0], height: v[3] - v[1] };
+  const rotation = ((((Math.round(o.rotate / 90) * 90) % 360) + 360) % 360) as PageFrame['rotation'];
+  const turned = rotation === 90 || rotation === 270;
+  return { box, rotation, width: turned ? box.height : box.width, height: turned ? box.width : box.height };
+}
+
+/**
+ * The overlay PDF: an index page naming one form per original page (overlay-carrier.ts), then
+ * the calculation sheet. Pages with markups or the stamp block are drawn on scratch pages;
+ * pages with only the footer get a footer form without a page, so the cost follows the
+ * markups, not the page count.
+ */
 async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
   const { stamp } = input;
   const out = await PDFDocument.create({ updateMetadata: false });
   const fonts = await embedLato(out);
   let field: { rect: Box } | null = null;
-  let first = true;
+  const originalCount = originals.reduce((n, pages) => n + pages.length, 0);
+  type Slot = { o: OriginalPage; frame: PageFrame; page: PDFPage | null };
+  const slots: Slot[] = [];
   input.documents.forEach((doc, d) => {
     originals[d].forEach((o, i) => {
+      const marks = input.markups.filter((m) => m.fileId === doc.fileId && m.pageNumber === i + 1);
+      const first = slots.length === 0;
+      if (!first && marks.length === 0) {
+        slots.push({ o, frame: frameFromBoxes(o), page: null });
+        return;
+      }
       const page = out.addPage([o.media[2] - o.media[0], o.media[3] - o.media[1]]);
       page.setMediaBox(o.media[0], o.media[1], o.media[2] - o.media[0], o.media[3] - o.media[1]);
       if (o.crop) page.setCropBox(o.crop[0], o.crop[1], o.crop[2] - o.crop[0], o.crop[3] - o.crop[1]);
       if (o.rotate) page.node.set(PDFName.of('Rotate'), PDFNumber.of(o.rotate));
       const frame = frameOf(page);
-      const marks = input.markups.filter((m) => m.fileId === doc.fileId && m.pageNumber === i + 1);
       inDisplayFrame(page, frame, () => {
         drawMarkups(page, frame, marks, fonts);
         if (first) field = { rect: userRect(frame, drawStampBlock(page, frame, fonts, stamp)) };
       });
-      first = false;
+      slots.push({ o, frame, page });
     });
   });
-  const originalCount = out.getPageCount();
-  buildCalculationSheet(out, fonts, input);
-  const total = out.getPageCount();
-  out.getPages().forEach((page, i) => {
-    const footer = `${stamp.reference} rev ${stamp.revision} — page ${i + 1} of ${total}`;
+  const scratchCount = out.getPageCount();
+  const sheet = buildCalculationSheet(out, fonts, input);
+  const total = originalCount + sheet.length;
+  const footerText = (n: number) => `${stamp.reference} rev ${stamp.revision} — page ${n} of ${total}`;
+  const footers = new FooterForms(out, fonts.bold);
+  const forms = slots.map(({ o, frame, page }, i) => {
+    if (!page) return footers.form(o.media, frame, footerLayout(frame, fonts, footerText(i + 1)));
+    // The footer goes inside the same display-frame group as the markups.
+    inDisplayFrame(page, frame, () => drawFooter(page, frame, fonts, footerText(i + 1)));
+    return pageForm(page);
+  });
+  sheet.forEach((page, k) => {
+    const n = originalCount + k + 1;
     const frame = frameOf(page);
     inDisplayFrame(page, frame, () => {
-      if (i >= originalCount) drawSheetHeader(page, fonts, input, i + 1, total);
-      drawFooter(page, frame, fonts, footer);
+      drawSheetHeader(page, fonts, input, n, total);
+      drawFooter(page, frame, fonts, footerText(n));
     });
   });
-  out.getPages().slice(0, originalCount).forEach(carrierPage);
+  for (let k = 0; k < scratchCount; k++) out.removePage(0);
+  indexPage(out, forms);
   const bytes = await out.save({ useObjectStreams: false, objectsPerTick: Infinity });
   return { bytes, originalCount, total, field: field as { rect: Box } | null };
 }

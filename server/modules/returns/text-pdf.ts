@@ -5,6 +5,7 @@
 // greyscale print.
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
+import { inflateSync } from 'node:zlib';
 import fontkit from '@pdf-lib/fontkit';
 import { rgb, type Color, type PDFDocument, type PDFFont, type PDFPage } from 'pdf-lib';
 import { CHECK_STATUS_WORDS } from '@shared/vocabulary/check-statuses';
@@ -19,11 +20,57 @@ export interface Fonts {
 const require = createRequire(import.meta.url);
 const fontCache = new Map<string, Uint8Array>();
 
+/**
+ * A WOFF 1.0 file unwrapped into the plain TrueType (sfnt) font it carries (W3C WOFF 1.0,
+ * section 5: the same tables, each zlib-compressed or stored). fontkit reads a WOFF font by
+ * inflating a table again on every access — once per glyph for `glyf` — which made embedding
+ * the fonts most of a return's fixed cost; the unwrapped font is read directly.
+ */
+export function woffToSfnt(woff: Uint8Array): Uint8Array {
+  const src = Buffer.from(woff.buffer, woff.byteOffset, woff.byteLength);
+  if (src.toString('latin1', 0, 4) !== 'wOFF') throw new Error('not a WOFF 1.0 font');
+  const flavor = src.readUInt32BE(4);
+  const numTables = src.readUInt16BE(12);
+  const tables: Array<{ tag: number; checksum: number; data: Buffer }> = [];
+  for (let i = 0; i < numTables; i++) {
+    const e = 44 + i * 20;
+    const offset = src.readUInt32BE(e + 4);
+    const compLength = src.readUInt32BE(e + 8);
+    const origLength = src.readUInt32BE(e + 12);
+    const raw = src.subarray(offset, offset + compLength);
+    const data = compLength < origLength ? inflateSync(raw) : raw;
+    if (data.length !== origLength) throw new Error('a WOFF table does not inflate to its stated length');
+    tables.push({ tag: src.readUInt32BE(e), checksum: src.readUInt32BE(e + 16), data });
+  }
+  const pad = (n: number) => (n + 3) & ~3;
+  let size = 12 + 16 * numTables;
+  for (const t of tables) size += pad(t.data.length);
+  const out = Buffer.alloc(size);
+  const log2 = Math.floor(Math.log2(numTables));
+  out.writeUInt32BE(flavor, 0);
+  out.writeUInt16BE(numTables, 4);
+  out.writeUInt16BE(16 << log2, 6);
+  out.writeUInt16BE(log2, 8);
+  out.writeUInt16BE(numTables * 16 - (16 << log2), 10);
+  let at = 12 + 16 * numTables;
+  tables.forEach((t, i) => {
+    const r = 12 + 16 * i;
+    out.writeUInt32BE(t.tag, r);
+    out.writeUInt32BE(t.checksum, r + 4);
+    out.writeUInt32BE(at, r + 8);
+    out.writeUInt32BE(t.data.length, r + 12);
+    t.data.copy(out, at);
+    at += pad(t.data.length);
+  });
+  return new Uint8Array(out.buffer, out.byteOffset, out.byteLength);
+}
+
+/** Lato's TrueType bytes, unwrapped from @fontsource/lato's .woff once per process. */
 function latoBytes(weight: 400 | 700 | 900): Uint8Array {
   const key = `lato-latin-${weight}-normal.woff`;
   let bytes = fontCache.get(key);
   if (!bytes) {
-    bytes = new Uint8Array(readFileSync(require.resolve(`@fontsource/lato/files/${key}`)));
+    bytes = woffToSfnt(new Uint8Array(readFileSync(require.resolve(`@fontsource/lato/files/${key}`))));
     fontCache.set(key, bytes);
   }
   return bytes;
