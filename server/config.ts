@@ -25,6 +25,12 @@ const Env = z.object({
     .min(1024)
     .default(100 * 1024 * 1024),
   UPLOAD_MAX_PAGES: z.coerce.number().int().min(1).default(500),
+  /** Largest chart file (CSV or .xlsx) the fleet library's importer reads */
+  CHART_IMPORT_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1024)
+    .default(5 * 1024 * 1024),
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
   VERIFY_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(30),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().min(0.01).default(15),

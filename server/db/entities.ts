@@ -1,6 +1,7 @@
 // Every entity the DataSource knows, in one list.
 import { AuditEvent } from '../modules/audit/audit-event.entity';
 import { UploadedFile } from '../modules/files/file.entity';
+import { LIBRARY_ENTITIES } from '../modules/library/library.entity';
 import { CaughtMail, MailMessage } from '../modules/mail/mail.entity';
 import { Organisation } from '../modules/organisations/organisation.entity';
 import { LiftPackage, Revision } from '../modules/packages/package.entity';
@@ -24,4 +25,5 @@ export const ENTITIES = [
   AuditEvent,
   MailMessage,
   CaughtMail,
+  ...LIBRARY_ENTITIES,
 ];

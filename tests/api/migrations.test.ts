@@ -47,12 +47,14 @@ describe('migrations', () => {
         ]),
       );
       const count = async (sql: string) => Number((await ds.query(sql))[0].n);
-      // The last migration adds the job hand-off's intents; the one before it the mail tables.
+      // The last migration adds the fleet library; the one before it the job hand-off's intents.
       const lastMigration = async () => [
+        await count(
+          `SELECT count(*) AS n FROM information_schema.tables WHERE table_name IN ('library_cranes', 'library_configurations', 'library_versions', 'library_chart_cells', 'library_verifications', 'library_uses')`,
+        ),
         await count(`SELECT count(*) AS n FROM information_schema.tables WHERE table_name = 'job_intents'`),
-        await count(`SELECT count(*) AS n FROM information_schema.tables WHERE table_name = 'mail_messages'`),
       ];
-      expect(await lastMigration()).toEqual([1, 1]);
+      expect(await lastMigration()).toEqual([6, 1]);
       await ds.undoLastMigration();
       expect(await lastMigration()).toEqual([0, 1]);
       expect(await tables(ds)).toContain('lift_packages');

@@ -4,6 +4,7 @@ import { QueueIndexes1764633700000 } from './1764633700000-queue-indexes';
 import { ReviewDesk1764640000000 } from './1764640000000-review-desk';
 import { PeopleAndMail1764650000000 } from './1764650000000-people-and-mail';
 import { JobIntents1764670000000 } from './1764670000000-job-intents';
+import { FleetLibrary1764717000000 } from './1764717000000-fleet-library';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
@@ -11,4 +12,5 @@ export const MIGRATIONS = [
   ReviewDesk1764640000000,
   PeopleAndMail1764650000000,
   JobIntents1764670000000,
+  FleetLibrary1764717000000,
 ];
