@@ -262,6 +262,7 @@ export const ConfigurationSummary = z.object({
   workingArea: z.enum(WORKING_AREAS),
   /** Capacity at the radius asked for in the list's query (chart units), when one was asked */
   capacityAtRadius: z.number().nullable(),
+  capacityUnit: z.enum(WEIGHT_UNITS),
 });
 
 export const CraneSummary = z.object({

@@ -261,6 +261,7 @@ async function craneSummary(
       current: summaries.find((s) => s.id === v.id)!,
       workingArea: v.details.workingArea,
       capacityAtRadius: capacityAt,
+      capacityUnit: v.chartUnits.capacity,
     });
   }
   return {

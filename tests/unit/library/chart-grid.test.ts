@@ -211,3 +211,36 @@ describe('chart grid use', () => {
     expect(fill.crane.name).toBe('HR-07 — Demo AT60, Main boom, 18 t (library version 2)');
   });
 });
+
+describe('chart pictures', () => {
+  it('when the working range is drawn, then the tip height follows the boom as a hinged straight line', async () => {
+    const { workingRange, capacityLines, ticks } = await import('@shared/library/chart-plot');
+    const g = previewText('radius (m) / boom (m) / capacity (t),10,20\n6,10,8\n12,,5').grid!;
+    // Hand-worked: L = 10 m, offset 1 m, pivot 2 m high, R = 6 m → 2 + √(100 − 25) = 10.660 m
+    const [ten, twenty] = workingRange(g, 1, 2);
+    expect(ten.points).toHaveLength(1);
+    expect(ten.points[0].y).toBeCloseTo(2 + Math.sqrt(75), 9);
+    // L = 20 m at R = 12 m → 2 + √(400 − 121)
+    expect(twenty.points[1].y).toBeCloseTo(2 + Math.sqrt(279), 9);
+    expect(capacityLines(g)[1].points).toEqual([
+      { x: 6, y: 8 },
+      { x: 12, y: 5 },
+    ]);
+    expect(ticks(47)).toEqual([0, 10, 20, 30, 40, 50]);
+  });
+});
+
+describe('demo fleets', () => {
+  it('when the demo charts are read back as files, then every one is a valid chart without errors', async () => {
+    const { DEMO_FLEETS } = await import('@server/db/seed/library');
+    const charts = Object.values(DEMO_FLEETS).flatMap((cranes) =>
+      cranes.flatMap((c) => c.configs.map((k) => k.chart)),
+    );
+    expect(charts.length).toBeGreaterThanOrEqual(6);
+    for (const g of charts) {
+      const p = previewText(gridToCsv(g));
+      expect(p.errors).toEqual([]);
+      expect(p.warnings).toEqual([]);
+    }
+  });
+});
