@@ -175,3 +175,19 @@ export function capacityAtRadius(
   });
   return best;
 }
+
+/** The planner's own figures of the crane step: never filled from the library, never locked. */
+const PLANNED = new Set(['crane.boomLength', 'crane.boomAngle', 'crane.radius', 'crane.slewAngle']);
+
+/** A lift input path the library fills (read-only while the package uses a library version). */
+export function isLibraryPath(path: string): boolean {
+  if (PLANNED.has(path)) return false;
+  return (
+    path.startsWith('crane.') ||
+    path === 'crane' ||
+    path.startsWith('chart.') ||
+    path === 'chart' ||
+    path === 'hookBlock.weight' ||
+    path.startsWith('chartDeductions')
+  );
+}

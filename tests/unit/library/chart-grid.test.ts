@@ -244,3 +244,15 @@ describe('demo fleets', () => {
     }
   });
 });
+
+describe('library paths', () => {
+  it("when a path is the planner's own figure, then the library neither fills nor locks it", async () => {
+    const { isLibraryPath } = await import('@shared/library/to-lift-input');
+    expect(isLibraryPath('crane.radius')).toBe(false);
+    expect(isLibraryPath('crane.boomLength')).toBe(false);
+    expect(isLibraryPath('crane.upperWorks.weight')).toBe(true);
+    expect(isLibraryPath('chart.rows')).toBe(true);
+    expect(isLibraryPath('hookBlock.height')).toBe(false);
+    expect(isLibraryPath('load.weight')).toBe(false);
+  });
+});

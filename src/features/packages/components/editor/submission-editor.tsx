@@ -12,6 +12,8 @@ import { draftInputs } from '../../lib/prune';
 import { useDraftAutosave } from '../../hooks/use-draft-autosave';
 import { formValues, isTouched, useLiftForm, useLiftIssues, useLiftValues } from '../../hooks/use-lift-form';
 import { useSubmitRevision } from '../../hooks/use-submit-revision';
+import { useLibraryFill, type EditorLibrary } from '../../hooks/use-library-fill';
+import { isLibraryPath } from '@shared/library/to-lift-input';
 import { LiftField } from './lift-field';
 import { ChartRowsEditor } from './chart-rows-editor';
 import { LiveCheckPanel } from './live-check-panel';
@@ -22,7 +24,15 @@ import { ReviewStep } from './review-step';
 import { StepNav } from './step-nav';
 import { SubmitBar } from './submit-bar';
 
-export function SubmissionEditor({ detail, system }: { detail: PackageDetail; system: UnitSystem }) {
+export function SubmissionEditor({
+  detail,
+  system,
+  library,
+}: {
+  detail: PackageDetail;
+  system: UnitSystem;
+  library?: EditorLibrary;
+}) {
   const [params, setParams] = useSearchParams();
   const packageId = detail.package.id;
   const stepParam = params.get('step');
@@ -31,6 +41,7 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
   const form = useLiftForm(detail);
   const { control, reset, formState } = form;
   const values = useLiftValues(control);
+  const fillFromLibrary = useLibraryFill(form);
 
   const [title, setTitle] = useState(detail.package.title);
   const [plannedLiftDate, setPlannedLiftDate] = useState(detail.package.plannedLiftDate ?? '');
@@ -122,6 +133,7 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
             <h2 id="step-title" className="mb-3 text-[17px] font-black">
               {index + 1}. {current.title}
             </h2>
+            {(step === 'crane' || step === 'chart') && library?.picker(fillFromLibrary)}
             {current.groups
               .filter((group) => !group.when || group.when(live))
               .map((group) => (
@@ -132,12 +144,22 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
                   {group.note && <p className="mb-2 text-[12.5px] text-ink-soft">{group.note}</p>}
                   <div className="grid grid-cols-[repeat(auto-fill,minmax(13.5rem,1fr))] gap-x-4 gap-y-3">
                     {group.fields.map((def) => (
-                      <LiftField key={def.path} def={def} system={system} />
+                      <fieldset
+                        key={def.path}
+                        className="contents"
+                        disabled={!!library?.locked && isLibraryPath(def.path)}
+                      >
+                        <LiftField def={def} system={system} />
+                      </fieldset>
                     ))}
                   </div>
                 </fieldset>
               ))}
-            {step === 'chart' && <ChartRowsEditor system={system} />}
+            {step === 'chart' && (
+              <fieldset className="contents" disabled={!!library?.locked}>
+                <ChartRowsEditor system={system} />
+              </fieldset>
+            )}
             {step === 'documents' && (
               <DocumentsStep
                 detail={detail}
