@@ -9,6 +9,10 @@ import { ErrorPanel } from '@/components/ui/panel-message';
 import { useVersion } from '@/features/library/api/versions';
 import { VersionPanel } from '@/features/library/components/version-panel';
 import { versionLabel } from '@shared/library/to-lift-input';
+import { TO_SI } from '@shared/engineering/units';
+import type { LiftFigures } from '@shared/engineering/types';
+import { useQuery } from '@tanstack/react-query';
+import { packageQueryOptions } from '@/features/packages/api/get-package';
 
 export default function LibraryVersionRoute() {
   const { id = '' } = useParams();
@@ -16,7 +20,21 @@ export default function LibraryVersionRoute() {
   const packageId = search.get('package') ?? undefined;
   const { data: user } = useCurrentUser();
   const version = useVersion(id);
+  const pkg = useQuery({ ...packageQueryOptions(packageId ?? ''), enabled: !!packageId });
   if (!user) return null;
+  // The package's lift point (its recomputed radius and gross load), in the chart's units.
+  const figures = (pkg.data?.current.results as { figures?: LiftFigures } | null | undefined)?.figures;
+  const units = version.data?.chart.units;
+  const liftPoints =
+    packageId && figures?.radius != null && units
+      ? [
+          {
+            radius: figures.radius / TO_SI[units.radius],
+            load: figures.grossLoad / TO_SI[units.capacity],
+            label: `${pkg.data?.package.reference}: gross load`,
+          },
+        ]
+      : undefined;
   return (
     <>
       <PageHeader
@@ -31,7 +49,12 @@ export default function LibraryVersionRoute() {
         />
       )}
       {version.data && (
-        <VersionPanel version={version.data} canVerify={user.role === 'engineer'} packageId={packageId} />
+        <VersionPanel
+          version={version.data}
+          canVerify={user.role === 'engineer'}
+          packageId={packageId}
+          liftPoints={liftPoints}
+        />
       )}
     </>
   );
