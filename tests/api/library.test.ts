@@ -374,6 +374,38 @@ describe('fleet library', () => {
     expect((await b.get(`/api/packages/${pkg.id}/library-uses`)).status).toBe(404);
   });
 
+  it('when a returned package starts its next revision, then the new draft keeps the library version it used', async () => {
+    const { w, a, v1 } = await fleet();
+    const version = (await a.get(`/api/library/versions/${v1}`)).body as VersionDetail;
+    const pkg = await makePackage(t.ctx.dataSource, {
+      contractor: w.contractorA,
+      site: w.site,
+      createdBy: w.plannerA,
+      status: 'draft',
+      inputs: liftFromLibrary(version),
+    });
+    await a.put(`/api/packages/${pkg.id}/library-uses`).send({ versionId: v1 });
+    await t.ctx.dataSource.query(
+      `UPDATE lift_packages SET status = 'returned', decision = 'revise_and_resubmit' WHERE id = $1`,
+      [pkg.id],
+    );
+    await t.ctx.dataSource.query(
+      `UPDATE revisions SET state = 'submitted', submitted_at = now() WHERE package_id = $1`,
+      [pkg.id],
+    );
+    expect((await a.post(`/api/packages/${pkg.id}/revisions`)).status).toBe(201);
+    const uses = await a.get(`/api/packages/${pkg.id}/library-uses`);
+    expect(uses.body.items).toHaveLength(1);
+    expect(uses.body.items[0]).toMatchObject({ version: { id: v1 }, detached: false, changedCells: [] });
+    // The draft of revision 2 may change its pick; revision 1 keeps its own.
+    expect((await a.delete(`/api/packages/${pkg.id}/library-uses/0`)).status).toBe(204);
+    const rows = await t.ctx.dataSource.query(
+      `SELECT r.number FROM library_uses u JOIN revisions r ON r.id = u.revision_id WHERE u.package_id = $1`,
+      [pkg.id],
+    );
+    expect(rows).toEqual([{ number: 1 }]);
+  });
+
   it("when the manufacturer's document is attached and the chart exported, then both come back as stored", async () => {
     const { a, v1 } = await fleet();
     const pdf = await makePdf(1);

@@ -789,3 +789,12 @@ export async function removeUse(ds: DataSource, user: U, packageId: string, slot
     await audit(m, user, 'library.use_removed', { revision: revision.number, slot }, pkg.id);
   });
 }
+
+/** A new revision starts from the previous one's inputs: it keeps the library versions it used. */
+export async function carryLibraryUses(m: EntityManager, fromRevisionId: string, toRevisionId: string) {
+  await m.query(
+    `INSERT INTO library_uses (revision_id, package_id, slot, version_id, detached)
+     SELECT $2, package_id, slot, version_id, detached FROM library_uses WHERE revision_id = $1`,
+    [fromRevisionId, toRevisionId],
+  );
+}
