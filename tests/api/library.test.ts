@@ -438,6 +438,36 @@ describe('fleet library', () => {
     expect((await a.get(`/api/library/versions/${v1}/chart?format=pdf`)).status).toBe(400);
   });
 
+  it('when the OpenAPI document is read, then every library route is in it', async () => {
+    const paths = (await supertest(t.app).get('/api/openapi.json')).body.paths as Record<string, object>;
+    const library = Object.entries(paths)
+      .filter(([p]) => p.includes('/library'))
+      .flatMap(([p, ops]) => Object.keys(ops).map((m) => `${m} ${p}`))
+      .sort();
+    expect(library).toEqual([
+      'delete /api/library/versions/{id}',
+      'delete /api/packages/{id}/library-uses/{slot}',
+      'get /api/library/configurations/{id}',
+      'get /api/library/cranes',
+      'get /api/library/cranes/{id}',
+      'get /api/library/versions/{id}',
+      'get /api/library/versions/{id}/chart',
+      'get /api/library/versions/{id}/document',
+      'get /api/packages/{id}/library-uses',
+      'patch /api/library/cranes/{id}',
+      'post /api/library/chart-import/file',
+      'post /api/library/chart-import/text',
+      'post /api/library/configurations/{id}/versions',
+      'post /api/library/cranes',
+      'post /api/library/cranes/{id}/configurations',
+      'post /api/library/cranes/{id}/retire',
+      'post /api/library/versions/{id}/document',
+      'post /api/library/versions/{id}/retire',
+      'post /api/library/versions/{id}/verifications',
+      'put /api/packages/{id}/library-uses',
+    ]);
+  });
+
   it('when the fleet is searched by model and by capacity at a radius, then only configurations that rate it are listed', async () => {
     const { a, crane } = await fleet();
     const byNumber = await a.get('/api/library/cranes').query({ q: crane.fleetNumber });

@@ -3,7 +3,16 @@
 // and finds the crane fields filled and read-only. Screenshots land in test-output/screenshots/.
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { close, launch, screenshot, screenshotOnFailure, signedIn, unique } from './support/browser';
+import {
+  close,
+  describeViolations,
+  launch,
+  screenshot,
+  screenshotOnFailure,
+  seriousViolations,
+  signedIn,
+  unique,
+} from './support/browser';
 import { apiAs } from './support/api';
 
 let browser: Browser;
@@ -20,6 +29,8 @@ describe('fleet library', () => {
     await page.getByRole('heading', { level: 1, name: 'Fleet library' }).waitFor();
     await page.getByRole('link', { name: 'BW-07' }).waitFor();
     await screenshot(page, 'library-fleet');
+    let violations = await seriousViolations(page);
+    expect(violations, describeViolations(violations)).toEqual([]);
     await page.getByRole('link', { name: 'BW-07' }).click();
     await page.getByRole('button', { name: '+ New configuration' }).click();
     const paste = page.getByLabel('Paste the chart cells');
@@ -30,6 +41,8 @@ describe('fleet library', () => {
     expect(await errors.textContent()).toContain('B3: "abc" is not a number');
     expect(await page.locator('td[data-ref="B3"]').textContent()).toContain('✕ error');
     await screenshot(page, 'library-import-preview');
+    violations = await seriousViolations(page);
+    expect(violations, describeViolations(violations)).toEqual([]);
     await paste.fill('radius (m) / boom (m) / capacity (t)\t20\t30\n4\t40\t33\n6\t30\t25\n8\t20\t18');
     await page.getByRole('button', { name: 'Read the pasted cells' }).click();
     await page.getByRole('button', { name: 'Use this chart' }).click();
@@ -39,6 +52,8 @@ describe('fleet library', () => {
     await page.getByRole('heading', { name: /^Version 1/ }).waitFor();
     await page.getByRole('img', { name: 'Rated capacity against radius' }).waitFor();
     await screenshot(page, 'library-configuration');
+    violations = await seriousViolations(page);
+    expect(violations, describeViolations(violations)).toEqual([]);
   });
 
   it('when the planner picks from the library in the editor, then the crane fields fill and are read-only', async () => {
@@ -66,6 +81,8 @@ describe('fleet library', () => {
     expect(await name.isDisabled()).toBe(true);
     expect(await page.getByLabel('Boom length', { exact: true }).isDisabled()).toBe(false);
     await screenshot(page, 'library-pick-step');
+    const violations = await seriousViolations(page);
+    expect(violations, describeViolations(violations)).toEqual([]);
     await page.getByRole('button', { name: 'Detach a copy to edit' }).click();
     await page.getByText('Detached copy of').waitFor();
     expect(await name.isDisabled()).toBe(false);
