@@ -14,6 +14,7 @@ import {
   unique,
 } from './support/browser';
 import { apiAs } from './support/api';
+import { liftPlanPdf } from './support/pdf';
 
 let browser: Browser;
 screenshotOnFailure();
@@ -51,6 +52,11 @@ describe('fleet library', () => {
     await page.getByRole('button', { name: 'Save the configuration' }).click();
     await page.getByRole('heading', { name: /^Version 1/ }).waitFor();
     await page.getByRole('img', { name: 'Rated capacity against radius' }).waitFor();
+    await page
+      .getByLabel("Manufacturer's document (PDF)")
+      .setInputFiles(await liftPlanPdf('chart.pdf', 2, 'Demo chart'));
+    await page.getByRole('button', { name: 'Attach the PDF' }).click();
+    await page.getByRole('link', { name: 'open the PDF (2 pages)' }).waitFor();
     await screenshot(page, 'library-configuration');
     violations = await seriousViolations(page);
     expect(violations, describeViolations(violations)).toEqual([]);

@@ -2,7 +2,7 @@
 // and the links for its document and chart files.
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { VersionDetail } from '@shared/schemas/library';
-import { api } from '@/lib/api-client';
+import { api, apiErrorFrom } from '@/lib/api-client';
 import { libraryKeys } from './keys';
 
 const base = (id: string) => `/api/library/versions/${encodeURIComponent(id)}`;
@@ -32,6 +32,26 @@ export function useVerifyVersion() {
   return useMutation({
     mutationFn: (v: { id: string; note: string; packageId?: string }) =>
       api.post(`${base(v.id)}/verifications`, { note: v.note, packageId: v.packageId }, VersionDetail),
+    onSuccess: () => qc.invalidateQueries({ queryKey: libraryKeys.all }),
+  });
+}
+
+/** POST /api/library/versions/:id/document: the manufacturer's PDF, once per version. */
+export function useAttachDocument() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: async ({ id, file }: { id: string; file: File }) => {
+      const form = new FormData();
+      form.append('file', file, file.name);
+      let res: Response;
+      try {
+        res = await fetch(`${base(id)}/document`, { method: 'POST', body: form, credentials: 'include' });
+      } catch {
+        throw apiErrorFrom(0, '');
+      }
+      if (!res.ok) throw apiErrorFrom(res.status, await res.text());
+      return VersionDetail.parse(await res.json());
+    },
     onSuccess: () => qc.invalidateQueries({ queryKey: libraryKeys.all }),
   });
 }

@@ -106,7 +106,7 @@ export function ConfigurationView({ id, system }: { id: string; system: UnitSyst
                 }
               />
             ) : (
-              <VersionPanel version={version.data} />
+              <VersionPanel version={version.data} canAttach />
             )}
             {add.isError && (
               <ErrorPanel

@@ -7,7 +7,7 @@ import { formatDate } from '@/lib/format';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { ErrorPanel } from '@/components/ui/panel-message';
 import { isApiError } from '@/lib/api-client';
-import { chartFileUrl, documentUrl, useVerifyVersion } from '../api/versions';
+import { chartFileUrl, documentUrl, useAttachDocument, useVerifyVersion } from '../api/versions';
 import { ChartGridTable } from './chart-grid-table';
 import { ChartPlots, type LiftPoint } from './chart-plot';
 
@@ -71,15 +71,47 @@ export function VerificationBlock({
   );
 }
 
+function AttachDocument({ version }: { version: VersionDetail }) {
+  const attach = useAttachDocument();
+  const [file, setFile] = useState<File | null>(null);
+  return (
+    <span className="mt-1 flex flex-wrap items-center gap-2">
+      <label className="text-[13px]">
+        <span className="sr-only">Manufacturer's document (PDF)</span>
+        <input
+          type="file"
+          accept="application/pdf,.pdf"
+          onChange={(e) => setFile(e.target.files?.[0] ?? null)}
+        />
+      </label>
+      <Button
+        size="sm"
+        disabled={!file || attach.isPending}
+        onClick={() => file && attach.mutate({ id: version.id, file })}
+      >
+        {attach.isPending ? 'Attaching…' : 'Attach the PDF'}
+      </Button>
+      {attach.isError && (
+        <span role="alert" className="text-[13px] font-bold text-failed-ink">
+          {isApiError(attach.error) ? attach.error.message : 'Not attached. Try again.'}
+        </span>
+      )}
+    </span>
+  );
+}
+
 export function VersionPanel({
   version,
   liftPoints,
   canVerify = false,
+  canAttach = false,
   packageId,
 }: {
   version: VersionDetail;
   liftPoints?: LiftPoint[];
   canVerify?: boolean;
+  /** The contractor may attach the PDF while the version has none and no package uses it */
+  canAttach?: boolean;
   packageId?: string;
 }) {
   const d = version.details;
@@ -139,6 +171,9 @@ export function VersionPanel({
             </>
           ) : (
             <span className="text-ink-soft"> · no PDF attached</span>
+          )}
+          {canAttach && !version.document.file && version.usedBy === 0 && (
+            <AttachDocument version={version} />
           )}
         </dd>
       </dl>
