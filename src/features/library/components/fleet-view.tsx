@@ -28,7 +28,7 @@ export function useFleetFilters() {
       <label className="flex flex-col gap-1 text-[13px] font-bold">
         Fleet number, make or model
         <input
-          className={`${inputClasses} w-64`}
+          className={`${inputClasses.replace('w-full', '')} w-64`}
           value={q}
           onChange={(e) => setQ(e.target.value)}
           type="search"
@@ -38,14 +38,14 @@ export function useFleetFilters() {
         Planned radius
         <span className="flex gap-1">
           <input
-            className={`${inputClasses} w-20`}
+            className={`${inputClasses.replace('w-full', '')} w-20`}
             inputMode="decimal"
             value={radius}
             onChange={(e) => setRadius(e.target.value)}
           />
           <select
             aria-label="Radius unit"
-            className={`${selectClasses} w-16`}
+            className={`${selectClasses.replace('w-full', '')} w-16`}
             value={radiusUnit}
             onChange={(e) => setRadiusUnit(e.target.value)}
           >
@@ -58,7 +58,7 @@ export function useFleetFilters() {
         Needs at least
         <span className="flex gap-1">
           <input
-            className={`${inputClasses} w-20`}
+            className={`${inputClasses.replace('w-full', '')} w-20`}
             inputMode="decimal"
             value={capacity}
             onChange={(e) => setCapacity(e.target.value)}
@@ -66,7 +66,7 @@ export function useFleetFilters() {
           />
           <select
             aria-label="Capacity unit"
-            className={`${selectClasses} w-20`}
+            className={`${selectClasses.replace('w-full', '')} w-20`}
             value={capacityUnit}
             onChange={(e) => setCapacityUnit(e.target.value)}
           >

@@ -32,7 +32,7 @@ export function QuantityField({
         <input
           id={id}
           inputMode="decimal"
-          className={`${inputClasses} w-28`}
+          className={`${inputClasses.replace('w-full', '')} w-28`}
           aria-invalid={!!error}
           aria-describedby={error ? `${id}-e` : undefined}
           defaultValue={value?.value ?? ''}
@@ -44,7 +44,7 @@ export function QuantityField({
         />
         <select
           aria-label={`${label}: unit`}
-          className={`${selectClasses} w-20`}
+          className={`${selectClasses.replace('w-full', '')} w-20`}
           value={unit}
           onChange={(e) => onChange(value ? { ...value, unit: e.target.value } : undefined)}
         >
