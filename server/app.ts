@@ -18,6 +18,7 @@ import { authRoutes } from './modules/auth/routes';
 import { calculationRoutes } from './modules/calculations/routes';
 import { checkRunRoutes } from './modules/check-runs/routes';
 import { healthRoutes } from './modules/health/routes';
+import { libraryRoutes } from './modules/library/routes';
 import { packageRoutes } from './modules/packages/routes';
 import { profileRoutes } from './modules/profile/routes';
 import { returnRoutes } from './modules/returns/routes';
@@ -74,6 +75,7 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   app.use('/api', returnRoutes(ctx));
   app.use('/api', verifyRoutes(ctx));
   app.use('/api', profileRoutes(ctx));
+  app.use('/api', libraryRoutes(ctx));
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApiDocument());
   });

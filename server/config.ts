@@ -26,6 +26,12 @@ const Env = z
       .min(1024)
       .default(100 * 1024 * 1024),
     UPLOAD_MAX_PAGES: z.coerce.number().int().min(1).default(500),
+    /** Largest chart file (CSV or .xlsx) the fleet library's importer reads */
+    CHART_IMPORT_MAX_BYTES: z.coerce
+      .number()
+      .int()
+      .min(1024)
+      .default(5 * 1024 * 1024),
     SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
     // Sign-in attempts per window from one address (any e-mail: password spraying) and for
     // one account (from any address).

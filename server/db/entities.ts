@@ -4,6 +4,7 @@
 // only in the migrations (TypeORM's index metadata does not compare them).
 import { AuditEvent } from '../modules/audit/audit-event.entity';
 import { UploadedFile } from '../modules/files/file.entity';
+import { LIBRARY_ENTITIES } from '../modules/library/library.entity';
 import { CaughtMail, MailMessage } from '../modules/mail/mail.entity';
 import { Organisation } from '../modules/organisations/organisation.entity';
 import { LiftPackage, Revision } from '../modules/packages/package.entity';
@@ -27,4 +28,5 @@ export const ENTITIES = [
   AuditEvent,
   MailMessage,
   CaughtMail,
+  ...LIBRARY_ENTITIES,
 ];

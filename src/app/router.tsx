@@ -27,6 +27,10 @@ const AdminPeopleRoute = lazy(() => import('./routes/admin-people'));
 const AdminMailRoute = lazy(() => import('./routes/admin-mail'));
 const ProfileRoute = lazy(() => import('./routes/profile'));
 const InviteRoute = lazy(() => import('./routes/invite'));
+const LibraryRoute = lazy(() => import('./routes/library'));
+const LibraryCraneRoute = lazy(() => import('./routes/library-crane'));
+const LibraryConfigurationRoute = lazy(() => import('./routes/library-configuration'));
+const LibraryVersionRoute = lazy(() => import('./routes/library-version'));
 
 function contractorOnly(path: string, element: ReactNode): RouteObject {
   return {
@@ -106,6 +110,17 @@ export const routes: RouteObject[] = [
       guarded('/admin/people', <AdminPeopleRoute />),
       guarded('/admin/mail', <AdminMailRoute />),
       guarded('/profile', <ProfileRoute />),
+      guarded('/library', <LibraryRoute />),
+      contractorOnly('/library/cranes/:id', <LibraryCraneRoute />),
+      contractorOnly('/library/configurations/:id', <LibraryConfigurationRoute />),
+      {
+        path: '/library/versions/:id',
+        element: (
+          <Page>
+            <LibraryVersionRoute />
+          </Page>
+        ),
+      },
       contractorOnly('/packages/new', <PackageNewRoute />),
       contractorOnly('/packages/:id/edit', <PackageEditRoute />),
       {

@@ -27,6 +27,12 @@ export const NAV_ITEMS: readonly NavItem[] = [
     roles: ['contractor'],
   },
   {
+    to: '/library',
+    label: 'Fleet library',
+    description: 'Your cranes, their configurations and load charts, entered once for every package',
+    roles: ['contractor'],
+  },
+  {
     to: '/queue',
     label: 'Site queue',
     description: 'Every package for your sites, by planned lift date',

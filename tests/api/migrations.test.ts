@@ -47,14 +47,14 @@ describe('migrations', () => {
         ]),
       );
       const count = async (sql: string) => Number((await ds.query(sql))[0].n);
-      // The last migration adds the sessions table; the one before it the return's signing certificate.
+      // The last migration adds the fleet library; the one before it the sessions table.
       const lastMigration = async () => [
-        await count(`SELECT count(*) AS n FROM information_schema.tables WHERE table_name = 'sessions'`),
         await count(
-          `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'stamped_returns' AND column_name = 'signing_certificate_sha256'`,
+          `SELECT count(*) AS n FROM information_schema.tables WHERE table_name IN ('library_cranes', 'library_configurations', 'library_versions', 'library_chart_cells', 'library_verifications', 'library_uses')`,
         ),
+        await count(`SELECT count(*) AS n FROM information_schema.tables WHERE table_name = 'sessions'`),
       ];
-      expect(await lastMigration()).toEqual([1, 1]);
+      expect(await lastMigration()).toEqual([6, 1]);
       await ds.undoLastMigration();
       expect(await lastMigration()).toEqual([0, 1]);
       expect(await tables(ds)).toContain('lift_packages');

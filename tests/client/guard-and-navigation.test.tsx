@@ -74,7 +74,7 @@ describe('route guard', () => {
 
 describe('role navigation', () => {
   it.each([
-    ['contractor', ['Lift packages', 'Profile']],
+    ['contractor', ['Lift packages', 'Fleet library', 'Profile']],
     ['reviewer', ['Site queue', 'Profile']],
     ['engineer', ['Assigned to me', 'Profile']],
     [

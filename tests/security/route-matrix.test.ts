@@ -80,6 +80,27 @@ const ALLOWED: Record<string, Allowed> = {
   'GET /api/admin/mail': A,
   'GET /api/admin/mail/caught': A,
   'POST /api/admin/mail/:id/retry': A,
+  // The fleet library: a contractor's own fleet; the owner side reads versions through packages.
+  'GET /api/library/cranes': C,
+  'POST /api/library/cranes': C,
+  'GET /api/library/cranes/:id': C,
+  'PATCH /api/library/cranes/:id': C,
+  'POST /api/library/cranes/:id/retire': C,
+  'POST /api/library/cranes/:id/configurations': C,
+  'GET /api/library/configurations/:id': C,
+  'POST /api/library/configurations/:id/versions': C,
+  'POST /api/library/versions/:id/retire': C,
+  'DELETE /api/library/versions/:id': C,
+  'POST /api/library/versions/:id/document': C,
+  'POST /api/library/chart-import/file': C,
+  'POST /api/library/chart-import/text': C,
+  'PUT /api/packages/:id/library-uses': C,
+  'DELETE /api/packages/:id/library-uses/:slot': C,
+  'POST /api/library/versions/:id/verifications': E,
+  'GET /api/library/versions/:id': ALL,
+  'GET /api/library/versions/:id/document': ALL,
+  'GET /api/library/versions/:id/chart': ALL,
+  'GET /api/packages/:id/library-uses': ALL,
 };
 
 let t: TestApp;

@@ -5,6 +5,7 @@ import { Organisation } from '../../modules/organisations/organisation.entity';
 import { Site, SiteMember } from '../../modules/sites/site.entity';
 import { User } from '../../modules/users/user.entity';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
+import { seedLibrary } from './library';
 import { finishSeededPackages, seedPackages } from './packages';
 
 export async function seedScenario(
@@ -59,6 +60,7 @@ export async function seedScenario(
     for (const site of [refinery, wharf])
       await m.getRepository(SiteMember).save({ siteId: site.id, userId: reviewer.id });
     const seeded = await seedPackages(m, filesDir, { orgs, people, sites: { refinery, wharf } });
+    await seedLibrary(m, { orgs, people });
     return { seeded, people, reviewer };
   });
   await finishSeededPackages(dataSource, seeded, people, reviewer, { filesDir, appUrl: opts.appUrl });

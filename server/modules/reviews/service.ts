@@ -23,6 +23,7 @@ import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage, scopedPackages } from '../packages/package-scope';
 import { User } from '../users/user.entity';
 import { Assignment, DecisionRecord, Finding, Markup } from './review.entity';
+import { carryLibraryUses } from '../library/service';
 
 async function audit(
   m: EntityManager,
@@ -473,9 +474,10 @@ export async function startNextRevision(ds: DataSource, user: Express.User, pack
       .getRepository(Revision)
       .findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
     const number = pkg.currentRevision + 1;
-    await m
+    const next = await m
       .getRepository(Revision)
       .save({ packageId: pkg.id, number, state: 'draft', inputs: previous.inputs });
+    await carryLibraryUses(m, previous.id, next.id);
     await m.getRepository(LiftPackage).update(pkg.id, {
       currentRevision: number,
       status: 'draft',

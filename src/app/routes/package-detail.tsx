@@ -18,6 +18,7 @@ import { PackageResults } from '@/features/packages/components/detail/package-re
 import { FileRow } from '@/features/packages/components/editor/documents-step';
 import { ReturnsPanel } from '@/features/returns/components/returns-panel';
 import { ResubmissionPanel } from '@/features/returns/components/resubmission-panel';
+import { LibraryUsesPanel } from '@/features/library/components/library-uses-panel';
 
 export default function PackageDetailRoute() {
   const { id = '' } = useParams();
@@ -128,6 +129,7 @@ export default function PackageDetailRoute() {
 
       <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="flex min-w-0 flex-col gap-4">
+          <LibraryUsesPanel packageId={id} />
           {result ? (
             <PackageResults result={result} inputs={current.inputs} system={user.unitSystem} />
           ) : current.check.status === 'queued' || current.check.status === 'running' ? null : (

@@ -7,11 +7,13 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { ErrorPanel, EmptyState } from '@/components/ui/panel-message';
 import { usePackage } from '@/features/packages/api/get-package';
 import { SubmissionEditor } from '@/features/packages/components/editor/submission-editor';
+import { LibraryPicker, useLibraryLock } from '@/features/library/components/library-picker';
 
 export default function PackageEditRoute() {
   const { id = '' } = useParams();
   const { data: user } = useCurrentUser();
   const detail = usePackage(id);
+  const locked = useLibraryLock(id);
   if (!user) return null;
   if (detail.isPending) return <PageLoading label="Opening the draft" />;
   if (detail.isError)
@@ -40,5 +42,12 @@ export default function PackageEditRoute() {
         </p>
       </EmptyState>
     );
-  return <SubmissionEditor key={detail.data.current.id} detail={detail.data} system={user.unitSystem} />;
+  return (
+    <SubmissionEditor
+      key={detail.data.current.id}
+      detail={detail.data}
+      system={user.unitSystem}
+      library={{ locked, picker: (fill) => <LibraryPicker packageId={id} fill={fill} /> }}
+    />
+  );
 }

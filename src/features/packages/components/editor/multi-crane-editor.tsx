@@ -14,10 +14,13 @@ export function FieldGroups({
   groups,
   values,
   system,
+  locked,
 }: {
   groups: FieldGroup[];
   values: Record<string, unknown>;
   system: UnitSystem;
+  /** Fields filled from the fleet library, read-only until a copy is detached. */
+  locked?: (path: string) => boolean;
 }) {
   return (
     <>
@@ -30,9 +33,15 @@ export function FieldGroups({
             </legend>
             {group.note && <p className="mb-2 text-[12.5px] text-ink-soft">{group.note}</p>}
             <div className="grid grid-cols-[repeat(auto-fill,minmax(13.5rem,1fr))] gap-x-4 gap-y-3">
-              {group.fields.map((def) => (
-                <LiftField key={def.path} def={def} system={system} />
-              ))}
+              {group.fields.map((def) =>
+                locked ? (
+                  <fieldset key={def.path} className="contents" disabled={locked(def.path)}>
+                    <LiftField def={def} system={system} />
+                  </fieldset>
+                ) : (
+                  <LiftField key={def.path} def={def} system={system} />
+                ),
+              )}
             </div>
           </fieldset>
         ))}

@@ -13,6 +13,8 @@ import { draftInputs } from '../../lib/prune';
 import { useDraftAutosave } from '../../hooks/use-draft-autosave';
 import { formValues, isTouched, useLiftForm, useLiftIssues, useLiftValues } from '../../hooks/use-lift-form';
 import { useSubmitRevision } from '../../hooks/use-submit-revision';
+import { useLibraryFill, type EditorLibrary } from '../../hooks/use-library-fill';
+import { isLibraryPath } from '@shared/library/to-lift-input';
 import { ChartRowsEditor } from './chart-rows-editor';
 import { FieldGroups, MultiCraneEditor } from './multi-crane-editor';
 import { LiveCheckPanel } from './live-check-panel';
@@ -23,7 +25,15 @@ import { ReviewStep } from './review-step';
 import { StepNav } from './step-nav';
 import { SubmitBar } from './submit-bar';
 
-export function SubmissionEditor({ detail, system }: { detail: PackageDetail; system: UnitSystem }) {
+export function SubmissionEditor({
+  detail,
+  system,
+  library,
+}: {
+  detail: PackageDetail;
+  system: UnitSystem;
+  library?: EditorLibrary;
+}) {
   const [params, setParams] = useSearchParams();
   const packageId = detail.package.id;
   const stepParam = params.get('step');
@@ -32,6 +42,7 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
   const form = useLiftForm(detail);
   const { control, reset, formState } = form;
   const values = useLiftValues(control);
+  const fillFromLibrary = useLibraryFill(form);
 
   const [title, setTitle] = useState(detail.package.title);
   const [plannedLiftDate, setPlannedLiftDate] = useState(detail.package.plannedLiftDate ?? '');
@@ -123,8 +134,18 @@ export function SubmissionEditor({ detail, system }: { detail: PackageDetail; sy
             <h2 id="step-title" className="mb-3 text-[17px] font-black">
               {index + 1}. {current.title}
             </h2>
-            <FieldGroups groups={current.groups} values={live} system={system} />
-            {step === 'chart' && <ChartRowsEditor system={system} />}
+            {(step === 'crane' || step === 'chart') && library?.picker(fillFromLibrary)}
+            <FieldGroups
+              groups={current.groups}
+              values={live}
+              system={system}
+              locked={library?.locked ? isLibraryPath : undefined}
+            />
+            {step === 'chart' && (
+              <fieldset className="contents" disabled={!!library?.locked}>
+                <ChartRowsEditor system={system} />
+              </fieldset>
+            )}
             {step === 'cranes' && <MultiCraneEditor system={system} />}
             {step === 'documents' && (
               <DocumentsStep

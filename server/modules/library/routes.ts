@@ -1,0 +1,466 @@
+// The fleet library's routes, thin, each described for OpenAPI beside it. The contractor keeps
+// its cranes, configurations and versions; the owner side reads the versions its packages use
+// and its engineers verify them. Chart files are previewed here; nothing is stored until the
+// client sends the accepted grid as a new version.
+import type { NextFunction, Request, Response } from 'express';
+import { Router } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import {
+  ChartPreviewResponse,
+  ChartTextBody,
+  ConfigurationBody,
+  ConfigurationDetail,
+  CraneBody,
+  CraneDetail,
+  CraneList,
+  CraneListQuery,
+  CranePatch,
+  ExportQuery,
+  LibraryUseBody,
+  LibraryUseList,
+  VerificationBody,
+  VersionBody,
+  VersionDetail,
+} from '@shared/schemas/library';
+import { previewText } from '@shared/library/chart-text';
+import type { AppContext } from '../../context';
+import { AppError } from '../../lib/app-error';
+import { describeRoute } from '../../lib/openapi';
+import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
+import { valid, validate } from '../../middleware/validate';
+import { chartCsv, chartXlsx, previewChartFile } from './chart-files';
+import {
+  addVersion,
+  attachDocument,
+  chartOf,
+  createConfiguration,
+  createCrane,
+  deleteVersion,
+  getConfiguration,
+  getCrane,
+  getVersion,
+  listCranes,
+  listUses,
+  patchCrane,
+  readDocument,
+  removeUse,
+  retireCrane,
+  retireVersion,
+  setUse,
+  verifyVersion,
+} from './service';
+
+export const LibraryIdParams = z.object({ id: z.uuid({ error: 'id must be a valid id' }) });
+export const LibraryUseParams = z.object({
+  id: z.uuid({ error: 'id must be a valid id' }),
+  slot: z.coerce
+    .number()
+    .int()
+    .min(0, { error: 'slot must be 0 to 3' })
+    .max(3, { error: 'slot must be 0 to 3' }),
+});
+const VerifyBody = VerificationBody.extend({ packageId: z.uuid().optional() });
+const FileUpload = z.object({ file: z.string().meta({ format: 'binary' }) });
+
+const tags = ['library'];
+describeRoute({
+  method: 'get',
+  path: '/library/cranes',
+  summary: "The contractor's fleet: search by fleet number, make or model; filter by capacity at a radius",
+  tags,
+  query: CraneListQuery,
+  response: CraneList,
+});
+describeRoute({
+  method: 'post',
+  path: '/library/cranes',
+  summary: 'Add a crane to the fleet (contractor)',
+  tags,
+  body: CraneBody,
+  response: CraneDetail,
+  status: 201,
+});
+describeRoute({
+  method: 'get',
+  path: '/library/cranes/:id',
+  summary: 'A crane of the fleet with its configurations (contractor)',
+  tags,
+  params: LibraryIdParams,
+  response: CraneDetail,
+});
+describeRoute({
+  method: 'patch',
+  path: '/library/cranes/:id',
+  summary: "Change a crane's fixed data; versions already written keep theirs (contractor)",
+  tags,
+  params: LibraryIdParams,
+  body: CranePatch,
+  response: CraneDetail,
+});
+describeRoute({
+  method: 'post',
+  path: '/library/cranes/:id/retire',
+  summary: 'Retire a crane from the fleet (contractor)',
+  tags,
+  params: LibraryIdParams,
+  response: CraneDetail,
+});
+describeRoute({
+  method: 'post',
+  path: '/library/cranes/:id/configurations',
+  summary: 'Add a configuration with its first version and chart (contractor)',
+  tags,
+  params: LibraryIdParams,
+  body: ConfigurationBody,
+  response: ConfigurationDetail,
+  status: 201,
+});
+describeRoute({
+  method: 'get',
+  path: '/library/configurations/:id',
+  summary: "A configuration's versions: who changed what, when (contractor)",
+  tags,
+  params: LibraryIdParams,
+  response: ConfigurationDetail,
+});
+describeRoute({
+  method: 'post',
+  path: '/library/configurations/:id/versions',
+  summary: 'Edit a configuration: writes a new version (contractor)',
+  tags,
+  params: LibraryIdParams,
+  body: VersionBody,
+  response: VersionDetail,
+  status: 201,
+});
+describeRoute({
+  method: 'get',
+  path: '/library/versions/:id',
+  summary:
+    'One configuration version with its chart grid (contractor, or the owner side of a package using it)',
+  tags,
+  params: LibraryIdParams,
+  response: VersionDetail,
+});
+describeRoute({
+  method: 'post',
+  path: '/library/versions/:id/retire',
+  summary: 'Retire a version: packages keep it, new ones cannot pick it (contractor)',
+  tags,
+  params: LibraryIdParams,
+  response: VersionDetail,
+});
+describeRoute({
+  method: 'delete',
+  path: '/library/versions/:id',
+  summary: 'Delete a version no package uses (contractor; 409 when in use: retire it)',
+  tags,
+  params: LibraryIdParams,
+  status: 204,
+});
+describeRoute({
+  method: 'post',
+  path: '/library/versions/:id/document',
+  summary: "Attach the manufacturer's document (PDF) to a version not yet in use (contractor)",
+  tags,
+  params: LibraryIdParams,
+  body: FileUpload,
+  bodyContentType: 'multipart/form-data',
+  response: VersionDetail,
+  status: 201,
+});
+describeRoute({
+  method: 'get',
+  path: '/library/versions/:id/document',
+  summary: "The manufacturer's document of a version (PDF)",
+  tags,
+  params: LibraryIdParams,
+  response: z.string().meta({ format: 'binary' }),
+  responseContentType: 'application/pdf',
+});
+describeRoute({
+  method: 'get',
+  path: '/library/versions/:id/chart',
+  summary: "A version's chart as CSV or .xlsx (values only)",
+  tags,
+  params: LibraryIdParams,
+  query: ExportQuery,
+  response: z.string().meta({ format: 'binary' }),
+  responseContentType: 'application/octet-stream',
+});
+describeRoute({
+  method: 'post',
+  path: '/library/versions/:id/verifications',
+  summary:
+    "Mark a version's chart verified against the manufacturer's document, for the engineer's own desk (engineer)",
+  tags,
+  params: LibraryIdParams,
+  body: VerifyBody,
+  response: VersionDetail,
+  status: 201,
+});
+describeRoute({
+  method: 'post',
+  path: '/library/chart-import/file',
+  summary:
+    'Preview a chart file (CSV or .xlsx): how each cell was read, the header units, errors by cell; stores nothing (contractor)',
+  tags,
+  body: FileUpload,
+  bodyContentType: 'multipart/form-data',
+  response: ChartPreviewResponse,
+});
+describeRoute({
+  method: 'post',
+  path: '/library/chart-import/text',
+  summary: 'Preview a chart pasted as text; stores nothing (contractor)',
+  tags,
+  body: ChartTextBody,
+  response: ChartPreviewResponse,
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/library-uses',
+  summary:
+    "The library versions a package's current revision uses, changed cells of a detached copy, and the desk's verifications",
+  tags,
+  params: LibraryIdParams,
+  response: LibraryUseList,
+});
+describeRoute({
+  method: 'put',
+  path: '/packages/:id/library-uses',
+  summary: 'Record that a draft uses a library version for one crane (contractor)',
+  tags,
+  params: LibraryIdParams,
+  body: LibraryUseBody,
+  response: LibraryUseList,
+});
+describeRoute({
+  method: 'delete',
+  path: '/packages/:id/library-uses/:slot',
+  summary: 'Stop using the library for one crane of a draft (contractor)',
+  tags,
+  params: LibraryUseParams,
+  status: 204,
+});
+
+export function libraryRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const ds = ctx.dataSource;
+  const auth = requireAuth(ctx.passport);
+  const contractor = requireRole('contractor');
+  router.use(['/library', '/packages/:id/library-uses'], auth);
+
+  router.get('/library/cranes', contractor, validate({ query: CraneListQuery }), async (req, res) => {
+    res.json(await listCranes(ds, currentUser(req), valid(req, 'query', CraneListQuery)));
+  });
+  router.post('/library/cranes', contractor, validate({ body: CraneBody }), async (req, res) => {
+    res.status(201).json(await createCrane(ds, currentUser(req), valid(req, 'body', CraneBody)));
+  });
+  router.get('/library/cranes/:id', contractor, validate({ params: LibraryIdParams }), async (req, res) => {
+    res.json(await getCrane(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+  });
+  router.patch(
+    '/library/cranes/:id',
+    contractor,
+    validate({ params: LibraryIdParams, body: CranePatch }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', LibraryIdParams);
+      res.json(await patchCrane(ds, currentUser(req), id, valid(req, 'body', CranePatch)));
+    },
+  );
+  router.post(
+    '/library/cranes/:id/retire',
+    contractor,
+    validate({ params: LibraryIdParams }),
+    async (req, res) => {
+      res.json(await retireCrane(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+    },
+  );
+  router.post(
+    '/library/cranes/:id/configurations',
+    contractor,
+    validate({ params: LibraryIdParams, body: ConfigurationBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', LibraryIdParams);
+      res
+        .status(201)
+        .json(await createConfiguration(ds, currentUser(req), id, valid(req, 'body', ConfigurationBody)));
+    },
+  );
+  router.get(
+    '/library/configurations/:id',
+    contractor,
+    validate({ params: LibraryIdParams }),
+    async (req, res) => {
+      res.json(await getConfiguration(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+    },
+  );
+  router.post(
+    '/library/configurations/:id/versions',
+    contractor,
+    validate({ params: LibraryIdParams, body: VersionBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', LibraryIdParams);
+      res.status(201).json(await addVersion(ds, currentUser(req), id, valid(req, 'body', VersionBody)));
+    },
+  );
+  router.get('/library/versions/:id', validate({ params: LibraryIdParams }), async (req, res) => {
+    res.json(await getVersion(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+  });
+  router.post(
+    '/library/versions/:id/retire',
+    contractor,
+    validate({ params: LibraryIdParams }),
+    async (req, res) => {
+      res.json(await retireVersion(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+    },
+  );
+  router.delete(
+    '/library/versions/:id',
+    contractor,
+    validate({ params: LibraryIdParams }),
+    async (req, res) => {
+      await deleteVersion(ds, ctx.storage, currentUser(req), valid(req, 'params', LibraryIdParams).id);
+      res.status(204).end();
+    },
+  );
+
+  const receive = (limit: number, what: string) => {
+    const upload = multer({
+      storage: multer.memoryStorage(),
+      preservePath: true,
+      limits: { fileSize: limit, files: 1, fields: 2 },
+    }).single('file');
+    return (req: Request, res: Response, next: NextFunction) =>
+      upload(req, res, (err: unknown) => {
+        if (err instanceof multer.MulterError) {
+          const mb = Math.round((limit / 1024 / 1024) * 10) / 10;
+          if (err.code === 'LIMIT_FILE_SIZE')
+            return next(
+              new AppError(413, 'file_too_large', `The ${what} is larger than the limit of ${mb} MB.`, [
+                { path: 'file', message: `file must be at most ${mb} MB` },
+              ]),
+            );
+          return next(
+            new AppError(400, 'bad_upload', `The upload was refused: ${err.message}.`, [
+              { path: err.field ?? 'file', message: err.message },
+            ]),
+          );
+        }
+        next(err);
+      });
+  };
+  const fileOf = (req: Request) => {
+    if (!req.file)
+      throw AppError.badRequest('Attach one file in the form field "file".', [
+        { path: 'file', message: 'file is required' },
+      ]);
+    return { name: Buffer.from(req.file.originalname, 'latin1').toString('utf8'), bytes: req.file.buffer };
+  };
+
+  router.post(
+    '/library/versions/:id/document',
+    contractor,
+    validate({ params: LibraryIdParams }),
+    receive(ctx.config.UPLOAD_MAX_BYTES, "manufacturer's document"),
+    async (req, res) => {
+      const { id } = valid(req, 'params', LibraryIdParams);
+      const f = fileOf(req);
+      res.status(201).json(
+        await attachDocument(
+          ds,
+          ctx.storage,
+          currentUser(req),
+          id,
+          { originalName: f.name, bytes: new Uint8Array(f.bytes) },
+          {
+            maxPages: ctx.config.UPLOAD_MAX_PAGES,
+          },
+        ),
+      );
+    },
+  );
+  router.get('/library/versions/:id/document', validate({ params: LibraryIdParams }), async (req, res) => {
+    const { file, bytes } = await readDocument(
+      ds,
+      ctx.storage,
+      currentUser(req),
+      valid(req, 'params', LibraryIdParams).id,
+    );
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `inline; filename="${encodeURIComponent(file.name)}"`);
+    res.setHeader('X-Content-SHA256', file.sha256);
+    res.end(Buffer.from(bytes));
+  });
+  router.get(
+    '/library/versions/:id/chart',
+    validate({ params: LibraryIdParams, query: ExportQuery }),
+    async (req, res) => {
+      const { grid, name } = await chartOf(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id);
+      const { format } = valid(req, 'query', ExportQuery);
+      const file = `${name.replace(/[^\w.-]+/g, '-')}.${format}`;
+      res.setHeader('Content-Disposition', `attachment; filename="${file}"`);
+      if (format === 'csv') {
+        res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+        res.send(chartCsv(grid));
+      } else {
+        res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
+        res.end(await chartXlsx(grid, name));
+      }
+    },
+  );
+  router.post(
+    '/library/versions/:id/verifications',
+    requireRole('engineer'),
+    validate({ params: LibraryIdParams, body: VerifyBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', LibraryIdParams);
+      const body = valid(req, 'body', VerifyBody);
+      res.status(201).json(await verifyVersion(ds, currentUser(req), id, body.note, body.packageId));
+    },
+  );
+
+  router.post(
+    '/library/chart-import/file',
+    contractor,
+    receive(ctx.config.CHART_IMPORT_MAX_BYTES, 'chart file'),
+    async (req, res) => {
+      const f = fileOf(req);
+      res.json(await previewChartFile(f.name, f.bytes));
+    },
+  );
+  router.post(
+    '/library/chart-import/text',
+    contractor,
+    validate({ body: ChartTextBody }),
+    async (req, res) => {
+      res.json(previewText(valid(req, 'body', ChartTextBody).text));
+    },
+  );
+
+  router.get('/packages/:id/library-uses', validate({ params: LibraryIdParams }), async (req, res) => {
+    res.json(await listUses(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+  });
+  router.put(
+    '/packages/:id/library-uses',
+    contractor,
+    validate({ params: LibraryIdParams, body: LibraryUseBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', LibraryIdParams);
+      res.json(await setUse(ds, currentUser(req), id, valid(req, 'body', LibraryUseBody)));
+    },
+  );
+  router.delete(
+    '/packages/:id/library-uses/:slot',
+    contractor,
+    validate({ params: LibraryUseParams }),
+    async (req, res) => {
+      const { id, slot } = valid(req, 'params', LibraryUseParams);
+      await removeUse(ds, currentUser(req), id, slot);
+      res.status(204).end();
+    },
+  );
+  return router;
+}

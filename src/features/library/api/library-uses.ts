@@ -1,0 +1,32 @@
+// A package's use of the library: GET/PUT /api/packages/:id/library-uses, DELETE …/:slot.
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { LibraryUseList } from '@shared/schemas/library';
+import { api } from '@/lib/api-client';
+import { libraryKeys } from './keys';
+
+const base = (packageId: string) => `/api/packages/${encodeURIComponent(packageId)}/library-uses`;
+
+export const libraryUsesQueryOptions = (packageId: string) =>
+  queryOptions({
+    queryKey: libraryKeys.uses(packageId),
+    queryFn: ({ signal }) => api.get(base(packageId), LibraryUseList, { signal }),
+  });
+
+export const useLibraryUses = (packageId: string) => useQuery(libraryUsesQueryOptions(packageId));
+
+export function useSetLibraryUse(packageId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: { versionId: string; slot?: number; detached?: boolean }) =>
+      api.put(base(packageId), body, LibraryUseList),
+    onSuccess: (data) => qc.setQueryData(libraryKeys.uses(packageId), data),
+  });
+}
+
+export function useRemoveLibraryUse(packageId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (slot: number) => api.delete(`${base(packageId)}/${slot}`),
+    onSuccess: () => qc.invalidateQueries({ queryKey: libraryKeys.uses(packageId) }),
+  });
+}

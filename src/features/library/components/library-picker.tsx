@@ -1,0 +1,132 @@
+// The editor's "pick from the fleet library": search the fleet by fleet number or model, filter
+// by capacity at the planned radius, and use a configuration's current version. The crane and
+// chart steps then fill from it and stay read-only; "detach a copy" makes them editable again,
+// and the engineer then sees the copy flagged with every changed cell.
+import { useState } from 'react';
+import { fillFromVersion, type LibraryFill } from '@shared/library/to-lift-input';
+import { WORKING_AREA_LABELS } from '@shared/schemas/library';
+import { api, isApiError } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { ErrorPanel } from '@/components/ui/panel-message';
+import { VersionDetail } from '@shared/schemas/library';
+import { useCranes } from '../api/cranes';
+import { useLibraryUses, useRemoveLibraryUse, useSetLibraryUse } from '../api/library-uses';
+import { useFleetFilters } from './fleet-view';
+
+function Finder({ onPick, busy }: { onPick: (versionId: string) => void; busy: boolean }) {
+  const { filters, controls } = useFleetFilters();
+  const cranes = useCranes(filters);
+  const rows = (cranes.data?.items ?? []).flatMap((c) =>
+    c.configurations.filter((k) => !k.current.retiredAt).map((k) => ({ crane: c, config: k })),
+  );
+  return (
+    <div className="flex flex-col gap-2">
+      {controls}
+      {cranes.data && rows.length === 0 && (
+        <p className="text-sm text-ink-soft">
+          No configuration in your fleet library matches. Add cranes on the Fleet library page.
+        </p>
+      )}
+      {rows.length > 0 && (
+        <ul className="flex max-h-72 flex-col gap-1 overflow-auto" aria-label="Configurations to pick">
+          {rows.map(({ crane, config }) => (
+            <li
+              key={config.id}
+              className="flex items-center justify-between gap-2 border border-rule bg-sheet px-2.5 py-1.5 text-[13px]"
+            >
+              <span>
+                <strong>{crane.fleetNumber}</strong> {crane.make} {crane.model} — {config.name}{' '}
+                <span className="text-ink-soft">
+                  v{config.current.number} · {WORKING_AREA_LABELS[config.workingArea]}
+                  {config.capacityAtRadius !== null &&
+                    ` · rates ${Number(config.capacityAtRadius.toPrecision(3))} ${config.capacityUnit} at that radius`}
+                  {config.current.verified && ' · ✓ verified'}
+                </span>
+              </span>
+              <Button size="sm" variant="primary" disabled={busy} onClick={() => onPick(config.current.id)}>
+                Use this
+              </Button>
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}
+
+export function LibraryPicker({ packageId, fill }: { packageId: string; fill: (f: LibraryFill) => void }) {
+  const uses = useLibraryUses(packageId);
+  const setUse = useSetLibraryUse(packageId);
+  const remove = useRemoveLibraryUse(packageId);
+  const [open, setOpen] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const use = uses.data?.items.find((u) => u.slot === 0);
+
+  const pick = async (versionId: string) => {
+    setError(null);
+    try {
+      const version = await api.get(`/api/library/versions/${encodeURIComponent(versionId)}`, VersionDetail);
+      fill(fillFromVersion(version));
+      await setUse.mutateAsync({ versionId, slot: 0, detached: false });
+      setOpen(false);
+    } catch (e) {
+      setError(isApiError(e) ? e.message : 'The configuration could not be used. Try again.');
+    }
+  };
+
+  return (
+    <section
+      aria-label="Fleet library"
+      className="mb-4 border border-l-4 border-verdigris bg-verdigris-tint px-3 py-2"
+    >
+      {use ? (
+        <div className="flex flex-wrap items-center gap-2 text-[13.5px]">
+          <p className="flex-1">
+            <strong>{use.detached ? 'Detached copy of' : 'From the fleet library:'}</strong>{' '}
+            {use.version.crane}, {use.version.configurationName} (library version {use.version.number}).{' '}
+            {use.detached
+              ? `You may edit the crane and chart; the engineer sees every cell changed from version ${use.version.number}${use.changedCells.length ? ` (${use.changedCells.length} so far)` : ''}.`
+              : 'The crane and chart fields are filled from it and read-only; enter boom length, radius and slew yourself.'}
+            {use.verifications[0] && ` ✓ Verified by ${use.verifications[0].engineer.name}.`}
+          </p>
+          {!use.detached && (
+            <Button
+              size="sm"
+              disabled={setUse.isPending}
+              onClick={() => setUse.mutate({ versionId: use.version.id, slot: 0, detached: true })}
+            >
+              Detach a copy to edit
+            </Button>
+          )}
+          <Button size="sm" variant="quiet" onClick={() => setOpen((o) => !o)}>
+            Pick another
+          </Button>
+          <Button size="sm" variant="quiet" disabled={remove.isPending} onClick={() => remove.mutate(0)}>
+            Stop using the library
+          </Button>
+        </div>
+      ) : (
+        <div className="flex flex-wrap items-center gap-2 text-[13.5px]">
+          <p className="flex-1">
+            Pick the crane and configuration from your fleet library instead of typing its data and chart.
+          </p>
+          <Button size="sm" variant="primary" onClick={() => setOpen((o) => !o)}>
+            Pick from the fleet library
+          </Button>
+        </div>
+      )}
+      {open && (
+        <div className="mt-2">
+          <Finder onPick={pick} busy={setUse.isPending} />
+        </div>
+      )}
+      {error && <ErrorPanel title="Not used" message={error} />}
+    </section>
+  );
+}
+
+export function useLibraryLock(packageId: string): boolean {
+  const uses = useLibraryUses(packageId);
+  const use = uses.data?.items.find((u) => u.slot === 0);
+  return !!use && !use.detached;
+}
