@@ -64,6 +64,13 @@ export const Person = z.object({
 });
 export type Person = z.infer<typeof Person>;
 
+/**
+ * The answer to an invitation (or a new link): the person, and the link itself, shown once to
+ * the admin who sent it. Only a hash of it is kept; the stored e-mail holds a placeholder.
+ */
+export const InvitedPerson = Person.extend({ inviteLink: z.string() });
+export type InvitedPerson = z.infer<typeof InvitedPerson>;
+
 export const InviteBody = z.object({
   email: z.email({ message: 'email must be a valid e-mail address' }).max(254),
   name: name('name'),

@@ -47,12 +47,12 @@ describe('migrations', () => {
         ]),
       );
       const count = async (sql: string) => Number((await ds.query(sql))[0].n);
-      // The last migration adds the sessions table; the one before it the return's signing certificate.
+      // The last migration adds the sealed invitation link; the one before it the sessions table.
       const lastMigration = async () => [
-        await count(`SELECT count(*) AS n FROM information_schema.tables WHERE table_name = 'sessions'`),
         await count(
-          `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'stamped_returns' AND column_name = 'signing_certificate_sha256'`,
+          `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'mail_messages' AND column_name = 'sealed_link'`,
         ),
+        await count(`SELECT count(*) AS n FROM information_schema.tables WHERE table_name = 'sessions'`),
       ];
       expect(await lastMigration()).toEqual([1, 1]);
       await ds.undoLastMigration();

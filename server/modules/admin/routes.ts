@@ -58,7 +58,11 @@ export function hideInviteLinks(text: string): string {
 export function adminRoutes(ctx: AppContext): Router {
   const router = Router();
   const ds = ctx.dataSource;
-  const inviteOpts = () => ({ appUrl: appUrl(ctx.config), hours: ctx.config.INVITE_HOURS });
+  const inviteOpts = () => ({
+    appUrl: appUrl(ctx.config),
+    hours: ctx.config.INVITE_HOURS,
+    secret: ctx.config.JWT_SECRET,
+  });
   router.use('/admin', requireAuth(ctx.passport), requireRole('admin'));
 
   router.get('/admin/organisations', async (req, res) => {
