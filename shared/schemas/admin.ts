@@ -1,11 +1,11 @@
 // Desk administration payloads: organisations, sites and their reviewers, people and
 // invitations, review policies, the mail outbox, and each person's profile.
 import { z } from 'zod';
+import { safeText } from './safe-text';
 import { OrganisationKind, Role, UnitSystem } from './common';
 
 const name = (field: string) =>
-  z
-    .string()
+  safeText(field)
     .trim()
     .min(2, `${field} must be at least 2 characters`)
     .max(200, `${field} must be at most 200 characters`);
@@ -22,7 +22,7 @@ export const SiteBody = z.object({
       /^[A-Z0-9]{2,8}$/,
       'code must be 2 to 8 capital letters or digits (it starts every package reference)',
     ),
-  address: z.string().trim().max(300, 'address must be at most 300 characters').default(''),
+  address: safeText('address').trim().max(300, 'address must be at most 300 characters').default(''),
   timeZone: z
     .string()
     .max(60)
