@@ -71,11 +71,6 @@ export function actionAllowed(action: PackageAction, status: PackageStatus): boo
   return ACTION_STATES[action].states.includes(status);
 }
 
-/** The statuses an action is allowed in, for the client's and the server's checks. */
-export function statesFor(action: PackageAction): readonly PackageStatus[] {
-  return ACTION_STATES[action].states;
-}
-
 /** Null when the action is allowed in this status, otherwise the sentence to answer with. */
 export function stateRefusal(action: PackageAction, status: PackageStatus, what: string): string | null {
   if (actionAllowed(action, status)) return null;
