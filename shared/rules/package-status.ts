@@ -29,7 +29,11 @@ export type PackageAction =
   | 'raise_finding'
   | 'close_or_reopen_finding'
   | 'edit_markups'
-  | 'record_decision';
+  | 'accept_figure'
+  | 'record_decision'
+  | 'issue_return'
+  | 'assign_engineer'
+  | 'start_next_revision';
 
 /** The statuses in which each action is allowed, and the words that say so. */
 export const ACTION_STATES: Record<PackageAction, { states: readonly PackageStatus[]; when: string }> = {
@@ -46,7 +50,21 @@ export const ACTION_STATES: Record<PackageAction, { states: readonly PackageStat
     when: 'while the package is with the engineer, before the return',
   },
   edit_markups: { states: ['with_engineer'], when: 'while the package is with the engineer' },
-  record_decision: { states: ['with_engineer'], when: 'while the package is with the engineer' },
+  accept_figure: { states: ['with_engineer'], when: 'while the package is with the engineer' },
+  // The engineer may change the decision until the return is issued.
+  record_decision: {
+    states: ['with_engineer', 'decided'],
+    when: 'while the package is with the engineer, before the return',
+  },
+  // Issuing again once returned gives back the same return.
+  issue_return: { states: ['decided', 'returned'], when: 'once the engineer has recorded a decision' },
+  // A reviewer assigns (or reassigns) the engineer any time between submission and the decision.
+  assign_engineer: {
+    states: ['checking', 'check_failed', 'ready_for_review', 'with_engineer'],
+    when: 'between submission and the decision',
+  },
+  // Only after a return as Revise and resubmit or Rejected (the decision is checked as well).
+  start_next_revision: { states: ['returned'], when: 'after the package is returned' },
 };
 
 export function actionAllowed(action: PackageAction, status: PackageStatus): boolean {

@@ -1,11 +1,11 @@
 // Desk administration payloads: organisations, sites and their reviewers, people and
 // invitations, review policies, the mail outbox, and each person's profile.
 import { z } from 'zod';
+import { safeText } from './safe-text';
 import { OrganisationKind, Role, UnitSystem } from './common';
 
 const name = (field: string) =>
-  z
-    .string()
+  safeText(field)
     .trim()
     .min(2, `${field} must be at least 2 characters`)
     .max(200, `${field} must be at most 200 characters`);
@@ -22,7 +22,7 @@ export const SiteBody = z.object({
       /^[A-Z0-9]{2,8}$/,
       'code must be 2 to 8 capital letters or digits (it starts every package reference)',
     ),
-  address: z.string().trim().max(300, 'address must be at most 300 characters').default(''),
+  address: safeText('address').trim().max(300, 'address must be at most 300 characters').default(''),
   timeZone: z
     .string()
     .max(60)
@@ -63,6 +63,13 @@ export const Person = z.object({
   createdAt: z.string(),
 });
 export type Person = z.infer<typeof Person>;
+
+/**
+ * The answer to an invitation (or a new link): the person, and the link itself, shown once to
+ * the admin who sent it. Only a hash of it is kept; the stored e-mail holds a placeholder.
+ */
+export const InvitedPerson = Person.extend({ inviteLink: z.string() });
+export type InvitedPerson = z.infer<typeof InvitedPerson>;
 
 export const InviteBody = z.object({
   email: z.email({ message: 'email must be a valid e-mail address' }).max(254),

@@ -2,7 +2,8 @@
 // is down; `error` names the outage with the code the error handler uses).
 import { z } from 'zod';
 
-const Probe = z.object({ ok: z.boolean(), error: z.string().optional() });
+/** `error` is the fixed words "not answering": the driver's own text is logged, not shown. */
+const Probe = z.object({ ok: z.boolean(), error: z.literal('not answering').optional() });
 
 export const HealthResponse = z.object({
   status: z.enum(['ok', 'degraded']),

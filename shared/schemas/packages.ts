@@ -1,5 +1,6 @@
 // Lift package payloads: the list the queue and the contractor's desk show, and one package.
 import { z } from 'zod';
+import { safeText } from './safe-text';
 import { Decision, PackageStatus, PACKAGE_STATUSES } from './common';
 
 export const CheckStatus = z.enum(['pass', 'caution', 'fail', 'not_applicable']);
@@ -40,7 +41,7 @@ export const PackageListQuery = z.object({
     .max(365, 'liftWithinDays must be at most 365')
     .optional(),
   revisionMin: z.coerce.number().int().min(1, 'revisionMin must be 1 or more').max(1000).optional(),
-  q: z.string().trim().max(100, 'q must be at most 100 characters').optional(),
+  q: safeText('q').trim().max(100, 'q must be at most 100 characters').optional(),
   sort: z
     .enum(PACKAGE_SORTS, { message: `sort must be one of ${PACKAGE_SORTS.join(', ')}` })
     .default('plannedLiftDate'),
@@ -78,8 +79,7 @@ export type PackageListResponse = z.infer<typeof PackageListResponse>;
 
 /** A new lift package (contractors). It starts as a draft with an empty revision 1. */
 export const CreatePackageBody = z.object({
-  title: z
-    .string()
+  title: safeText('title')
     .trim()
     .min(3, 'title must be at least 3 characters')
     .max(200, 'title must be at most 200 characters'),
@@ -97,8 +97,7 @@ export type CreatePackageBody = z.infer<typeof CreatePackageBody>;
  * size limit. `baseUpdatedAt` guards against a stale tab overwriting newer work (409).
  */
 export const SaveDraftBody = z.object({
-  title: z
-    .string()
+  title: safeText('title')
     .trim()
     .min(3, 'title must be at least 3 characters')
     .max(200, 'title must be at most 200 characters')

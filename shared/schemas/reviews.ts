@@ -1,6 +1,7 @@
 // The review's payloads: assignments, markups (in PDF page coordinates), findings,
 // decisions, stamped returns and the public verification answer.
 import { z } from 'zod';
+import { safeText } from './safe-text';
 import { Decision } from './common';
 
 /** Markup colours: our own palette, named for what they look like. */
@@ -54,37 +55,40 @@ export const MarkupBody = z.discriminatedUnion('kind', [
     ...markupBase,
     kind: z.literal('rectangle'),
     geometry: BoxGeometry,
-    text: z.string().max(500).nullish(),
+    text: safeText('text').max(500, 'text must be at most 500 characters').nullish(),
   }),
   z.object({
     ...markupBase,
     kind: z.literal('ellipse'),
     geometry: BoxGeometry,
-    text: z.string().max(500).nullish(),
+    text: safeText('text').max(500, 'text must be at most 500 characters').nullish(),
   }),
   z.object({
     ...markupBase,
     kind: z.literal('cloud'),
     geometry: BoxGeometry,
-    text: z.string().max(500).nullish(),
+    text: safeText('text').max(500, 'text must be at most 500 characters').nullish(),
   }),
   z.object({
     ...markupBase,
     kind: z.literal('arrow'),
     geometry: ArrowGeometry,
-    text: z.string().max(500).nullish(),
+    text: safeText('text').max(500, 'text must be at most 500 characters').nullish(),
   }),
   z.object({
     ...markupBase,
     kind: z.literal('text'),
     geometry: PointGeometry.extend({ fontSize: z.number().min(4).max(72).default(11) }),
-    text: z.string().trim().min(1, 'text must not be empty').max(500, 'text must be at most 500 characters'),
+    text: safeText('text')
+      .trim()
+      .min(1, 'text must not be empty')
+      .max(500, 'text must be at most 500 characters'),
   }),
   z.object({
     ...markupBase,
     kind: z.literal('pin'),
     geometry: PointGeometry,
-    text: z.string().max(500).nullish(),
+    text: safeText('text').max(500, 'text must be at most 500 characters').nullish(),
   }),
 ]);
 export type MarkupBody = z.infer<typeof MarkupBody>;
@@ -110,13 +114,12 @@ export const FINDING_STATES = ['open', 'answered', 'closed'] as const;
 
 export const FindingBody = z
   .object({
-    text: z
-      .string()
+    text: safeText('text')
       .trim()
       .min(3, 'text must be at least 3 characters')
       .max(4000, 'text must be at most 4000 characters'),
     severity: z.enum(FINDING_SEVERITIES, { message: 'severity must be one of note, minor, major, blocking' }),
-    checkId: z.string().max(40).nullish(),
+    checkId: safeText('checkId').max(40).nullish(),
     markupId: z.uuid().nullish(),
     fileId: z.uuid().nullish(),
     pageNumber: z.number().int().min(1).max(10_000).nullish(),
@@ -147,14 +150,13 @@ export type Finding = z.infer<typeof Finding>;
 /** The contractor answers a finding; the engineer closes or reopens it. */
 export const FindingUpdateBody = z.object({
   state: z.enum(FINDING_STATES).optional(),
-  response: z.string().trim().max(4000, 'response must be at most 4000 characters').optional(),
+  response: safeText('response').trim().max(4000, 'response must be at most 4000 characters').optional(),
 });
 
 /** The engineer's acceptance of a contractor figure that differs from the recomputation. */
 export const AcceptFigureBody = z.object({
-  figure: z.string().min(1).max(40),
-  reason: z
-    .string()
+  figure: safeText('figure').min(1).max(40),
+  reason: safeText('reason')
     .trim()
     .min(5, 'reason must be at least 5 characters')
     .max(2000, 'reason must be at most 2000 characters'),
@@ -163,7 +165,10 @@ export const AcceptFigureBody = z.object({
 export const DecisionBody = z
   .object({
     decision: Decision,
-    conditions: z.string().trim().max(4000, 'conditions must be at most 4000 characters').default(''),
+    conditions: safeText('conditions')
+      .trim()
+      .max(4000, 'conditions must be at most 4000 characters')
+      .default(''),
     /** The package version the engineer was looking at: a newer one answers 409. */
     baseVersion: z.number().int().min(1, 'baseVersion must be the package version you read'),
   })

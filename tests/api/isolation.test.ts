@@ -164,8 +164,9 @@ describe('system routes', () => {
     try {
       const res = await supertest(broken.app).get('/api/health');
       expect(res.status).toBe(503);
-      expect(res.body.database.ok).toBe(false);
+      expect(res.body.database).toEqual({ ok: false, error: 'not answering' });
       expect(res.body.queue.ok).toBe(true);
+      expect(res.body.error.code).toBe('database_unavailable');
     } finally {
       await broken.close();
     }

@@ -47,12 +47,14 @@ describe('migrations', () => {
         ]),
       );
       const count = async (sql: string) => Number((await ds.query(sql))[0].n);
-      // The last migration adds the fleet library; the one before it the sessions table.
+      // The last migration adds the fleet library; the one before it the sealed invitation link.
       const lastMigration = async () => [
         await count(
           `SELECT count(*) AS n FROM information_schema.tables WHERE table_name IN ('library_cranes', 'library_configurations', 'library_versions', 'library_chart_cells', 'library_verifications', 'library_uses')`,
         ),
-        await count(`SELECT count(*) AS n FROM information_schema.tables WHERE table_name = 'sessions'`),
+        await count(
+          `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'mail_messages' AND column_name = 'sealed_link'`,
+        ),
       ];
       expect(await lastMigration()).toEqual([6, 1]);
       await ds.undoLastMigration();

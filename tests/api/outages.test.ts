@@ -6,6 +6,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import type { Worker } from 'bullmq';
+import supertest from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createApp } from '@server/app';
 import { connect } from '@server/bootstrap';
@@ -13,12 +14,15 @@ import { loadConfig } from '@server/config';
 import type { AppContext } from '@server/context';
 import { createRedis } from '@server/lib/redis';
 import { AuditEvent } from '@server/modules/audit/audit-event.entity';
+import { startMailCatcher } from '@server/lib/mail-catcher';
 import { startRelay } from '@server/modules/jobs/relay';
+import { MailMessage } from '@server/modules/mail/mail.entity';
 import { UploadedFile } from '@server/modules/files/file.entity';
 import { Revision } from '@server/modules/packages/package.entity';
 import { runMigrations } from '../../scripts/lib/migrate';
 import { freePort, startPostgres, startRedis } from '../../scripts/lib/services';
 import { checkRunTask, startCheckRunWorker } from '../../worker/tasks/check-run-task';
+import { startMailWorker } from '../../worker/tasks/mail-task';
 import { signedIn } from '../support/app';
 import { makePackage, makeWorld } from '../support/factories';
 import { until } from '../support/until';
@@ -134,6 +138,97 @@ describe('outages', () => {
       revision.id,
     ]);
     expect(closed.state).toBe('done');
+  }, 120_000);
+
+  it('when Redis is down and an admin sends a failed message again, then the answer comes within a second and the relay sends it once Redis is back', async () => {
+    const port = await freePort();
+    const dir = path.join(tmp, 'redis-mail');
+    let redis = await startRedis(dir, port, { persist: false });
+    cleanups.push(() => redis.stop());
+    const url = `redis://127.0.0.1:${port}`;
+    const ctx = await connect({
+      ...loadConfig(),
+      REDIS_URL: url,
+      REDIS_PREFIX: `t-${randomUUID().slice(0, 8)}`,
+    });
+    const catcher = await startMailCatcher(ctx.dataSource, { port: 0 });
+    const connection = createRedis(url, { forWorker: true });
+    connection.on('error', () => undefined);
+    const worker: Worker = startMailWorker(ctx, connection, catcher.url);
+    worker.on('error', () => undefined);
+    const relay = startRelay(ctx.dataSource, ctx.queues, async () => undefined, {
+      intervalMs: 300,
+      queues: ['mail'],
+    });
+    cleanups.push(async () => {
+      await relay.stop();
+      await worker.close(true).catch(() => undefined);
+      connection.disconnect();
+      await catcher.close();
+      await ctx.close?.();
+    });
+    const app = createApp(ctx, { clientDir: '/nonexistent' });
+    const w = await makeWorld(ctx.dataSource);
+    const admin = await signedIn(app, w.admin.email);
+    // A message whose first send failed for good (its job intent closed as failed).
+    const failedMessage = async () => {
+      const msg = await ctx.dataSource.getRepository(MailMessage).save({
+        event: 'assigned',
+        dedupeKey: `outage-${randomUUID()}`,
+        packageId: null,
+        recipientId: w.engineer.id,
+        toAddress: w.engineer.email,
+        subject: `Sent again ${randomUUID().slice(0, 8)}`,
+        textBody: 'Open the package.',
+        htmlBody: '<p>Open the package.</p>',
+        status: 'failed',
+        attempts: 5,
+        lastError: 'connect ECONNREFUSED',
+      });
+      await ctx.dataSource.query(
+        `INSERT INTO job_intents (queue, job_id, subject_id, payload, state, finished_at)
+         VALUES ('mail', $1, $2, $3, 'failed', now())`,
+        [`mail-${msg.id}`, msg.id, JSON.stringify({ messageId: msg.id })],
+      );
+      return msg;
+    };
+
+    const yardstick = await failedMessage();
+    const baselineStart = Date.now();
+    expect((await admin.post(`/api/admin/mail/${yardstick.id}/retry`)).status).toBe(202);
+    const baseline = Date.now() - baselineStart;
+    const msg = await failedMessage();
+    redis.stop();
+    const started = Date.now();
+    const res = await admin.post(`/api/admin/mail/${msg.id}/retry`);
+    const took = Date.now() - started;
+    process.stdout.write(
+      `mail retry with Redis stopped answered in ${took} ms (with Redis up: ${baseline} ms)\n`,
+    );
+    expect(res.status).toBe(202);
+    expect(res.body).toEqual({ id: msg.id, status: 'queued' });
+    expect(took).toBeLessThan(Math.max(1000, baseline + 400));
+    const [intent] = await ctx.dataSource.query(`SELECT state FROM job_intents WHERE job_id = $1`, [
+      `mail-${msg.id}-r2`,
+    ]);
+    expect(intent.state).toBe('pending');
+    // Health names the outage by its code; the driver's text (address, port) stays in the log.
+    const health = await supertest(app).get('/api/health');
+    expect(health.status).toBe(503);
+    expect(health.body).toMatchObject({
+      queue: { ok: false, error: 'not answering' },
+      error: { code: 'queue_unavailable' },
+    });
+    expect(JSON.stringify(health.body)).not.toMatch(/ECONNREFUSED|127\.0\.0\.1|timed out|\d{4,5}/);
+
+    redis = await startRedis(dir, port, { persist: false });
+    const sent = await until(async () => {
+      const m = await ctx.dataSource.getRepository(MailMessage).findOneByOrFail({ id: msg.id });
+      return m.status === 'sent' ? m : null;
+    }, 45_000);
+    expect(sent.sentAt).not.toBeNull();
+    const caught = await ctx.dataSource.query(`SELECT 1 FROM caught_mail WHERE subject = $1`, [msg.subject]);
+    expect(caught).toHaveLength(1);
   }, 120_000);
 
   it('when PostgreSQL stops, then the API answers 503 database_unavailable on every route and recovers on its own', async () => {

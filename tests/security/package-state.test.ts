@@ -1,5 +1,6 @@
 // Standing security suite, point 7: actions only in their state, through the status machine
 // (shared/rules/package-status.ts). A wrong-state action answers 409 and changes nothing.
+import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { LiftPackage, Revision } from '@server/modules/packages/package.entity';
 import { Finding } from '@server/modules/reviews/review.entity';
@@ -69,6 +70,129 @@ describe('actions only in their state', () => {
       'returned',
     );
   });
+
+  // Each action of the review and return, in a status where it is not allowed: 409, a message
+  // that names the action and the status, and the package with its markups, findings,
+  // decisions, returns and revisions as they were.
+  const WRONG_STATE: Array<{
+    action: string;
+    status: PackageStatus;
+    as: 'engineer' | 'reviewer' | 'contractor';
+    send: (
+      pkg: string,
+      w: Awaited<ReturnType<typeof makeWorld>>,
+    ) => [method: 'post' | 'delete', path: string, body?: object];
+    message: RegExp;
+  }> = [
+    {
+      action: 'add a markup',
+      status: 'decided',
+      as: 'engineer',
+      send: (id) => [
+        'post',
+        `/api/packages/${id}/markups`,
+        {
+          kind: 'rectangle',
+          fileId: randomUUID(),
+          pageNumber: 1,
+          geometry: { x: 10, y: 10, width: 40, height: 20 },
+        },
+      ],
+      message:
+        /^Markups can be added only while the package is with the engineer; this package is decided\.$/,
+    },
+    {
+      action: 'remove a markup',
+      status: 'returned',
+      as: 'engineer',
+      send: (id) => ['delete', `/api/packages/${id}/markups/${randomUUID()}`],
+      message:
+        /^Markups can be removed only while the package is with the engineer; this package is returned\.$/,
+    },
+    {
+      action: 'raise a finding',
+      status: 'ready_for_review',
+      as: 'engineer',
+      send: (id) => ['post', `/api/packages/${id}/findings`, { text: 'Too early.', severity: 'minor' }],
+      message:
+        /^Findings can be raised only while the package is with the engineer; this package is ready for review\.$/,
+    },
+    {
+      action: 'accept a stated figure',
+      status: 'decided',
+      as: 'engineer',
+      send: (id) => [
+        'post',
+        `/api/packages/${id}/accepted-figures`,
+        { figure: 'radius', reason: 'Checked on site.' },
+      ],
+      message:
+        /^Figures can be accepted only while the package is with the engineer; this package is decided\.$/,
+    },
+    {
+      action: 'record a decision',
+      status: 'returned',
+      as: 'engineer',
+      send: (id) => ['post', `/api/packages/${id}/decision`, { decision: 'accepted', baseVersion: 1 }],
+      message:
+        /^A decision can be recorded only while the package is with the engineer, before the return; this package is returned\.$/,
+    },
+    {
+      action: 'issue the return',
+      status: 'with_engineer',
+      as: 'reviewer',
+      send: (id) => ['post', `/api/packages/${id}/returns`],
+      message:
+        /^The stamped return can be issued only once the engineer has recorded a decision; this package is with engineer\.$/,
+    },
+    {
+      action: 'assign an engineer',
+      status: 'decided',
+      as: 'reviewer',
+      send: (id, w) => ['post', '/api/assignments', { packageIds: [id], engineerId: w.engineer.id }],
+      message:
+        /: An engineer can be assigned only between submission and the decision; this package is decided\.$/,
+    },
+    {
+      action: 'start the next revision',
+      status: 'with_engineer',
+      as: 'contractor',
+      send: (id) => ['post', `/api/packages/${id}/revisions`],
+      message:
+        /^A new revision can start only after the package is returned; this package is with engineer\.$/,
+    },
+  ];
+
+  async function snapshot(id: string) {
+    const ds = t.ctx.dataSource;
+    const pkg = await ds.getRepository(LiftPackage).findOneByOrFail({ id });
+    const [counts] = await ds.query(
+      `SELECT (SELECT count(*) FROM markups mk JOIN revisions r ON r.id = mk.revision_id WHERE r.package_id = $1) AS markups,
+              (SELECT count(*) FROM findings WHERE package_id = $1) AS findings,
+              (SELECT count(*) FROM decisions WHERE package_id = $1) AS decisions,
+              (SELECT count(*) FROM stamped_returns WHERE package_id = $1) AS returns,
+              (SELECT count(*) FROM revisions WHERE package_id = $1) AS revisions,
+              (SELECT count(*) FROM audit_events WHERE package_id = $1) AS events`,
+      [id],
+    );
+    return { ...counts, status: pkg.status, version: pkg.version, engineer: pkg.assignedEngineerId };
+  }
+
+  for (const c of WRONG_STATE) {
+    it(`when someone tries to ${c.action} while the package is ${c.status}, then 409 names the state and nothing changes`, async () => {
+      const { w, pkg } = await packageWithFinding(c.status);
+      const who = { engineer: w.engineer, reviewer: w.reviewer, contractor: w.plannerA }[c.as];
+      const agent = await signedIn(t.app, who.email);
+      const before = await snapshot(pkg.id);
+      const [method, path, body] = c.send(pkg.id, w);
+      const res = await (body ? agent[method](path).send(body) : agent[method](path));
+      expect({ status: res.status, message: res.body.error?.message }).toEqual({
+        status: 409,
+        message: expect.stringMatching(c.message),
+      });
+      expect(await snapshot(pkg.id)).toEqual(before);
+    });
+  }
 
   it('when the machine is asked about moves and actions, then it follows the documented order', () => {
     expect(canMove('draft', 'checking', 'contractor')).toBe(true);

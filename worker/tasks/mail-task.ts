@@ -13,7 +13,8 @@ export function mailTask(ctx: AppContext, smtpUrl: string): TaskDefinition<MailJ
     fromIntents: true,
     async run(job) {
       const attempts = job.opts.attempts ?? 1;
-      return sendStaged(ctx.dataSource, smtpUrl, ctx.config.MAIL_FROM, job.data.messageId, {
+      const opts = { smtpUrl, from: ctx.config.MAIL_FROM, secret: ctx.config.JWT_SECRET };
+      return sendStaged(ctx.dataSource, opts, job.data.messageId, {
         number: job.attemptsMade + 1,
         last: job.attemptsMade + 1 >= attempts,
       });

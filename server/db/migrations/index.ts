@@ -6,6 +6,7 @@ import { PeopleAndMail1764650000000 } from './1764650000000-people-and-mail';
 import { JobIntents1764670000000 } from './1764670000000-job-intents';
 import { ReturnSignature1764690000000 } from './1764690000000-return-signature';
 import { Sessions1764700000000 } from './1764700000000-sessions';
+import { SealedInviteLinks1764715000000 } from './1764715000000-sealed-invite-links';
 import { FleetLibrary1764717000000 } from './1764717000000-fleet-library';
 
 export const MIGRATIONS = [
@@ -16,5 +17,6 @@ export const MIGRATIONS = [
   JobIntents1764670000000,
   ReturnSignature1764690000000,
   Sessions1764700000000,
+  SealedInviteLinks1764715000000,
   FleetLibrary1764717000000,
 ];

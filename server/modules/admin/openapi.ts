@@ -8,6 +8,7 @@ import {
   OrganisationBody,
   OrganisationList,
   OrganisationPatch,
+  InvitedPerson,
   Person,
   PersonPatch,
   PolicyOverridesBody,
@@ -107,7 +108,7 @@ describeRoute({
   summary: 'Invite a person by e-mail with a one-time link (admin)',
   tags: ['admin'],
   body: InviteBody,
-  response: Person,
+  response: InvitedPerson,
   status: 201,
 });
 describeRoute({
@@ -116,7 +117,7 @@ describeRoute({
   summary: 'Send a new invitation link (admin)',
   tags: ['admin'],
   params: IdParams,
-  response: Person,
+  response: InvitedPerson,
 });
 describeRoute({
   method: 'patch',

@@ -17,7 +17,7 @@ import type { AppContext } from '../../context';
 import { AppError } from '../../lib/app-error';
 import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
-import { dispatchMail } from '../mail/service';
+import { handOff, mailIntent, nextRound, recordIntent } from '../jobs/intents';
 import { MailMessage } from '../mail/mail.entity';
 import {
   createOrganisation,
@@ -58,7 +58,11 @@ export function hideInviteLinks(text: string): string {
 export function adminRoutes(ctx: AppContext): Router {
   const router = Router();
   const ds = ctx.dataSource;
-  const inviteOpts = () => ({ appUrl: appUrl(ctx.config), hours: ctx.config.INVITE_HOURS });
+  const inviteOpts = () => ({
+    appUrl: appUrl(ctx.config),
+    hours: ctx.config.INVITE_HOURS,
+    secret: ctx.config.JWT_SECRET,
+  });
   router.use('/admin', requireAuth(ctx.passport), requireRole('admin'));
 
   router.get('/admin/organisations', async (req, res) => {
@@ -209,9 +213,15 @@ export function adminRoutes(ctx: AppContext): Router {
       .andWhere('(u.organisation_id = :org OR o.desk_owner_id = :org)', { org })
       .getOne();
     if (!msg) throw AppError.notFound('failed message');
-    await ds.getRepository(MailMessage).update(id, { status: 'queued' });
-    await ctx.queues.mail.remove(`mail-${id}`).catch(() => undefined);
-    await dispatchMail(ctx.queues, [id]);
+    // Through the job hand-off: the intent is written with the status, a new round gets a job id
+    // of its own (the failed job keeps the old one), and a dead Redis leaves it to the relay.
+    const intent = await ds.transaction(async (m) => {
+      await m.getRepository(MailMessage).update(id, { status: 'queued' });
+      const next = mailIntent(id, await nextRound(m, 'mail', id));
+      await recordIntent(m, next);
+      return next;
+    });
+    await handOff(ctx.queues, [intent]);
     res.status(202).json({ id, status: 'queued' });
   });
 

@@ -10,6 +10,7 @@ import type { Role } from '@shared/schemas/common';
 import { AppError, zodFields } from '../../lib/app-error';
 import type { Queues } from '../../lib/queues';
 import { AuditEvent } from '../audit/audit-event.entity';
+import { LINK_PLACEHOLDER, sealLink } from '../mail/sealed-link';
 import { dispatchMail, stageMail } from '../mail/service';
 import { templates } from '../mail/templates';
 import { Organisation } from '../organisations/organisation.entity';
@@ -280,34 +281,42 @@ export async function listPeople(
 
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 
+export interface InviteOptions {
+  appUrl: string;
+  hours: number;
+  /** The key the link is sealed with in the stored message (JWT_SECRET). */
+  secret: string;
+}
+
+/**
+ * A new one-time link: only its hash is kept on the person, the stored message holds a
+ * placeholder and the link sealed until it is sent. Returns the link, which the inviting
+ * admin sees once in the answer.
+ */
 async function issueInvite(
   m: EntityManager,
   admin: Express.User,
   user: User,
   org: Organisation,
-  appUrl: string,
-  hours: number,
-) {
+  opts: InviteOptions,
+): Promise<{ mailIds: string[]; link: string }> {
   const token = randomBytes(24).toString('base64url');
-  const expires = new Date(Date.now() + hours * 3600_000);
+  const expires = new Date(Date.now() + opts.hours * 3600_000);
+  const link = `${opts.appUrl}/invite/${token}`;
   await m
     .getRepository(User)
     .update(user.id, { inviteTokenHash: hashToken(token), inviteExpiresAt: expires });
-  return stageMail(m, [
+  const mailIds = await stageMail(m, [
     {
       event: 'invite',
       dedupeKey: `invite:${user.id}:${hashToken(token).slice(0, 16)}`,
       packageId: null,
       recipient: user,
-      content: templates.invite(
-        user.name,
-        org.name,
-        admin.name,
-        `${appUrl}/invite/${token}`,
-        expires.toUTCString(),
-      ),
+      content: templates.invite(user.name, org.name, admin.name, LINK_PLACEHOLDER, expires.toUTCString()),
+      sealedLink: sealLink(opts.secret, link, expires),
     },
   ]);
+  return { mailIds, link };
 }
 
 export async function invitePerson(
@@ -315,7 +324,7 @@ export async function invitePerson(
   queues: Queues,
   admin: Express.User,
   body: { email: string; name: string; role: Role; organisationId: string },
-  opts: { appUrl: string; hours: number },
+  opts: InviteOptions,
 ) {
   const org = (await visibleOrganisations(ds, admin)).find((o) => o.id === body.organisationId);
   if (!org)
@@ -343,7 +352,7 @@ export async function invitePerson(
     throw new AppError(409, 'email_taken', `${body.email} already has an account.`, [
       { path: 'email', message: 'email already has an account' },
     ]);
-  const { user, mailIds } = await ds.transaction(async (m) => {
+  const { user, mailIds, link } = await ds.transaction(async (m) => {
     const u = await m.getRepository(User).save({
       organisationId: org.id,
       email: body.email,
@@ -352,14 +361,17 @@ export async function invitePerson(
       passwordHash: null,
       unitSystem: 'metric',
     });
-    const ids = await issueInvite(m, admin, u, org, opts.appUrl, opts.hours);
+    const issued = await issueInvite(m, admin, u, org, opts);
     await audit(m, admin, 'person.invited', { email: u.email, role: u.role, organisation: org.name });
-    return { user: u, mailIds: ids };
+    return { user: u, ...issued };
   });
   await dispatchMail(queues, mailIds);
-  return toPerson(
-    (await ds.getRepository(User).findOne({ where: { id: user.id }, relations: { organisation: true } }))!,
-  );
+  return {
+    ...toPerson(
+      (await ds.getRepository(User).findOne({ where: { id: user.id }, relations: { organisation: true } }))!,
+    ),
+    inviteLink: link,
+  };
 }
 
 async function visiblePerson(ds: DataSource, admin: Express.User, id: string) {
@@ -376,18 +388,18 @@ export async function reinvite(
   queues: Queues,
   admin: Express.User,
   id: string,
-  opts: { appUrl: string; hours: number },
+  opts: InviteOptions,
 ) {
   const user = await visiblePerson(ds, admin, id);
   if (user.passwordHash)
     throw new AppError(409, 'already_active', `${user.name} has already set a password.`);
-  const mailIds = await ds.transaction(async (m) => {
-    const ids = await issueInvite(m, admin, user, user.organisation!, opts.appUrl, opts.hours);
+  const { mailIds, link } = await ds.transaction(async (m) => {
+    const issued = await issueInvite(m, admin, user, user.organisation!, opts);
     await audit(m, admin, 'person.reinvited', { email: user.email });
-    return ids;
+    return issued;
   });
   await dispatchMail(queues, mailIds);
-  return toPerson(await visiblePerson(ds, admin, id));
+  return { ...toPerson(await visiblePerson(ds, admin, id)), inviteLink: link };
 }
 
 export async function updatePerson(

@@ -2,6 +2,7 @@
 // marker, not the name or the browser's MIME type), not empty, not encrypted, within the
 // page limit. Each refusal names the rule and the limit.
 import { PDFDocument } from 'pdf-lib';
+import { unsafeTextReason } from '@shared/schemas/safe-text';
 import { AppError } from '../../lib/app-error';
 
 const HEADER = Buffer.from('%PDF-');
@@ -12,6 +13,12 @@ export function checkFileName(name: string): string {
   if (!name || name.length > 255) {
     throw new AppError(400, 'bad_file_name', 'The file name must be 1 to 255 characters long.', [
       { path: 'file', message: 'file name must be 1 to 255 characters' },
+    ]);
+  }
+  const unsafe = unsafeTextReason(name);
+  if (unsafe) {
+    throw new AppError(400, 'bad_file_name', `The file name ${unsafe}.`, [
+      { path: 'file', message: `file name ${unsafe}` },
     ]);
   }
   // eslint-disable-next-line no-control-regex -- control characters are exactly what is refused

@@ -28,8 +28,10 @@ export function checkRunIntent(revisionId: string, round = 1): Intent {
   };
 }
 
-export function mailIntent(messageId: string): Intent {
-  return { queue: 'mail', jobId: `mail-${messageId}`, subjectId: messageId, payload: { messageId } };
+/** Round 1 is the first send; an admin's "send again" is round 2, 3… with a job id of its own. */
+export function mailIntent(messageId: string, round = 1): Intent {
+  const jobId = round === 1 ? `mail-${messageId}` : `mail-${messageId}-r${round}`;
+  return { queue: 'mail', jobId, subjectId: messageId, payload: { messageId } };
 }
 
 /** The queue of an intent, untyped: intents carry their payload as plain ids. */

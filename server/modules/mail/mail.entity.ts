@@ -33,6 +33,8 @@ export class MailMessage {
   @Column({ type: 'varchar', length: 300 }) subject: string;
   @Column({ type: 'text', name: 'text_body' }) textBody: string;
   @Column({ type: 'text', name: 'html_body' }) htmlBody: string;
+  /** An invitation's link, sealed until the message is sent (see sealed-link.ts); never shown. */
+  @Column({ type: 'text', name: 'sealed_link', nullable: true }) sealedLink: string | null;
   @Column({ type: 'varchar', length: 20, default: 'queued' }) status: 'queued' | 'sent' | 'failed';
   @Column({ type: 'int', default: 0 }) attempts: number;
   @Column({ type: 'varchar', length: 1000, name: 'last_error', nullable: true }) lastError: string | null;

@@ -16,6 +16,8 @@ export interface MailDraft {
   packageId: string | null;
   recipient: Pick<User, 'id' | 'email'>;
   content: Rendered;
+  /** An invitation's link, sealed: the content holds LINK_PLACEHOLDER where it goes. */
+  sealedLink?: string;
 }
 
 /** Writes the messages (skipping ones already written) and returns the ids to send. */
@@ -23,8 +25,8 @@ export async function stageMail(m: EntityManager, drafts: MailDraft[]): Promise<
   const ids: string[] = [];
   for (const d of drafts) {
     const rows: Array<{ id: string }> = await m.query(
-      `INSERT INTO mail_messages (event, dedupe_key, package_id, recipient_id, to_address, subject, text_body, html_body)
-       VALUES ($1, $2, $3, $4, $5, $6, $7, $8) ON CONFLICT (dedupe_key) DO NOTHING RETURNING id`,
+      `INSERT INTO mail_messages (event, dedupe_key, package_id, recipient_id, to_address, subject, text_body, html_body, sealed_link)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9) ON CONFLICT (dedupe_key) DO NOTHING RETURNING id`,
       [
         d.event,
         d.dedupeKey,
@@ -34,6 +36,7 @@ export async function stageMail(m: EntityManager, drafts: MailDraft[]): Promise<
         d.content.subject.slice(0, 300),
         d.content.text,
         d.content.html,
+        d.sealedLink ?? null,
       ],
     );
     if (rows[0]) {

@@ -1,5 +1,6 @@
 // The text of each message: plain text and HTML, a link back to the page, no secrets
-// (the invitation link is the one exception: it is the person's own one-time link).
+// (the invitation link is the one exception: it is the person's own one-time link, and the
+// stored message holds a placeholder for it, see sealed-link.ts).
 import { DECISION_LABELS, type Decision } from '@shared/schemas/common';
 import type { MailEvent } from './mail.entity';
 
@@ -17,7 +18,7 @@ interface PackageRef {
   url: string;
 }
 
-function escape(s: string) {
+export function escape(s: string) {
   return s.replace(
     /[&<>"']/g,
     (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,

@@ -22,6 +22,7 @@ import { UploadedFile } from '../files/file.entity';
 import { Organisation } from '../organisations/organisation.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
+import { requireState } from '../packages/state-guard';
 import { Finding, Markup, StampedReturn } from '../reviews/review.entity';
 import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
@@ -67,8 +68,9 @@ function toReturn(r: StampedReturn) {
 export async function issueReturn(ds: DataSource, queues: Queues, user: Express.User, packageId: string) {
   if (user.role !== 'reviewer') throw AppError.forbidden('Only a reviewer issues the stamped return.');
   const pkg = await findScopedPackage(ds.manager, user, packageId);
+  requireState('issue_return', pkg.status, 'The stamped return can be issued', 'no_decision');
   const decision = await latestDecision(ds.manager, pkg.id);
-  if (!decision || !['decided', 'returned'].includes(pkg.status)) {
+  if (!decision) {
     throw new AppError(
       409,
       'no_decision',

@@ -1,7 +1,7 @@
 // The review: reviewers assign engineers; the assigned engineer marks up pages, raises
 // findings, accepts contractor figures with a reason and records the decision; the
 // contractor answers findings and starts the next revision. Every change is audited.
-import { stateRefusal } from '@shared/rules/package-status';
+import { actionAllowed, stateRefusal, type PackageAction } from '@shared/rules/package-status';
 import type { DataSource, EntityManager } from 'typeorm';
 import { In, IsNull } from 'typeorm';
 import type {
@@ -21,6 +21,7 @@ import { Site } from '../sites/site.entity';
 import { UploadedFile } from '../files/file.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage, scopedPackages } from '../packages/package-scope';
+import { requireState } from '../packages/state-guard';
 import { User } from '../users/user.entity';
 import { Assignment, DecisionRecord, Finding, Markup } from './review.entity';
 import { carryLibraryUses } from '../library/service';
@@ -57,12 +58,16 @@ async function currentSubmittedRevision(m: EntityManager, pkg: LiftPackage) {
 }
 
 /** The package as its assigned engineer works on it: in scope, theirs, and still with them. */
-async function packageUnderReview(ds: DataSource, user: Express.User, packageId: string, what: string) {
+async function packageUnderReview(
+  ds: DataSource,
+  user: Express.User,
+  packageId: string,
+  action: PackageAction,
+  what: string,
+) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   requireAssignedEngineer(user, pkg);
-  if (pkg.status !== 'with_engineer') {
-    throw new AppError(409, 'review_closed', `${what} only while the package is with the engineer.`);
-  }
+  requireState(action, pkg.status, what, 'review_closed');
   return pkg;
 }
 
@@ -89,8 +94,6 @@ export async function listEngineers(ds: DataSource, user: Express.User) {
   };
 }
 
-const ASSIGNABLE = ['ready_for_review', 'with_engineer', 'checking', 'check_failed'];
-
 export async function assignEngineer(
   ds: DataSource,
   queues: Queues,
@@ -115,12 +118,17 @@ export async function assignEngineer(
     const found = new Set(packages.map((p) => p.id));
     const missing = packageIds.filter((id) => !found.has(id));
     if (missing.length) throw AppError.notFound(`lift package ${missing[0]}`);
-    const refused = packages.filter((p) => !ASSIGNABLE.includes(p.status));
+    const refused = packages.filter((p) => !actionAllowed('assign_engineer', p.status));
     if (refused.length) {
       throw new AppError(
         409,
         'not_assignable',
-        `${refused.map((p) => p.reference).join(', ')}: a decision is already recorded or the package is a draft; it cannot be reassigned.`,
+        refused
+          .map(
+            (p) =>
+              `${p.reference}: ${stateRefusal('assign_engineer', p.status, 'An engineer can be assigned')}`,
+          )
+          .join(' '),
       );
     }
     for (const pkg of packages) {
@@ -215,7 +223,7 @@ export async function listMarkups(
 }
 
 export async function addMarkup(ds: DataSource, user: Express.User, packageId: string, body: MarkupBody) {
-  const pkg = await packageUnderReview(ds, user, packageId, 'Markups can be added');
+  const pkg = await packageUnderReview(ds, user, packageId, 'edit_markups', 'Markups can be added');
   return ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
     const file = await m.getRepository(UploadedFile).findOneBy({ id: body.fileId, revisionId: revision.id });
@@ -253,7 +261,7 @@ export async function addMarkup(ds: DataSource, user: Express.User, packageId: s
 }
 
 export async function deleteMarkup(ds: DataSource, user: Express.User, packageId: string, markupId: string) {
-  const pkg = await packageUnderReview(ds, user, packageId, 'Markups can be removed');
+  const pkg = await packageUnderReview(ds, user, packageId, 'edit_markups', 'Markups can be removed');
   const revision = await currentSubmittedRevision(ds.manager, pkg);
   const result = await ds.getRepository(Markup).delete({ id: markupId, revisionId: revision.id });
   if (!result.affected) throw AppError.notFound('markup');
@@ -300,7 +308,7 @@ export async function listFindings(
 }
 
 export async function addFinding(ds: DataSource, user: Express.User, packageId: string, body: FindingBody) {
-  const pkg = await packageUnderReview(ds, user, packageId, 'Findings can be raised');
+  const pkg = await packageUnderReview(ds, user, packageId, 'raise_finding', 'Findings can be raised');
   await ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
     if (
@@ -389,7 +397,7 @@ export async function acceptFigure(
   figure: string,
   reason: string,
 ) {
-  const pkg = await packageUnderReview(ds, user, packageId, 'Figures can be accepted');
+  const pkg = await packageUnderReview(ds, user, packageId, 'accept_figure', 'Figures can be accepted');
   await ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
     const discrepancies = (readStoredResult(revision.results)?.discrepancies ?? []).filter(
@@ -419,13 +427,7 @@ export async function recordDecision(
 ) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   requireAssignedEngineer(user, pkg);
-  if (!['with_engineer', 'decided'].includes(pkg.status)) {
-    throw new AppError(
-      409,
-      'review_closed',
-      'A decision can be recorded only while the package is with the engineer and before the return is issued.',
-    );
-  }
+  requireState('record_decision', pkg.status, 'A decision can be recorded', 'review_closed');
   await ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
     // Optimistic lock: the version the engineer read must still be the current one.
@@ -462,7 +464,8 @@ export async function latestDecision(m: EntityManager, packageId: string) {
 export async function startNextRevision(ds: DataSource, user: Express.User, packageId: string) {
   if (user.role !== 'contractor') throw AppError.forbidden('Only the contractor starts a new revision.');
   const pkg = await findScopedPackage(ds.manager, user, packageId);
-  if (pkg.status !== 'returned' || !['revise_and_resubmit', 'rejected'].includes(pkg.decision ?? '')) {
+  requireState('start_next_revision', pkg.status, 'A new revision can start', 'not_returned_for_revision');
+  if (!['revise_and_resubmit', 'rejected'].includes(pkg.decision ?? '')) {
     throw new AppError(
       409,
       'not_returned_for_revision',

@@ -10,9 +10,10 @@ import { Button } from '@/components/ui/button';
 import { PageLoading } from '@/components/ui/page-loading';
 import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
 import { useOrganisations } from '@/features/admin/api/organisations';
-import { usePeople, type Person } from '@/features/admin/api/people';
+import { usePeople, type InvitedPerson } from '@/features/admin/api/people';
 import type { PeopleFilters } from '@/features/admin/api/admin-keys';
 import { InviteDialog } from '@/features/admin/components/invite-dialog';
+import { InviteLinkOnce } from '@/features/admin/components/invite-link-once';
 import { PeopleTable } from '@/features/admin/components/people-table';
 import { PERSON_STATE_LABELS } from '@/features/admin/lib/labels';
 
@@ -29,7 +30,7 @@ export default function AdminPeopleRoute() {
   const people = usePeople(filters);
   const organisations = useOrganisations();
   const [inviting, setInviting] = useState(false);
-  const [invited, setInvited] = useState<Person | null>(null);
+  const [invited, setInvited] = useState<InvitedPerson | null>(null);
 
   const setFilter = (key: keyof PeopleFilters, value: string) =>
     setParams(
@@ -122,10 +123,10 @@ export default function AdminPeopleRoute() {
       </div>
 
       {invited && (
-        <p role="status" className="mb-3 border-l-4 border-verdigris bg-verdigris-tint px-3 py-2 text-sm">
-          <strong>Invitation queued for {invited.email}.</strong> The link to set a password is in the mail
-          outbox; it expires if not used.
-        </p>
+        <div role="status" className="mb-3 border-l-4 border-verdigris bg-verdigris-tint px-3 py-2 text-sm">
+          <strong>Invitation queued for {invited.email}.</strong> It expires if not used.
+          <InviteLinkOnce link={invited.inviteLink} />
+        </div>
       )}
 
       {people.isPending ? (

@@ -1,6 +1,7 @@
 // /packages/:id: the package for every role (read-only but for the contractor's draft
 // actions): its facts, the check run live while it runs, the recomputed results with the
 // discrepancies first, the plots, the files and the revision history.
+import { actionAllowed } from '@shared/rules/package-status';
 import { readStoredResult } from '@shared/engineering/stored-result';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { homeFor, useCurrentUser } from '@/lib/auth';
@@ -65,7 +66,7 @@ export default function PackageDetailRoute() {
   // Returned for changes: answer the findings and start the next revision; while that
   // revision is a draft, the findings stay in view.
   const resubmission =
-    data.package.status === 'returned' &&
+    actionAllowed('start_next_revision', data.package.status) &&
     (data.package.decision === 'revise_and_resubmit' || data.package.decision === 'rejected')
       ? 'returned'
       : current.state === 'draft' && current.number > 1

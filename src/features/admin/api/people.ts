@@ -3,12 +3,12 @@
 // fresh invitation link.
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { Person, type InviteBody, type PersonPatch } from '@shared/schemas/admin';
+import { InvitedPerson, Person, type InviteBody, type PersonPatch } from '@shared/schemas/admin';
 import { api, request } from '@/lib/api-client';
 import { engineerKeys } from '@/lib/query-client';
 import { adminKeys, type PeopleFilters } from './admin-keys';
 
-export type { Person };
+export type { InvitedPerson, Person };
 const PeopleList = z.object({ items: z.array(Person) });
 
 export function getPeople(filters: PeopleFilters, signal?: AbortSignal) {
@@ -40,7 +40,8 @@ function useRefreshPeople() {
 export function useInvitePerson() {
   const refresh = useRefreshPeople();
   return useMutation({
-    mutationFn: (body: z.output<typeof InviteBody>) => api.post('/api/admin/people/invite', body, Person),
+    mutationFn: (body: z.output<typeof InviteBody>) =>
+      api.post('/api/admin/people/invite', body, InvitedPerson),
     onSuccess: refresh,
   });
 }
@@ -58,7 +59,7 @@ export function useReinvitePerson() {
   const refresh = useRefreshPeople();
   return useMutation({
     mutationFn: (id: string) =>
-      api.post(`/api/admin/people/${encodeURIComponent(id)}/reinvite`, undefined, Person),
+      api.post(`/api/admin/people/${encodeURIComponent(id)}/reinvite`, undefined, InvitedPerson),
     onSuccess: refresh,
   });
 }

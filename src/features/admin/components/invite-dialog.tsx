@@ -1,5 +1,5 @@
 // Inviting a person: their e-mail, name, role and organisation. The server queues an
-// e-mail with a one-time link to set a password. Rules come from the shared InviteBody
+// e-mail with a one-time link to set a password and answers with the link, shown once. Rules come from the shared InviteBody
 // schema; an address already in use (409 email_taken) is shown under the e-mail field.
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -13,7 +13,7 @@ import { Dialog } from '@/components/ui/dialog';
 import { FormAlert, FormField, inputClasses, selectClasses } from '@/components/ui/form-field';
 import { Spinner } from '@/components/ui/page-loading';
 import type { AdminOrganisation } from '@shared/schemas/admin';
-import { useInvitePerson, type Person } from '../api/people';
+import { useInvitePerson, type InvitedPerson } from '../api/people';
 import { ORGANISATION_KIND_LABELS } from '../lib/labels';
 
 type InviteForm = z.input<typeof InviteBody>;
@@ -34,7 +34,7 @@ export function InviteDialog({
   organisations: AdminOrganisation[];
   initialOrganisationId?: string;
   onClose: () => void;
-  onInvited: (person: Person) => void;
+  onInvited: (person: InvitedPerson) => void;
 }) {
   const invite = useInvitePerson();
   // Most invitations are for the desk's own people: start with the owner organisation.

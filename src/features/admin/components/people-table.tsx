@@ -9,6 +9,7 @@ import { formatDate } from '@/lib/format';
 import { ROLE_LABELS } from '@/lib/roles';
 import { Button } from '@/components/ui/button';
 import { useReinvitePerson, useUpdatePerson, type Person } from '../api/people';
+import { InviteLinkOnce } from './invite-link-once';
 import { PERSON_STATE_LABELS } from '../lib/labels';
 import { ConfirmDialog } from './confirm-dialog';
 
@@ -155,8 +156,9 @@ function Actions({
         )}
       </div>
       {reinvite.isSuccess && (
-        <span role="status" className="text-[12.5px] text-pass-ink">
+        <span role="status" className="max-w-[26rem] text-right text-[12.5px] text-pass-ink">
           New link sent; the old one no longer works
+          <InviteLinkOnce link={reinvite.data.inviteLink} />
         </span>
       )}
       {(reinvite.error ?? reactivate.error) && (

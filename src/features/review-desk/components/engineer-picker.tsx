@@ -1,12 +1,11 @@
 // The engineer column of the coordinator's queue: the engineer of record, and a quick way
 // to assign one to this package alone. Packages that cannot take an engineer (drafts,
 // decided, returned) show the name only.
+import { actionAllowed } from '@shared/rules/package-status';
 import type { PackageSummary } from '@shared/schemas/packages';
 import { Spinner } from '@/components/ui/page-loading';
 import { explainAssignError, useAssignEngineer } from '../api/assign-engineer';
 import type { Engineer } from '@shared/schemas/reviews';
-
-const ASSIGNABLE = new Set(['ready_for_review', 'with_engineer', 'checking', 'check_failed']);
 
 export function EngineerPicker({
   pkg,
@@ -16,7 +15,7 @@ export function EngineerPicker({
   engineers: Engineer[] | undefined;
 }) {
   const assign = useAssignEngineer();
-  if (!ASSIGNABLE.has(pkg.status) || !engineers) {
+  if (!actionAllowed('assign_engineer', pkg.status) || !engineers) {
     return pkg.engineer ? (
       <span>{pkg.engineer.name}</span>
     ) : (

@@ -1,5 +1,7 @@
-// Who may do what in the workspace. The server enforces the same rules; the client only
-// keeps people from starting work it would refuse.
+// Who may do what in the workspace. The statuses come from the shared status machine, the
+// same the server asks (shared/rules/package-status.ts); the client only keeps people from
+// starting work the server would refuse.
+import { actionAllowed } from '@shared/rules/package-status';
 import type { CurrentUser } from '@shared/schemas/auth';
 import { PACKAGE_STATUS_LABELS } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
@@ -20,8 +22,8 @@ export type WorkspaceAccess = {
 export function workspaceAccess(user: CurrentUser, detail: PackageDetail): WorkspaceAccess {
   const pkg = detail.package;
   const assigned = user.role === 'engineer' && pkg.engineer?.id === user.id;
-  const canMarkUp = assigned && pkg.status === 'with_engineer';
-  const canDecide = assigned && (pkg.status === 'with_engineer' || pkg.status === 'decided');
+  const canMarkUp = assigned && actionAllowed('edit_markups', pkg.status);
+  const canDecide = assigned && actionAllowed('record_decision', pkg.status);
   let reason: string | null = null;
   if (user.role !== 'engineer') {
     reason = `Read-only: you are signed in as ${ROLE_LABELS[user.role].toLowerCase()}. Only the engineer of record assigned to this package marks it up and decides.`;
@@ -35,5 +37,6 @@ export function workspaceAccess(user: CurrentUser, detail: PackageDetail): Works
   } else if (!canDecide) {
     reason = `Read-only: the package is ${PACKAGE_STATUS_LABELS[pkg.status].toLowerCase()}.`;
   }
-  return { assigned, canMarkUp, canDecide, canChangeFindings: assigned && pkg.status !== 'returned', reason };
+  const canChangeFindings = assigned && actionAllowed('close_or_reopen_finding', pkg.status);
+  return { assigned, canMarkUp, canDecide, canChangeFindings, reason };
 }
