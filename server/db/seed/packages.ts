@@ -10,7 +10,7 @@ import { fileURLToPath } from 'node:url';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { Decision, PackageStatus } from '@shared/schemas/common';
 import { LocalFolderStorage, sha256 } from '../../lib/storage';
-import { AuditEvent } from '../../modules/audit/audit-event.entity';
+import { recordAudit } from '../../modules/audit/service';
 import { InvalidLiftData, runCheck } from '../../modules/check-runs/service';
 import { UploadedFile } from '../../modules/files/file.entity';
 import type { Organisation } from '../../modules/organisations/organisation.entity';
@@ -366,11 +366,10 @@ export async function seedPackages(
       plannedLiftDate: isoDay(spec.daysToLift),
       currentRevision: 1,
     });
-    await m.getRepository(AuditEvent).save({
-      packageId: pkg.id,
-      actorId: person.id,
-      organisationId: org.id,
+    await recordAudit(m, {
       action: 'package.created',
+      actor: { id: person.id, organisationId: org.id },
+      packageId: pkg.id,
       detail: { reference, revision: 1 },
     });
     const submitted = spec.status !== 'draft' || spec.revisingAfter === true;
@@ -412,11 +411,10 @@ export async function seedPackages(
         submittedById: person.id,
         checkStatus: 'queued',
       });
-      await m.getRepository(AuditEvent).save({
-        packageId: pkg.id,
-        actorId: person.id,
-        organisationId: org.id,
+      await recordAudit(m, {
         action: 'revision.submitted',
+        actor: { id: person.id, organisationId: org.id },
+        packageId: pkg.id,
         detail: { revision: 1 },
       });
     }
@@ -455,10 +453,10 @@ export async function finishSeededPackages(
           .getRepository(Assignment)
           .save({ packageId, engineerId: engineer.id, assignedById: reviewer.id });
         await m.getRepository(LiftPackage).update(packageId, { assignedEngineerId: engineer.id });
-        await m.getRepository(AuditEvent).save({
-          packageId,
-          actorId: reviewer.id,
+        await recordAudit(m, {
           action: 'engineer.assigned',
+          actor: { id: reviewer.id },
+          packageId: packageId,
           detail: { engineer: engineer.name },
         });
       }
@@ -504,10 +502,10 @@ export async function finishSeededPackages(
           engineerId: engineer.id,
         });
         await m.getRepository(LiftPackage).update(packageId, { decision: spec.decision });
-        await m.getRepository(AuditEvent).save({
-          packageId,
-          actorId: engineer.id,
+        await recordAudit(m, {
           action: 'decision.recorded',
+          actor: { id: engineer.id },
+          packageId: packageId,
           detail: { decision: spec.decision, revision: 1 },
         });
       }
@@ -535,9 +533,7 @@ export async function finishSeededPackages(
         await m
           .getRepository(LiftPackage)
           .update(packageId, { currentRevision: 2, status: 'draft', decision: null });
-        await m
-          .getRepository(AuditEvent)
-          .save({ packageId, actorId: null, action: 'revision.started', detail: { revision: 2 } });
+        await recordAudit(m, { action: 'revision.started', actor: null, packageId, detail: { revision: 2 } });
       });
     }
   }

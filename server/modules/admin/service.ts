@@ -9,18 +9,12 @@ import { POLICY_DEFAULTS, SitePolicy } from '@shared/schemas/site-policy';
 import type { Role } from '@shared/schemas/common';
 import { AppError, zodFields } from '../../lib/app-error';
 import type { Queues } from '../../lib/queues';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { dispatchMail, stageMail } from '../mail/service';
 import { templates } from '../mail/templates';
 import { Organisation } from '../organisations/organisation.entity';
 import { Site, SiteMember } from '../sites/site.entity';
 import { User } from '../users/user.entity';
-
-async function audit(m: EntityManager, admin: Express.User, action: string, detail: Record<string, unknown>) {
-  await m
-    .getRepository(AuditEvent)
-    .save({ packageId: null, organisationId: admin.organisationId, actorId: admin.id, action, detail });
-}
 
 /**
  * The organisations an admin manages: their own, the contractors added to their desk, and
@@ -64,7 +58,12 @@ export async function createOrganisation(
     const org = await m
       .getRepository(Organisation)
       .save({ name: body.name, kind: body.kind, deskOwnerId: admin.organisationId });
-    await audit(m, admin, 'organisation.created', { name: org.name, kind: org.kind });
+    await recordAudit(m, {
+      action: 'organisation.created',
+      actor: admin,
+      packageId: null,
+      detail: { name: org.name, kind: org.kind },
+    });
     return { id: org.id, name: org.name, kind: org.kind, people: 0 };
   });
 }
@@ -74,7 +73,12 @@ export async function renameOrganisation(ds: DataSource, admin: Express.User, id
   if (!org) throw AppError.notFound('organisation');
   await ds.transaction(async (m) => {
     await m.getRepository(Organisation).update(id, { name });
-    await audit(m, admin, 'organisation.renamed', { from: org.name, to: name });
+    await recordAudit(m, {
+      action: 'organisation.renamed',
+      actor: admin,
+      packageId: null,
+      detail: { from: org.name, to: name },
+    });
   });
   return (await listOrganisations(ds, admin)).items.find((o) => o.id === id)!;
 }
@@ -124,7 +128,12 @@ export async function createSite(
       const s = await m
         .getRepository(Site)
         .save({ ...body, ownerOrganisationId: admin.organisationId, reviewPolicy: {} });
-      await audit(m, admin, 'site.created', { name: s.name, code: s.code });
+      await recordAudit(m, {
+        action: 'site.created',
+        actor: admin,
+        packageId: null,
+        detail: { name: s.name, code: s.code },
+      });
       return s;
     });
     return adminSite(ds, site);
@@ -147,7 +156,12 @@ export async function updateSite(
   try {
     await ds.transaction(async (m) => {
       await m.getRepository(Site).update(site.id, body);
-      await audit(m, admin, 'site.updated', { site: site.code, changes: body });
+      await recordAudit(m, {
+        action: 'site.updated',
+        actor: admin,
+        packageId: null,
+        detail: { site: site.code, changes: body },
+      });
     });
   } catch (error) {
     if (codeTaken(error))
@@ -174,7 +188,12 @@ export async function setSiteReviewers(ds: DataSource, admin: Express.User, id: 
   await ds.transaction(async (m) => {
     await m.getRepository(SiteMember).delete({ siteId: site.id });
     for (const p of people) await m.getRepository(SiteMember).save({ siteId: site.id, userId: p.id });
-    await audit(m, admin, 'site.reviewers', { site: site.code, reviewers: people.map((p) => p.name) });
+    await recordAudit(m, {
+      action: 'site.reviewers',
+      actor: admin,
+      packageId: null,
+      detail: { site: site.code, reviewers: people.map((p) => p.name) },
+    });
   });
   return adminSite(ds, site);
 }
@@ -227,12 +246,17 @@ export async function setPolicy(
     await m
       .getRepository(Site)
       .update(site.id, { reviewPolicy: overrides as never, policyVersion: site.policyVersion + 1 });
-    await audit(m, admin, 'policy.changed', {
-      siteId: site.id,
-      site: site.code,
-      before: site.reviewPolicy,
-      after: overrides,
-      policyVersion: site.policyVersion + 1,
+    await recordAudit(m, {
+      action: 'policy.changed',
+      actor: admin,
+      packageId: null,
+      detail: {
+        siteId: site.id,
+        site: site.code,
+        before: site.reviewPolicy,
+        after: overrides,
+        policyVersion: site.policyVersion + 1,
+      },
     });
   });
   return getPolicy(ds, admin, id);
@@ -353,7 +377,12 @@ export async function invitePerson(
       unitSystem: 'metric',
     });
     const ids = await issueInvite(m, admin, u, org, opts.appUrl, opts.hours);
-    await audit(m, admin, 'person.invited', { email: u.email, role: u.role, organisation: org.name });
+    await recordAudit(m, {
+      action: 'person.invited',
+      actor: admin,
+      packageId: null,
+      detail: { email: u.email, role: u.role, organisation: org.name },
+    });
     return { user: u, mailIds: ids };
   });
   await dispatchMail(queues, mailIds);
@@ -383,7 +412,12 @@ export async function reinvite(
     throw new AppError(409, 'already_active', `${user.name} has already set a password.`);
   const mailIds = await ds.transaction(async (m) => {
     const ids = await issueInvite(m, admin, user, user.organisation!, opts.appUrl, opts.hours);
-    await audit(m, admin, 'person.reinvited', { email: user.email });
+    await recordAudit(m, {
+      action: 'person.reinvited',
+      actor: admin,
+      packageId: null,
+      detail: { email: user.email },
+    });
     return ids;
   });
   await dispatchMail(queues, mailIds);
@@ -415,7 +449,12 @@ export async function updatePerson(
       await m.getRepository(User).update(user.id, changes);
       if (changes.role && user.role === 'reviewer')
         await m.getRepository(SiteMember).delete({ userId: user.id });
-      await audit(m, admin, 'person.updated', { email: user.email, ...body });
+      await recordAudit(m, {
+        action: 'person.updated',
+        actor: admin,
+        packageId: null,
+        detail: { email: user.email, ...body },
+      });
     }
   });
   return toPerson(await visiblePerson(ds, admin, id));
@@ -444,11 +483,10 @@ export async function acceptInvite(ds: DataSource, token: string, passwordHash: 
     await m
       .getRepository(User)
       .update(user.id, { passwordHash, inviteTokenHash: null, inviteExpiresAt: null });
-    await m.getRepository(AuditEvent).save({
-      packageId: null,
-      organisationId: user.organisationId,
-      actorId: user.id,
+    await recordAudit(m, {
       action: 'person.joined',
+      actor: user,
+      packageId: null,
       detail: { email: user.email },
     });
   });

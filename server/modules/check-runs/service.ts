@@ -9,7 +9,7 @@ import type { CheckRunStatus } from '@shared/schemas/check-runs';
 import { LiftInput } from '@shared/schemas/lift-input';
 import { AppError } from '../../lib/app-error';
 import { withTimeout, type Queues } from '../../lib/queues';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { checkRunIntent, handOff, latestIntent, nextRound, recordIntent } from '../jobs/intents';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
@@ -48,7 +48,12 @@ export async function runCheck(
         checkProgress: 100,
       });
       await m.getRepository(LiftPackage).update(pkg.id, { status: 'check_failed' });
-      await audit(m, pkg.id, 'check.invalid', { revision: revision.number, reason });
+      await recordAudit(m, {
+        action: 'check.invalid',
+        actor: null,
+        packageId: pkg.id,
+        detail: { revision: revision.number, reason },
+      });
     });
     throw new InvalidLiftData(reason);
   }
@@ -83,10 +88,15 @@ export async function runCheck(
         openDiscrepancies,
       });
     }
-    await audit(m, pkg.id, 'check.completed', {
-      revision: revision.number,
-      overallStatus: worstStatus,
-      openDiscrepancies,
+    await recordAudit(m, {
+      action: 'check.completed',
+      actor: null,
+      packageId: pkg.id,
+      detail: {
+        revision: revision.number,
+        overallStatus: worstStatus,
+        openDiscrepancies,
+      },
     });
   });
   await progress(100, 'done');
@@ -95,10 +105,6 @@ export async function runCheck(
 
 async function setProgress(m: EntityManager, revisionId: string, percent: number, status: string) {
   await m.getRepository(Revision).update(revisionId, { checkProgress: percent, checkStatus: status });
-}
-
-async function audit(m: EntityManager, packageId: string, action: string, detail: Record<string, unknown>) {
-  await m.getRepository(AuditEvent).save({ packageId, action, detail, actorId: null, organisationId: null });
 }
 
 /**
@@ -122,7 +128,12 @@ export async function markCheckFailed(ds: DataSource, revisionId: string, reason
        WHERE id = $1 AND current_revision = $2 AND status = 'checking'`,
       [packageId, number],
     );
-    await audit(m, packageId, 'check.failed', { revision: number, reason });
+    await recordAudit(m, {
+      action: 'check.failed',
+      actor: null,
+      packageId: packageId,
+      detail: { revision: number, reason },
+    });
   });
 }
 
@@ -202,11 +213,10 @@ export async function retryCheck(ds: DataSource, queues: Queues, user: Express.U
     await m.query(`UPDATE lift_packages SET status = 'checking' WHERE id = $1 AND status = 'check_failed'`, [
       pkg.id,
     ]);
-    await m.getRepository(AuditEvent).save({
-      packageId: pkg.id,
-      actorId: user.id,
-      organisationId: user.organisationId,
+    await recordAudit(m, {
       action: 'check.retried',
+      actor: user,
+      packageId: pkg.id,
       detail: { revision: revision.number, previousError: revision.checkError },
     });
     const next = checkRunIntent(revision.id, await nextRound(m, 'check-run', revision.id));

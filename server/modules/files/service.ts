@@ -5,7 +5,7 @@ import type { DataSource } from 'typeorm';
 import type { FileKind, FileSummary } from '@shared/schemas/packages';
 import { AppError } from '../../lib/app-error';
 import { sha256, type Storage } from '../../lib/storage';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { UploadedFile } from './file.entity';
@@ -72,11 +72,10 @@ export async function addFile(
         storageKey,
         uploadedById: user.id,
       });
-      await m.getRepository(AuditEvent).save({
-        packageId: pkg.id,
-        actorId: user.id,
-        organisationId: user.organisationId,
+      await recordAudit(m, {
         action: 'file.added',
+        actor: user,
+        packageId: pkg.id,
         detail: {
           revision: revision.number,
           name: originalName,
@@ -107,11 +106,10 @@ export async function removeFile(
   if (!file) throw AppError.notFound('file');
   await ds.transaction(async (m) => {
     await m.getRepository(UploadedFile).delete(file.id);
-    await m.getRepository(AuditEvent).save({
-      packageId: pkg.id,
-      actorId: user.id,
-      organisationId: user.organisationId,
+    await recordAudit(m, {
       action: 'file.removed',
+      actor: user,
+      packageId: pkg.id,
       detail: { revision: revision.number, name: file.originalName },
     });
   });

@@ -7,7 +7,7 @@ import { LiftInput } from '@shared/schemas/lift-input';
 import type { CreatePackageBody, SaveDraftBody } from '@shared/schemas/packages';
 import { AppError, zodFields } from '../../lib/app-error';
 import { checkRunJobId, type Queues } from '../../lib/queues';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { UploadedFile } from '../files/file.entity';
 import { Site } from '../sites/site.entity';
 import { LiftPackage, Revision } from './package.entity';
@@ -20,18 +20,6 @@ import { findScopedPackage } from './package-scope';
 function requireContractor(user: Express.User) {
   if (user.role !== 'contractor')
     throw AppError.forbidden('Only a contractor prepares and submits lift packages.');
-}
-
-async function audit(
-  m: EntityManager,
-  user: Express.User,
-  packageId: string,
-  action: string,
-  detail: Record<string, unknown>,
-) {
-  await m
-    .getRepository(AuditEvent)
-    .save({ packageId, actorId: user.id, organisationId: user.organisationId, action, detail });
 }
 
 /** A site the contractor may submit to: one of its desk owner's sites (any site when it has none). */
@@ -82,7 +70,12 @@ export async function createPackage(
       currentRevision: 1,
     });
     await m.getRepository(Revision).save({ packageId: pkg.id, number: 1, state: 'draft', inputs });
-    await audit(m, user, pkg.id, 'package.created', { reference: pkg.reference, revision: 1 });
+    await recordAudit(m, {
+      action: 'package.created',
+      actor: user,
+      packageId: pkg.id,
+      detail: { reference: pkg.reference, revision: 1 },
+    });
     return pkg.id;
   });
 }
@@ -184,7 +177,12 @@ export async function submitPackage(
       checkProgress: 0,
     });
     await m.getRepository(LiftPackage).update(pkg.id, { status: 'checking' });
-    await audit(m, user, pkg.id, 'revision.submitted', { revision: revision.number });
+    await recordAudit(m, {
+      action: 'revision.submitted',
+      actor: user,
+      packageId: pkg.id,
+      detail: { revision: revision.number },
+    });
     await recordIntent(m, checkRunIntent(revision.id));
     return {
       revisionId: revision.id,

@@ -14,7 +14,7 @@ import { AppError } from '../../lib/app-error';
 import { QUEUE_NAMES, type Queues } from '../../lib/queues';
 import type { Signer } from '../../lib/pdf-tools/signer';
 import type { Storage } from '../../lib/storage';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { handOff, latestIntent, nextRound, recordIntent, type Intent } from '../jobs/intents';
 import { stageMail } from '../mail/service';
 import { templates } from '../mail/templates';
@@ -83,11 +83,10 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Express.
          VALUES ($1, $2, $3, $4, $5) ON CONFLICT (decision_id) DO NOTHING`,
         [decision.id, pkg.id, decision.revisionId, newVerificationCode(), user.id],
       );
-      await m.getRepository(AuditEvent).save({
-        packageId: pkg.id,
-        actorId: user.id,
-        organisationId: user.organisationId,
+      await recordAudit(m, {
         action: 'return.requested',
+        actor: user,
+        packageId: pkg.id,
         detail: { decision: decision.decision },
       });
       const row = await m.getRepository(StampedReturn).findOneByOrFail({ decisionId: decision.id });
@@ -285,10 +284,10 @@ export async function buildReturn(
       .execute();
     if (!updated.affected) return [];
     await m.getRepository(LiftPackage).update(pkg.id, { status: 'returned' });
-    await m.getRepository(AuditEvent).save({
-      packageId: pkg.id,
-      actorId: ret.issuedById,
+    await recordAudit(m, {
       action: 'return.issued',
+      actor: { id: ret.issuedById },
+      packageId: pkg.id,
       detail: { decision: DECISION_LABELS[decision.decision], revision: revision.number, pages },
     });
     // The decision goes to the person who submitted the revision.

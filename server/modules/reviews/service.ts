@@ -14,7 +14,7 @@ import type {
 import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
 import type { Queues } from '../../lib/queues';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { dispatchMail, stageMail, type MailDraft } from '../mail/service';
 import { templates } from '../mail/templates';
 import { Site } from '../sites/site.entity';
@@ -23,22 +23,6 @@ import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage, scopedPackages } from '../packages/package-scope';
 import { User } from '../users/user.entity';
 import { Assignment, DecisionRecord, Finding, Markup } from './review.entity';
-
-async function audit(
-  m: EntityManager,
-  user: Express.User | null,
-  packageId: string,
-  action: string,
-  detail: Record<string, unknown>,
-) {
-  await m.getRepository(AuditEvent).save({
-    packageId,
-    actorId: user?.id ?? null,
-    organisationId: user?.organisationId ?? null,
-    action,
-    detail,
-  });
-}
 
 function requireAssignedEngineer(user: Express.User, pkg: LiftPackage) {
   if (user.role !== 'engineer' || pkg.assignedEngineerId !== user.id) {
@@ -152,9 +136,14 @@ export async function assignEngineer(
         assignedEngineerId: engineer.id,
         status: pkg.status === 'ready_for_review' ? 'with_engineer' : pkg.status,
       });
-      await audit(m, user, pkg.id, pkg.assignedEngineerId ? 'engineer.reassigned' : 'engineer.assigned', {
-        engineer: engineer.name,
-        engineerId: engineer.id,
+      await recordAudit(m, {
+        action: pkg.assignedEngineerId ? 'engineer.reassigned' : 'engineer.assigned',
+        actor: user,
+        packageId: pkg.id,
+        detail: {
+          engineer: engineer.name,
+          engineerId: engineer.id,
+        },
       });
     }
     return {
@@ -329,7 +318,12 @@ export async function addFinding(ds: DataSource, user: Express.User, packageId: 
       severity: body.severity,
       createdById: user.id,
     });
-    await audit(m, user, pkg.id, 'finding.raised', { revision: revision.number, severity: body.severity });
+    await recordAudit(m, {
+      action: 'finding.raised',
+      actor: user,
+      packageId: pkg.id,
+      detail: { revision: revision.number, severity: body.severity },
+    });
   });
   return listFindings(ds, user, packageId);
 }
@@ -362,7 +356,12 @@ export async function updateFinding(
       await m
         .getRepository(Finding)
         .update(finding.id, { response: body.response, state: 'answered', answeredAt: new Date() });
-      await audit(m, user, pkg.id, 'finding.answered', { findingId });
+      await recordAudit(m, {
+        action: 'finding.answered',
+        actor: user,
+        packageId: pkg.id,
+        detail: { findingId },
+      });
     } else {
       requireAssignedEngineer(user, pkg);
       if (!body.state || body.state === 'answered') {
@@ -373,8 +372,13 @@ export async function updateFinding(
       await m
         .getRepository(Finding)
         .update(finding.id, { state: body.state, closedAt: body.state === 'closed' ? new Date() : null });
-      await audit(m, user, pkg.id, body.state === 'closed' ? 'finding.closed' : 'finding.reopened', {
-        findingId,
+      await recordAudit(m, {
+        action: body.state === 'closed' ? 'finding.closed' : 'finding.reopened',
+        actor: user,
+        packageId: pkg.id,
+        detail: {
+          findingId,
+        },
       });
     }
   });
@@ -404,7 +408,12 @@ export async function acceptFigure(
     await m.getRepository(Revision).update(revision.id, { acceptedFigures: accepted });
     const open = discrepancies.filter((d) => !accepted.some((a) => a.figure === d.figure)).length;
     await m.getRepository(LiftPackage).update(pkg.id, { openDiscrepancies: open });
-    await audit(m, user, pkg.id, 'figure.accepted', { figure, reason, revision: revision.number });
+    await recordAudit(m, {
+      action: 'figure.accepted',
+      actor: user,
+      packageId: pkg.id,
+      detail: { figure, reason, revision: revision.number },
+    });
   });
 }
 
@@ -448,7 +457,12 @@ export async function recordDecision(
       conditions: body.conditions,
       engineerId: user.id,
     });
-    await audit(m, user, pkg.id, 'decision.recorded', { decision: body.decision, revision: revision.number });
+    await recordAudit(m, {
+      action: 'decision.recorded',
+      actor: user,
+      packageId: pkg.id,
+      detail: { decision: body.decision, revision: revision.number },
+    });
   });
 }
 
@@ -483,6 +497,11 @@ export async function startNextRevision(ds: DataSource, user: Express.User, pack
       worstStatus: null,
       openDiscrepancies: 0,
     });
-    await audit(m, user, pkg.id, 'revision.started', { revision: number, from: previous.number });
+    await recordAudit(m, {
+      action: 'revision.started',
+      actor: user,
+      packageId: pkg.id,
+      detail: { revision: number, from: previous.number },
+    });
   });
 }
