@@ -2,6 +2,7 @@
 // sites, its sites with their reviewers and review policies, and people with invitations.
 // Every change is audited; a policy change applies to check runs from then on, and each
 // stored result keeps the policy it was computed with.
+import type { Actor } from '@shared/rules/actor';
 import { createHash, randomBytes } from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
 import { In } from 'typeorm';
@@ -20,7 +21,7 @@ import { User } from '../users/user.entity';
  * The organisations an admin manages: their own, the contractors added to their desk, and
  * any contractor with a package on one of their sites.
  */
-export async function visibleOrganisations(ds: DataSource, admin: Express.User) {
+export async function visibleOrganisations(ds: DataSource, admin: Actor) {
   return ds
     .getRepository(Organisation)
     .createQueryBuilder('o')
@@ -34,7 +35,7 @@ export async function visibleOrganisations(ds: DataSource, admin: Express.User) 
     .getMany();
 }
 
-export async function listOrganisations(ds: DataSource, admin: Express.User) {
+export async function listOrganisations(ds: DataSource, admin: Actor) {
   const orgs = await visibleOrganisations(ds, admin);
   const counts: Array<{ id: string; n: number }> = await ds.query(
     `SELECT organisation_id AS id, count(*)::int AS n FROM users WHERE organisation_id = ANY($1) GROUP BY organisation_id`,
@@ -46,7 +47,7 @@ export async function listOrganisations(ds: DataSource, admin: Express.User) {
 
 export async function createOrganisation(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   body: { name: string; kind: 'contractor' | 'owner' },
 ) {
   if (body.kind === 'owner') {
@@ -68,7 +69,7 @@ export async function createOrganisation(
   });
 }
 
-export async function renameOrganisation(ds: DataSource, admin: Express.User, id: string, name: string) {
+export async function renameOrganisation(ds: DataSource, admin: Actor, id: string, name: string) {
   const org = (await visibleOrganisations(ds, admin)).find((o) => o.id === id);
   if (!org) throw AppError.notFound('organisation');
   await ds.transaction(async (m) => {
@@ -85,7 +86,7 @@ export async function renameOrganisation(ds: DataSource, admin: Express.User, id
 
 // ---- sites ------------------------------------------------------------------------------
 
-async function ownSite(ds: DataSource, admin: Express.User, id: string) {
+async function ownSite(ds: DataSource, admin: Actor, id: string) {
   const site = await ds.getRepository(Site).findOneBy({ id, ownerOrganisationId: admin.organisationId });
   if (!site) throw AppError.notFound('site');
   return site;
@@ -107,7 +108,7 @@ export async function adminSite(ds: DataSource, site: Site) {
   };
 }
 
-export async function listSites(ds: DataSource, admin: Express.User) {
+export async function listSites(ds: DataSource, admin: Actor) {
   const sites = await ds
     .getRepository(Site)
     .find({ where: { ownerOrganisationId: admin.organisationId }, order: { name: 'ASC' } });
@@ -120,7 +121,7 @@ function codeTaken(error: unknown) {
 
 export async function createSite(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   body: { name: string; code: string; address: string; timeZone: string },
 ) {
   try {
@@ -148,7 +149,7 @@ export async function createSite(
 
 export async function updateSite(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   id: string,
   body: Partial<{ name: string; code: string; address: string; timeZone: string }>,
 ) {
@@ -173,7 +174,7 @@ export async function updateSite(
   return adminSite(ds, await ownSite(ds, admin, id));
 }
 
-export async function setSiteReviewers(ds: DataSource, admin: Express.User, id: string, userIds: string[]) {
+export async function setSiteReviewers(ds: DataSource, admin: Actor, id: string, userIds: string[]) {
   const site = await ownSite(ds, admin, id);
   const people = userIds.length
     ? await ds
@@ -200,7 +201,7 @@ export async function setSiteReviewers(ds: DataSource, admin: Express.User, id: 
 
 // ---- review policy ----------------------------------------------------------------------
 
-export async function getPolicy(ds: DataSource, admin: Express.User, id: string) {
+export async function getPolicy(ds: DataSource, admin: Actor, id: string) {
   const site = await ownSite(ds, admin, id);
   const history: Array<{ at: Date; actor: string | null; detail: { before: unknown; after: unknown } }> =
     await ds.query(
@@ -224,7 +225,7 @@ export async function getPolicy(ds: DataSource, admin: Express.User, id: string)
 
 export async function setPolicy(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   id: string,
   overrides: Record<string, unknown>,
 ) {
@@ -286,7 +287,7 @@ export function toPerson(u: User) {
 
 export async function listPeople(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   filter: { organisationId?: string; role?: Role; state?: string },
 ) {
   const orgIds = (await visibleOrganisations(ds, admin)).map((o) => o.id);
@@ -306,7 +307,7 @@ const hashToken = (token: string) => createHash('sha256').update(token).digest('
 
 async function issueInvite(
   m: EntityManager,
-  admin: Express.User,
+  admin: Actor,
   user: User,
   org: Organisation,
   appUrl: string,
@@ -337,7 +338,7 @@ async function issueInvite(
 export async function invitePerson(
   ds: DataSource,
   queues: Queues,
-  admin: Express.User,
+  admin: Actor,
   body: { email: string; name: string; role: Role; organisationId: string },
   opts: { appUrl: string; hours: number },
 ) {
@@ -391,7 +392,7 @@ export async function invitePerson(
   );
 }
 
-async function visiblePerson(ds: DataSource, admin: Express.User, id: string) {
+async function visiblePerson(ds: DataSource, admin: Actor, id: string) {
   const orgIds = (await visibleOrganisations(ds, admin)).map((o) => o.id);
   const user = await ds
     .getRepository(User)
@@ -403,7 +404,7 @@ async function visiblePerson(ds: DataSource, admin: Express.User, id: string) {
 export async function reinvite(
   ds: DataSource,
   queues: Queues,
-  admin: Express.User,
+  admin: Actor,
   id: string,
   opts: { appUrl: string; hours: number },
 ) {
@@ -426,7 +427,7 @@ export async function reinvite(
 
 export async function updatePerson(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   id: string,
   body: { role?: Role; active?: boolean },
 ) {

@@ -3,6 +3,7 @@
 // policy used, and move the package on. Running it again for a revision already checked
 // changes nothing, so a retried or duplicated job is harmless. Also: the run's last
 // failure ("check could not run"), where its job is, and running it again.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager } from 'typeorm';
 import { evaluateLift } from '@shared/engineering/evaluate';
 import type { CheckRunStatus } from '@shared/schemas/check-runs';
@@ -137,7 +138,7 @@ export async function markCheckFailed(ds: DataSource, revisionId: string, reason
   });
 }
 
-const MAY_RETRY: ReadonlyArray<Express.User['role']> = ['contractor', 'reviewer'];
+const MAY_RETRY: ReadonlyArray<Actor['role']> = ['contractor', 'reviewer'];
 /** Asking the queue where a job is must not hold the page when Redis is away. */
 const QUEUE_LOOK_MS = 300;
 
@@ -153,7 +154,7 @@ async function currentRevision(m: EntityManager, pkg: LiftPackage, lock = false)
 export async function checkRunStatus(
   ds: DataSource,
   queues: Queues,
-  user: Express.User,
+  user: Actor,
   packageId: string,
 ): Promise<CheckRunStatus> {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
@@ -187,7 +188,7 @@ export async function checkRunStatus(
 }
 
 /** "Run the check again" after a final failure: a new round of the job, with its own id. */
-export async function retryCheck(ds: DataSource, queues: Queues, user: Express.User, packageId: string) {
+export async function retryCheck(ds: DataSource, queues: Queues, user: Actor, packageId: string) {
   if (!MAY_RETRY.includes(user.role))
     throw AppError.forbidden('Only the contractor or a reviewer runs a check again.');
   const pkg = await findScopedPackage(ds.manager, user, packageId);

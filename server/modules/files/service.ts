@@ -1,5 +1,6 @@
 // Uploaded PDFs of a draft revision: checked, hashed, stored behind the storage
 // interface, recorded. A refused upload leaves nothing on disk or in the database.
+import type { Actor } from '@shared/rules/actor';
 import { randomUUID } from 'node:crypto';
 import type { DataSource } from 'typeorm';
 import type { FileKind, FileSummary } from '@shared/schemas/packages';
@@ -23,7 +24,7 @@ export function toFileSummary(f: UploadedFile): FileSummary {
   };
 }
 
-async function currentDraft(ds: DataSource, user: Express.User, packageId: string) {
+async function currentDraft(ds: DataSource, user: Actor, packageId: string) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const revision = await ds
     .getRepository(Revision)
@@ -41,7 +42,7 @@ async function currentDraft(ds: DataSource, user: Express.User, packageId: strin
 export async function addFile(
   ds: DataSource,
   storage: Storage,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   upload: { originalName: string; bytes: Uint8Array; kind: FileKind },
   limits: { maxPages: number },
@@ -97,7 +98,7 @@ export async function addFile(
 export async function removeFile(
   ds: DataSource,
   storage: Storage,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   fileId: string,
 ) {
@@ -119,7 +120,7 @@ export async function removeFile(
 export async function readFile(
   ds: DataSource,
   storage: Storage,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   fileId: string,
 ) {

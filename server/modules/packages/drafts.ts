@@ -2,6 +2,7 @@
 // Submitting freezes the revision (a database trigger refuses later changes to its
 // inputs) and writes its check run's job intent in the same transaction; the job (id
 // derived from the revision) is queued after the commit, or by the worker's relay.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager } from 'typeorm';
 import { LiftInput } from '@shared/schemas/lift-input';
 import type { CreatePackageBody, SaveDraftBody } from '@shared/schemas/packages';
@@ -17,13 +18,13 @@ import { templates } from '../mail/templates';
 import { User } from '../users/user.entity';
 import { findScopedPackage } from './package-scope';
 
-function requireContractor(user: Express.User) {
+function requireContractor(user: Actor) {
   if (user.role !== 'contractor')
     throw AppError.forbidden('Only a contractor prepares and submits lift packages.');
 }
 
 /** A site the contractor may submit to: one of its desk owner's sites (any site when it has none). */
-async function siteOr400(m: EntityManager, siteId: string, user: Express.User) {
+async function siteOr400(m: EntityManager, siteId: string, user: Actor) {
   const [site] = await m
     .getRepository(Site)
     .createQueryBuilder('s')
@@ -52,7 +53,7 @@ async function nextReference(m: EntityManager, site: Site): Promise<string> {
 
 export async function createPackage(
   ds: DataSource,
-  user: Express.User,
+  user: Actor,
   body: CreatePackageBody,
   inputs: Record<string, unknown> = {},
 ) {
@@ -80,7 +81,7 @@ export async function createPackage(
   });
 }
 
-export async function saveDraft(ds: DataSource, user: Express.User, packageId: string, body: SaveDraftBody) {
+export async function saveDraft(ds: DataSource, user: Actor, packageId: string, body: SaveDraftBody) {
   requireContractor(user);
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   await ds.transaction(async (m) => {
@@ -117,7 +118,7 @@ export async function saveDraft(ds: DataSource, user: Express.User, packageId: s
   });
 }
 
-export async function duplicatePackage(ds: DataSource, user: Express.User, packageId: string) {
+export async function duplicatePackage(ds: DataSource, user: Actor, packageId: string) {
   requireContractor(user);
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const revision = await ds
@@ -135,7 +136,7 @@ export async function duplicatePackage(ds: DataSource, user: Express.User, packa
 export async function submitPackage(
   ds: DataSource,
   queues: Queues,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   appUrl: string,
 ) {

@@ -2,6 +2,7 @@
 // builds the PDF (original pages with markups burned in, the stamp block, the calculation
 // sheet), stores it with its sha-256 and marks the package returned. One return per
 // decision: issuing twice or retrying the job gives the same single return.
+import type { Actor } from '@shared/rules/actor';
 import { randomBytes } from 'node:crypto';
 import { mkdir, mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
@@ -64,7 +65,7 @@ function toReturn(r: StampedReturn) {
   };
 }
 
-export async function issueReturn(ds: DataSource, queues: Queues, user: Express.User, packageId: string) {
+export async function issueReturn(ds: DataSource, queues: Queues, user: Actor, packageId: string) {
   if (user.role !== 'reviewer') throw AppError.forbidden('Only a reviewer issues the stamped return.');
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const decision = await latestDecision(ds.manager, pkg.id);
@@ -120,7 +121,7 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Express.
   return toReturn(ret);
 }
 
-export async function listReturns(ds: DataSource, user: Express.User, packageId: string) {
+export async function listReturns(ds: DataSource, user: Actor, packageId: string) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const rows = await ds
     .getRepository(StampedReturn)
@@ -131,7 +132,7 @@ export async function listReturns(ds: DataSource, user: Express.User, packageId:
 export async function readReturn(
   ds: DataSource,
   storage: Storage,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   returnId: string,
 ) {

@@ -1,6 +1,7 @@
 // The review: reviewers assign engineers; the assigned engineer marks up pages, raises
 // findings, accepts contractor figures with a reason and records the decision; the
 // contractor answers findings and starts the next revision. Every change is audited.
+import type { Actor } from '@shared/rules/actor';
 import { stateRefusal } from '@shared/rules/package-status';
 import type { DataSource, EntityManager } from 'typeorm';
 import { In, IsNull } from 'typeorm';
@@ -24,7 +25,7 @@ import { findScopedPackage, scopedPackages } from '../packages/package-scope';
 import { User } from '../users/user.entity';
 import { Assignment, DecisionRecord, Finding, Markup } from './review.entity';
 
-function requireAssignedEngineer(user: Express.User, pkg: LiftPackage) {
+function requireAssignedEngineer(user: Actor, pkg: LiftPackage) {
   if (user.role !== 'engineer' || pkg.assignedEngineerId !== user.id) {
     throw AppError.forbidden('Only the engineer of record assigned to this package can do this.');
   }
@@ -40,7 +41,7 @@ async function currentSubmittedRevision(m: EntityManager, pkg: LiftPackage) {
 }
 
 /** The package as its assigned engineer works on it: in scope, theirs, and still with them. */
-async function packageUnderReview(ds: DataSource, user: Express.User, packageId: string, what: string) {
+async function packageUnderReview(ds: DataSource, user: Actor, packageId: string, what: string) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   requireAssignedEngineer(user, pkg);
   if (pkg.status !== 'with_engineer') {
@@ -51,7 +52,7 @@ async function packageUnderReview(ds: DataSource, user: Express.User, packageId:
 
 // ---- assignment -------------------------------------------------------------------------
 
-export async function listEngineers(ds: DataSource, user: Express.User) {
+export async function listEngineers(ds: DataSource, user: Actor) {
   const engineers = await ds.getRepository(User).find({
     where: { organisationId: user.organisationId, role: 'engineer', active: true },
     order: { name: 'ASC' },
@@ -77,7 +78,7 @@ const ASSIGNABLE = ['ready_for_review', 'with_engineer', 'checking', 'check_fail
 export async function assignEngineer(
   ds: DataSource,
   queues: Queues,
-  user: Express.User,
+  user: Actor,
   packageIds: string[],
   engineerId: string,
   appUrl: string,
@@ -181,12 +182,7 @@ function toMarkup(mk: Markup, who: Map<string, string>): MarkupDto {
   };
 }
 
-export async function listMarkups(
-  ds: DataSource,
-  user: Express.User,
-  packageId: string,
-  revisionNumber?: number,
-) {
+export async function listMarkups(ds: DataSource, user: Actor, packageId: string, revisionNumber?: number) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const revision = await ds
     .getRepository(Revision)
@@ -202,7 +198,7 @@ export async function listMarkups(
   return { items: markups.map((x) => toMarkup(x, who)) };
 }
 
-export async function addMarkup(ds: DataSource, user: Express.User, packageId: string, body: MarkupBody) {
+export async function addMarkup(ds: DataSource, user: Actor, packageId: string, body: MarkupBody) {
   const pkg = await packageUnderReview(ds, user, packageId, 'Markups can be added');
   return ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
@@ -240,7 +236,7 @@ export async function addMarkup(ds: DataSource, user: Express.User, packageId: s
   });
 }
 
-export async function deleteMarkup(ds: DataSource, user: Express.User, packageId: string, markupId: string) {
+export async function deleteMarkup(ds: DataSource, user: Actor, packageId: string, markupId: string) {
   const pkg = await packageUnderReview(ds, user, packageId, 'Markups can be removed');
   const revision = await currentSubmittedRevision(ds.manager, pkg);
   const result = await ds.getRepository(Markup).delete({ id: markupId, revisionId: revision.id });
@@ -251,7 +247,7 @@ export async function deleteMarkup(ds: DataSource, user: Express.User, packageId
 
 export async function listFindings(
   ds: DataSource,
-  user: Express.User,
+  user: Actor,
   packageId: string,
 ): Promise<{ items: FindingDto[] }> {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
@@ -287,7 +283,7 @@ export async function listFindings(
   };
 }
 
-export async function addFinding(ds: DataSource, user: Express.User, packageId: string, body: FindingBody) {
+export async function addFinding(ds: DataSource, user: Actor, packageId: string, body: FindingBody) {
   const pkg = await packageUnderReview(ds, user, packageId, 'Findings can be raised');
   await ds.transaction(async (m) => {
     const revision = await currentSubmittedRevision(m, pkg);
@@ -331,7 +327,7 @@ export async function addFinding(ds: DataSource, user: Express.User, packageId: 
 /** Contractors answer (while revising); the assigned engineer closes or reopens. */
 export async function updateFinding(
   ds: DataSource,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   findingId: string,
   body: { state?: 'open' | 'answered' | 'closed'; response?: string },
@@ -387,7 +383,7 @@ export async function updateFinding(
 
 export async function acceptFigure(
   ds: DataSource,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   figure: string,
   reason: string,
@@ -419,12 +415,7 @@ export async function acceptFigure(
 
 // ---- decision ---------------------------------------------------------------------------
 
-export async function recordDecision(
-  ds: DataSource,
-  user: Express.User,
-  packageId: string,
-  body: DecisionBody,
-) {
+export async function recordDecision(ds: DataSource, user: Actor, packageId: string, body: DecisionBody) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   requireAssignedEngineer(user, pkg);
   if (!['with_engineer', 'decided'].includes(pkg.status)) {
@@ -472,7 +463,7 @@ export async function latestDecision(m: EntityManager, packageId: string) {
 
 // ---- resubmission -----------------------------------------------------------------------
 
-export async function startNextRevision(ds: DataSource, user: Express.User, packageId: string) {
+export async function startNextRevision(ds: DataSource, user: Actor, packageId: string) {
   if (user.role !== 'contractor') throw AppError.forbidden('Only the contractor starts a new revision.');
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   if (pkg.status !== 'returned' || !['revise_and_resubmit', 'rejected'].includes(pkg.decision ?? '')) {
