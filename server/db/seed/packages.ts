@@ -11,7 +11,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { Decision, PackageStatus } from '@shared/schemas/common';
 import { LocalFolderStorage, sha256 } from '../../lib/storage';
 import { recordAudit } from '../../modules/audit/service';
-import { InvalidLiftData, runCheck } from '../../modules/check-runs/service';
+import { InvalidLiftData, runCheckRun } from '../../modules/check-runs/service';
 import { UploadedFile } from '../../modules/files/file.entity';
 import type { Organisation } from '../../modules/organisations/organisation.entity';
 import { LiftPackage, Revision } from '../../modules/packages/package.entity';
@@ -441,7 +441,7 @@ export async function finishSeededPackages(
     // 'checking' packages stay queued: the worker picks them up when it starts.
     if (submittedRevisionId && spec.status !== 'checking') {
       try {
-        await runCheck(ds, submittedRevisionId);
+        await runCheckRun(ds, submittedRevisionId);
       } catch (error) {
         if (!(error instanceof InvalidLiftData)) throw error;
       }

@@ -22,7 +22,7 @@ export class InvalidLiftData extends Error {}
 
 export type ProgressFn = (percent: number, step: string) => Promise<void> | void;
 
-export async function runCheck(
+export async function runCheckRun(
   dataSource: DataSource,
   revisionId: string,
   progress: ProgressFn = () => undefined,

@@ -12,7 +12,7 @@ import type { DataSource } from 'typeorm';
 import { DECISION_LABELS } from '@shared/schemas/common';
 import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
-import { QUEUE_NAMES, type Queues } from '../../lib/queues';
+import type { Queues } from '../../lib/queues';
 import type { Signer } from '../../lib/pdf-tools/signer';
 import type { Storage } from '../../lib/storage';
 import { recordAudit } from '../audit/service';
@@ -323,8 +323,6 @@ export async function buildReturn(
   await progress(100, 'done');
   return { skipped: false as const, pages, mailIds };
 }
-
-export const STAMP_QUEUE = QUEUE_NAMES.stamp;
 
 /** The stamp job's last attempt failed: the reviewer sees why and can issue again. */
 export async function markReturnFailed(ds: DataSource, returnId: string, error: string) {

@@ -5,7 +5,7 @@
 import type { Redis } from 'ioredis';
 import { appUrl } from '../../server/config';
 import type { AppContext } from '../../server/context';
-import { QUEUE_NAMES, type StampJob } from '../../server/lib/queues';
+import { QUEUE_NAMES, type StampedReturnJob } from '../../server/lib/queues';
 import { dispatchMail } from '../../server/modules/mail/service';
 import path from 'node:path';
 import { signerFor, type Signer } from '../../server/lib/pdf-tools/signer';
@@ -13,9 +13,13 @@ import { buildReturn, markReturnFailed } from '../../server/modules/returns/serv
 import { startTask, type TaskDefinition, type TaskTiming } from './task';
 
 /** `signer` defaults to the configured one (SIGNING_P12_FILE, else the desk's own). */
-export function stampTask(ctx: AppContext, concurrency: number, signer?: Signer): TaskDefinition<StampJob> {
+export function stampedReturnTask(
+  ctx: AppContext,
+  concurrency: number,
+  signer?: Signer,
+): TaskDefinition<StampedReturnJob> {
   return {
-    queue: QUEUE_NAMES.stamp,
+    queue: QUEUE_NAMES.stampedReturn,
     concurrency,
     fromIntents: true,
     async run(job) {
@@ -37,11 +41,11 @@ export function stampTask(ctx: AppContext, concurrency: number, signer?: Signer)
   };
 }
 
-export function startStampWorker(
+export function startStampedReturnWorker(
   ctx: AppContext,
   connection: Redis,
   concurrency: number,
   timing: TaskTiming = {},
 ) {
-  return startTask(ctx, connection, stampTask(ctx, concurrency), timing);
+  return startTask(ctx, connection, stampedReturnTask(ctx, concurrency), timing);
 }
