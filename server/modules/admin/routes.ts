@@ -23,17 +23,14 @@ import {
   createOrganisation,
   createSite,
   getPolicy,
-  invitePerson,
   listOrganisations,
-  listPeople,
   listSites,
-  reinvite,
   renameOrganisation,
   setPolicy,
   setSiteReviewers,
-  updatePerson,
   updateSite,
 } from './service';
+import { invitePerson, listPeople, reinvite, updatePerson } from './people';
 
 export const IdParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }) });
 export const PeopleQuery = z.object({

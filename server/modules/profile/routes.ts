@@ -6,7 +6,7 @@ import { AcceptInviteBody, PasswordChangeBody, ProfilePatch } from '@shared/sche
 import type { AppContext } from '../../context';
 import { currentActor, requireAuth } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
-import { acceptInvite } from '../admin/service';
+import { acceptInvite } from '../admin/people';
 import { toAuthUser } from '../auth/passport';
 import { hashPassword } from '../auth/service';
 import { byAddress, limiter } from '../auth/rate-limits';

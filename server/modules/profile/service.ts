@@ -6,7 +6,7 @@ import type { Actor } from '@shared/rules/actor';
 import type { z } from 'zod';
 import type { PasswordChangeBody, ProfilePatch } from '@shared/schemas/admin';
 import { AppError } from '../../lib/app-error';
-import { findInvite } from '../admin/service';
+import { findInvite } from '../admin/people';
 import { hashPassword } from '../auth/service';
 import { User } from '../users/user.entity';
 
