@@ -1,8 +1,7 @@
-// stamp-return jobs: { returnId } → the stamped PDF stored and the package returned.
+// Stamped-return jobs (queue 'stamp-return'): { returnId } → the stamped PDF stored and the package returned.
 // The job id is derived from the decision, so issuing twice queues one job; a retry of a
 // finished return changes nothing. When the last attempt fails the reviewer sees why and
 // can issue it again.
-import type { Redis } from 'ioredis';
 import { appUrl } from '../../server/config';
 import type { AppContext } from '../../server/context';
 import { QUEUE_NAMES, type StampedReturnJob } from '../../server/lib/queues';
@@ -10,7 +9,7 @@ import { dispatchMail } from '../../server/modules/mail/service';
 import path from 'node:path';
 import { signerFor, type Signer } from '../../server/lib/pdf-tools/signer';
 import { buildReturn, markReturnFailed } from '../../server/modules/returns/service';
-import { startTask, type TaskDefinition, type TaskTiming } from './task';
+import type { TaskDefinition } from './task';
 
 /** `signer` defaults to the configured one (SIGNING_P12_FILE, else the desk's own). */
 export function stampedReturnTask(
@@ -39,13 +38,4 @@ export function stampedReturnTask(
     },
     onFinalFailure: (data, reason) => markReturnFailed(ctx.dataSource, data.returnId, reason),
   };
-}
-
-export function startStampedReturnWorker(
-  ctx: AppContext,
-  connection: Redis,
-  concurrency: number,
-  timing: TaskTiming = {},
-) {
-  return startTask(ctx, connection, stampedReturnTask(ctx, concurrency), timing);
 }
