@@ -17,19 +17,9 @@ import { valid, validate } from '../../middleware/validate';
 import { PackageIdParams } from '../packages/routes';
 import { packageDetail } from '../packages/service';
 import { compareRevisions } from './compare';
-import {
-  acceptFigure,
-  addFinding,
-  addMarkup,
-  assignEngineer,
-  deleteMarkup,
-  listEngineers,
-  listFindings,
-  listMarkups,
-  recordDecision,
-  startNextRevision,
-  updateFinding,
-} from './service';
+import { acceptFigure, addFinding, listFindings, updateFinding } from './findings';
+import { addMarkup, deleteMarkup, listMarkups } from './markups';
+import { assignEngineer, listEngineers, recordDecision, startNextRevision } from './service';
 
 export const MarkupParams = PackageIdParams.extend({
   markupId: z.uuid({ message: 'markupId must be a UUID' }),
