@@ -47,8 +47,8 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
     const { connect } = await import('../server/bootstrap');
     const { createApp } = await import('../server/app');
     const { createRedis } = await import('../server/lib/redis');
-    const { runCheck } = await import('../server/modules/check-runs/service');
-    const { stampTask } = await import('../worker/tasks/stamp-return-task');
+    const { runCheckRun: runCheck } = await import('../server/modules/check-runs/service');
+    const { stampedReturnTask: stampTask } = await import('../worker/tasks/stamped-return-task');
     const { startTask } = await import('../worker/tasks/task');
     const { signerFor } = await import('../server/lib/pdf-tools/signer');
     const { makeWorld } = await import('../tests/support/factories');
@@ -148,7 +148,7 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
           'SELECT id FROM decisions WHERE package_id = $1 ORDER BY created_at DESC LIMIT 1',
           [id],
         );
-        const job = await ctx.queues.stamp.getJob(`stamp-${decision.id}`);
+        const job = await ctx.queues.stampedReturn.getJob(`stamp-${decision.id}`);
         if (job?.processedOn && job.finishedOn) {
           figure.queuedSeconds.push((job.processedOn - job.timestamp) / 1000);
           figure.runSeconds.push((job.finishedOn - job.processedOn) / 1000);

@@ -14,7 +14,7 @@ import { startRelay, type FinalFailure } from '../server/modules/jobs/relay';
 import { checkRunTask } from './tasks/check-run-task';
 import { mailTask } from './tasks/mail-task';
 import { remindersTask, scheduleReminders } from './tasks/reminders-task';
-import { stampTask } from './tasks/stamp-return-task';
+import { stampedReturnTask } from './tasks/stamped-return-task';
 import { startTask, type TaskDefinition } from './tasks/task';
 
 /** How often the relay looks for job intents without a job. */
@@ -38,7 +38,7 @@ async function main() {
   connection.on('error', () => undefined);
   const tasks: Array<TaskDefinition<Record<string, string>>> = [
     checkRunTask(ctx, config.CHECK_CONCURRENCY),
-    stampTask(ctx, 1, signer),
+    stampedReturnTask(ctx, 1, signer),
     remindersTask(ctx),
   ];
   if (config.SMTP_URL) tasks.push(mailTask(ctx, config.SMTP_URL));

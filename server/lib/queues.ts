@@ -5,7 +5,7 @@ import type { Redis } from 'ioredis';
 
 export const QUEUE_NAMES = {
   checkRun: 'check-run',
-  stamp: 'stamp-return',
+  stampedReturn: 'stamp-return',
   mail: 'mail',
   reminders: 'reminders',
 } as const;
@@ -13,7 +13,7 @@ export const QUEUE_NAMES = {
 // Type aliases rather than interfaces, so they are plain string records for the task wrapper.
 export type CheckRunJob = { revisionId: string };
 
-export type StampJob = { returnId: string };
+export type StampedReturnJob = { returnId: string };
 
 export type MailJob = { messageId: string };
 
@@ -23,7 +23,7 @@ export interface Queues {
   mail: Queue<MailJob>;
   reminders: Queue;
   checkRun: Queue<CheckRunJob>;
-  stamp: Queue<StampJob>;
+  stampedReturn: Queue<StampedReturnJob>;
   close(): Promise<void>;
 }
 
@@ -50,7 +50,7 @@ export function createQueues(connection: Redis, prefix: string, opts: QueueOptio
     prefix,
     defaultJobOptions: defaults,
   });
-  const stamp = new Queue<StampJob>(QUEUE_NAMES.stamp, {
+  const stampedReturn = new Queue<StampedReturnJob>(QUEUE_NAMES.stampedReturn, {
     connection,
     prefix,
     defaultJobOptions: defaults,
@@ -68,11 +68,11 @@ export function createQueues(connection: Redis, prefix: string, opts: QueueOptio
   const reminders = new Queue(QUEUE_NAMES.reminders, { connection, prefix, defaultJobOptions: defaults });
   return {
     checkRun,
-    stamp,
+    stampedReturn,
     mail,
     reminders,
     async close() {
-      await Promise.all([checkRun.close(), stamp.close(), mail.close(), reminders.close()]);
+      await Promise.all([checkRun.close(), stampedReturn.close(), mail.close(), reminders.close()]);
     },
   };
 }

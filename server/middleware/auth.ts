@@ -2,6 +2,7 @@
 // expired or revoked; requireRole answers 403 for a role the route does not allow.
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { PassportStatic } from 'passport';
+import type { Actor } from '@shared/rules/actor';
 import type { Role } from '@shared/schemas/common';
 import { AppError } from '../lib/app-error';
 
@@ -41,6 +42,12 @@ export function requireRole(...roles: Role[]): RequestHandler {
     }
     next();
   };
+}
+
+/** The signed-in user as the domain's Actor: what routes hand to services. */
+export function currentActor(req: Request): Actor {
+  const user = currentUser(req);
+  return { id: user.id, role: user.role, organisationId: user.organisationId, name: user.name };
 }
 
 /** The signed-in user of a route behind requireAuth. */

@@ -3,7 +3,7 @@
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MailMessage } from '@server/modules/mail/mail.entity';
-import { runCheck } from '@server/modules/check-runs/service';
+import { runCheckRun } from '@server/modules/check-runs/service';
 import { Revision } from '@server/modules/packages/package.entity';
 import { startTestApp, signedIn, TEST_PASSWORD, type TestApp } from '../support/app';
 import { makePackage, makeWorld } from '../support/factories';
@@ -149,7 +149,7 @@ describe('review policies', () => {
       });
     const first = await submitted();
     const rev1 = await t.ctx.dataSource.getRepository(Revision).findOneByOrFail({ packageId: first.id });
-    await runCheck(t.ctx.dataSource, rev1.id);
+    await runCheckRun(t.ctx.dataSource, rev1.id);
 
     const ok = await admin
       .put(`/api/admin/sites/${w.site.id}/policy`)
@@ -168,7 +168,7 @@ describe('review policies', () => {
 
     const second = await submitted();
     const rev2 = await t.ctx.dataSource.getRepository(Revision).findOneByOrFail({ packageId: second.id });
-    await runCheck(t.ctx.dataSource, rev2.id);
+    await runCheckRun(t.ctx.dataSource, rev2.id);
     const [a, b] = await Promise.all([
       t.ctx.dataSource.getRepository(Revision).findOneByOrFail({ id: rev1.id }),
       t.ctx.dataSource.getRepository(Revision).findOneByOrFail({ id: rev2.id }),

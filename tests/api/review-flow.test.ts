@@ -9,7 +9,7 @@ import supertest from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '@server/config';
-import { runCheck } from '@server/modules/check-runs/service';
+import { runCheckRun } from '@server/modules/check-runs/service';
 import { buildReturn } from '@server/modules/returns/service';
 import { startTestApp, signedIn, type TestApp } from '../support/app';
 import { makeUser, makeWorld } from '../support/factories';
@@ -49,7 +49,7 @@ async function submitted(
   expect(up.status).toBe(201);
   const sub = await contractor.post(`/api/packages/${id}/submit`);
   expect(sub.status).toBe(202);
-  await runCheck(t.ctx.dataSource, sub.body.current.id);
+  await runCheckRun(t.ctx.dataSource, sub.body.current.id);
   return { id, fileId: up.body.id as string, revisionId: sub.body.current.id as string };
 }
 
@@ -270,7 +270,7 @@ async function pdftotext(bytes: Buffer, first?: number): Promise<string> {
 async function issueAndBuild(reviewer: Agent, id: string) {
   const issued = await reviewer.post(`/api/packages/${id}/returns`);
   expect(issued.status).toBe(202);
-  expect(await t.ctx.queues.stamp.getJob(`stamp-${await latestDecisionId(id)}`)).toBeTruthy();
+  expect(await t.ctx.queues.stampedReturn.getJob(`stamp-${await latestDecisionId(id)}`)).toBeTruthy();
   await buildReturn(t.ctx.dataSource, t.ctx.storage, issued.body.id, appUrl(t.ctx.config));
   return issued.body as { id: string; verificationCode: string };
 }
@@ -382,7 +382,7 @@ describe('the stamped return, verification and resubmission', () => {
       .attach('file', Buffer.from(await makePdf(1)), 'plan-rev2.pdf');
     const sub2 = await contractor.post(`/api/packages/${p.id}/submit`);
     expect(sub2.status).toBe(202);
-    await runCheck(t.ctx.dataSource, sub2.body.current.id);
+    await runCheckRun(t.ctx.dataSource, sub2.body.current.id);
     const seen = (await engineer.get(`/api/packages/${p.id}`)).body;
     expect(seen.package).toMatchObject({ status: 'with_engineer', revisionNumber: 2 });
     const diff = await engineer.get(`/api/packages/${p.id}/compare?from=1&to=2`);

@@ -6,7 +6,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { checkRunJobId } from '@server/lib/queues';
 import { createRedis } from '@server/lib/redis';
 import { AuditEvent } from '@server/modules/audit/audit-event.entity';
-import { runCheck } from '@server/modules/check-runs/service';
+import { runCheckRun } from '@server/modules/check-runs/service';
 import { enqueueCheck } from '@server/modules/packages/drafts';
 import { LiftPackage, Revision } from '@server/modules/packages/package.entity';
 import { startCheckRunWorker } from '../../worker/tasks/check-run-task';
@@ -100,7 +100,7 @@ describe('the check-run worker', () => {
     expect(await total()).toBe(before + 1);
     worker = startCheckRunWorker(t.ctx, connection, 2);
     await until(async () => (await completions(pkg.id)) === 1);
-    expect((await runCheck(t.ctx.dataSource, revisionId)).skipped).toBe(true);
+    expect((await runCheckRun(t.ctx.dataSource, revisionId)).skipped).toBe(true);
     expect(await completions(pkg.id)).toBe(1);
   });
 

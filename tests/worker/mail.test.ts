@@ -7,7 +7,7 @@ import { appUrl } from '@server/config';
 import { startMailCatcher } from '@server/lib/mail-catcher';
 import { createQueues } from '@server/lib/queues';
 import { createRedis } from '@server/lib/redis';
-import { runCheck } from '@server/modules/check-runs/service';
+import { runCheckRun } from '@server/modules/check-runs/service';
 import { MailMessage } from '@server/modules/mail/mail.entity';
 import { stageReminders } from '@server/modules/mail/reminders';
 import { stageMail } from '@server/modules/mail/service';
@@ -66,7 +66,7 @@ describe('hand-off mail', () => {
       .field('kind', 'lift_plan')
       .attach('file', Buffer.from(await makePdf()), 'plan.pdf');
     const sub = await contractor.post(`/api/packages/${id}/submit`);
-    await runCheck(t.ctx.dataSource, sub.body.current.id);
+    await runCheckRun(t.ctx.dataSource, sub.body.current.id);
 
     const submitted = await until(async () => (await caughtFor(w.reviewer.email))[0]);
     expect(submitted.subject).toContain(`${reference} rev 1 submitted`);

@@ -5,7 +5,7 @@
 import type { Redis } from 'ioredis';
 import type { AppContext } from '../../server/context';
 import { QUEUE_NAMES, type CheckRunJob } from '../../server/lib/queues';
-import { InvalidLiftData, markCheckFailed, runCheck } from '../../server/modules/check-runs/service';
+import { InvalidLiftData, markCheckFailed, runCheckRun } from '../../server/modules/check-runs/service';
 import { startTask, UnrecoverableError, type TaskDefinition, type TaskTiming } from './task';
 
 export function checkRunTask(ctx: AppContext, concurrency: number): TaskDefinition<CheckRunJob> {
@@ -15,7 +15,7 @@ export function checkRunTask(ctx: AppContext, concurrency: number): TaskDefiniti
     fromIntents: true,
     async run(job) {
       try {
-        const outcome = await runCheck(ctx.dataSource, job.data.revisionId, (percent, step) =>
+        const outcome = await runCheckRun(ctx.dataSource, job.data.revisionId, (percent, step) =>
           job.updateProgress({ percent, step }),
         );
         return { skipped: outcome.skipped };

@@ -15,7 +15,7 @@ import { Role } from '@shared/schemas/common';
 import { appUrl } from '../../config';
 import type { AppContext } from '../../context';
 import { AppError } from '../../lib/app-error';
-import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
+import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { handOff, mailIntent, nextRound, recordIntent } from '../jobs/intents';
 import { MailMessage } from '../mail/mail.entity';
@@ -23,17 +23,14 @@ import {
   createOrganisation,
   createSite,
   getPolicy,
-  invitePerson,
   listOrganisations,
-  listPeople,
   listSites,
-  reinvite,
   renameOrganisation,
   setPolicy,
   setSiteReviewers,
-  updatePerson,
   updateSite,
 } from './service';
+import { invitePerson, listPeople, reinvite, updatePerson } from './people';
 
 export const IdParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }) });
 export const PeopleQuery = z.object({
@@ -66,12 +63,12 @@ export function adminRoutes(ctx: AppContext): Router {
   router.use('/admin', requireAuth(ctx.passport), requireRole('admin'));
 
   router.get('/admin/organisations', async (req, res) => {
-    res.json(await listOrganisations(ds, currentUser(req)));
+    res.json(await listOrganisations(ds, currentActor(req)));
   });
   router.post('/admin/organisations', validate({ body: OrganisationBody }), async (req, res) => {
     res
       .status(201)
-      .json(await createOrganisation(ds, currentUser(req), valid(req, 'body', OrganisationBody)));
+      .json(await createOrganisation(ds, currentActor(req), valid(req, 'body', OrganisationBody)));
   });
   router.patch(
     '/admin/organisations/:id',
@@ -79,20 +76,20 @@ export function adminRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id } = valid(req, 'params', IdParams);
       res.json(
-        await renameOrganisation(ds, currentUser(req), id, valid(req, 'body', OrganisationPatch).name),
+        await renameOrganisation(ds, currentActor(req), id, valid(req, 'body', OrganisationPatch).name),
       );
     },
   );
 
   router.get('/admin/sites', async (req, res) => {
-    res.json(await listSites(ds, currentUser(req)));
+    res.json(await listSites(ds, currentActor(req)));
   });
   router.post('/admin/sites', validate({ body: SiteBody }), async (req, res) => {
-    res.status(201).json(await createSite(ds, currentUser(req), valid(req, 'body', SiteBody)));
+    res.status(201).json(await createSite(ds, currentActor(req), valid(req, 'body', SiteBody)));
   });
   router.patch('/admin/sites/:id', validate({ params: IdParams, body: SitePatch }), async (req, res) => {
     const { id } = valid(req, 'params', IdParams);
-    res.json(await updateSite(ds, currentUser(req), id, valid(req, 'body', SitePatch)));
+    res.json(await updateSite(ds, currentActor(req), id, valid(req, 'body', SitePatch)));
   });
   router.put(
     '/admin/sites/:id/reviewers',
@@ -100,47 +97,47 @@ export function adminRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id } = valid(req, 'params', IdParams);
       res.json(
-        await setSiteReviewers(ds, currentUser(req), id, valid(req, 'body', SiteReviewersBody).userIds),
+        await setSiteReviewers(ds, currentActor(req), id, valid(req, 'body', SiteReviewersBody).userIds),
       );
     },
   );
   router.get('/admin/sites/:id/policy', validate({ params: IdParams }), async (req, res) => {
-    res.json(await getPolicy(ds, currentUser(req), valid(req, 'params', IdParams).id));
+    res.json(await getPolicy(ds, currentActor(req), valid(req, 'params', IdParams).id));
   });
   router.put(
     '/admin/sites/:id/policy',
     validate({ params: IdParams, body: PolicyOverridesBody }),
     async (req, res) => {
       const { id } = valid(req, 'params', IdParams);
-      res.json(await setPolicy(ds, currentUser(req), id, valid(req, 'body', PolicyOverridesBody).overrides));
+      res.json(await setPolicy(ds, currentActor(req), id, valid(req, 'body', PolicyOverridesBody).overrides));
     },
   );
 
   router.get('/admin/people', validate({ query: PeopleQuery }), async (req, res) => {
-    res.json(await listPeople(ds, currentUser(req), valid(req, 'query', PeopleQuery)));
+    res.json(await listPeople(ds, currentActor(req), valid(req, 'query', PeopleQuery)));
   });
   router.post('/admin/people/invite', validate({ body: InviteBody }), async (req, res) => {
     res
       .status(201)
       .json(
-        await invitePerson(ds, ctx.queues, currentUser(req), valid(req, 'body', InviteBody), inviteOpts()),
+        await invitePerson(ds, ctx.queues, currentActor(req), valid(req, 'body', InviteBody), inviteOpts()),
       );
   });
   router.post('/admin/people/:id/reinvite', validate({ params: IdParams }), async (req, res) => {
     res.json(
-      await reinvite(ds, ctx.queues, currentUser(req), valid(req, 'params', IdParams).id, inviteOpts()),
+      await reinvite(ds, ctx.queues, currentActor(req), valid(req, 'params', IdParams).id, inviteOpts()),
     );
   });
   router.patch('/admin/people/:id', validate({ params: IdParams, body: PersonPatch }), async (req, res) => {
     const { id } = valid(req, 'params', IdParams);
-    res.json(await updatePerson(ds, currentUser(req), id, valid(req, 'body', PersonPatch)));
+    res.json(await updatePerson(ds, currentActor(req), id, valid(req, 'body', PersonPatch)));
   });
 
   // The outbox: what the desk sent, queued or failed (with the error), and for the embedded
   // set-up what the local fake SMTP server received. Mail of the admin's desk only.
   router.get('/admin/mail', validate({ query: MailQuery }), async (req, res) => {
     const q = valid(req, 'query', MailQuery);
-    const org = currentUser(req).organisationId;
+    const org = currentActor(req).organisationId;
     const qb = ds
       .getRepository(MailMessage)
       .createQueryBuilder('mm')
@@ -170,7 +167,7 @@ export function adminRoutes(ctx: AppContext): Router {
   });
 
   router.get('/admin/mail/caught', async (req, res) => {
-    const org = currentUser(req).organisationId;
+    const org = currentActor(req).organisationId;
     const rows: Array<{
       id: string;
       envelope_from: string;
@@ -203,7 +200,7 @@ export function adminRoutes(ctx: AppContext): Router {
   router.post('/admin/mail/:id/retry', validate({ params: IdParams }), async (req, res) => {
     const { id } = valid(req, 'params', IdParams);
     // The same desk filter as the outbox: another desk's message is a plain 404.
-    const org = currentUser(req).organisationId;
+    const org = currentActor(req).organisationId;
     const msg = await ds
       .getRepository(MailMessage)
       .createQueryBuilder('mm')

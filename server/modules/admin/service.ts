@@ -1,33 +1,22 @@
 // Desk administration: the admin's own organisation, the contractors that work on its
-// sites, its sites with their reviewers and review policies, and people with invitations.
+// sites, its sites with their reviewers and review policies (people and invitations: people.ts).
 // Every change is audited; a policy change applies to check runs from then on, and each
 // stored result keeps the policy it was computed with.
-import { createHash, randomBytes } from 'node:crypto';
-import type { DataSource, EntityManager } from 'typeorm';
+import type { Actor } from '@shared/rules/actor';
+import type { DataSource } from 'typeorm';
 import { In } from 'typeorm';
 import { POLICY_DEFAULTS, SitePolicy } from '@shared/schemas/site-policy';
-import type { Role } from '@shared/schemas/common';
 import { AppError, zodFields } from '../../lib/app-error';
-import type { Queues } from '../../lib/queues';
-import { AuditEvent } from '../audit/audit-event.entity';
-import { LINK_PLACEHOLDER, sealLink } from '../mail/sealed-link';
-import { dispatchMail, stageMail } from '../mail/service';
-import { templates } from '../mail/templates';
+import { recordAudit } from '../audit/service';
 import { Organisation } from '../organisations/organisation.entity';
 import { Site, SiteMember } from '../sites/site.entity';
 import { User } from '../users/user.entity';
-
-async function audit(m: EntityManager, admin: Express.User, action: string, detail: Record<string, unknown>) {
-  await m
-    .getRepository(AuditEvent)
-    .save({ packageId: null, organisationId: admin.organisationId, actorId: admin.id, action, detail });
-}
 
 /**
  * The organisations an admin manages: their own, the contractors added to their desk, and
  * any contractor with a package on one of their sites.
  */
-export async function visibleOrganisations(ds: DataSource, admin: Express.User) {
+export async function visibleOrganisations(ds: DataSource, admin: Actor) {
   return ds
     .getRepository(Organisation)
     .createQueryBuilder('o')
@@ -41,7 +30,7 @@ export async function visibleOrganisations(ds: DataSource, admin: Express.User) 
     .getMany();
 }
 
-export async function listOrganisations(ds: DataSource, admin: Express.User) {
+export async function listOrganisations(ds: DataSource, admin: Actor) {
   const orgs = await visibleOrganisations(ds, admin);
   const counts: Array<{ id: string; n: number }> = await ds.query(
     `SELECT organisation_id AS id, count(*)::int AS n FROM users WHERE organisation_id = ANY($1) GROUP BY organisation_id`,
@@ -53,7 +42,7 @@ export async function listOrganisations(ds: DataSource, admin: Express.User) {
 
 export async function createOrganisation(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   body: { name: string; kind: 'contractor' | 'owner' },
 ) {
   if (body.kind === 'owner') {
@@ -65,24 +54,34 @@ export async function createOrganisation(
     const org = await m
       .getRepository(Organisation)
       .save({ name: body.name, kind: body.kind, deskOwnerId: admin.organisationId });
-    await audit(m, admin, 'organisation.created', { name: org.name, kind: org.kind });
+    await recordAudit(m, {
+      action: 'organisation.created',
+      actor: admin,
+      packageId: null,
+      detail: { name: org.name, kind: org.kind },
+    });
     return { id: org.id, name: org.name, kind: org.kind, people: 0 };
   });
 }
 
-export async function renameOrganisation(ds: DataSource, admin: Express.User, id: string, name: string) {
+export async function renameOrganisation(ds: DataSource, admin: Actor, id: string, name: string) {
   const org = (await visibleOrganisations(ds, admin)).find((o) => o.id === id);
   if (!org) throw AppError.notFound('organisation');
   await ds.transaction(async (m) => {
     await m.getRepository(Organisation).update(id, { name });
-    await audit(m, admin, 'organisation.renamed', { from: org.name, to: name });
+    await recordAudit(m, {
+      action: 'organisation.renamed',
+      actor: admin,
+      packageId: null,
+      detail: { from: org.name, to: name },
+    });
   });
   return (await listOrganisations(ds, admin)).items.find((o) => o.id === id)!;
 }
 
 // ---- sites ------------------------------------------------------------------------------
 
-async function ownSite(ds: DataSource, admin: Express.User, id: string) {
+async function ownSite(ds: DataSource, admin: Actor, id: string) {
   const site = await ds.getRepository(Site).findOneBy({ id, ownerOrganisationId: admin.organisationId });
   if (!site) throw AppError.notFound('site');
   return site;
@@ -104,7 +103,7 @@ export async function adminSite(ds: DataSource, site: Site) {
   };
 }
 
-export async function listSites(ds: DataSource, admin: Express.User) {
+export async function listSites(ds: DataSource, admin: Actor) {
   const sites = await ds
     .getRepository(Site)
     .find({ where: { ownerOrganisationId: admin.organisationId }, order: { name: 'ASC' } });
@@ -117,7 +116,7 @@ function codeTaken(error: unknown) {
 
 export async function createSite(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   body: { name: string; code: string; address: string; timeZone: string },
 ) {
   try {
@@ -125,7 +124,12 @@ export async function createSite(
       const s = await m
         .getRepository(Site)
         .save({ ...body, ownerOrganisationId: admin.organisationId, reviewPolicy: {} });
-      await audit(m, admin, 'site.created', { name: s.name, code: s.code });
+      await recordAudit(m, {
+        action: 'site.created',
+        actor: admin,
+        packageId: null,
+        detail: { name: s.name, code: s.code },
+      });
       return s;
     });
     return adminSite(ds, site);
@@ -140,7 +144,7 @@ export async function createSite(
 
 export async function updateSite(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   id: string,
   body: Partial<{ name: string; code: string; address: string; timeZone: string }>,
 ) {
@@ -148,7 +152,12 @@ export async function updateSite(
   try {
     await ds.transaction(async (m) => {
       await m.getRepository(Site).update(site.id, body);
-      await audit(m, admin, 'site.updated', { site: site.code, changes: body });
+      await recordAudit(m, {
+        action: 'site.updated',
+        actor: admin,
+        packageId: null,
+        detail: { site: site.code, changes: body },
+      });
     });
   } catch (error) {
     if (codeTaken(error))
@@ -160,7 +169,7 @@ export async function updateSite(
   return adminSite(ds, await ownSite(ds, admin, id));
 }
 
-export async function setSiteReviewers(ds: DataSource, admin: Express.User, id: string, userIds: string[]) {
+export async function setSiteReviewers(ds: DataSource, admin: Actor, id: string, userIds: string[]) {
   const site = await ownSite(ds, admin, id);
   const people = userIds.length
     ? await ds
@@ -175,14 +184,19 @@ export async function setSiteReviewers(ds: DataSource, admin: Express.User, id: 
   await ds.transaction(async (m) => {
     await m.getRepository(SiteMember).delete({ siteId: site.id });
     for (const p of people) await m.getRepository(SiteMember).save({ siteId: site.id, userId: p.id });
-    await audit(m, admin, 'site.reviewers', { site: site.code, reviewers: people.map((p) => p.name) });
+    await recordAudit(m, {
+      action: 'site.reviewers',
+      actor: admin,
+      packageId: null,
+      detail: { site: site.code, reviewers: people.map((p) => p.name) },
+    });
   });
   return adminSite(ds, site);
 }
 
 // ---- review policy ----------------------------------------------------------------------
 
-export async function getPolicy(ds: DataSource, admin: Express.User, id: string) {
+export async function getPolicy(ds: DataSource, admin: Actor, id: string) {
   const site = await ownSite(ds, admin, id);
   const history: Array<{ at: Date; actor: string | null; detail: { before: unknown; after: unknown } }> =
     await ds.query(
@@ -206,7 +220,7 @@ export async function getPolicy(ds: DataSource, admin: Express.User, id: string)
 
 export async function setPolicy(
   ds: DataSource,
-  admin: Express.User,
+  admin: Actor,
   id: string,
   overrides: Record<string, unknown>,
 ) {
@@ -228,241 +242,20 @@ export async function setPolicy(
     await m
       .getRepository(Site)
       .update(site.id, { reviewPolicy: overrides as never, policyVersion: site.policyVersion + 1 });
-    await audit(m, admin, 'policy.changed', {
-      siteId: site.id,
-      site: site.code,
-      before: site.reviewPolicy,
-      after: overrides,
-      policyVersion: site.policyVersion + 1,
+    await recordAudit(m, {
+      action: 'policy.changed',
+      actor: admin,
+      packageId: null,
+      detail: {
+        siteId: site.id,
+        site: site.code,
+        before: site.reviewPolicy,
+        after: overrides,
+        policyVersion: site.policyVersion + 1,
+      },
     });
   });
   return getPolicy(ds, admin, id);
 }
 
 // ---- people -----------------------------------------------------------------------------
-
-function personState(u: User): 'active' | 'invited' | 'invite_expired' | 'deactivated' {
-  if (!u.active) return 'deactivated';
-  if (!u.passwordHash)
-    return u.inviteExpiresAt && u.inviteExpiresAt.getTime() < Date.now() ? 'invite_expired' : 'invited';
-  return 'active';
-}
-
-export function toPerson(u: User) {
-  return {
-    id: u.id,
-    email: u.email,
-    name: u.name,
-    role: u.role,
-    organisation: { id: u.organisation!.id, name: u.organisation!.name, kind: u.organisation!.kind },
-    active: u.active,
-    state: personState(u),
-    createdAt: u.createdAt.toISOString(),
-  };
-}
-
-export async function listPeople(
-  ds: DataSource,
-  admin: Express.User,
-  filter: { organisationId?: string; role?: Role; state?: string },
-) {
-  const orgIds = (await visibleOrganisations(ds, admin)).map((o) => o.id);
-  const users = await ds.getRepository(User).find({
-    where: {
-      organisationId: In(filter.organisationId ? orgIds.filter((o) => o === filter.organisationId) : orgIds),
-      ...(filter.role ? { role: filter.role } : {}),
-    },
-    relations: { organisation: true },
-    order: { name: 'ASC' },
-  });
-  const people = users.map(toPerson);
-  return { items: filter.state ? people.filter((p) => p.state === filter.state) : people };
-}
-
-const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
-
-export interface InviteOptions {
-  appUrl: string;
-  hours: number;
-  /** The key the link is sealed with in the stored message (JWT_SECRET). */
-  secret: string;
-}
-
-/**
- * A new one-time link: only its hash is kept on the person, the stored message holds a
- * placeholder and the link sealed until it is sent. Returns the link, which the inviting
- * admin sees once in the answer.
- */
-async function issueInvite(
-  m: EntityManager,
-  admin: Express.User,
-  user: User,
-  org: Organisation,
-  opts: InviteOptions,
-): Promise<{ mailIds: string[]; link: string }> {
-  const token = randomBytes(24).toString('base64url');
-  const expires = new Date(Date.now() + opts.hours * 3600_000);
-  const link = `${opts.appUrl}/invite/${token}`;
-  await m
-    .getRepository(User)
-    .update(user.id, { inviteTokenHash: hashToken(token), inviteExpiresAt: expires });
-  const mailIds = await stageMail(m, [
-    {
-      event: 'invite',
-      dedupeKey: `invite:${user.id}:${hashToken(token).slice(0, 16)}`,
-      packageId: null,
-      recipient: user,
-      content: templates.invite(user.name, org.name, admin.name, LINK_PLACEHOLDER, expires.toUTCString()),
-      sealedLink: sealLink(opts.secret, link, expires),
-    },
-  ]);
-  return { mailIds, link };
-}
-
-export async function invitePerson(
-  ds: DataSource,
-  queues: Queues,
-  admin: Express.User,
-  body: { email: string; name: string; role: Role; organisationId: string },
-  opts: InviteOptions,
-) {
-  const org = (await visibleOrganisations(ds, admin)).find((o) => o.id === body.organisationId);
-  if (!org)
-    throw AppError.badRequest('organisationId: not an organisation of this desk', [
-      { path: 'organisationId', message: 'organisationId must be an organisation of this desk' },
-    ]);
-  const contractorRole = body.role === 'contractor';
-  if (contractorRole !== (org.kind === 'contractor')) {
-    throw AppError.badRequest(`role: ${body.role} does not fit a ${org.kind} organisation`, [
-      {
-        path: 'role',
-        message:
-          org.kind === 'contractor'
-            ? "people of a contractor have the role 'contractor'"
-            : "the owner's people are reviewers, engineers or admins",
-      },
-    ]);
-  }
-  const taken = await ds
-    .getRepository(User)
-    .createQueryBuilder('u')
-    .where('lower(u.email) = lower(:e)', { e: body.email })
-    .getCount();
-  if (taken)
-    throw new AppError(409, 'email_taken', `${body.email} already has an account.`, [
-      { path: 'email', message: 'email already has an account' },
-    ]);
-  const { user, mailIds, link } = await ds.transaction(async (m) => {
-    const u = await m.getRepository(User).save({
-      organisationId: org.id,
-      email: body.email,
-      name: body.name,
-      role: body.role,
-      passwordHash: null,
-      unitSystem: 'metric',
-    });
-    const issued = await issueInvite(m, admin, u, org, opts);
-    await audit(m, admin, 'person.invited', { email: u.email, role: u.role, organisation: org.name });
-    return { user: u, ...issued };
-  });
-  await dispatchMail(queues, mailIds);
-  return {
-    ...toPerson(
-      (await ds.getRepository(User).findOne({ where: { id: user.id }, relations: { organisation: true } }))!,
-    ),
-    inviteLink: link,
-  };
-}
-
-async function visiblePerson(ds: DataSource, admin: Express.User, id: string) {
-  const orgIds = (await visibleOrganisations(ds, admin)).map((o) => o.id);
-  const user = await ds
-    .getRepository(User)
-    .findOne({ where: { id, organisationId: In(orgIds) }, relations: { organisation: true } });
-  if (!user) throw AppError.notFound('person');
-  return user;
-}
-
-export async function reinvite(
-  ds: DataSource,
-  queues: Queues,
-  admin: Express.User,
-  id: string,
-  opts: InviteOptions,
-) {
-  const user = await visiblePerson(ds, admin, id);
-  if (user.passwordHash)
-    throw new AppError(409, 'already_active', `${user.name} has already set a password.`);
-  const { mailIds, link } = await ds.transaction(async (m) => {
-    const issued = await issueInvite(m, admin, user, user.organisation!, opts);
-    await audit(m, admin, 'person.reinvited', { email: user.email });
-    return issued;
-  });
-  await dispatchMail(queues, mailIds);
-  return { ...toPerson(await visiblePerson(ds, admin, id)), inviteLink: link };
-}
-
-export async function updatePerson(
-  ds: DataSource,
-  admin: Express.User,
-  id: string,
-  body: { role?: Role; active?: boolean },
-) {
-  const user = await visiblePerson(ds, admin, id);
-  if (user.id === admin.id && (body.active === false || (body.role && body.role !== 'admin'))) {
-    throw new AppError(409, 'own_account', 'You cannot deactivate yourself or drop your own admin role.');
-  }
-  if (body.role && (body.role === 'contractor') !== (user.organisation!.kind === 'contractor')) {
-    throw AppError.badRequest(`role: ${body.role} does not fit a ${user.organisation!.kind} organisation`, [
-      { path: 'role', message: `role must fit a ${user.organisation!.kind} organisation` },
-    ]);
-  }
-  await ds.transaction(async (m) => {
-    const changes: Partial<Pick<User, 'role' | 'active' | 'tokenVersion'>> = {};
-    if (body.role && body.role !== user.role) changes.role = body.role;
-    if (body.active !== undefined && body.active !== user.active) changes.active = body.active;
-    // A role change or a deactivation ends every session the person has.
-    if (changes.role || changes.active === false) changes.tokenVersion = user.tokenVersion + 1;
-    if (Object.keys(changes).length) {
-      await m.getRepository(User).update(user.id, changes);
-      if (changes.role && user.role === 'reviewer')
-        await m.getRepository(SiteMember).delete({ userId: user.id });
-      await audit(m, admin, 'person.updated', { email: user.email, ...body });
-    }
-  });
-  return toPerson(await visiblePerson(ds, admin, id));
-}
-
-// ---- invitation acceptance (public) -----------------------------------------------------
-
-export async function findInvite(ds: DataSource, token: string) {
-  const user = await ds
-    .getRepository(User)
-    .findOne({ where: { inviteTokenHash: hashToken(token) }, relations: { organisation: true } });
-  if (!user || !user.active) throw AppError.notFound('invitation');
-  if (!user.inviteExpiresAt || user.inviteExpiresAt.getTime() < Date.now()) {
-    throw new AppError(
-      410,
-      'invite_expired',
-      'This invitation link has expired. Ask the desk administrator to send a new one.',
-    );
-  }
-  return user;
-}
-
-export async function acceptInvite(ds: DataSource, token: string, passwordHash: string) {
-  const user = await findInvite(ds, token);
-  await ds.transaction(async (m) => {
-    await m
-      .getRepository(User)
-      .update(user.id, { passwordHash, inviteTokenHash: null, inviteExpiresAt: null });
-    await m.getRepository(AuditEvent).save({
-      packageId: null,
-      organisationId: user.organisationId,
-      actorId: user.id,
-      action: 'person.joined',
-      detail: { email: user.email },
-    });
-  });
-  return user;
-}

@@ -2,7 +2,7 @@
 // "run the check again" after it could not run (contractor or reviewer). Thin routes.
 import { Router } from 'express';
 import type { AppContext } from '../../context';
-import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
+import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { PackageIdParams } from '../packages/routes';
 import { checkRunStatus, retryCheck } from './service';
@@ -12,7 +12,7 @@ export function checkRunRoutes(ctx: AppContext): Router {
   const auth = requireAuth(ctx.passport);
   router.get('/packages/:id/check-run', auth, validate({ params: PackageIdParams }), async (req, res) => {
     const { id } = valid(req, 'params', PackageIdParams);
-    res.json(await checkRunStatus(ctx.dataSource, ctx.queues, currentUser(req), id));
+    res.json(await checkRunStatus(ctx.dataSource, ctx.queues, currentActor(req), id));
   });
   router.post(
     '/packages/:id/check-run/retry',
@@ -21,7 +21,7 @@ export function checkRunRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      res.status(202).json(await retryCheck(ctx.dataSource, ctx.queues, currentUser(req), id));
+      res.status(202).json(await retryCheck(ctx.dataSource, ctx.queues, currentActor(req), id));
     },
   );
   return router;

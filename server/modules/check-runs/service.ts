@@ -3,13 +3,14 @@
 // policy used, and move the package on. Running it again for a revision already checked
 // changes nothing, so a retried or duplicated job is harmless. Also: the run's last
 // failure ("check could not run"), where its job is, and running it again.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager } from 'typeorm';
 import { evaluateLift } from '@shared/engineering/evaluate';
 import type { CheckRunStatus } from '@shared/schemas/check-runs';
 import { LiftInput } from '@shared/schemas/lift-input';
 import { AppError } from '../../lib/app-error';
 import { withTimeout, type Queues } from '../../lib/queues';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { checkRunIntent, handOff, latestIntent, nextRound, recordIntent } from '../jobs/intents';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
@@ -21,7 +22,7 @@ export class InvalidLiftData extends Error {}
 
 export type ProgressFn = (percent: number, step: string) => Promise<void> | void;
 
-export async function runCheck(
+export async function runCheckRun(
   dataSource: DataSource,
   revisionId: string,
   progress: ProgressFn = () => undefined,
@@ -48,7 +49,12 @@ export async function runCheck(
         checkProgress: 100,
       });
       await m.getRepository(LiftPackage).update(pkg.id, { status: 'check_failed' });
-      await audit(m, pkg.id, 'check.invalid', { revision: revision.number, reason });
+      await recordAudit(m, {
+        action: 'check.invalid',
+        actor: null,
+        packageId: pkg.id,
+        detail: { revision: revision.number, reason },
+      });
     });
     throw new InvalidLiftData(reason);
   }
@@ -83,10 +89,15 @@ export async function runCheck(
         openDiscrepancies,
       });
     }
-    await audit(m, pkg.id, 'check.completed', {
-      revision: revision.number,
-      overallStatus: worstStatus,
-      openDiscrepancies,
+    await recordAudit(m, {
+      action: 'check.completed',
+      actor: null,
+      packageId: pkg.id,
+      detail: {
+        revision: revision.number,
+        overallStatus: worstStatus,
+        openDiscrepancies,
+      },
     });
   });
   await progress(100, 'done');
@@ -95,10 +106,6 @@ export async function runCheck(
 
 async function setProgress(m: EntityManager, revisionId: string, percent: number, status: string) {
   await m.getRepository(Revision).update(revisionId, { checkProgress: percent, checkStatus: status });
-}
-
-async function audit(m: EntityManager, packageId: string, action: string, detail: Record<string, unknown>) {
-  await m.getRepository(AuditEvent).save({ packageId, action, detail, actorId: null, organisationId: null });
 }
 
 /**
@@ -122,11 +129,16 @@ export async function markCheckFailed(ds: DataSource, revisionId: string, reason
        WHERE id = $1 AND current_revision = $2 AND status = 'checking'`,
       [packageId, number],
     );
-    await audit(m, packageId, 'check.failed', { revision: number, reason });
+    await recordAudit(m, {
+      action: 'check.failed',
+      actor: null,
+      packageId: packageId,
+      detail: { revision: number, reason },
+    });
   });
 }
 
-const MAY_RETRY: ReadonlyArray<Express.User['role']> = ['contractor', 'reviewer'];
+const MAY_RETRY: ReadonlyArray<Actor['role']> = ['contractor', 'reviewer'];
 /** Asking the queue where a job is must not hold the page when Redis is away. */
 const QUEUE_LOOK_MS = 300;
 
@@ -142,7 +154,7 @@ async function currentRevision(m: EntityManager, pkg: LiftPackage, lock = false)
 export async function checkRunStatus(
   ds: DataSource,
   queues: Queues,
-  user: Express.User,
+  user: Actor,
   packageId: string,
 ): Promise<CheckRunStatus> {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
@@ -176,7 +188,7 @@ export async function checkRunStatus(
 }
 
 /** "Run the check again" after a final failure: a new round of the job, with its own id. */
-export async function retryCheck(ds: DataSource, queues: Queues, user: Express.User, packageId: string) {
+export async function retryCheck(ds: DataSource, queues: Queues, user: Actor, packageId: string) {
   if (!MAY_RETRY.includes(user.role))
     throw AppError.forbidden('Only the contractor or a reviewer runs a check again.');
   const pkg = await findScopedPackage(ds.manager, user, packageId);
@@ -202,11 +214,10 @@ export async function retryCheck(ds: DataSource, queues: Queues, user: Express.U
     await m.query(`UPDATE lift_packages SET status = 'checking' WHERE id = $1 AND status = 'check_failed'`, [
       pkg.id,
     ]);
-    await m.getRepository(AuditEvent).save({
-      packageId: pkg.id,
-      actorId: user.id,
-      organisationId: user.organisationId,
+    await recordAudit(m, {
       action: 'check.retried',
+      actor: user,
+      packageId: pkg.id,
       detail: { revision: revision.number, previousError: revision.checkError },
     });
     const next = checkRunIntent(revision.id, await nextRound(m, 'check-run', revision.id));

@@ -1,11 +1,12 @@
 // Uploaded PDFs of a draft revision: checked, hashed, stored behind the storage
 // interface, recorded. A refused upload leaves nothing on disk or in the database.
+import type { Actor } from '@shared/rules/actor';
 import { randomUUID } from 'node:crypto';
 import type { DataSource } from 'typeorm';
 import type { FileKind, FileSummary } from '@shared/schemas/packages';
 import { AppError } from '../../lib/app-error';
 import { sha256, type Storage } from '../../lib/storage';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { UploadedFile } from './file.entity';
@@ -23,7 +24,7 @@ export function toFileSummary(f: UploadedFile): FileSummary {
   };
 }
 
-async function currentDraft(ds: DataSource, user: Express.User, packageId: string) {
+async function currentDraft(ds: DataSource, user: Actor, packageId: string) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const revision = await ds
     .getRepository(Revision)
@@ -41,7 +42,7 @@ async function currentDraft(ds: DataSource, user: Express.User, packageId: strin
 export async function addFile(
   ds: DataSource,
   storage: Storage,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   upload: { originalName: string; bytes: Uint8Array; kind: FileKind },
   limits: { maxPages: number },
@@ -72,11 +73,10 @@ export async function addFile(
         storageKey,
         uploadedById: user.id,
       });
-      await m.getRepository(AuditEvent).save({
-        packageId: pkg.id,
-        actorId: user.id,
-        organisationId: user.organisationId,
+      await recordAudit(m, {
         action: 'file.added',
+        actor: user,
+        packageId: pkg.id,
         detail: {
           revision: revision.number,
           name: originalName,
@@ -98,7 +98,7 @@ export async function addFile(
 export async function removeFile(
   ds: DataSource,
   storage: Storage,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   fileId: string,
 ) {
@@ -107,11 +107,10 @@ export async function removeFile(
   if (!file) throw AppError.notFound('file');
   await ds.transaction(async (m) => {
     await m.getRepository(UploadedFile).delete(file.id);
-    await m.getRepository(AuditEvent).save({
-      packageId: pkg.id,
-      actorId: user.id,
-      organisationId: user.organisationId,
+    await recordAudit(m, {
       action: 'file.removed',
+      actor: user,
+      packageId: pkg.id,
       detail: { revision: revision.number, name: file.originalName },
     });
   });
@@ -121,7 +120,7 @@ export async function removeFile(
 export async function readFile(
   ds: DataSource,
   storage: Storage,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   fileId: string,
 ) {

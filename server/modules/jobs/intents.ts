@@ -36,7 +36,7 @@ export function mailIntent(messageId: string, round = 1): Intent {
 
 /** The queue of an intent, untyped: intents carry their payload as plain ids. */
 export function queueOf(queues: Queues, name: Intent['queue']): Queue {
-  return { 'check-run': queues.checkRun, 'stamp-return': queues.stamp, mail: queues.mail }[
+  return { 'check-run': queues.checkRun, 'stamp-return': queues.stampedReturn, mail: queues.mail }[
     name
   ] as unknown as Queue;
 }

@@ -2,12 +2,13 @@
 // Submitting freezes the revision (a database trigger refuses later changes to its
 // inputs) and writes its check run's job intent in the same transaction; the job (id
 // derived from the revision) is queued after the commit, or by the worker's relay.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager } from 'typeorm';
 import { LiftInput } from '@shared/schemas/lift-input';
 import type { CreatePackageBody, SaveDraftBody } from '@shared/schemas/packages';
 import { AppError, zodFields } from '../../lib/app-error';
 import { checkRunJobId, type Queues } from '../../lib/queues';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { UploadedFile } from '../files/file.entity';
 import { Site } from '../sites/site.entity';
 import { LiftPackage, Revision } from './package.entity';
@@ -17,25 +18,13 @@ import { templates } from '../mail/templates';
 import { User } from '../users/user.entity';
 import { findScopedPackage } from './package-scope';
 
-function requireContractor(user: Express.User) {
+function requireContractor(user: Actor) {
   if (user.role !== 'contractor')
     throw AppError.forbidden('Only a contractor prepares and submits lift packages.');
 }
 
-async function audit(
-  m: EntityManager,
-  user: Express.User,
-  packageId: string,
-  action: string,
-  detail: Record<string, unknown>,
-) {
-  await m
-    .getRepository(AuditEvent)
-    .save({ packageId, actorId: user.id, organisationId: user.organisationId, action, detail });
-}
-
 /** A site the contractor may submit to: one of its desk owner's sites (any site when it has none). */
-async function siteOr400(m: EntityManager, siteId: string, user: Express.User) {
+async function siteOr400(m: EntityManager, siteId: string, user: Actor) {
   const [site] = await m
     .getRepository(Site)
     .createQueryBuilder('s')
@@ -64,7 +53,7 @@ async function nextReference(m: EntityManager, site: Site): Promise<string> {
 
 export async function createPackage(
   ds: DataSource,
-  user: Express.User,
+  user: Actor,
   body: CreatePackageBody,
   inputs: Record<string, unknown> = {},
 ) {
@@ -82,12 +71,17 @@ export async function createPackage(
       currentRevision: 1,
     });
     await m.getRepository(Revision).save({ packageId: pkg.id, number: 1, state: 'draft', inputs });
-    await audit(m, user, pkg.id, 'package.created', { reference: pkg.reference, revision: 1 });
+    await recordAudit(m, {
+      action: 'package.created',
+      actor: user,
+      packageId: pkg.id,
+      detail: { reference: pkg.reference, revision: 1 },
+    });
     return pkg.id;
   });
 }
 
-export async function saveDraft(ds: DataSource, user: Express.User, packageId: string, body: SaveDraftBody) {
+export async function saveDraft(ds: DataSource, user: Actor, packageId: string, body: SaveDraftBody) {
   requireContractor(user);
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   await ds.transaction(async (m) => {
@@ -124,7 +118,7 @@ export async function saveDraft(ds: DataSource, user: Express.User, packageId: s
   });
 }
 
-export async function duplicatePackage(ds: DataSource, user: Express.User, packageId: string) {
+export async function duplicatePackage(ds: DataSource, user: Actor, packageId: string) {
   requireContractor(user);
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const revision = await ds
@@ -142,7 +136,7 @@ export async function duplicatePackage(ds: DataSource, user: Express.User, packa
 export async function submitPackage(
   ds: DataSource,
   queues: Queues,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   appUrl: string,
 ) {
@@ -184,7 +178,12 @@ export async function submitPackage(
       checkProgress: 0,
     });
     await m.getRepository(LiftPackage).update(pkg.id, { status: 'checking' });
-    await audit(m, user, pkg.id, 'revision.submitted', { revision: revision.number });
+    await recordAudit(m, {
+      action: 'revision.submitted',
+      actor: user,
+      packageId: pkg.id,
+      detail: { revision: revision.number },
+    });
     await recordIntent(m, checkRunIntent(revision.id));
     return {
       revisionId: revision.id,

@@ -3,6 +3,7 @@
 // of the sites they serve, engineers the packages assigned to them, admins the packages
 // of sites their organisation owns. Anything outside the scope is "not found" (404), so
 // a guessed id tells nothing.
+import type { Actor } from '@shared/rules/actor';
 import type { EntityManager, SelectQueryBuilder } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import { LiftPackage } from './package.entity';
@@ -13,7 +14,7 @@ const NOT_FIRST_DRAFT = (alias: string) =>
 
 export function scopedPackages(
   manager: EntityManager,
-  user: Express.User,
+  user: Actor,
   alias = 'p',
 ): SelectQueryBuilder<LiftPackage> {
   const qb = manager.getRepository(LiftPackage).createQueryBuilder(alias);
@@ -42,7 +43,7 @@ export function scopedPackages(
 /** One package the user may see, or a 404. */
 export async function findScopedPackage(
   manager: EntityManager,
-  user: Express.User,
+  user: Actor,
   id: string,
 ): Promise<LiftPackage> {
   const found = await scopedPackages(manager, user).andWhere('p.id = :id', { id }).getOne();

@@ -11,7 +11,7 @@ import {
 import { appUrl } from '../../config';
 import type { AppContext } from '../../context';
 import { AppError, fromZod } from '../../lib/app-error';
-import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
+import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { addFile, readFile, removeFile } from '../files/service';
 import { createPackage, duplicatePackage, saveDraft, submitPackage } from './drafts';
@@ -30,21 +30,21 @@ export function packageRoutes(ctx: AppContext): Router {
   router.use('/packages', requireAuth(ctx.passport));
 
   router.get('/packages', validate({ query: PackageListQuery }), async (req, res) => {
-    res.json(await listPackages(ds, currentUser(req), valid(req, 'query', PackageListQuery)));
+    res.json(await listPackages(ds, currentActor(req), valid(req, 'query', PackageListQuery)));
   });
 
   router.post('/packages', contractorOnly, validate({ body: CreatePackageBody }), async (req, res) => {
-    const id = await createPackage(ds, currentUser(req), valid(req, 'body', CreatePackageBody));
-    res.status(201).json(await packageDetail(ds, id, currentUser(req)));
+    const id = await createPackage(ds, currentActor(req), valid(req, 'body', CreatePackageBody));
+    res.status(201).json(await packageDetail(ds, id, currentActor(req)));
   });
 
   router.get('/packages/:id', validate({ params: PackageIdParams }), async (req, res) => {
-    res.json(await getPackage(ds, currentUser(req), valid(req, 'params', PackageIdParams).id));
+    res.json(await getPackage(ds, currentActor(req), valid(req, 'params', PackageIdParams).id));
   });
 
   router.get('/packages/:id/revisions/:number', validate({ params: RevisionParams }), async (req, res) => {
     const { id, number } = valid(req, 'params', RevisionParams);
-    res.json(await getRevision(ds, currentUser(req), id, number));
+    res.json(await getRevision(ds, currentActor(req), id, number));
   });
 
   router.put(
@@ -53,8 +53,8 @@ export function packageRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams, body: SaveDraftBody }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      await saveDraft(ds, currentUser(req), id, valid(req, 'body', SaveDraftBody));
-      res.json(await packageDetail(ds, id, currentUser(req)));
+      await saveDraft(ds, currentActor(req), id, valid(req, 'body', SaveDraftBody));
+      res.json(await packageDetail(ds, id, currentActor(req)));
     },
   );
 
@@ -63,8 +63,8 @@ export function packageRoutes(ctx: AppContext): Router {
     contractorOnly,
     validate({ params: PackageIdParams }),
     async (req, res) => {
-      const newId = await duplicatePackage(ds, currentUser(req), valid(req, 'params', PackageIdParams).id);
-      res.status(201).json(await packageDetail(ds, newId, currentUser(req)));
+      const newId = await duplicatePackage(ds, currentActor(req), valid(req, 'params', PackageIdParams).id);
+      res.status(201).json(await packageDetail(ds, newId, currentActor(req)));
     },
   );
 
@@ -74,8 +74,8 @@ export function packageRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      await submitPackage(ds, ctx.queues, currentUser(req), id, appUrl(ctx.config));
-      res.status(202).json(await packageDetail(ds, id, currentUser(req)));
+      await submitPackage(ds, ctx.queues, currentActor(req), id, appUrl(ctx.config));
+      res.status(202).json(await packageDetail(ds, id, currentActor(req)));
     },
   );
 
@@ -120,7 +120,7 @@ export function packageRoutes(ctx: AppContext): Router {
       const summary = await addFile(
         ds,
         ctx.storage,
-        currentUser(req),
+        currentActor(req),
         id,
         {
           originalName: Buffer.from(req.file.originalname, 'latin1').toString('utf8'),
@@ -139,14 +139,14 @@ export function packageRoutes(ctx: AppContext): Router {
     validate({ params: FileParams }),
     async (req, res) => {
       const { id, fileId } = valid(req, 'params', FileParams);
-      await removeFile(ds, ctx.storage, currentUser(req), id, fileId);
+      await removeFile(ds, ctx.storage, currentActor(req), id, fileId);
       res.status(204).end();
     },
   );
 
   router.get('/packages/:id/files/:fileId', validate({ params: FileParams }), async (req, res) => {
     const { id, fileId } = valid(req, 'params', FileParams);
-    const { file, bytes } = await readFile(ds, ctx.storage, currentUser(req), id, fileId);
+    const { file, bytes } = await readFile(ds, ctx.storage, currentActor(req), id, fileId);
     res.setHeader('Content-Type', 'application/pdf');
     res.setHeader('Content-Disposition', `inline; filename="${encodeURIComponent(file.originalName)}"`);
     res.setHeader('X-Content-SHA256', file.sha256);

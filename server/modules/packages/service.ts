@@ -1,5 +1,6 @@
 // Lift packages: the scoped list (contractor's desk, reviewer's queue, engineer's
 // assignments) and one package with its current revision, files and audit trail.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource } from 'typeorm';
 import type {
   PackageDetail,
@@ -46,7 +47,7 @@ export function toSummary(p: LiftPackage): PackageSummary {
 
 export async function listPackages(
   dataSource: DataSource,
-  user: Express.User,
+  user: Actor,
   query: PackageListQuery,
 ): Promise<PackageListResponse> {
   const filtered = scopedPackages(dataSource.manager, user)
@@ -136,7 +137,7 @@ export async function revisionDetail(dataSource: DataSource, revision: Revision)
 export async function packageDetail(
   dataSource: DataSource,
   packageId: string,
-  user?: Express.User,
+  user?: Actor,
 ): Promise<PackageDetail> {
   const full = await dataSource.getRepository(LiftPackage).findOneOrFail({
     where: { id: packageId },
@@ -200,16 +201,12 @@ export async function packageDetail(
   };
 }
 
-export async function getPackage(
-  dataSource: DataSource,
-  user: Express.User,
-  id: string,
-): Promise<PackageDetail> {
+export async function getPackage(dataSource: DataSource, user: Actor, id: string): Promise<PackageDetail> {
   const found = await findScopedPackage(dataSource.manager, user, id);
   return packageDetail(dataSource, found.id, user);
 }
 
-export async function getRevision(dataSource: DataSource, user: Express.User, id: string, number: number) {
+export async function getRevision(dataSource: DataSource, user: Actor, id: string, number: number) {
   const found = await findScopedPackage(dataSource.manager, user, id);
   const revision = await dataSource.getRepository(Revision).findOneBy({ packageId: found.id, number });
   if (!revision) throw AppError.notFound('revision');

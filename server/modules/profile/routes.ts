@@ -1,19 +1,17 @@
 // Each person's profile (unit system, reminders, name, password) and the public
 // acceptance of an invitation, which sets the password and signs the person in.
-import bcrypt from 'bcryptjs';
 import { Router, type Response } from 'express';
 import { z } from 'zod';
 import { AcceptInviteBody, PasswordChangeBody, ProfilePatch } from '@shared/schemas/admin';
 import type { AppContext } from '../../context';
-import { AppError } from '../../lib/app-error';
-import { currentUser, requireAuth } from '../../middleware/auth';
+import { currentActor, requireAuth } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
-import { acceptInvite, findInvite } from '../admin/service';
+import { acceptInvite } from '../admin/people';
 import { toAuthUser } from '../auth/passport';
 import { hashPassword } from '../auth/service';
 import { byAddress, limiter } from '../auth/rate-limits';
 import { startSession } from '../auth/session-cookie';
-import { User } from '../users/user.entity';
+import { changePassword, getProfile, inviteInfo, updateProfile } from './service';
 
 export const TokenParams = z.object({ token: z.string().min(10).max(100) });
 
@@ -22,15 +20,8 @@ export function profileRoutes(ctx: AppContext): Router {
   const ds = ctx.dataSource;
   const setSession = (res: Response, userId: string, tokenVersion: number) =>
     startSession(ctx, res, userId, tokenVersion);
-  const profileOf = (u: User) => ({
-    name: u.name,
-    email: u.email,
-    unitSystem: u.unitSystem,
-    notifyReminders: u.notifyReminders,
-  });
-
   router.get('/me/profile', requireAuth(ctx.passport), async (req, res) => {
-    res.json(profileOf(await ds.getRepository(User).findOneByOrFail({ id: currentUser(req).id })));
+    res.json(await getProfile(ds, currentActor(req)));
   });
 
   router.patch(
@@ -38,10 +29,7 @@ export function profileRoutes(ctx: AppContext): Router {
     requireAuth(ctx.passport),
     validate({ body: ProfilePatch }),
     async (req, res) => {
-      const body = valid(req, 'body', ProfilePatch);
-      const id = currentUser(req).id;
-      if (Object.keys(body).length) await ds.getRepository(User).update(id, body);
-      res.json(profileOf(await ds.getRepository(User).findOneByOrFail({ id })));
+      res.json(await updateProfile(ds, currentActor(req), valid(req, 'body', ProfilePatch)));
     },
   );
 
@@ -67,31 +55,15 @@ export function profileRoutes(ctx: AppContext): Router {
     passwordLimit,
     validate({ body: PasswordChangeBody }),
     async (req, res) => {
-      const body = valid(req, 'body', PasswordChangeBody);
-      const user = await ds.getRepository(User).findOneByOrFail({ id: currentUser(req).id });
-      if (!user.passwordHash || !(await bcrypt.compare(body.currentPassword, user.passwordHash))) {
-        throw new AppError(400, 'wrong_password', 'The current password is not right.', [
-          { path: 'currentPassword', message: 'currentPassword is not right' },
-        ]);
-      }
+      const session = await changePassword(ds, currentActor(req), valid(req, 'body', PasswordChangeBody));
       // A new password ends every other session; this one gets a fresh token.
-      await ds.getRepository(User).update(user.id, {
-        passwordHash: await hashPassword(body.newPassword),
-        tokenVersion: user.tokenVersion + 1,
-      });
-      await setSession(res, user.id, user.tokenVersion + 1);
+      await setSession(res, session.userId, session.tokenVersion);
       res.status(204).end();
     },
   );
 
   router.get('/invites/:token', inviteLimit, validate({ params: TokenParams }), async (req, res) => {
-    const user = await findInvite(ds, valid(req, 'params', TokenParams).token);
-    res.json({
-      email: user.email,
-      name: user.name,
-      organisation: user.organisation!.name,
-      expiresAt: user.inviteExpiresAt!.toISOString(),
-    });
+    res.json(await inviteInfo(ds, valid(req, 'params', TokenParams).token));
   });
 
   router.post(

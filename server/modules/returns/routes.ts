@@ -3,7 +3,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../../context';
-import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
+import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { PackageIdParams } from '../packages/routes';
 import { issueReturn, listReturns, readReturn } from './service';
@@ -25,12 +25,12 @@ export function returnRoutes(ctx: AppContext): Router {
     async (req, res) => {
       res
         .status(202)
-        .json(await issueReturn(ds, ctx.queues, currentUser(req), valid(req, 'params', PackageIdParams).id));
+        .json(await issueReturn(ds, ctx.queues, currentActor(req), valid(req, 'params', PackageIdParams).id));
     },
   );
 
   router.get('/packages/:id/returns', auth, validate({ params: PackageIdParams }), async (req, res) => {
-    res.json(await listReturns(ds, currentUser(req), valid(req, 'params', PackageIdParams).id));
+    res.json(await listReturns(ds, currentActor(req), valid(req, 'params', PackageIdParams).id));
   });
 
   router.get(
@@ -39,7 +39,7 @@ export function returnRoutes(ctx: AppContext): Router {
     validate({ params: ReturnParams }),
     async (req, res) => {
       const { id, returnId } = valid(req, 'params', ReturnParams);
-      const { ret, reference, bytes } = await readReturn(ds, ctx.storage, currentUser(req), id, returnId);
+      const { ret, reference, bytes } = await readReturn(ds, ctx.storage, currentActor(req), id, returnId);
       res.setHeader('Content-Type', 'application/pdf');
       res.setHeader('Content-Disposition', `inline; filename="${reference}-stamped-return.pdf"`);
       res.setHeader('X-Content-SHA256', ret.sha256 ?? '');

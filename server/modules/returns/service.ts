@@ -2,6 +2,7 @@
 // builds the PDF (original pages with markups burned in, the stamp block, the calculation
 // sheet), stores it with its sha-256 and marks the package returned. One return per
 // decision: issuing twice or retrying the job gives the same single return.
+import type { Actor } from '@shared/rules/actor';
 import { randomBytes } from 'node:crypto';
 import { mkdir, mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
@@ -11,10 +12,10 @@ import type { DataSource } from 'typeorm';
 import { DECISION_LABELS } from '@shared/schemas/common';
 import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
-import { QUEUE_NAMES, type Queues } from '../../lib/queues';
+import type { Queues } from '../../lib/queues';
 import type { Signer } from '../../lib/pdf-tools/signer';
 import type { Storage } from '../../lib/storage';
-import { AuditEvent } from '../audit/audit-event.entity';
+import { recordAudit } from '../audit/service';
 import { handOff, latestIntent, nextRound, recordIntent, type Intent } from '../jobs/intents';
 import { stageMail } from '../mail/service';
 import { templates } from '../mail/templates';
@@ -65,7 +66,7 @@ function toReturn(r: StampedReturn) {
   };
 }
 
-export async function issueReturn(ds: DataSource, queues: Queues, user: Express.User, packageId: string) {
+export async function issueReturn(ds: DataSource, queues: Queues, user: Actor, packageId: string) {
   if (user.role !== 'reviewer') throw AppError.forbidden('Only a reviewer issues the stamped return.');
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   requireState('issue_return', pkg.status, 'The stamped return can be issued', 'no_decision');
@@ -85,11 +86,10 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Express.
          VALUES ($1, $2, $3, $4, $5) ON CONFLICT (decision_id) DO NOTHING`,
         [decision.id, pkg.id, decision.revisionId, newVerificationCode(), user.id],
       );
-      await m.getRepository(AuditEvent).save({
-        packageId: pkg.id,
-        actorId: user.id,
-        organisationId: user.organisationId,
+      await recordAudit(m, {
         action: 'return.requested',
+        actor: user,
+        packageId: pkg.id,
         detail: { decision: decision.decision },
       });
       const row = await m.getRepository(StampedReturn).findOneByOrFail({ decisionId: decision.id });
@@ -123,7 +123,7 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Express.
   return toReturn(ret);
 }
 
-export async function listReturns(ds: DataSource, user: Express.User, packageId: string) {
+export async function listReturns(ds: DataSource, user: Actor, packageId: string) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const rows = await ds
     .getRepository(StampedReturn)
@@ -134,7 +134,7 @@ export async function listReturns(ds: DataSource, user: Express.User, packageId:
 export async function readReturn(
   ds: DataSource,
   storage: Storage,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   returnId: string,
 ) {
@@ -287,10 +287,10 @@ export async function buildReturn(
       .execute();
     if (!updated.affected) return [];
     await m.getRepository(LiftPackage).update(pkg.id, { status: 'returned' });
-    await m.getRepository(AuditEvent).save({
-      packageId: pkg.id,
-      actorId: ret.issuedById,
+    await recordAudit(m, {
       action: 'return.issued',
+      actor: { id: ret.issuedById },
+      packageId: pkg.id,
       detail: { decision: DECISION_LABELS[decision.decision], revision: revision.number, pages },
     });
     // The decision goes to the person who submitted the revision.
@@ -325,8 +325,6 @@ export async function buildReturn(
   await progress(100, 'done');
   return { skipped: false as const, pages, mailIds };
 }
-
-export const STAMP_QUEUE = QUEUE_NAMES.stamp;
 
 /** The stamp job's last attempt failed: the reviewer sees why and can issue again. */
 export async function markReturnFailed(ds: DataSource, returnId: string, error: string) {

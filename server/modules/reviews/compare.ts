@@ -1,5 +1,6 @@
 // The difference between two revisions of a package: every input that changed (by JSON
 // path) and every check whose status or value moved, for the engineer's side-by-side view.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource } from 'typeorm';
 import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
@@ -31,7 +32,7 @@ interface CheckLike {
 
 export async function compareRevisions(
   ds: DataSource,
-  user: Express.User,
+  user: Actor,
   packageId: string,
   from: number,
   to: number,

@@ -12,24 +12,14 @@ import {
 } from '@shared/schemas/reviews';
 import { appUrl } from '../../config';
 import type { AppContext } from '../../context';
-import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
+import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { PackageIdParams } from '../packages/routes';
 import { packageDetail } from '../packages/service';
 import { compareRevisions } from './compare';
-import {
-  acceptFigure,
-  addFinding,
-  addMarkup,
-  assignEngineer,
-  deleteMarkup,
-  listEngineers,
-  listFindings,
-  listMarkups,
-  recordDecision,
-  startNextRevision,
-  updateFinding,
-} from './service';
+import { acceptFigure, addFinding, listFindings, updateFinding } from './findings';
+import { addMarkup, deleteMarkup, listMarkups } from './markups';
+import { assignEngineer, listEngineers, recordDecision, startNextRevision } from './service';
 
 export const MarkupParams = PackageIdParams.extend({
   markupId: z.uuid({ message: 'markupId must be a UUID' }),
@@ -49,7 +39,7 @@ export function reviewRoutes(ctx: AppContext): Router {
   const auth = requireAuth(ctx.passport);
 
   router.get('/engineers', auth, requireRole('reviewer', 'admin'), async (req, res) => {
-    res.json(await listEngineers(ds, currentUser(req)));
+    res.json(await listEngineers(ds, currentActor(req)));
   });
 
   router.post(
@@ -63,7 +53,7 @@ export function reviewRoutes(ctx: AppContext): Router {
         await assignEngineer(
           ds,
           ctx.queues,
-          currentUser(req),
+          currentActor(req),
           body.packageIds,
           body.engineerId,
           appUrl(ctx.config),
@@ -78,7 +68,7 @@ export function reviewRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams, query: MarkupQuery }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      res.json(await listMarkups(ds, currentUser(req), id, valid(req, 'query', MarkupQuery).revision));
+      res.json(await listMarkups(ds, currentActor(req), id, valid(req, 'query', MarkupQuery).revision));
     },
   );
 
@@ -89,7 +79,7 @@ export function reviewRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams, body: MarkupBody }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      res.status(201).json(await addMarkup(ds, currentUser(req), id, valid(req, 'body', MarkupBody)));
+      res.status(201).json(await addMarkup(ds, currentActor(req), id, valid(req, 'body', MarkupBody)));
     },
   );
 
@@ -100,13 +90,13 @@ export function reviewRoutes(ctx: AppContext): Router {
     validate({ params: MarkupParams }),
     async (req, res) => {
       const { id, markupId } = valid(req, 'params', MarkupParams);
-      await deleteMarkup(ds, currentUser(req), id, markupId);
+      await deleteMarkup(ds, currentActor(req), id, markupId);
       res.status(204).end();
     },
   );
 
   router.get('/packages/:id/findings', auth, validate({ params: PackageIdParams }), async (req, res) => {
-    res.json(await listFindings(ds, currentUser(req), valid(req, 'params', PackageIdParams).id));
+    res.json(await listFindings(ds, currentActor(req), valid(req, 'params', PackageIdParams).id));
   });
 
   router.post(
@@ -116,7 +106,7 @@ export function reviewRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams, body: FindingBody }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      res.status(201).json(await addFinding(ds, currentUser(req), id, valid(req, 'body', FindingBody)));
+      res.status(201).json(await addFinding(ds, currentActor(req), id, valid(req, 'body', FindingBody)));
     },
   );
 
@@ -128,7 +118,7 @@ export function reviewRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id, findingId } = valid(req, 'params', FindingParams);
       res.json(
-        await updateFinding(ds, currentUser(req), id, findingId, valid(req, 'body', FindingUpdateBody)),
+        await updateFinding(ds, currentActor(req), id, findingId, valid(req, 'body', FindingUpdateBody)),
       );
     },
   );
@@ -141,8 +131,8 @@ export function reviewRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
       const body = valid(req, 'body', AcceptFigureBody);
-      await acceptFigure(ds, currentUser(req), id, body.figure, body.reason);
-      res.json(await packageDetail(ds, id, currentUser(req)));
+      await acceptFigure(ds, currentActor(req), id, body.figure, body.reason);
+      res.json(await packageDetail(ds, id, currentActor(req)));
     },
   );
 
@@ -153,8 +143,8 @@ export function reviewRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams, body: DecisionBody }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      await recordDecision(ds, currentUser(req), id, valid(req, 'body', DecisionBody));
-      res.json(await packageDetail(ds, id, currentUser(req)));
+      await recordDecision(ds, currentActor(req), id, valid(req, 'body', DecisionBody));
+      res.json(await packageDetail(ds, id, currentActor(req)));
     },
   );
 
@@ -165,8 +155,8 @@ export function reviewRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      await startNextRevision(ds, currentUser(req), id);
-      res.status(201).json(await packageDetail(ds, id, currentUser(req)));
+      await startNextRevision(ds, currentActor(req), id);
+      res.status(201).json(await packageDetail(ds, id, currentActor(req)));
     },
   );
 
@@ -177,7 +167,7 @@ export function reviewRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
       const { from, to } = valid(req, 'query', CompareQuery);
-      res.json(await compareRevisions(ds, currentUser(req), id, from, to));
+      res.json(await compareRevisions(ds, currentActor(req), id, from, to));
     },
   );
 

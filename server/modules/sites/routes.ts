@@ -2,13 +2,13 @@
 // the desk; reviewers see the sites they serve; engineers and admins their owner's sites.
 import { Router } from 'express';
 import type { AppContext } from '../../context';
-import { currentUser, requireAuth } from '../../middleware/auth';
+import { currentActor, requireAuth } from '../../middleware/auth';
 import { Site } from './site.entity';
 
 export function siteRoutes(ctx: AppContext): Router {
   const router = Router();
   router.get('/sites', requireAuth(ctx.passport), async (req, res) => {
-    const user = currentUser(req);
+    const user = currentActor(req);
     const qb = ctx.dataSource
       .getRepository(Site)
       .createQueryBuilder('s')

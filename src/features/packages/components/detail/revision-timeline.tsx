@@ -1,42 +1,8 @@
 // The package's history: each revision with its state and check, and the events (created,
 // saved, submitted, checked, assigned, decided…) in time order, newest first.
 import type { PackageDetail } from '@shared/schemas/packages';
+import { auditActionWords } from '@shared/rules/audit-actions';
 import { formatDateTime } from '@/lib/format';
-
-const ACTION_WORDS: Record<string, string> = {
-  created: 'Package started',
-  'package.created': 'Package started',
-  duplicated: 'Started as a copy',
-  'package.duplicated': 'Started as a copy',
-  submitted: 'Revision submitted',
-  'package.submitted': 'Revision submitted',
-  'revision.submitted': 'Revision submitted',
-  'check.queued': 'Check queued',
-  'check.started': 'Check started',
-  'check.completed': 'Check completed',
-  'check.done': 'Check completed',
-  'check.invalid': 'Check could not run',
-  'check.failed': 'Check failed',
-  'file.uploaded': 'File added',
-  'file.deleted': 'File removed',
-  'draft.saved': 'Draft saved',
-  assigned: 'Engineer assigned',
-  decided: 'Decision recorded',
-  returned: 'Returned',
-  'file.added': 'File added',
-  'file.removed': 'File removed',
-  'engineer.assigned': 'Engineer of record assigned',
-  'engineer.reassigned': 'Engineer of record changed',
-  'finding.raised': 'Finding raised',
-  'finding.answered': 'Finding answered',
-  'finding.closed': 'Finding closed',
-  'finding.reopened': 'Finding reopened',
-  'figure.accepted': 'Contractor figure accepted',
-  'decision.recorded': 'Decision recorded',
-  'return.requested': 'Stamped return requested',
-  'return.issued': 'Stamped return issued',
-  'revision.started': 'New revision started',
-};
 
 const DECISION_WORDS: Record<string, string> = {
   accepted: 'Accepted',
@@ -51,10 +17,6 @@ const SEVERITY_WORDS: Record<string, string> = {
   major: 'major',
   blocking: 'blocking',
 };
-
-export function actionWords(action: string): string {
-  return ACTION_WORDS[action] ?? action.replace(/[._]/g, ' ').replace(/^\w/, (c) => c.toUpperCase());
-}
 
 const CHECK_WORDS: Record<string, string> = {
   none: 'not run',
@@ -132,7 +94,7 @@ export function RevisionTimeline({ detail }: { detail: PackageDetail }) {
                   className="absolute -left-[5px] top-1.5 size-2 rounded-full border-2 border-ink bg-sheet"
                   aria-hidden="true"
                 />
-                <span className="font-bold">{actionWords(event.action)}</span>
+                <span className="font-bold">{auditActionWords(event.action)}</span>
                 {extra && <span className="text-ink-soft"> · {extra}</span>}
                 <span className="block text-[12px] text-ink-soft">
                   {formatDateTime(event.at)}

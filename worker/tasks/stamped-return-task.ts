@@ -1,21 +1,24 @@
-// stamp-return jobs: { returnId } → the stamped PDF stored and the package returned.
+// Stamped-return jobs (queue 'stamp-return'): { returnId } → the stamped PDF stored and the package returned.
 // The job id is derived from the decision, so issuing twice queues one job; a retry of a
 // finished return changes nothing. When the last attempt fails the reviewer sees why and
 // can issue it again.
-import type { Redis } from 'ioredis';
 import { appUrl } from '../../server/config';
 import type { AppContext } from '../../server/context';
-import { QUEUE_NAMES, type StampJob } from '../../server/lib/queues';
+import { QUEUE_NAMES, type StampedReturnJob } from '../../server/lib/queues';
 import { dispatchMail } from '../../server/modules/mail/service';
 import path from 'node:path';
 import { signerFor, type Signer } from '../../server/lib/pdf-tools/signer';
 import { buildReturn, markReturnFailed } from '../../server/modules/returns/service';
-import { startTask, type TaskDefinition, type TaskTiming } from './task';
+import type { TaskDefinition } from './task';
 
 /** `signer` defaults to the configured one (SIGNING_P12_FILE, else the desk's own). */
-export function stampTask(ctx: AppContext, concurrency: number, signer?: Signer): TaskDefinition<StampJob> {
+export function stampedReturnTask(
+  ctx: AppContext,
+  concurrency: number,
+  signer?: Signer,
+): TaskDefinition<StampedReturnJob> {
   return {
-    queue: QUEUE_NAMES.stamp,
+    queue: QUEUE_NAMES.stampedReturn,
     concurrency,
     fromIntents: true,
     async run(job) {
@@ -35,13 +38,4 @@ export function stampTask(ctx: AppContext, concurrency: number, signer?: Signer)
     },
     onFinalFailure: (data, reason) => markReturnFailed(ctx.dataSource, data.returnId, reason),
   };
-}
-
-export function startStampWorker(
-  ctx: AppContext,
-  connection: Redis,
-  concurrency: number,
-  timing: TaskTiming = {},
-) {
-  return startTask(ctx, connection, stampTask(ctx, concurrency), timing);
 }
