@@ -255,15 +255,20 @@ export const Chart = z.object(
 export const SLING_MATERIALS = ['wire', 'synthetic', 'chain'] as const;
 export const HITCHES = ['vertical', 'choker', 'basket'] as const;
 
+const PlanPoint = (label: string) =>
+  z.object({ x: signedLength(`${label}.x`), y: signedLength(`${label}.y`) });
+
 export const SlingLeg = z
   .object({
     name,
     angle: angle('rigging.slings.legs[].angle (from horizontal)', 0, 90).optional(),
     length: positiveLength('rigging.slings.legs[].length').optional(),
     horizontalDistance: length('rigging.slings.legs[].horizontalDistance').optional(),
+    /** 3- and 4-leg bridles: plan position of the leg's pick point from the load's centre of gravity */
+    pickPoint: PlanPoint('rigging.slings.legs[].pickPoint').optional(),
   })
   .superRefine((l, ctx) => {
-    if (!l.angle && !(l.length && l.horizontalDistance))
+    if (!l.angle && !(l.length && l.horizontalDistance) && !l.pickPoint)
       ctx.addIssue({
         code: 'custom',
         path: ['angle'],
@@ -272,20 +277,44 @@ export const SlingLeg = z
       });
   });
 
-export const SlingSet = z.object({
-  name,
-  material: z.enum(SLING_MATERIALS, {
-    error: `rigging.slings.material must be one of ${SLING_MATERIALS.join(', ')}`,
-  }),
-  hitch: z.enum(HITCHES, { error: `rigging.slings.hitch must be one of ${HITCHES.join(', ')}` }),
-  ratedLoadVertical: positiveWeight('rigging.slings.ratedLoadVertical (per leg)'),
-  /** choker hitch: the angle of choke (180° = sling straight through the eye; default over 120°) */
-  chokeAngle: angle('rigging.slings.chokeAngle', 0, 180).optional(),
-  weight: weight('rigging.slings.weight').optional(),
-  legs: z.array(SlingLeg).min(1, { error: 'rigging.slings.legs must list 1 or 2 legs' }).max(2, {
-    error: 'rigging.slings.legs must list 1 or 2 legs (for more legs enter the two that carry the load)',
-  }),
-});
+export const SlingSet = z
+  .object({
+    name,
+    material: z.enum(SLING_MATERIALS, {
+      error: `rigging.slings.material must be one of ${SLING_MATERIALS.join(', ')}`,
+    }),
+    hitch: z.enum(HITCHES, { error: `rigging.slings.hitch must be one of ${HITCHES.join(', ')}` }),
+    ratedLoadVertical: positiveWeight('rigging.slings.ratedLoadVertical (per leg)'),
+    /** choker hitch: the angle of choke (180° = sling straight through the eye; default over 120°) */
+    chokeAngle: angle('rigging.slings.chokeAngle', 0, 180).optional(),
+    weight: weight('rigging.slings.weight').optional(),
+    /** 3- and 4-leg bridles: height of the hook (where the legs meet) above the pick points */
+    hookHeight: positiveLength('rigging.slings.hookHeight').optional(),
+    /** 4-leg bridle: an equalising arrangement shares the load over all four legs (else two carry it) */
+    equalised: z.boolean({ error: 'rigging.slings.equalised must be true or false' }).optional(),
+    legs: z
+      .array(SlingLeg)
+      .min(1, { error: 'rigging.slings.legs must list 1 to 4 legs' })
+      .max(4, { error: 'rigging.slings.legs must list 1 to 4 legs' }),
+  })
+  .superRefine((s, ctx) => {
+    if (s.legs.length < 3) return;
+    if (!s.hookHeight)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['hookHeight'],
+        message: 'rigging.slings.hookHeight: give the hook height above the pick points for 3 or 4 legs',
+      });
+    s.legs.forEach((l, i) => {
+      if (!l.pickPoint)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['legs', i, 'pickPoint'],
+          message:
+            'rigging.slings.legs[].pickPoint: give each leg of a 3- or 4-leg bridle its pick point from the centre of gravity',
+        });
+    });
+  });
 
 export const Hardware = z.object({
   name,
@@ -434,9 +463,6 @@ export const Stated = z.object({
 
 const HookBlock = (label: string) =>
   z.object({ weight: weight(`${label}.weight`), height: length(`${label}.height`).optional() });
-
-const PlanPoint = (label: string) =>
-  z.object({ x: signedLength(`${label}.x`), y: signedLength(`${label}.y`) });
 
 /**
  * A crane of a lift with several cranes, other than the one entered at the top of the input (the

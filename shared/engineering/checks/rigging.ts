@@ -9,13 +9,15 @@
 // with vertical legs (rigging handbooks); the angle is already in the tension. A choker with a
 // stated angle of choke below 120° is rated lower again by the ASME B30.9 choke-angle table (read in
 // sling makers' reproductions of it). Each leg's vertical share at its pick point is reported
-// (T · sin θ; the shares add up to the weight below the hook's rigging).
+// (T · sin θ; the shares add up to the weight below the hook's rigging). Three- and four-leg
+// bridles with the centre of gravity off centre: bridle.ts.
 import { atLeast, exceeds, fallsShort } from '../compare';
 import type { LiftInput } from '../../schemas/lift-input';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
 import { DEG, si } from '../units';
-import type { CheckItem, CheckResult, LiftFigures, Source } from '../types';
+import type { CheckItem, CheckResult, FormulaPart, LiftFigures, Source } from '../types';
+import { bridleLegs } from './bridle';
 
 export const angleFactor = (deg: number): number => 1 / Math.sin(deg * DEG);
 
@@ -69,10 +71,38 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
     const sl = r.slings;
     let W = si(ctx.input.load.weight)!;
     if (r.items) for (const it of r.items) W += si(it.weight)!;
-    const angles = sl.legs.map(legAngleDeg);
+    let angles = sl.legs.length >= 3 ? [] : sl.legs.map(legAngleDeg);
     let tensions: number[];
     let formulaBase;
-    if (angles.length === 2) {
+    let verticals: { V: number[]; formula: (i: number) => FormulaPart[]; source: Source } | null = null;
+    let bridleFail: string | null = null;
+    if (sl.legs.length >= 3) {
+      const h = si(sl.hookHeight)!;
+      const picks = sl.legs.map((l) => [si(l.pickPoint!.x)!, si(l.pickPoint!.y)!] as const);
+      const b = bridleLegs(W, picks, h, sl.equalised === true);
+      angles = b.angleDeg;
+      tensions = b.tension;
+      bridleFail = b.reason;
+      const L = picks.map(([x, y]) => Math.sqrt(x * x + y * y + h * h));
+      const how =
+        b.method === 'three'
+          ? 'three legs: ΣV = W and the moments about the centre of gravity balance'
+          : b.method === 'equalised'
+            ? 'four legs with an equalising arrangement: balanced shares as even as statics allows'
+            : 'four legs rated on two: the larger share of the leg when its diagonal pair carries the load alone';
+      verticals = {
+        V: b.vertical,
+        formula: (i) => f`${how}: V = ${term(b.vertical[i] ?? 0, 'weight')} of W ${term(W, 'weight')}`,
+        source:
+          b.method === 'three'
+            ? SOURCES.bridleStatics
+            : b.method === 'equalised'
+              ? SOURCES.bridleEqualised
+              : SOURCES.bridleTwoLegs,
+      };
+      formulaBase = (i: number) =>
+        f`T = V ${term(b.vertical[i], 'weight')} × leg length ${term(L[i], 'length')} ÷ hook height ${term(h, 'length')} = ${term(tensions[i], 'weight')}`;
+    } else if (angles.length === 2) {
       tensions = twoLegTensions(W, angles[0], angles[1]);
       formulaBase = (i: number) =>
         f`T = W ${term(W, 'weight')} × cos(${term(angles[1 - i], 'angle')}) ÷ sin(${term(angles[0], 'angle')} + ${term(
@@ -100,6 +130,20 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
               text: `${base.source.text}; ${SOURCES.chokeAngle.text}`,
             } as Source,
           };
+    if (bridleFail !== null) {
+      tensions = [];
+      items.push(
+        item(ctx, {
+          id: 'rigging.bridle',
+          label: `${sl.legs.length}-leg bridle shares`,
+          status: 'fail',
+          value: null,
+          unit: 'weight',
+          source: SOURCES.bridleStatics,
+          message: `No leg loads: ${bridleFail}.`,
+        }),
+      );
+    }
     const wll = si(sl.ratedLoadVertical)!;
     const cap = wll * hf.factor;
     for (let i = 0; i < tensions.length; i++) {
@@ -133,7 +177,7 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
         }),
       );
       const ang = angles[i];
-      const V = T * Math.sin(ang * DEG);
+      const V = verticals ? verticals.V[i] : T * Math.sin(ang * DEG);
       items.push(
         item(ctx, {
           id: `rigging.vertical-${i + 1}`,
@@ -143,8 +187,10 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
           limit: null,
           limitType: null,
           unit: 'weight',
-          formula: f`V = T ${term(T, 'weight')} × sin(${term(ang, 'angle')}) = ${term(V, 'weight')}`,
-          source: SOURCES.verticalShare,
+          formula: verticals
+            ? verticals.formula(i)
+            : f`V = T ${term(T, 'weight')} × sin(${term(ang, 'angle')}) = ${term(V, 'weight')}`,
+          source: verticals ? verticals.source : SOURCES.verticalShare,
           message: `The pick point of ${legName} carries this much of the weight vertically.`,
         }),
       );

@@ -36,12 +36,17 @@ export function riggingInputs(flow: Flow, inputs: Obj) {
       );
       add(r, 'Sling rating (vertical, per leg)', asEntered(s.ratedLoadVertical));
       add(r, 'Sling weight', asEntered(s.weight));
+      add(r, 'Hook height above the picks', asEntered(s.hookHeight));
+      if (arr(s.legs).length === 4)
+        add(r, 'Four legs', s.equalised === true ? 'equalising arrangement stated' : 'rated on two legs');
       arr(s.legs).forEach((leg, i) => {
         const lg = obj(leg) ?? {};
         const bits = [
           asEntered(lg.angle) && `${asEntered(lg.angle)} from horizontal`,
           asEntered(lg.length) && `length ${asEntered(lg.length)}`,
           asEntered(lg.horizontalDistance) && `${asEntered(lg.horizontalDistance)} from the hook`,
+          asEntered(obj(lg.pickPoint)?.x) &&
+            `pick point x ${asEntered(obj(lg.pickPoint)?.x)}, y ${asEntered(obj(lg.pickPoint)?.y)} from the centre of gravity`,
         ].filter(Boolean);
         add(r, `Leg ${i + 1}${str(lg.name) ? ` (${str(lg.name)})` : ''}`, bits.join(', ') || '—');
       });
