@@ -18,6 +18,9 @@ import { SOURCES } from '../sources';
 import { DEG, si } from '../units';
 import type { CheckItem, CheckResult, FormulaPart, LiftFigures, Source } from '../types';
 import { bridleLegs } from './bridle';
+import { solveShares } from '../multi-crane';
+
+type SlingSetT = NonNullable<NonNullable<LiftInput['rigging']>['slings']>;
 
 export const angleFactor = (deg: number): number => 1 / Math.sin(deg * DEG);
 
@@ -67,17 +70,40 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
   const { policy } = ctx;
   const items: CheckItem[] = [];
   let maxLeg = 0;
-  if (r?.slings) {
-    const sl = r.slings;
-    let W = si(ctx.input.load.weight)!;
-    if (r.items) for (const it of r.items) W += si(it.weight)!;
-    let angles = sl.legs.length >= 3 ? [] : sl.legs.map(legAngleDeg);
+  let W0 = si(ctx.input.load.weight)!;
+  if (r?.items) for (const it of r.items) W0 += si(it.weight)!;
+  const beam = r?.beam;
+  /** Every leg of one set of slings carrying W; `below`: the drops under a beam. */
+  const slingSet = (sl: SlingSetT, W: number, below: boolean) => {
+    const idp = below ? 'rigging.below.' : 'rigging.';
+    const where = below ? 'below the beam, ' : '';
+    let angles =
+      sl.legs.length >= 3 ? [] : sl.legs.map((l) => (below && !l.angle && !l.length ? 90 : legAngleDeg(l)));
     let tensions: number[];
     let formulaBase;
     let verticals: { V: number[]; formula: (i: number) => FormulaPart[]; source: Source } | null = null;
     let bridleFail: string | null = null;
-    if (sl.legs.length >= 3) {
-      const h = si(sl.hookHeight)!;
+    if (below && sl.legs.length === 2) {
+      // drops from the beam: the centre of gravity between the two pick points shares the load
+      const picks = sl.legs.map((l) => [si(l.pickPoint!.x)!, si(l.pickPoint!.y)!] as const);
+      const V = solveShares(W, picks, [0, 0]);
+      if (!V || V.some((v) => v < -1e-9 * W)) {
+        bridleFail = 'the centre of gravity is not between the two drops';
+        tensions = [];
+      } else {
+        const Vp = V.map((v) => Math.max(0, v));
+        tensions = Vp.map((v, i) => v / Math.sin(angles[i] * DEG));
+        verticals = {
+          V: Vp,
+          formula: (i) =>
+            f`two drops: V = W ${term(W, 'weight')} × distance of the other drop from the centre of gravity ÷ drop spacing = ${term(Vp[i], 'weight')}`,
+          source: SOURCES.bridleStatics,
+        };
+      }
+      formulaBase = (i: number) =>
+        f`T = V ${term(verticals?.V[i] ?? 0, 'weight')} ÷ sin(${term(angles[i], 'angle')}) = ${term(tensions[i], 'weight')}`;
+    } else if (sl.legs.length >= 3) {
+      const h = si(sl.hookHeight!)!;
       const picks = sl.legs.map((l) => [si(l.pickPoint!.x)!, si(l.pickPoint!.y)!] as const);
       const b = bridleLegs(W, picks, h, sl.equalised === true);
       angles = b.angleDeg;
@@ -134,7 +160,7 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
       tensions = [];
       items.push(
         item(ctx, {
-          id: 'rigging.bridle',
+          id: `${idp}bridle`,
           label: `${sl.legs.length}-leg bridle shares`,
           status: 'fail',
           value: null,
@@ -149,10 +175,10 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
     for (let i = 0; i < tensions.length; i++) {
       const T = tensions[i];
       if (T > maxLeg) maxLeg = T;
-      const legName = sl.legs[i].name ?? `leg ${i + 1}`;
+      const legName = where + (sl.legs[i].name ?? `leg ${i + 1}`);
       items.push(
         item(ctx, {
-          id: `rigging.leg-${i + 1}`,
+          id: `${idp}leg-${i + 1}`,
           label: `Sling ${legName} tension`,
           status: statusMax(T, cap, policy),
           value: T,
@@ -180,7 +206,7 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
       const V = verticals ? verticals.V[i] : T * Math.sin(ang * DEG);
       items.push(
         item(ctx, {
-          id: `rigging.vertical-${i + 1}`,
+          id: `${idp}vertical-${i + 1}`,
           label: `Vertical share at the pick point of ${legName}`,
           status: 'pass',
           value: V,
@@ -196,7 +222,7 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
       );
       items.push(
         item(ctx, {
-          id: `rigging.angle-${i + 1}`,
+          id: `${idp}angle-${i + 1}`,
           label: `Sling ${legName} angle from horizontal`,
           status: fallsShort(ang, policy.minSlingAngleDeg) ? 'fail' : 'pass',
           value: ang,
@@ -216,7 +242,32 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
         }),
       );
     }
-  }
+  };
+  if (beam) {
+    const below = si(beam.slingsBelow?.weight) ?? 0;
+    if (beam.slingsBelow) slingSet(beam.slingsBelow, W0, true);
+    const hanging = W0 + below;
+    const rated = si(beam.ratedLoad)!;
+    const name = beam.name ?? (beam.kind === 'spreader' ? 'Spreader beam' : 'Lifting beam');
+    items.push(
+      item(ctx, {
+        id: 'rigging.beam',
+        label: `${name} rated load`,
+        status: statusMax(hanging, rated, policy),
+        value: hanging,
+        limit: rated,
+        limitType: 'max',
+        unit: 'weight',
+        formula: f`load and rigging items ${term(W0, 'weight')} + drops ${term(below, 'weight')} = ${term(hanging, 'weight')} against the beam's rated load ${term(rated, 'weight')}`,
+        source: { kind: 'input', text: 'rated load as marked on the beam (entered)' },
+        message: exceeds(hanging, rated)
+          ? `${name} carries more than its rated load.`
+          : `${name} against its rated load.`,
+      }),
+    );
+    // the slings above carry the beam and everything under it
+    if (r?.slings) slingSet(r.slings, hanging + si(beam.weight)!, false);
+  } else if (r?.slings) slingSet(r.slings, W0, false);
   if (r?.hardware) {
     r.hardware.forEach((h, i) => {
       const wll = si(h.wll)!;

@@ -59,6 +59,35 @@ export function riggingInputs(flow: Flow, inputs: Obj) {
         `WLL ${asEntered(hw.wll) ?? '—'}${asEntered(hw.weight) ? `, weighs ${asEntered(hw.weight)}` : ''}${hw.carries === 'leg' ? ', one per leg' : ''}`,
       );
     }
+    const beam = obj(rig.beam);
+    if (beam) {
+      add(
+        r,
+        str(beam.name) ?? (beam.kind === 'lifting' ? 'Lifting beam' : 'Spreader beam'),
+        `weighs ${asEntered(beam.weight) ?? '—'}, rated load ${asEntered(beam.ratedLoad) ?? '—'} (slings above it: the slings listed)`,
+      );
+      const d = obj(beam.slingsBelow);
+      if (d) {
+        add(
+          r,
+          'Drops below the beam',
+          `${String(d.material ?? '')}, ${String(d.hitch ?? '')} hitch, rated ${asEntered(d.ratedLoadVertical) ?? '—'} per leg${asEntered(d.weight) ? `, weigh ${asEntered(d.weight)}` : ''}`,
+        );
+        arr(d.legs).forEach((leg, i) => {
+          const p = obj(obj(leg)?.pickPoint);
+          add(
+            r,
+            `Drop ${i + 1}`,
+            [
+              asEntered(obj(leg)?.angle) && `${asEntered(obj(leg)?.angle)} from horizontal`,
+              p && `pick point x ${asEntered(p.x)}, y ${asEntered(p.y)} from the centre of gravity`,
+            ]
+              .filter(Boolean)
+              .join(', ') || 'vertical',
+          );
+        });
+      }
+    }
     add(r, 'Rigging height', asEntered(rig.height));
     if (r.length) {
       flow.subheading('Rigging');
