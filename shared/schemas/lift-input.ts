@@ -298,7 +298,18 @@ const SlingSetBase = z.object({
 });
 
 export const SlingSet = SlingSetBase.superRefine((s, ctx) => {
-  if (s.legs.length < 3) return;
+  if (s.legs.length < 3) {
+    s.legs.forEach((l, i) => {
+      if (!l.angle && !(l.length && l.horizontalDistance))
+        ctx.addIssue({
+          code: 'custom',
+          path: ['legs', i, 'angle'],
+          message:
+            'rigging.slings.legs[]: with 1 or 2 legs give each leg its angle, or its length and horizontal distance from the hook',
+        });
+    });
+    return;
+  }
   if (!s.hookHeight)
     ctx.addIssue({
       code: 'custom',

@@ -107,3 +107,12 @@ describe('three- and four-leg bridles', () => {
     expect(JSON.stringify(r3.error!.issues)).toContain('1 to 4 legs');
   });
 });
+
+describe('one- and two-leg slings', () => {
+  it('when a two-leg sling gives only pick points, then the input is refused: its angles are needed', () => {
+    const raw = bridle(10, [pick(-1, 0), pick(1, 0)], 3);
+    const r = LiftInput.safeParse(raw);
+    expect(r.success).toBe(false);
+    expect(JSON.stringify(r.error!.issues)).toContain('with 1 or 2 legs give each leg its angle');
+  });
+});
