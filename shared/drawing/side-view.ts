@@ -97,3 +97,32 @@ export function sideViewScene(inputs: unknown, result: LiftResult): SideViewScen
     yMax: tipY + 1.5,
   };
 }
+
+export interface CraneSideView {
+  key: string;
+  title: string;
+  /** The inputs to draw from: the lift's for crane 1, the crane's own configuration for the others. */
+  inputs: Record<string, unknown>;
+  /** The result with this crane's figures (its share, its tipping line). */
+  result: LiftResult;
+}
+
+/**
+ * One side view per crane: the lift's own for one crane; with several cranes crane 1 from the top
+ * of the input and the others from multiCrane.others, each with the figures of its own share. A
+ * crane entered by its chart capacity only (the version 1 form) has no figures and no tipping line,
+ * so sideViewUnavailableReason says it cannot be drawn.
+ */
+export function craneSideViews(result: LiftResult, inputs: Record<string, unknown>): CraneSideView[] {
+  if (!result.cranes) return [{ key: 'one', title: 'Side view and moment arms', inputs, result }];
+  const others = at(inputs, 'multiCrane', 'others');
+  const list = Array.isArray(others) ? (others as unknown[]) : [];
+  return result.cranes.map((crane, k) => ({
+    key: `crane-${crane.index}`,
+    title: `Side view of crane ${crane.index} (${crane.name}) for its share`,
+    inputs: k === 0 ? inputs : { crane: at(list[k - 1], 'crane'), load: inputs.load },
+    result: crane.figures
+      ? { ...result, figures: crane.figures }
+      : { ...result, figures: { ...result.figures, tipping: null } },
+  }));
+}

@@ -40,7 +40,7 @@ export interface SharePlan {
 const pt = (p: { x: { value: number; unit: string }; y: { value: number; unit: string } } | undefined) =>
   p ? ([si(p.x as never)!, si(p.y as never)!] as Point) : null;
 
-function solveShares(W: number, picks: Point[], g: Point): number[] | null {
+export function solveShares(W: number, picks: Point[], g: Point): number[] | null {
   if (picks.length === 2) {
     const [a, b] = picks;
     const dx = b[0] - a[0];

@@ -36,6 +36,17 @@ export const SOURCES = {
   chokeAngle: std(
     'ASME B30.9 choke-angle table (read as reproduced in sling makers’ instructions): choker rating × 1.00 over 120°, 0.87 at 90–120°, 0.74 at 60–89°, 0.62 at 30–59°, 0.49 at 0–29°',
   ),
+  bridleStatics: std(
+    'Statics of the hook: leg tension T = V · L / h, vertical shares from force and moment balance about the centre of gravity',
+  ),
+  bridleTwoLegs: {
+    kind: 'from_memory',
+    text: 'ASME B30.9: a four-leg bridle is rated as if two legs carry the load unless an equalising arrangement is used (from memory)',
+  } as Source,
+  bridleEqualised: {
+    kind: 'common_practice',
+    text: 'Equalised four-leg bridle: the balanced shares nearest to equal (common practice, no source)',
+  } as Source,
   verticalShare: std('Statics: the vertical share of a leg = its tension × sin(angle from horizontal)'),
   trackMats: {
     kind: 'common_practice',

@@ -109,7 +109,13 @@ export interface Discrepancy {
 
 export interface Fix {
   checkId: 'capacity' | 'stability' | 'ground-bearing';
-  kind: 'extra_counterweight' | 'counterweight_arm' | 'max_radius' | 'max_gross_load' | 'mat_area';
+  kind:
+    | 'extra_counterweight'
+    | 'counterweight_arm'
+    | 'max_radius'
+    | 'max_gross_load'
+    | 'mat_area'
+    | 'track_mat_length';
   value: number;
   unit: UnitKind;
   message: string;

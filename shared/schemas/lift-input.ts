@@ -11,117 +11,37 @@
 // - Radius is the horizontal distance from the centre of rotation to the hook (the chart's radius).
 // - Boom angle is measured from horizontal; gantry leg inclination from vertical.
 import { z } from 'zod';
-import {
-  ANGLE_UNITS,
-  AREA_UNITS,
-  LENGTH_UNITS,
-  MOMENT_UNITS,
-  PRESSURE_UNITS,
-  SPEED_UNITS,
-  VOLTAGE_UNITS,
-  WEIGHT_UNITS,
-  TO_SI,
-} from '../engineering/units';
 import { same } from '../engineering/chart';
+import {
+  angle,
+  area,
+  boundedNumber,
+  count,
+  length,
+  moment,
+  name,
+  positiveLength,
+  positiveWeight,
+  pressure,
+  quantity,
+  signedLength,
+  speed,
+  weight,
+} from './lift-quantities';
+import { PRESSURE_UNITS, TO_SI, VOLTAGE_UNITS } from '../engineering/units';
+import { PlanPoint, Rigging } from './lift-rigging';
 
-const finite = (label: string) =>
-  z.number({
-    error: (iss) => (iss.input === undefined ? `${label} is required` : `${label} must be a finite number`),
-  });
-
-interface Bounds {
-  min?: number;
-  /** true: value must be strictly greater than min */
-  gt?: boolean;
-  max?: number;
-  /** words for the limit in messages, e.g. "degrees" */
-  what?: string;
-}
-
-function boundedNumber(label: string, b: Bounds) {
-  let n = finite(label);
-  const what = b.what ? ` ${b.what}` : '';
-  if (b.min !== undefined && b.max !== undefined) {
-    const msg = `${label} must be between ${b.min} and ${b.max}${what}`;
-    n = (b.gt ? n.gt(b.min, { error: msg }) : n.min(b.min, { error: msg })).max(b.max, { error: msg });
-  } else if (b.min !== undefined) {
-    n = b.gt
-      ? n.gt(b.min, { error: `${label} must be greater than ${b.min}${what}` })
-      : n.min(b.min, { error: `${label} must be ${b.min}${what} or more` });
-  } else if (b.max !== undefined) {
-    n = n.max(b.max, { error: `${label} must be ${b.max}${what} or less` });
-  }
-  return n;
-}
-
-/**
- * Plausible upper bound of each kind of quantity, in SI (ours: common practice, no source). Each is
- * well above any crane lift on record (the heaviest lifts are a few tens of thousands of tonnes, the
- * tallest booms a few hundred metres) and keeps every product the engine forms finite.
- */
-export const QUANTITY_MAX_SI = {
-  length: 2000,
-  weight: 100_000 * 1000 * TO_SI.kg,
-  pressure: 100e6,
-  speed: 100,
-  area: 10_000,
-  angle: 360,
-  voltage: 2e6,
-  moment: 1e12,
-} as const;
-
-const KIND_OF_UNITS = new Map<readonly string[], keyof typeof QUANTITY_MAX_SI>([
-  [LENGTH_UNITS, 'length'],
-  [WEIGHT_UNITS, 'weight'],
-  [PRESSURE_UNITS, 'pressure'],
-  [SPEED_UNITS, 'speed'],
-  [AREA_UNITS, 'area'],
-  [ANGLE_UNITS, 'angle'],
-  [VOLTAGE_UNITS, 'voltage'],
-  [MOMENT_UNITS, 'moment'],
-]);
-
-const limitText = (x: number) => x.toLocaleString('en-US', { maximumFractionDigits: x >= 100 ? 0 : 3 });
-
-function quantity<const U extends readonly [string, ...string[]]>(units: U, label: string, b: Bounds = {}) {
-  const kind = KIND_OF_UNITS.get(units);
-  const maxSI = kind ? QUANTITY_MAX_SI[kind] : Infinity;
-  return z
-    .object(
-      {
-        value: boundedNumber(label, b),
-        unit: z.enum(units, { error: `${label}: unit must be one of ${units.join(', ')}` }),
-      },
-      {
-        error: (iss) =>
-          iss.input === undefined ? `${label} is required` : `${label} must be an object { value, unit }`,
-      },
-    )
-    .superRefine((q, ctx) => {
-      const factor = TO_SI[q.unit as keyof typeof TO_SI];
-      if (Math.abs(q.value * factor) > maxSI)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['value'],
-          message: `${label} must be ${limitText(maxSI / factor)} ${q.unit} or less`,
-        });
-    });
-}
-
-const length = (label: string, b: Bounds = { min: 0 }) => quantity(LENGTH_UNITS, label, b);
-const positiveLength = (label: string) => quantity(LENGTH_UNITS, label, { min: 0, gt: true });
-const signedLength = (label: string) => quantity(LENGTH_UNITS, label, {});
-const weight = (label: string) => quantity(WEIGHT_UNITS, label, { min: 0 });
-const positiveWeight = (label: string) => quantity(WEIGHT_UNITS, label, { min: 0, gt: true });
-const pressure = (label: string) => quantity(PRESSURE_UNITS, label, { min: 0, gt: true });
-const speed = (label: string) => quantity(SPEED_UNITS, label, { min: 0 });
-const area = (label: string) => quantity(AREA_UNITS, label, { min: 0 });
-const angle = (label: string, min: number, max: number) =>
-  quantity(ANGLE_UNITS, label, { min, max, what: 'degrees' });
-const moment = (label: string) => quantity(MOMENT_UNITS, label, { min: 0 });
-const name = z.string().max(200).optional();
-const count = (label: string, min: number, max: number) =>
-  boundedNumber(label, { min, max }).int({ error: `${label} must be a whole number` });
+export { QUANTITY_MAX_SI } from './lift-quantities';
+export {
+  SLING_MATERIALS,
+  HITCHES,
+  SlingLeg,
+  SlingSet,
+  Hardware,
+  BeamDrops,
+  Beam,
+  Rigging,
+} from './lift-rigging';
 
 export const LengthQ = length('length');
 export type LengthQ = z.infer<typeof LengthQ>;
@@ -251,57 +171,6 @@ export const Chart = z.object(
       iss.input === undefined ? 'chart is required (the load chart rows used)' : 'chart must be an object',
   },
 );
-
-export const SLING_MATERIALS = ['wire', 'synthetic', 'chain'] as const;
-export const HITCHES = ['vertical', 'choker', 'basket'] as const;
-
-export const SlingLeg = z
-  .object({
-    name,
-    angle: angle('rigging.slings.legs[].angle (from horizontal)', 0, 90).optional(),
-    length: positiveLength('rigging.slings.legs[].length').optional(),
-    horizontalDistance: length('rigging.slings.legs[].horizontalDistance').optional(),
-  })
-  .superRefine((l, ctx) => {
-    if (!l.angle && !(l.length && l.horizontalDistance))
-      ctx.addIssue({
-        code: 'custom',
-        path: ['angle'],
-        message:
-          'rigging.slings.legs[]: give the leg angle, or its length and horizontal distance from the hook',
-      });
-  });
-
-export const SlingSet = z.object({
-  name,
-  material: z.enum(SLING_MATERIALS, {
-    error: `rigging.slings.material must be one of ${SLING_MATERIALS.join(', ')}`,
-  }),
-  hitch: z.enum(HITCHES, { error: `rigging.slings.hitch must be one of ${HITCHES.join(', ')}` }),
-  ratedLoadVertical: positiveWeight('rigging.slings.ratedLoadVertical (per leg)'),
-  /** choker hitch: the angle of choke (180° = sling straight through the eye; default over 120°) */
-  chokeAngle: angle('rigging.slings.chokeAngle', 0, 180).optional(),
-  weight: weight('rigging.slings.weight').optional(),
-  legs: z.array(SlingLeg).min(1, { error: 'rigging.slings.legs must list 1 or 2 legs' }).max(2, {
-    error: 'rigging.slings.legs must list 1 or 2 legs (for more legs enter the two that carry the load)',
-  }),
-});
-
-export const Hardware = z.object({
-  name,
-  wll: positiveWeight('rigging.hardware[].wll'),
-  weight: weight('rigging.hardware[].weight').optional(),
-  carries: z
-    .enum(['total', 'leg'], { error: "rigging.hardware[].carries must be 'total' or 'leg'" })
-    .optional(),
-});
-
-export const Rigging = z.object({
-  items: z.array(z.object({ name, weight: weight('rigging.items[].weight') })).optional(),
-  slings: SlingSet.optional(),
-  hardware: z.array(Hardware).optional(),
-  height: length('rigging.height').optional(),
-});
 
 export const Load = z.object({
   description: name,
@@ -434,9 +303,6 @@ export const Stated = z.object({
 
 const HookBlock = (label: string) =>
   z.object({ weight: weight(`${label}.weight`), height: length(`${label}.height`).optional() });
-
-const PlanPoint = (label: string) =>
-  z.object({ x: signedLength(`${label}.x`), y: signedLength(`${label}.y`) });
 
 /**
  * A crane of a lift with several cranes, other than the one entered at the top of the input (the

@@ -1,6 +1,7 @@
 // Check 1 — gross load: everything the crane lifts counts against the chart (PRODUCT.md §1).
 // Load + rigging items + slings + hardware + hook block + load-line allowance + chart deductions
-// the contractor lists. ASME B30.5 counts block, hook and rigging as part of the load.
+// the contractor lists (a spreader or lifting beam and its drops count as rigging items). ASME
+// B30.5 counts block, hook and rigging as part of the load.
 import type { LiftInput } from '../../schemas/lift-input';
 import { check, f, item, term, type Ctx } from '../context';
 import { si, siOr } from '../units';
@@ -23,6 +24,8 @@ export function grossLoadParts(input: LiftInput): GrossParts {
   let riggingItems = 0;
   const r = input.rigging;
   if (r?.items) for (const it of r.items) riggingItems += si(it.weight)!;
+  // a spreader or lifting beam and the drops under it hang from the hook too
+  if (r?.beam) riggingItems += si(r.beam.weight)! + siOr(r.beam.slingsBelow?.weight, 0);
   const slings = siOr(r?.slings?.weight, 0);
   let hardware = 0;
   if (r?.hardware) for (const h of r.hardware) hardware += siOr(h.weight, 0);

@@ -24,6 +24,7 @@ import { SOURCES } from '../sources';
 import { si, TO_SI } from '../units';
 import type { CheckItem, CheckResult, Fix, LiftFigures, Source } from '../types';
 import { formatQuantity } from '../format';
+import { trackMatFix } from './track-mat-fix';
 
 /** IBC Table 1806.2 (2012) presumptive load-bearing values, psf; null: none (geotechnical value). */
 export const IBC_1806_2_PSF: Readonly<Record<SoilClass, number | null>> = {
@@ -276,7 +277,7 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
   }
 }
 
-function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigures) {
+function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigures, fixes?: Fix[]) {
   const tr = ctx.input.crane.tracks!;
   const L = si(tr.length)!;
   const w = si(tr.shoeWidth)!;
@@ -372,6 +373,11 @@ function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: LiftFigure
     }),
   );
   items.push(trackContactItem(ctx, L, worst));
+  const fx =
+    !tipping && al.value !== null && exceeds(worst.p, al.value)
+      ? trackMatFix(ctx, trackP, w, worst.contact, al.value)
+      : null;
+  if (fx && fixes) fixes.push(fx);
 }
 
 function trackContactItem(
@@ -431,7 +437,7 @@ export function groundBearingCheck(ctx: Ctx, figures: LiftFigures, fixes?: Fix[]
   const m = planModel(ctx, ctx.geometry.radius);
   if (!m) return na(ctx, 'Enter the crane weights and the outrigger spread or track geometry.');
   if (m.kind === 'outriggers') outriggers(ctx, m, figures, items, fixes);
-  else crawler(ctx, m, items, figures);
+  else crawler(ctx, m, items, figures, fixes);
   if (items.length === 1 && m.kind === 'outriggers')
     items.push(
       item(ctx, {

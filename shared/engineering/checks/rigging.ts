@@ -9,13 +9,18 @@
 // with vertical legs (rigging handbooks); the angle is already in the tension. A choker with a
 // stated angle of choke below 120° is rated lower again by the ASME B30.9 choke-angle table (read in
 // sling makers' reproductions of it). Each leg's vertical share at its pick point is reported
-// (T · sin θ; the shares add up to the weight below the hook's rigging).
+// (T · sin θ; the shares add up to the weight below the hook's rigging). Three- and four-leg
+// bridles with the centre of gravity off centre: bridle.ts.
 import { atLeast, exceeds, fallsShort } from '../compare';
 import type { LiftInput } from '../../schemas/lift-input';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
 import { SOURCES } from '../sources';
 import { DEG, si } from '../units';
-import type { CheckItem, CheckResult, LiftFigures, Source } from '../types';
+import type { CheckItem, CheckResult, FormulaPart, LiftFigures, Source } from '../types';
+import { bridleLegs } from './bridle';
+import { solveShares } from '../multi-crane';
+
+type SlingSetT = NonNullable<NonNullable<LiftInput['rigging']>['slings']>;
 
 export const angleFactor = (deg: number): number => 1 / Math.sin(deg * DEG);
 
@@ -65,14 +70,65 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
   const { policy } = ctx;
   const items: CheckItem[] = [];
   let maxLeg = 0;
-  if (r?.slings) {
-    const sl = r.slings;
-    let W = si(ctx.input.load.weight)!;
-    if (r.items) for (const it of r.items) W += si(it.weight)!;
-    const angles = sl.legs.map(legAngleDeg);
+  let W0 = si(ctx.input.load.weight)!;
+  if (r?.items) for (const it of r.items) W0 += si(it.weight)!;
+  const beam = r?.beam;
+  /** Every leg of one set of slings carrying W; `below`: the drops under a beam. */
+  const slingSet = (sl: SlingSetT, W: number, below: boolean) => {
+    const idp = below ? 'rigging.below.' : 'rigging.';
+    const where = below ? 'below the beam, ' : '';
+    let angles =
+      sl.legs.length >= 3 ? [] : sl.legs.map((l) => (below && !l.angle && !l.length ? 90 : legAngleDeg(l)));
     let tensions: number[];
     let formulaBase;
-    if (angles.length === 2) {
+    let verticals: { V: number[]; formula: (i: number) => FormulaPart[]; source: Source } | null = null;
+    let bridleFail: string | null = null;
+    if (below && sl.legs.length === 2) {
+      // drops from the beam: the centre of gravity between the two pick points shares the load
+      const picks = sl.legs.map((l) => [si(l.pickPoint!.x)!, si(l.pickPoint!.y)!] as const);
+      const V = solveShares(W, picks, [0, 0]);
+      if (!V || V.some((v) => v < -1e-9 * W)) {
+        bridleFail = 'the centre of gravity is not between the two drops';
+        tensions = [];
+      } else {
+        const Vp = V.map((v) => Math.max(0, v));
+        tensions = Vp.map((v, i) => v / Math.sin(angles[i] * DEG));
+        verticals = {
+          V: Vp,
+          formula: (i) =>
+            f`two drops: V = W ${term(W, 'weight')} × distance of the other drop from the centre of gravity ÷ drop spacing = ${term(Vp[i], 'weight')}`,
+          source: SOURCES.bridleStatics,
+        };
+      }
+      formulaBase = (i: number) =>
+        f`T = V ${term(verticals?.V[i] ?? 0, 'weight')} ÷ sin(${term(angles[i], 'angle')}) = ${term(tensions[i], 'weight')}`;
+    } else if (sl.legs.length >= 3) {
+      const h = si(sl.hookHeight!)!;
+      const picks = sl.legs.map((l) => [si(l.pickPoint!.x)!, si(l.pickPoint!.y)!] as const);
+      const b = bridleLegs(W, picks, h, sl.equalised === true);
+      angles = b.angleDeg;
+      tensions = b.tension;
+      bridleFail = b.reason;
+      const L = picks.map(([x, y]) => Math.sqrt(x * x + y * y + h * h));
+      const how =
+        b.method === 'three'
+          ? 'three legs: ΣV = W and the moments about the centre of gravity balance'
+          : b.method === 'equalised'
+            ? 'four legs with an equalising arrangement: balanced shares as even as statics allows'
+            : 'four legs rated on two: the larger share of the leg when its diagonal pair carries the load alone';
+      verticals = {
+        V: b.vertical,
+        formula: (i) => f`${how}: V = ${term(b.vertical[i] ?? 0, 'weight')} of W ${term(W, 'weight')}`,
+        source:
+          b.method === 'three'
+            ? SOURCES.bridleStatics
+            : b.method === 'equalised'
+              ? SOURCES.bridleEqualised
+              : SOURCES.bridleTwoLegs,
+      };
+      formulaBase = (i: number) =>
+        f`T = V ${term(b.vertical[i], 'weight')} × leg length ${term(L[i], 'length')} ÷ hook height ${term(h, 'length')} = ${term(tensions[i], 'weight')}`;
+    } else if (angles.length === 2) {
       tensions = twoLegTensions(W, angles[0], angles[1]);
       formulaBase = (i: number) =>
         f`T = W ${term(W, 'weight')} × cos(${term(angles[1 - i], 'angle')}) ÷ sin(${term(angles[0], 'angle')} + ${term(
@@ -100,15 +156,29 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
               text: `${base.source.text}; ${SOURCES.chokeAngle.text}`,
             } as Source,
           };
+    if (bridleFail !== null) {
+      tensions = [];
+      items.push(
+        item(ctx, {
+          id: `${idp}bridle`,
+          label: `${sl.legs.length}-leg bridle shares`,
+          status: 'fail',
+          value: null,
+          unit: 'weight',
+          source: SOURCES.bridleStatics,
+          message: `No leg loads: ${bridleFail}.`,
+        }),
+      );
+    }
     const wll = si(sl.ratedLoadVertical)!;
     const cap = wll * hf.factor;
     for (let i = 0; i < tensions.length; i++) {
       const T = tensions[i];
       if (T > maxLeg) maxLeg = T;
-      const legName = sl.legs[i].name ?? `leg ${i + 1}`;
+      const legName = where + (sl.legs[i].name ?? `leg ${i + 1}`);
       items.push(
         item(ctx, {
-          id: `rigging.leg-${i + 1}`,
+          id: `${idp}leg-${i + 1}`,
           label: `Sling ${legName} tension`,
           status: statusMax(T, cap, policy),
           value: T,
@@ -133,24 +203,26 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
         }),
       );
       const ang = angles[i];
-      const V = T * Math.sin(ang * DEG);
+      const V = verticals ? verticals.V[i] : T * Math.sin(ang * DEG);
       items.push(
         item(ctx, {
-          id: `rigging.vertical-${i + 1}`,
+          id: `${idp}vertical-${i + 1}`,
           label: `Vertical share at the pick point of ${legName}`,
           status: 'pass',
           value: V,
           limit: null,
           limitType: null,
           unit: 'weight',
-          formula: f`V = T ${term(T, 'weight')} × sin(${term(ang, 'angle')}) = ${term(V, 'weight')}`,
-          source: SOURCES.verticalShare,
+          formula: verticals
+            ? verticals.formula(i)
+            : f`V = T ${term(T, 'weight')} × sin(${term(ang, 'angle')}) = ${term(V, 'weight')}`,
+          source: verticals ? verticals.source : SOURCES.verticalShare,
           message: `The pick point of ${legName} carries this much of the weight vertically.`,
         }),
       );
       items.push(
         item(ctx, {
-          id: `rigging.angle-${i + 1}`,
+          id: `${idp}angle-${i + 1}`,
           label: `Sling ${legName} angle from horizontal`,
           status: fallsShort(ang, policy.minSlingAngleDeg) ? 'fail' : 'pass',
           value: ang,
@@ -170,7 +242,32 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
         }),
       );
     }
-  }
+  };
+  if (beam) {
+    const below = si(beam.slingsBelow?.weight) ?? 0;
+    if (beam.slingsBelow) slingSet(beam.slingsBelow, W0, true);
+    const hanging = W0 + below;
+    const rated = si(beam.ratedLoad)!;
+    const name = beam.name ?? (beam.kind === 'spreader' ? 'Spreader beam' : 'Lifting beam');
+    items.push(
+      item(ctx, {
+        id: 'rigging.beam',
+        label: `${name} rated load`,
+        status: statusMax(hanging, rated, policy),
+        value: hanging,
+        limit: rated,
+        limitType: 'max',
+        unit: 'weight',
+        formula: f`load and rigging items ${term(W0, 'weight')} + drops ${term(below, 'weight')} = ${term(hanging, 'weight')} against the beam's rated load ${term(rated, 'weight')}`,
+        source: { kind: 'input', text: 'rated load as marked on the beam (entered)' },
+        message: exceeds(hanging, rated)
+          ? `${name} carries more than its rated load.`
+          : `${name} against its rated load.`,
+      }),
+    );
+    // the slings above carry the beam and everything under it
+    if (r?.slings) slingSet(r.slings, hanging + si(beam.weight)!, false);
+  } else if (r?.slings) slingSet(r.slings, W0, false);
   if (r?.hardware) {
     r.hardware.forEach((h, i) => {
       const wll = si(h.wll)!;

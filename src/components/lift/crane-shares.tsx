@@ -3,14 +3,8 @@
 // rigging, its chart capacity and its worst check. Read alike by the live check and the package page.
 import { formatQuantity } from '@shared/engineering/format';
 import type { LiftResult, UnitSystem } from '@shared/engineering/types';
+import { SHARE_METHOD_WORDS } from '@shared/vocabulary/multi-crane';
 import { CheckStatusMark } from '@/components/ui/check-status-mark';
-
-const METHOD: Record<NonNullable<LiftResult['multiCrane']>['method'], string> = {
-  two: 'Shares from statics: the centre of gravity between the two picks.',
-  three: 'Shares from statics: the plan position of the centre of gravity within the three picks.',
-  stated: 'Shares as stated in the plan, checked against force and moment balance.',
-  none: 'The shares could not be found: see the multi-crane check.',
-};
 
 export function CraneShares({
   result,
@@ -30,7 +24,7 @@ export function CraneShares({
       <h3 className="font-bold">
         {cranes.length} cranes · margin {multi.marginPct}% on each share
       </h3>
-      <p className="text-[12.5px] text-ink-soft">{METHOD[multi.method]}</p>
+      <p className="text-[12.5px] text-ink-soft">{SHARE_METHOD_WORDS[multi.method]}</p>
       <table className="mt-1 w-full border-collapse tabular">
         <thead>
           <tr className="border-b border-rule text-left text-ink-soft">

@@ -21,6 +21,7 @@ export function buildSheet(doc: PDFDocument, fonts: Fonts, input: StampInput): P
     );
   let n = 0;
   for (const section of SHEET_SECTIONS) {
+    if (section.applies && !section.applies(input)) continue;
     n += 1;
     if (section.needsResult && !result) continue;
     flow.heading(`${n}  ${section.title}`, section.keep);

@@ -1,10 +1,12 @@
 // Sections 4 to 6 of the calculation sheet and its closing note: why the lift is critical, the
-// fixes the check suggests, and the crane's side view to scale.
+// fixes the check suggests, and the side view of each crane to scale.
 import type { LiftResult } from '@shared/engineering/types';
+import { craneSideViews } from '@shared/drawing/side-view';
 import { SHORT_CAUTION } from '@shared/vocabulary/cautions';
 import { drawSideView, SIDE_VIEW_HEIGHT, sideViewUnavailableReason } from '../draw-side-view';
 import type { StampInput } from '../stamp-input';
 import { INK_SOFT, RULE } from '../text-pdf';
+import { currentInputs } from './cranes-section';
 import { LEFT, RIGHT, WIDTH, type Flow } from './layout';
 
 export { SIDE_VIEW_HEIGHT };
@@ -24,21 +26,34 @@ export function fixesSection(flow: Flow, result: LiftResult | null) {
   else for (const f of result.fixes) flow.para(`• ${f.text}`);
 }
 
+/** One side view per crane (shared/drawing/side-view.ts craneSideViews); one crane draws untitled. */
 export function sideViewSection(flow: Flow, input: StampInput) {
   const { result, units, inputs } = input.calculation;
-  const reason = result ? sideViewUnavailableReason(inputs, result) : 'No result to draw from.';
-  if (reason || !result) flow.para(reason ?? '');
-  else {
-    flow.need(SIDE_VIEW_HEIGHT + 4);
-    drawSideView(
-      flow.page,
-      flow.fonts,
-      { x: LEFT, y: flow.y - SIDE_VIEW_HEIGHT, width: WIDTH, height: SIDE_VIEW_HEIGHT },
-      inputs,
-      result,
-      units,
-    );
-    flow.y -= SIDE_VIEW_HEIGHT + 6;
+  if (!result) {
+    flow.para('No result to draw from.');
+    return;
+  }
+  const views = craneSideViews(result, currentInputs(inputs));
+  for (const view of views) {
+    const reason = sideViewUnavailableReason(view.inputs, view.result);
+    // the title stays on the page of its drawing
+    if (views.length > 1) {
+      if (!reason) flow.need(SIDE_VIEW_HEIGHT + 30);
+      flow.subheading(view.title);
+    }
+    if (reason) flow.para(reason);
+    else {
+      flow.need(SIDE_VIEW_HEIGHT + 4);
+      drawSideView(
+        flow.page,
+        flow.fonts,
+        { x: LEFT, y: flow.y - SIDE_VIEW_HEIGHT, width: WIDTH, height: SIDE_VIEW_HEIGHT },
+        view.inputs,
+        view.result,
+        units,
+      );
+      flow.y -= SIDE_VIEW_HEIGHT + 6;
+    }
   }
 }
 

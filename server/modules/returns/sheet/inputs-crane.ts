@@ -6,7 +6,8 @@ import { INK_SOFT } from '../text-pdf';
 import { pairs, table, WIDTH, type Flow } from './layout';
 import { add, arr, asEntered, obj, str, weightAt, weightSI, type Obj } from './read-inputs';
 
-export function craneInputs(flow: Flow, inputs: Obj) {
+/** `title` names the crane when it is one of several (the calculation sheet's crane shares section). */
+export function craneInputs(flow: Flow, inputs: Obj, _result?: LiftResult | null, title = 'Crane') {
   const crane = obj(inputs.crane) ?? {};
   const c: [string, string][] = [];
   add(c, 'Crane', str(crane.name));
@@ -65,18 +66,18 @@ export function craneInputs(flow: Flow, inputs: Obj) {
     add(c, 'Backstay rated load', asEntered(g.backstayRatedLoad));
     add(c, 'Leg rated compression', asEntered(g.legRatedCompression));
   }
-  flow.subheading('Crane');
+  flow.subheading(title);
   pairs(flow, c);
 }
 
-export function chartInputs(flow: Flow, inputs: Obj, result: LiftResult | null) {
+export function chartInputs(flow: Flow, inputs: Obj, result: LiftResult | null, title = 'Load chart') {
   const crane = obj(inputs.crane) ?? {};
   // Chart rows used: the configuration's rows, the one the check used marked.
   const chart = obj(inputs.chart) ?? {};
   const rows = arr(chart.rows)
     .map(obj)
     .filter((r): r is Obj => r !== null);
-  flow.subheading(`Load chart${str(chart.name) ? ` — ${str(chart.name)}` : ''}`);
+  flow.subheading(`${title}${str(chart.name) ? ` — ${str(chart.name)}` : ''}`);
   const used = result?.figures.chartCapacity ?? null;
   const bl = asEntered(crane.boomLength);
   let shown = rows.filter((r) => !bl || asEntered(r.boomLength) === bl);

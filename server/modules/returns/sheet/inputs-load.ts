@@ -36,12 +36,17 @@ export function riggingInputs(flow: Flow, inputs: Obj) {
       );
       add(r, 'Sling rating (vertical, per leg)', asEntered(s.ratedLoadVertical));
       add(r, 'Sling weight', asEntered(s.weight));
+      add(r, 'Hook height above the picks', asEntered(s.hookHeight));
+      if (arr(s.legs).length === 4)
+        add(r, 'Four legs', s.equalised === true ? 'equalising arrangement stated' : 'rated on two legs');
       arr(s.legs).forEach((leg, i) => {
         const lg = obj(leg) ?? {};
         const bits = [
           asEntered(lg.angle) && `${asEntered(lg.angle)} from horizontal`,
           asEntered(lg.length) && `length ${asEntered(lg.length)}`,
           asEntered(lg.horizontalDistance) && `${asEntered(lg.horizontalDistance)} from the hook`,
+          asEntered(obj(lg.pickPoint)?.x) &&
+            `pick point x ${asEntered(obj(lg.pickPoint)?.x)}, y ${asEntered(obj(lg.pickPoint)?.y)} from the centre of gravity`,
         ].filter(Boolean);
         add(r, `Leg ${i + 1}${str(lg.name) ? ` (${str(lg.name)})` : ''}`, bits.join(', ') || '—');
       });
@@ -53,6 +58,35 @@ export function riggingInputs(flow: Flow, inputs: Obj) {
         str(hw.name) ?? 'Hardware',
         `WLL ${asEntered(hw.wll) ?? '—'}${asEntered(hw.weight) ? `, weighs ${asEntered(hw.weight)}` : ''}${hw.carries === 'leg' ? ', one per leg' : ''}`,
       );
+    }
+    const beam = obj(rig.beam);
+    if (beam) {
+      add(
+        r,
+        str(beam.name) ?? (beam.kind === 'lifting' ? 'Lifting beam' : 'Spreader beam'),
+        `weighs ${asEntered(beam.weight) ?? '—'}, rated load ${asEntered(beam.ratedLoad) ?? '—'} (slings above it: the slings listed)`,
+      );
+      const d = obj(beam.slingsBelow);
+      if (d) {
+        add(
+          r,
+          'Drops below the beam',
+          `${String(d.material ?? '')}, ${String(d.hitch ?? '')} hitch, rated ${asEntered(d.ratedLoadVertical) ?? '—'} per leg${asEntered(d.weight) ? `, weigh ${asEntered(d.weight)}` : ''}`,
+        );
+        arr(d.legs).forEach((leg, i) => {
+          const p = obj(obj(leg)?.pickPoint);
+          add(
+            r,
+            `Drop ${i + 1}`,
+            [
+              asEntered(obj(leg)?.angle) && `${asEntered(obj(leg)?.angle)} from horizontal`,
+              p && `pick point x ${asEntered(p.x)}, y ${asEntered(p.y)} from the centre of gravity`,
+            ]
+              .filter(Boolean)
+              .join(', ') || 'vertical',
+          );
+        });
+      }
     }
     add(r, 'Rigging height', asEntered(rig.height));
     if (r.length) {

@@ -4,14 +4,8 @@ import type { LiftResult } from '@shared/engineering/types';
 import { INK_SOFT } from '../text-pdf';
 import { chartInputs, craneInputs } from './inputs-crane';
 import { loadInputs, riggingInputs } from './inputs-load';
-import {
-  environmentInputs,
-  groundInputs,
-  personnelInputs,
-  reevingInputs,
-  siteInputs,
-  tandemInputs,
-} from './inputs-site';
+import { environmentInputs, groundInputs, personnelInputs, reevingInputs, siteInputs } from './inputs-site';
+import { severalCranesInputs } from './cranes-section';
 import type { Flow } from './layout';
 import type { Obj } from './read-inputs';
 
@@ -25,7 +19,7 @@ const INPUT_GROUPS: InputGroup[] = [
   reevingInputs,
   groundInputs,
   environmentInputs,
-  tandemInputs,
+  severalCranesInputs,
   personnelInputs,
   siteInputs,
 ];

@@ -1,4 +1,4 @@
-// Reeving, ground, environment, tandem and personnel lifts, the site's critical-lift conditions
+// Reeving, ground, environment and personnel lifts, the site's critical-lift conditions
 // and the figures the contractor stated, as entered.
 import { STATED_FIGURE_LABELS } from '@shared/vocabulary/stated-figures';
 import { pairs, type Flow } from './layout';
@@ -59,25 +59,6 @@ export function environmentInputs(flow: Flow, inputs: Obj) {
     }
     flow.subheading('Environment');
     pairs(flow, r.length ? r : [['Environment', 'nothing entered']]);
-  }
-}
-
-export function tandemInputs(flow: Flow, inputs: Obj) {
-  const tandem = obj(inputs.tandem);
-  if (tandem) {
-    const r: [string, string][] = [];
-    arr(tandem.cranes).forEach((cr, i) => {
-      const t = obj(cr) ?? {};
-      const bits = [
-        asEntered(t.chartCapacity) && `chart ${asEntered(t.chartCapacity)}`,
-        asEntered(t.pickPointDistance) && `pick point ${asEntered(t.pickPointDistance)}`,
-        asEntered(t.share) && `share ${asEntered(t.share)}`,
-        asEntered(t.ownHookWeight) && `own hook ${asEntered(t.ownHookWeight)}`,
-      ].filter(Boolean);
-      add(r, str(t.name) ?? `Crane ${i + 1}`, bits.join(', '));
-    });
-    flow.subheading('Tandem lift');
-    pairs(flow, r);
   }
 }
 

@@ -4,6 +4,7 @@
 import { INK_SOFT } from '../text-pdf';
 import type { StampInput } from '../stamp-input';
 import { checksSection } from './checks-section';
+import { cranesSection } from './cranes-section';
 import { criticalSection, fixesSection, SIDE_VIEW_HEIGHT, sideViewSection } from './closing-sections';
 import { discrepanciesSection, findingsSection } from './discrepancies-section';
 import { inputsSection } from './inputs-section';
@@ -15,6 +16,8 @@ export interface SheetSection {
   keep?: number;
   /** Left out altogether when the revision has no stored result. */
   needsResult?: boolean;
+  /** Left out, and not numbered, when this says the lift has nothing for it (default: always shown). */
+  applies?: (input: StampInput) => boolean;
   draw: (flow: Flow, input: StampInput) => void;
 }
 
@@ -33,6 +36,15 @@ export const SHEET_SECTIONS: SheetSection[] = [
         { size: 7.5, color: INK_SOFT, gap: 2 },
       );
       if (c.result) checksSection(flow, c.result, c.units);
+    },
+  },
+  {
+    title: 'Shares of the cranes',
+    keep: 80,
+    needsResult: true,
+    applies: ({ calculation: c }) => !!c.result?.cranes,
+    draw: (flow, { calculation: c }) => {
+      if (c.result) cranesSection(flow, c.result, c.units);
     },
   },
   {

@@ -1,6 +1,7 @@
 // The recomputed lift beside the pages: the stated figures that disagree first, each with
 // "Accept the stated figure" (a reason is required) or "Raise a finding"; then every check,
-// worst first, compact enough for a side column, with its formula and source on demand.
+// worst first, compact enough for a side column, with its formula and source on demand. A lift with
+// several cranes shows each crane's share, gross load and worst check above the checks.
 import { useState } from 'react';
 import { formatFormula, formatPercent, formatQuantity } from '@shared/engineering/format';
 import type { CheckResult, Discrepancy, LiftResult, UnitSystem } from '@shared/engineering/types';
@@ -8,6 +9,7 @@ import { CheckStatusMark } from '@/components/ui/check-status-mark';
 import { Button } from '@/components/ui/button';
 import { formatCheckLimit, formatCheckValue, SOURCE_KIND_LABELS } from '@/components/lift/result-format';
 import { sortChecks, sortDiscrepancies } from '@/components/lift/result-order';
+import { CraneShares } from '@/components/lift/crane-shares';
 import { isApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format';
 import { useAcceptFigure } from '../api/accept-figure';
@@ -348,6 +350,11 @@ export function CheckPanel({
           </ul>
         )}
       </section>
+      {result.cranes && (
+        <div className="border-b border-rule px-3 py-2">
+          <CraneShares result={result} system={system} compact />
+        </div>
+      )}
       <section aria-labelledby="ws-checks">
         <h3
           id="ws-checks"

@@ -11,25 +11,7 @@ import { CraneSideView } from '@/components/lift/crane-side-view';
 import { countByStatus } from '@/components/lift/result-order';
 import { CraneShares } from '@/components/lift/crane-shares';
 import { TO_SI, type AnyUnit } from '@shared/engineering/units';
-
-/** One side view per crane: crane 1 from the top of the input, the others from multiCrane.others. */
-function sideViews(
-  result: LiftResult,
-  inputs: Record<string, unknown>,
-): { key: string; title: string; inputs: Record<string, unknown>; result: LiftResult }[] {
-  if (!result.cranes) return [{ key: 'one', title: 'Side view and moment arms', inputs, result }];
-  const others = ((inputs.multiCrane as { others?: { crane?: unknown }[] } | undefined)?.others ?? []) as {
-    crane?: unknown;
-  }[];
-  return result.cranes.map((crane, k) => ({
-    key: `crane-${crane.index}`,
-    title: `Side view of crane ${crane.index} (${crane.name}) for its share`,
-    inputs: k === 0 ? inputs : { crane: others[k - 1]?.crane, load: inputs.load },
-    result: crane.figures
-      ? { ...result, figures: crane.figures }
-      : { ...result, figures: { ...result.figures, tipping: null } },
-  }));
-}
+import { craneSideViews } from '@shared/drawing/side-view';
 
 function boomLengthSi(inputs: Record<string, unknown>): number | null {
   const q = (inputs.crane as { boomLength?: { value?: number; unit?: string } } | undefined)?.boomLength;
@@ -93,7 +75,7 @@ export function PackageResults({
           </h3>
           <CapacityPlot rows={rows} boomLength={boomLengthSi(inputs)} result={result} system={system} />
         </section>
-        {sideViews(result, inputs).map((view) => (
+        {craneSideViews(result, inputs).map((view) => (
           <section
             key={view.key}
             aria-labelledby={`plot-side-${view.key}`}
