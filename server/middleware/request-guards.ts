@@ -9,8 +9,15 @@ import { SESSION_COOKIE } from '../modules/auth/passport';
 export const CSRF_HEADER = 'x-csrf-guard';
 export const JSON_MAX_DEPTH = 32;
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
-/** Routes that take a file upload; every other route with a body takes JSON only. */
-const MULTIPART_ROUTES = [/^\/api\/packages\/[^/]+\/files\/?$/];
+/**
+ * Routes that take a file upload (method and path); every other route with a body takes JSON
+ * only, including the library's other routes.
+ */
+const MULTIPART_ROUTES: ReadonlyArray<{ method: string; path: RegExp }> = [
+  { method: 'POST', path: /^\/api\/packages\/[^/]+\/files\/?$/ },
+  { method: 'POST', path: /^\/api\/library\/chart-import\/file\/?$/ },
+  { method: 'POST', path: /^\/api\/library\/versions\/[^/]+\/document\/?$/ },
+];
 const FORBIDDEN_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
 
 /**
@@ -58,7 +65,8 @@ function hasBody(req: Request) {
 /** 415 for a body whose type the route does not take (JSON routes JSON, uploads multipart). */
 export const contentTypeGuard: RequestHandler = (req, _res, next) => {
   if (SAFE_METHODS.has(req.method) || !hasBody(req)) return next();
-  const multipart = MULTIPART_ROUTES.some((r) => r.test(req.originalUrl.split('?')[0]));
+  const path = req.originalUrl.split('?')[0];
+  const multipart = MULTIPART_ROUTES.some((r) => r.method === req.method && r.path.test(path));
   const wanted = multipart ? 'multipart/form-data' : 'application/json';
   if (!req.is(wanted)) {
     const sent = req.get('content-type') ?? 'no content type';

@@ -147,4 +147,35 @@ describe('cross-site request guard', () => {
     );
     expect(files).toHaveLength(0);
   });
+
+  it('when the library takes uploads on two routes, then only those take multipart and its JSON routes still 415 a form', async () => {
+    const { w } = await world();
+    const agent = await signedIn(t.app, w.plannerA.email);
+    const cranes = async () =>
+      (
+        await t.ctx.dataSource.query(
+          `SELECT count(*)::int AS n FROM library_cranes WHERE organisation_id = $1`,
+          [w.plannerA.organisationId],
+        )
+      )[0].n as number;
+    const multipartToJson = await agent
+      .post('/api/library/cranes')
+      .field('fleetNumber', 'F-1')
+      .attach('file', Buffer.from('x'), { filename: 'x.csv' });
+    expect(multipartToJson.status).toBe(415);
+    expect(multipartToJson.body.error.message).toMatch(/application\/json/);
+    const textImport = await agent
+      .post('/api/library/chart-import/text')
+      .attach('file', Buffer.from('x'), { filename: 'x.csv' });
+    expect(textImport.status).toBe(415);
+    expect(await cranes()).toBe(0);
+    for (const url of [
+      '/api/library/chart-import/file',
+      '/api/library/versions/00000000-0000-4000-8000-000000000000/document',
+    ]) {
+      const json = await agent.post(url).send({ file: 'x' });
+      expect({ url, status: json.status }).toEqual({ url, status: 415 });
+      expect(json.body.error.message).toMatch(/multipart\/form-data/);
+    }
+  });
 });
