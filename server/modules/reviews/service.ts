@@ -18,6 +18,7 @@ import { findScopedPackage, scopedPackages } from '../packages/package-scope';
 import { requireState } from '../packages/state-guard';
 import { User } from '../users/user.entity';
 import { Assignment, DecisionRecord } from './review.entity';
+import { carryLibraryUses } from '../library/service';
 import { currentSubmittedRevision, requireAssignedEngineer } from './review-scope';
 
 // ---- assignment -------------------------------------------------------------------------
@@ -192,9 +193,10 @@ export async function startNextRevision(ds: DataSource, user: Actor, packageId: 
       .getRepository(Revision)
       .findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
     const number = pkg.currentRevision + 1;
-    await m
+    const next = await m
       .getRepository(Revision)
       .save({ packageId: pkg.id, number, state: 'draft', inputs: previous.inputs });
+    await carryLibraryUses(m, previous.id, next.id);
     await m.getRepository(LiftPackage).update(pkg.id, {
       currentRevision: number,
       status: 'draft',
