@@ -219,7 +219,8 @@ function call(agent: supertest.Agent | supertest.SuperTest<supertest.Test>, meth
     [method](url)
     .set('X-CSRF-Guard', '1');
   if (method === 'get' || method === 'delete') return req;
-  if (/\/files$/.test(url)) return req.field('kind', 'lift_plan');
+  // The multipart routes (package files, the library's chart file and manufacturer's document).
+  if (/\/(files|document|chart-import\/file)$/.test(url)) return req.field('kind', 'lift_plan');
   return req.send({});
 }
 

@@ -5,7 +5,7 @@
 // annotations (pdftoppm).
 import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { PDFDocument, PDFName, PDFString, StandardFonts } from 'pdf-lib';
@@ -112,9 +112,7 @@ function render(file: string, hide: boolean): string {
     file,
     prefix,
   ]);
-  const out = execFileSync('ls', [dir], { encoding: 'utf8' })
-    .split('\n')
-    .find((f) => f.startsWith(path.basename(prefix)));
+  const out = readdirSync(dir).find((f) => f.startsWith(path.basename(prefix)));
   return createHash('sha256')
     .update(readFileSync(path.join(dir, out!)))
     .digest('hex');
