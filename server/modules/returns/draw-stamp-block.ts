@@ -8,6 +8,7 @@ import { concatTransformationMatrix, popGraphicsState, pushGraphicsState, type P
 import QRCode from 'qrcode';
 import { DECISION_LABELS } from '@shared/schemas/common';
 import type { PageFrame } from './page-frame-pdf';
+import type { StampInput } from './stamp-input';
 import {
   drawStatusShape,
   fitText,
@@ -38,20 +39,8 @@ export const DECISION_SHAPES: Record<DecisionKey, StatusKey> = {
   rejected: 'fail',
 };
 
-export interface StampBlockData {
-  decision: DecisionKey;
-  reference: string;
-  title: string;
-  revision: number;
-  engineer: string;
-  reviewer: string;
-  decidedAt: string;
-  issuedAt: string;
-  timeZone: string;
-  conditions: string;
-  verificationCode: string;
-  verificationUrl: string;
-}
+/** What the stamp block prints: the return's stamp data but the site and contractor. */
+export type StampBlockData = Omit<StampInput['stamp'], 'site' | 'contractor'>;
 
 /** The QR code of `text` as one SVG path of module-high runs, in module units (y down). */
 export function qrPath(text: string): { path: string; size: number } {
