@@ -49,6 +49,9 @@ function useWidth(ref: React.RefObject<HTMLElement | null>): number {
   return width;
 }
 
+/** How long after a jump the view's own scroll events leave the page count alone. */
+const JUMP_SETTLE_MS = 400;
+
 export function scaleFor(zoom: Zoom, containerWidth: number, pageWidth: number): number {
   if (zoom !== 'fit') return zoom;
   if (containerWidth <= 0 || pageWidth <= 0) return 1;
@@ -81,6 +84,7 @@ export function PdfPages({
   const pages = usePages(doc);
   const scroller = useRef<HTMLDivElement>(null);
   const pageEls = useRef(new Map<number, HTMLDivElement>());
+  const jumpedAt = useRef(0);
   const width = useWidth(scroller);
   const first = pages[0] ?? null;
   const baseWidth = useMemo(() => first?.getViewport({ scale: 1 }).width ?? 0, [first]);
@@ -103,6 +107,7 @@ export function PdfPages({
       const anchor = markupAnchor(viewport, markup.kind, markup.geometry);
       offset = Math.max(0, anchor.y - box.clientHeight / 3);
     }
+    jumpedAt.current = performance.now();
     box.scrollTo?.({ top: el.offsetTop - PAGE_GAP + offset, behavior: 'auto' });
     // Only a new jump (or the first page's size arriving) moves the view; a zoom change
     // keeps the reader's place.
@@ -119,6 +124,9 @@ export function PdfPages({
   function onScroll() {
     const box = scroller.current;
     if (!box) return;
+    // The scroll a jump itself causes (and the page layout settling right after it) does not
+    // move the page count away from the page the jump asked for.
+    if (performance.now() - jumpedAt.current < JUMP_SETTLE_MS) return;
     const line = box.scrollTop + box.clientHeight / 3;
     let seen = 1;
     for (const [n, el] of pageEls.current) if (el.offsetTop <= line && n > seen) seen = n;
