@@ -345,7 +345,7 @@ export const STEPS: Step[] = [
       },
     ],
   },
-  // Fields in src/lib/multi-crane-steps.ts (the editor's MultiCraneEditor).
+  // Fields in shared/catalogue/multi-crane-steps.ts (the editor's MultiCraneEditor).
   { id: 'cranes', title: 'Several cranes', groups: [] },
   {
     id: 'stated',

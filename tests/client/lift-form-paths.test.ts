@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { LiftInput } from '@shared/schemas/lift-input';
 import { STEPS, type FieldDef } from '@shared/catalogue/lift-fields';
-import { multiCraneCatalogue } from '@/lib/multi-crane-steps';
+import { multiCraneCatalogue } from '@shared/catalogue/multi-crane-steps';
 
 /** Unwraps optional, nullable, default and pipe layers down to the schema that holds the shape. */
 function core(schema: z.ZodType): z.ZodType {

@@ -8,7 +8,7 @@ import passOutriggers from '@shared/engineering/examples/pass-outriggers.json';
 import twoCranes from '@shared/engineering/examples/caution-two-cranes.json';
 import { evaluateLift } from '@shared/engineering/evaluate';
 import { LiftInput } from '@shared/schemas/lift-input';
-import { labelOfAnyPath } from '@/lib/multi-crane-steps';
+import { labelOfAnyPath } from '@shared/catalogue/multi-crane-steps';
 import { makeUser, renderApp, stubFetch } from './support';
 import { makeDetail } from './package-fixtures';
 

@@ -9,7 +9,7 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { isApiError } from '@/lib/api-client';
 import { useCompare } from '../api/get-compare';
 import { FindingEntry } from '@/components/findings/finding-entry';
-import { labelOfAnyPath as labelOfPath } from '@/lib/multi-crane-steps';
+import { labelOfAnyPath as labelOfPath } from '@shared/catalogue/multi-crane-steps';
 
 const STATUSES = ['pass', 'caution', 'fail', 'not_applicable'];
 

@@ -13,7 +13,7 @@ import { FixList, ResultCautions } from '@/components/lift/fixes-and-triggers';
 import { withoutLabel } from '@/components/lift/discrepancy-list';
 import { CraneShares } from '@/components/lift/crane-shares';
 import { prune } from '../../lib/prune';
-import { labelOfAnyPath } from '@/lib/multi-crane-steps';
+import { labelOfAnyPath } from '@shared/catalogue/multi-crane-steps';
 
 type Outcome =
   | { ok: true; result: LiftResult }

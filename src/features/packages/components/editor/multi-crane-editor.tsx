@@ -4,7 +4,7 @@
 import { useFieldArray, useWatch } from 'react-hook-form';
 import type { UnitSystem } from '@shared/schemas/common';
 import type { FieldGroup } from '@shared/catalogue/lift-fields';
-import { MAX_OTHER_CRANES, MULTI_CRANE_GROUPS, otherCraneGroups } from '@/lib/multi-crane-steps';
+import { MAX_OTHER_CRANES, MULTI_CRANE_GROUPS, otherCraneGroups } from '@shared/catalogue/multi-crane-steps';
 import { Button } from '@/components/ui/button';
 import { useLiftFormContext } from '../../hooks/use-lift-form';
 import { ChartRowsEditor } from './chart-rows-editor';

@@ -3,7 +3,7 @@
 // catalogue (configuration, reeving, ground, block and rigging) under `multiCrane.others.N.`, plus
 // its pick point and, where statics cannot fix it, its stated share. Kept apart from lift-steps so
 // the single-crane catalogue stays as it is.
-import { labelOfPath, STEPS, type FieldDef, type FieldGroup } from '@shared/catalogue/lift-fields';
+import { labelOfPath, STEPS, type FieldDef, type FieldGroup } from './lift-fields';
 
 export const MAX_OTHER_CRANES = 3;
 
