@@ -321,6 +321,10 @@ describe('the stamped return, verification and resubmission', () => {
     expect(list.body.items[0]).toMatchObject({ state: 'ready', progress: 100 });
     const file = await contractor.get(`/api/packages/${p.id}/returns/${ret.id}/file`).buffer(true);
     expect(file.status).toBe(200);
+    // Each revision's return downloads under its own name: reference, revision, decision.
+    expect(file.headers['content-disposition']).toMatch(
+      /^inline; filename="[A-Za-z0-9-]+-rev1-revise-and-resubmit-stamped-return\.pdf"$/,
+    );
     expect(createHash('sha256').update(file.body).digest('hex')).toBe(list.body.items[0].sha256);
     const firstPage = await pdftotext(file.body, 1);
     expect(firstPage).toMatch(/Revise and resubmit/i);

@@ -39,9 +39,9 @@ export function returnRoutes(ctx: AppContext): Router {
     validate({ params: ReturnParams }),
     async (req, res) => {
       const { id, returnId } = valid(req, 'params', ReturnParams);
-      const { ret, reference, bytes } = await readReturn(ds, ctx.storage, currentActor(req), id, returnId);
+      const { ret, fileName, bytes } = await readReturn(ds, ctx.storage, currentActor(req), id, returnId);
       res.setHeader('Content-Type', 'application/pdf');
-      res.setHeader('Content-Disposition', `inline; filename="${reference}-stamped-return.pdf"`);
+      res.setHeader('Content-Disposition', `inline; filename="${fileName}"`);
       res.setHeader('X-Content-SHA256', ret.sha256 ?? '');
       res.end(Buffer.from(bytes));
     },

@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { UnrecoverableError } from 'bullmq';
 import type { DataSource } from 'typeorm';
-import { DECISION_LABELS } from '@shared/schemas/common';
+import { DECISION_LABELS, type Decision } from '@shared/schemas/common';
 import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
 import type { Queues } from '../../lib/queues';
@@ -24,7 +24,7 @@ import { Organisation } from '../organisations/organisation.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { requireState } from '../packages/state-guard';
-import { Finding, Markup, StampedReturn } from '../reviews/review.entity';
+import { DecisionRecord, Finding, Markup, StampedReturn } from '../reviews/review.entity';
 import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
@@ -141,7 +141,24 @@ export async function readReturn(
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const ret = await ds.getRepository(StampedReturn).findOneBy({ id: returnId, packageId: pkg.id });
   if (!ret || ret.state !== 'ready' || !ret.storageKey) throw AppError.notFound('stamped return');
-  return { ret, reference: pkg.reference, bytes: await storage.get(ret.storageKey) };
+  const revision = await ds.getRepository(Revision).findOneByOrFail({ id: ret.revisionId });
+  const decision = await ds.getRepository(DecisionRecord).findOneByOrFail({ id: ret.decisionId });
+  return {
+    ret,
+    fileName: returnFileName(pkg.reference, revision.number, decision.decision),
+    bytes: await storage.get(ret.storageKey),
+  };
+}
+
+/** Each revision's return downloads under its own name: reference, revision and decision, in file-safe words. */
+export function returnFileName(reference: string, revisionNumber: number, decision: string): string {
+  const safe = (text: string) =>
+    text
+      .normalize('NFKD')
+      .replace(/[^A-Za-z0-9]+/g, '-')
+      .replace(/^-+|-+$/g, '');
+  const words = DECISION_LABELS[decision as Decision] ?? decision;
+  return `${safe(reference) || 'package'}-rev${revisionNumber}-${safe(words).toLowerCase()}-stamped-return.pdf`;
 }
 
 export type ProgressFn = (percent: number, step: string) => Promise<void> | void;
