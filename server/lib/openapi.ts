@@ -3,6 +3,7 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
 import { z, type ZodType } from 'zod';
 import { ErrorBody } from '@shared/schemas/common';
+import { STANDING_CAUTION } from '@shared/vocabulary/cautions';
 
 const registry = new OpenAPIRegistry();
 const described = new Set<string>();
@@ -71,9 +72,7 @@ export function openApiDocument() {
     info: {
       title: 'Counterpoise API',
       version: '1',
-      description:
-        'Review desk for critical crane lifts. Results check arithmetic and consistency; they do not replace the ' +
-        "crane manufacturer's load chart, a qualified person or local codes.",
+      description: `Review desk for critical crane lifts. ${STANDING_CAUTION}`,
     },
   });
   return cachedDoc;

@@ -2,6 +2,7 @@
 // (the invitation link is the one exception: it is the person's own one-time link, and the
 // stored message holds a placeholder for it, see sealed-link.ts).
 import { DECISION_LABELS, type Decision } from '@shared/schemas/common';
+import { STANDING_CAUTION } from '@shared/vocabulary/cautions';
 import type { MailEvent } from './mail.entity';
 
 export interface Rendered {
@@ -25,8 +26,7 @@ export function escape(s: string) {
   );
 }
 
-const FOOTER =
-  "Counterpoise checks a lift plan's arithmetic and consistency. It does not replace the crane manufacturer's load chart, a qualified person or local codes.";
+const FOOTER = STANDING_CAUTION;
 
 function render(
   subject: string,

@@ -5,7 +5,7 @@ import { useState } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import { isApiError } from '@/lib/api-client';
 import { Wordmark } from '@/components/ui/logo';
-import { CAUTION_TEXT } from '@/components/ui/caution-note';
+import { STANDING_CAUTION } from '@shared/vocabulary/cautions';
 import { normaliseCode, useVerification } from '@/features/verify/api/get-verification';
 import {
   AnswerBlock,
@@ -113,7 +113,7 @@ export default function VerifyRoute() {
         {body}
         <p className="flex items-start gap-2 border-l-[5px] border-caution-ink bg-caution-tint px-4 py-3 text-[15px] leading-snug text-ink">
           <strong className="shrink-0">Caution.</strong>
-          <span>{CAUTION_TEXT}</span>
+          <span>{STANDING_CAUTION}</span>
         </p>
         <details className="border border-rule bg-sheet px-4 py-3" open={!code || verification.isError}>
           <summary className="cursor-pointer text-[16px] font-bold">Check another code</summary>

@@ -1,6 +1,5 @@
 // The standing caution shown on every signed-in page and the sign-in page.
-export const CAUTION_TEXT =
-  "Counterpoise checks arithmetic and consistency. Its results do not replace the crane manufacturer's load chart and instructions, a qualified person (the lift director and the engineer of record), or local codes and regulations.";
+import { STANDING_CAUTION } from '@shared/vocabulary/cautions';
 
 export function CautionNote({ className = '' }: { className?: string }) {
   return (
@@ -14,7 +13,7 @@ export function CautionNote({ className = '' }: { className?: string }) {
         <circle cx="8" cy="11.5" r="0.8" fill="currentColor" />
       </svg>
       <p>
-        <strong className="font-bold text-ink">Caution.</strong> {CAUTION_TEXT}
+        <strong className="font-bold text-ink">Caution.</strong> {STANDING_CAUTION}
       </p>
     </footer>
   );
