@@ -4,6 +4,7 @@
 // with a plain 500. Clients never see a stack trace.
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
+import { readableError } from '@shared/catalogue/readable-issue';
 import { AppError, fromZod } from '../lib/app-error';
 import { logger } from '../lib/logger';
 
@@ -91,7 +92,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     (req.log ?? logger).error({ err }, 'unhandled error');
     error = new AppError(500, 'internal', 'Something went wrong on our side. The error has been logged.');
   }
-  res.status(error.status).json({
-    error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) },
-  });
+  res
+    .status(error.status)
+    .json({ error: { code: error.code, ...readableError(error.message, error.fields) } });
 };

@@ -42,7 +42,7 @@ describe('people', () => {
     const short = await supertest(t.app).post(`/api/invites/${token}`).send({ password: 'short' });
     expect(short.status).toBe(400);
     expect(short.body.error.fields).toEqual([
-      { path: 'password', message: 'password must be at least 10 characters' },
+      { path: 'password', message: 'Password must be at least 10 characters' },
     ]);
     const agent = supertest.agent(t.app);
     const accepted = await agent.post(`/api/invites/${token}`).send({ password: 'a long enough password' });
@@ -56,7 +56,7 @@ describe('people', () => {
       organisationId: w.contractorA.id,
     });
     expect(again.status).toBe(409);
-    expect(again.body.error.fields).toEqual([{ path: 'email', message: 'email already has an account' }]);
+    expect(again.body.error.fields).toEqual([{ path: 'email', message: 'Email already has an account' }]);
   });
 
   it('when an invitation is past its time, then the link answers 410', async () => {

@@ -90,7 +90,10 @@ describe('organisation isolation', () => {
     const agent = await signedIn(t.app, w.plannerA.email);
     const res = await agent.get('/api/packages/abc');
     expect(res.status).toBe(400);
-    expect(res.body.error.fields[0]).toEqual({ path: 'params.id', message: 'id must be a UUID' });
+    expect(res.body.error.fields[0]).toEqual({
+      path: 'params.id',
+      message: 'The id in the address must be a UUID',
+    });
   });
 });
 
@@ -119,7 +122,7 @@ describe('roles', () => {
     const res = await agent.get('/api/packages?pageSize=500');
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toEqual([
-      { path: 'query.pageSize', message: 'pageSize must be at most 100' },
+      { path: 'query.pageSize', message: 'Page size must be at most 100' },
     ]);
   });
 

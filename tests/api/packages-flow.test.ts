@@ -60,8 +60,8 @@ describe('drafts', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toEqual(
       expect.arrayContaining([
-        { path: 'title', message: 'title must be at least 3 characters' },
-        { path: 'plannedLiftDate', message: 'plannedLiftDate must be a date (YYYY-MM-DD)' },
+        { path: 'title', message: 'Title must be at least 3 characters' },
+        { path: 'plannedLiftDate', message: 'Planned lift date must be a date (YYYY-MM-DD)' },
       ]),
     );
   });

@@ -89,7 +89,7 @@ describe('the queue', () => {
     const bad = await reviewer.get('/api/packages?critical=maybe');
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields).toEqual([
-      { path: 'query.critical', message: 'critical must be true or false' },
+      { path: 'query.critical', message: 'Critical must be true or false' },
     ]);
   });
 });
@@ -165,7 +165,7 @@ describe('the engineer’s review', () => {
     expect(beyond.status).toBe(400);
     expect(beyond.body.error.fields[0]).toEqual({
       path: 'pageNumber',
-      message: 'pageNumber must be between 1 and 2',
+      message: 'Page number must be between 1 and 2',
     });
     const emptyText = await engineer
       .post(`/api/packages/${p.id}/markups`)
@@ -228,7 +228,7 @@ describe('the engineer’s review', () => {
       .send({ decision: 'accepted_as_noted', conditions: '', baseVersion: 1 });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toEqual([
-      { path: 'conditions', message: 'conditions are required with Accepted as noted' },
+      { path: 'conditions', message: 'Conditions are required with Accepted as noted' },
     ]);
   });
 

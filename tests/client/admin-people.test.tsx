@@ -46,8 +46,8 @@ describe('people: inviting', () => {
     await user.type(within(dialog).getByLabelText('Work e-mail'), 'not-an-address');
     await user.click(within(dialog).getByRole('button', { name: 'Send invitation' }));
 
-    expect(await within(dialog).findByText('email must be a valid e-mail address')).toBeTruthy();
-    expect(within(dialog).getByText('name must be at least 2 characters')).toBeTruthy();
+    expect(await within(dialog).findByText('Email must be a valid e-mail address')).toBeTruthy();
+    expect(within(dialog).getByText('Name must be at least 2 characters')).toBeTruthy();
     expect(within(dialog).getByLabelText('Work e-mail').getAttribute('aria-invalid')).toBe('true');
     expect(posts(fetchMock, '/api/admin/people/invite', 'POST')).toEqual([]);
   });

@@ -33,7 +33,7 @@ describe('invitation link', () => {
     await user.type(screen.getByLabelText('The same password again'), 'short');
     await user.click(screen.getByRole('button', { name: 'Set password and sign in' }));
 
-    expect(await screen.findByText('password must be at least 10 characters')).toBeTruthy();
+    expect(await screen.findByText('Password must be at least 10 characters')).toBeTruthy();
     expect(screen.getByLabelText('New password').getAttribute('aria-invalid')).toBe('true');
     const posts = fetchMock.mock.calls.filter(([, init]) => init?.method === 'POST');
     expect(posts).toEqual([]);

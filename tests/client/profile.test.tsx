@@ -95,7 +95,7 @@ describe('profile', () => {
     await user.type(screen.getByLabelText('New password again'), 'short');
     await user.click(screen.getByRole('button', { name: 'Change password' }));
 
-    expect(await screen.findByText('newPassword must be at least 10 characters')).toBeTruthy();
+    expect(await screen.findByText('New password must be at least 10 characters')).toBeTruthy();
     expect(calls(fetchMock, '/api/me/password', 'POST')).toEqual([]);
   });
 });

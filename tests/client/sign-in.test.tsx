@@ -19,8 +19,8 @@ describe('sign-in page', () => {
 
     await user.click(await screen.findByRole('button', { name: 'Sign in' }));
 
-    expect(await screen.findByText('email must be a valid e-mail address')).toBeTruthy();
-    expect(screen.getByText('password is required')).toBeTruthy();
+    expect(await screen.findByText('Email must be a valid e-mail address')).toBeTruthy();
+    expect(screen.getByText('Password is required')).toBeTruthy();
     expect(screen.getByLabelText('Work e-mail').getAttribute('aria-invalid')).toBe('true');
     expect(callsTo(fetchMock, '/api/auth/sign-in')).toEqual([]);
   });

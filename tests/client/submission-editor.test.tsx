@@ -50,7 +50,7 @@ describe('submission editor', () => {
 
     await waitFor(() => expect(angle.getAttribute('aria-invalid')).toBe('true'));
     const message = document.getElementById(angle.getAttribute('aria-describedby') ?? '');
-    expect(message?.textContent).toBe('crane.boomAngle (from horizontal) must be between 0 and 90 degrees');
+    expect(message?.textContent).toBe('Boom angle from horizontal must be between 0 and 90 degrees');
   });
 
   it('when chart rows with a header are pasted, then the chart table holds the numbers in their columns', async () => {

@@ -21,6 +21,7 @@ import {
   WAIT,
 } from './support/browser';
 import { liftPlanPdf, pdfPages, pdfText } from './support/pdf';
+import { internalWords } from '../support/internal-words';
 
 const TITLE = unique('E2E set feed pump skid');
 const CHART = [
@@ -416,6 +417,8 @@ describe('the four flows, in a real browser', () => {
     // The three plan pages and at least one page of calculation sheet.
     expect(pages).toBeGreaterThanOrEqual(4);
     expect(pages).toBe(shownPages);
+    // Every page of the return in words: no code names, ids or raw validation text.
+    expect(internalWords(pdfText(bytes))).toEqual([]);
     await context.close();
 
     // Anyone on site, not signed in.

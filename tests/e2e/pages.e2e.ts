@@ -22,6 +22,7 @@ import {
   type Person,
 } from './support/browser';
 import { apiAs } from './support/api';
+import { internalWords } from '../support/internal-words';
 
 let browser: Browser;
 const contexts = new Map<Person | 'anyone', { context: BrowserContext; page: Page }>();
@@ -210,7 +211,7 @@ async function settle(page: Page, ready: Locator) {
 
 describe('every main page: accessibility and screenshots', () => {
   for (const main of PAGES) {
-    it(`when ${main.name} is open at desktop and tablet widths, then axe finds nothing serious or critical`, async () => {
+    it(`when ${main.name} is open at desktop and tablet widths, then axe finds nothing serious or critical and the page shows no code names`, async () => {
       const page = await pageFor(main.person);
       for (const size of [DESKTOP, TABLET]) {
         await page.setViewportSize(size);
@@ -220,6 +221,16 @@ describe('every main page: accessibility and screenshots', () => {
         await screenshot(page, main.name);
         expect(violations, `${main.name} at ${size.width}px:\n${describeViolations(violations)}`).toEqual([]);
       }
+      // What the page says, in words: no code names, ids or raw validation text.
+      expect(internalWords(await page.locator('body').innerText()), main.name).toEqual([]);
     });
   }
+
+  it('when the demo desk has sent its e-mails, then each reads in words', async () => {
+    const mail = await query<{ subject: string; text_body: string }>(
+      `SELECT subject, text_body FROM caught_mail`,
+    );
+    expect(mail.length).toBeGreaterThan(0);
+    for (const m of mail) expect(internalWords(`${m.subject}\n${m.text_body}`), m.subject).toEqual([]);
+  });
 });

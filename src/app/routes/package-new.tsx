@@ -1,7 +1,7 @@
 // /packages/new: a contractor starts a lift package — title, site and planned lift date —
 // and goes straight on to the submission editor.
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import { Link, useNavigate } from 'react-router-dom';
 import { z } from 'zod';
 import { isApiError } from '@/lib/api-client';

@@ -2,7 +2,7 @@
 // e-mail with a one-time link to set a password and answers with the link, shown once. Rules come from the shared InviteBody
 // schema; an address already in use (409 email_taken) is shown under the e-mail field.
 import { useForm, useWatch } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import type { z } from 'zod';
 import { InviteBody } from '@shared/schemas/admin';
 import { ROLES, type Role } from '@shared/schemas/common';

@@ -2,7 +2,7 @@
 // come from the shared OrganisationBody and OrganisationPatch schemas; a field the server
 // refuses is shown under that field.
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import type { z } from 'zod';
 import { OrganisationBody, OrganisationPatch } from '@shared/schemas/admin';
 import { isApiError } from '@/lib/api-client';

@@ -3,7 +3,7 @@
 // empties it, and the key leaves the overrides sent. Saving records a new policy version;
 // check runs from then on use it, and returns already issued keep the policy they used.
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import type { z } from 'zod';
 import { POLICY_DEFAULTS } from '@shared/schemas/site-policy';
 import { isApiError } from '@/lib/api-client';
@@ -145,7 +145,6 @@ export function PolicyEditor({ siteId, policy }: { siteId: string; policy: Polic
                     <label htmlFor={inputId} className="font-bold">
                       {fallback.label}
                     </label>
-                    <span className="block font-mono text-[11.5px] text-ink-soft">{field.name}</span>
                   </th>
                   <td className="tabular px-3 py-2.5" data-testid="policy-default">
                     {formatPolicyValue(fallback.value, field)}

@@ -37,7 +37,7 @@ export function PolicyHistory({ history }: { history: PolicyResponse['history'] 
               <ul className="mt-0.5 text-[12.5px] leading-relaxed">
                 {changes.map(({ field, from, to }) => (
                   <li key={field.name}>
-                    <span className="font-mono text-ink-soft">{field.name}</span>{' '}
+                    <span className="text-ink-soft">{field.label ?? POLICY_DEFAULTS[field.key].label}:</span>{' '}
                     {from === undefined ? 'default' : formatPolicyValue(from, field)} →{' '}
                     <strong>
                       {to === undefined

@@ -2,7 +2,7 @@
 // address and time zone (dates and times on the site's pages and returns use it). Rules
 // from the shared SiteBody schema.
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import type { z } from 'zod';
 import { SiteBody } from '@shared/schemas/admin';
 import { isApiError } from '@/lib/api-client';

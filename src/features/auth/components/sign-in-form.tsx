@@ -2,7 +2,7 @@
 // and the server explain the same mistakes the same way; a wrong password gets only the
 // server's one generic message.
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import { SignInBody } from '@shared/schemas/auth';
 import type { CurrentUser } from '@shared/schemas/auth';
 import { useSignIn } from '@/lib/auth';

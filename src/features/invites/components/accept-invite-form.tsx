@@ -2,7 +2,7 @@
 // AcceptInviteBody schema, so the form and the server name the same limit; the second
 // entry is only checked here, to catch a typing slip before it locks the person out.
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import { z } from 'zod';
 import { AcceptInviteBody } from '@shared/schemas/admin';
 import type { CurrentUser } from '@shared/schemas/auth';

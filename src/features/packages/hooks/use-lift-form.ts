@@ -14,7 +14,8 @@ import {
   type FieldPath,
   type Resolver,
 } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
+import { readableIssue } from '@shared/catalogue/readable-issue';
 import { LiftInput, type LiftInputRaw } from '@shared/schemas/lift-input';
 import type { PackageDetail } from '@shared/schemas/packages';
 import { upgradeLiftInput } from '@shared/engineering/upgrade';
@@ -83,7 +84,7 @@ export function useLiftIssues(values: LiftFormValues, showAll: boolean): Issues 
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const path = issue.path.map(String).join('.');
-        if (!byPath.has(path)) byPath.set(path, issue.message);
+        if (!byPath.has(path)) byPath.set(path, readableIssue(path, issue.message));
       }
     }
     return { byPath, showAll };

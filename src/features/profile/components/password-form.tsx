@@ -2,7 +2,7 @@
 // length rule is the shared PasswordChangeBody schema's; a wrong current password is
 // shown under that field.
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import { z } from 'zod';
 import { PasswordChangeBody } from '@shared/schemas/admin';
 import { isApiError } from '@/lib/api-client';

@@ -2,7 +2,7 @@
 // whether to receive the daily lift-date reminder. Hand-off messages (submitted,
 // assigned, returned, resubmitted) always go out: a review cannot wait on a muted inbox.
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import { z } from 'zod';
 import { ProfilePatch } from '@shared/schemas/admin';
 import { isApiError } from '@/lib/api-client';
