@@ -130,7 +130,9 @@ describe('site review policy', () => {
     await user.type(within(stability).getByRole('textbox'), '0.8');
     await user.click(screen.getByRole('button', { name: 'Save policy' }));
 
-    expect(await within(stability).findByText('Minimum stability ratio must be between 1 and 5')).toBeTruthy();
+    expect(
+      await within(stability).findByText('Minimum stability ratio must be between 1 and 5'),
+    ).toBeTruthy();
     expect(within(stability).getByRole('textbox').getAttribute('aria-invalid')).toBe('true');
     expect(puts(fetchMock)).toEqual([]);
   });
