@@ -4,11 +4,18 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { PageHeader } from '@/components/layouts/page-header';
 import { Button } from '@/components/ui/button';
-import { PageLoading } from '@/components/ui/page-loading';
-import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
+import { EmptyState } from '@/components/ui/panel-message';
 import { useOrganisations } from '@/features/admin/api/organisations';
+import { AdminTable, ListStates, type AdminColumn } from '@/features/admin/components/admin-table';
 import { NewOrganisationForm, RenameOrganisationForm } from '@/features/admin/components/organisation-forms';
 import { ORGANISATION_KIND_LABELS } from '@/features/admin/lib/labels';
+
+const COLUMNS: AdminColumn[] = [
+  { label: 'Name' },
+  { label: 'Kind', className: 'w-[180px]' },
+  { label: 'People', className: 'w-[90px] text-right' },
+  { label: 'Actions', className: 'w-[110px]', hidden: true },
+];
 
 export default function AdminOrganisationsRoute() {
   const organisations = useOrganisations();
@@ -25,34 +32,19 @@ export default function AdminOrganisationsRoute() {
       />
       <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_380px]">
         <section aria-label="Organisations on the desk" className="min-w-0">
-          {organisations.isPending ? (
-            <PageLoading label="Loading organisations" />
-          ) : organisations.isError ? (
-            <ErrorPanel title="Organisations could not be loaded" message={organisations.error.message} />
-          ) : items.length === 0 ? (
-            <EmptyState title="No organisations yet">
-              <p>Add the site owner first, then each lifting contractor that will submit lift packages.</p>
-            </EmptyState>
-          ) : (
-            <table className="w-full border-collapse border border-rule bg-sheet text-sm">
-              <caption className="sr-only">Organisations</caption>
-              <thead className="bg-sheet-alt text-left text-[12.5px] uppercase tracking-[0.06em] text-ink-soft">
-                <tr className="border-b border-rule">
-                  <th scope="col" className="px-3 py-2 font-bold">
-                    Name
-                  </th>
-                  <th scope="col" className="w-[180px] px-3 py-2 font-bold">
-                    Kind
-                  </th>
-                  <th scope="col" className="w-[90px] px-3 py-2 text-right font-bold">
-                    People
-                  </th>
-                  <th scope="col" className="w-[110px] px-3 py-2">
-                    <span className="sr-only">Actions</span>
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
+          <ListStates
+            query={organisations}
+            loading="Loading organisations"
+            failed="Organisations could not be loaded"
+            isEmpty={() => items.length === 0}
+            empty={
+              <EmptyState title="No organisations yet">
+                <p>Add the site owner first, then each lifting contractor that will submit lift packages.</p>
+              </EmptyState>
+            }
+          >
+            {() => (
+              <AdminTable caption="Organisations" columns={COLUMNS}>
                 {items.map((organisation) => (
                   <tr
                     key={organisation.id}
@@ -92,9 +84,9 @@ export default function AdminOrganisationsRoute() {
                     </td>
                   </tr>
                 ))}
-              </tbody>
-            </table>
-          )}
+              </AdminTable>
+            )}
+          </ListStates>
         </section>
         <div className="self-start">
           <NewOrganisationForm />

@@ -7,17 +7,46 @@ import { useCurrentUser } from '@/lib/auth';
 import { ROLE_LABELS } from '@/lib/roles';
 import { PageHeader } from '@/components/layouts/page-header';
 import { Button } from '@/components/ui/button';
-import { PageLoading } from '@/components/ui/page-loading';
-import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
+import { EmptyState } from '@/components/ui/panel-message';
 import { useOrganisations } from '@/features/admin/api/organisations';
 import { usePeople, type InvitedPerson } from '@/features/admin/api/people';
 import type { PeopleFilters } from '@/features/admin/api/admin-keys';
+import { ListStates } from '@/features/admin/components/admin-table';
 import { InviteDialog } from '@/features/admin/components/invite-dialog';
 import { InviteLinkOnce } from '@/features/admin/components/invite-link-once';
 import { PeopleTable } from '@/features/admin/components/people-table';
 import { PERSON_STATE_LABELS } from '@/features/admin/lib/labels';
 
-const filterSelect = 'h-8 rounded-[3px] border border-rule-strong bg-sheet px-1.5 text-[13.5px] text-ink';
+/** One filter of the list: "All" or one of `options` (value, label), kept in the URL by the caller. */
+function FilterSelect({
+  label,
+  value,
+  options,
+  onChange,
+}: {
+  label: string;
+  value: string | undefined;
+  options: readonly (readonly [string, string])[];
+  onChange: (value: string) => void;
+}) {
+  return (
+    <label className="flex items-center gap-1.5">
+      <span className="font-bold">{label}</span>
+      <select
+        className="h-8 rounded-[3px] border border-rule-strong bg-sheet px-1.5 text-[13.5px] text-ink"
+        value={value ?? ''}
+        onChange={(event) => onChange(event.target.value)}
+      >
+        <option value="">All</option>
+        {options.map(([optionValue, optionLabel]) => (
+          <option key={optionValue} value={optionValue}>
+            {optionLabel}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}
 
 export default function AdminPeopleRoute() {
   const { data: user } = useCurrentUser();
@@ -65,51 +94,24 @@ export default function AdminPeopleRoute() {
         }
       />
       <div role="group" aria-label="Filters" className="mb-3 flex flex-wrap items-center gap-3 text-[13.5px]">
-        <label className="flex items-center gap-1.5">
-          <span className="font-bold">Organisation</span>
-          <select
-            className={filterSelect}
-            value={filters.organisationId ?? ''}
-            onChange={(event) => setFilter('organisationId', event.target.value)}
-          >
-            <option value="">All</option>
-            {organisations.data?.items.map((org) => (
-              <option key={org.id} value={org.id}>
-                {org.name}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex items-center gap-1.5">
-          <span className="font-bold">Role</span>
-          <select
-            className={filterSelect}
-            value={filters.role ?? ''}
-            onChange={(event) => setFilter('role', event.target.value)}
-          >
-            <option value="">All</option>
-            {ROLES.map((role) => (
-              <option key={role} value={role}>
-                {ROLE_LABELS[role]}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex items-center gap-1.5">
-          <span className="font-bold">State</span>
-          <select
-            className={filterSelect}
-            value={filters.state ?? ''}
-            onChange={(event) => setFilter('state', event.target.value)}
-          >
-            <option value="">All</option>
-            {Object.entries(PERSON_STATE_LABELS).map(([state, label]) => (
-              <option key={state} value={state}>
-                {label}
-              </option>
-            ))}
-          </select>
-        </label>
+        <FilterSelect
+          label="Organisation"
+          value={filters.organisationId}
+          options={(organisations.data?.items ?? []).map((org) => [org.id, org.name] as const)}
+          onChange={(value) => setFilter('organisationId', value)}
+        />
+        <FilterSelect
+          label="Role"
+          value={filters.role}
+          options={ROLES.map((role) => [role, ROLE_LABELS[role]] as const)}
+          onChange={(value) => setFilter('role', value)}
+        />
+        <FilterSelect
+          label="State"
+          value={filters.state}
+          options={Object.entries(PERSON_STATE_LABELS)}
+          onChange={(value) => setFilter('state', value)}
+        />
         {filtered && (
           <Button size="sm" variant="quiet" onClick={() => setParams({}, { replace: true })}>
             Clear filters
@@ -129,21 +131,23 @@ export default function AdminPeopleRoute() {
         </div>
       )}
 
-      {people.isPending ? (
-        <PageLoading label="Loading people" />
-      ) : people.isError ? (
-        <ErrorPanel title="People could not be loaded" message={people.error.message} />
-      ) : people.data.items.length === 0 ? (
-        <EmptyState title={filtered ? 'Nobody matches these filters' : 'Nobody on the desk yet'}>
-          <p>
-            {filtered
-              ? 'Clear a filter to see more people.'
-              : 'Invite the first coordinator or engineer of record.'}
-          </p>
-        </EmptyState>
-      ) : (
-        <PeopleTable people={people.data.items} currentUserId={user.id} />
-      )}
+      <ListStates
+        query={people}
+        loading="Loading people"
+        failed="People could not be loaded"
+        isEmpty={(data) => data.items.length === 0}
+        empty={
+          <EmptyState title={filtered ? 'Nobody matches these filters' : 'Nobody on the desk yet'}>
+            <p>
+              {filtered
+                ? 'Clear a filter to see more people.'
+                : 'Invite the first coordinator or engineer of record.'}
+            </p>
+          </EmptyState>
+        }
+      >
+        {(data) => <PeopleTable people={data.items} currentUserId={user.id} />}
+      </ListStates>
 
       {inviting && organisations.data && (
         <InviteDialog

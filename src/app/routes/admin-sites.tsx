@@ -5,11 +5,20 @@ import { Link } from 'react-router-dom';
 import { useCurrentUser } from '@/lib/auth';
 import { PageHeader } from '@/components/layouts/page-header';
 import { Button } from '@/components/ui/button';
-import { PageLoading } from '@/components/ui/page-loading';
-import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
+import { EmptyState } from '@/components/ui/panel-message';
 import { useAdminSites, type AdminSite } from '@/features/admin/api/sites';
+import { AdminTable, ListStates, type AdminColumn } from '@/features/admin/components/admin-table';
 import { SiteDialog } from '@/features/admin/components/site-dialog';
 import { ReviewersDialog } from '@/features/admin/components/reviewers-dialog';
+
+const COLUMNS: AdminColumn[] = [
+  { label: 'Site' },
+  { label: 'Code' },
+  { label: 'Time zone' },
+  { label: 'Lift coordinators' },
+  { label: 'Review policy' },
+  { label: 'Actions', hidden: true },
+];
 
 export default function AdminSitesRoute() {
   const { data: user } = useCurrentUser();
@@ -30,42 +39,21 @@ export default function AdminSitesRoute() {
           </Button>
         }
       />
-      {sites.isPending ? (
-        <PageLoading label="Loading sites" />
-      ) : sites.isError ? (
-        <ErrorPanel title="Sites could not be loaded" message={sites.error.message} />
-      ) : items.length === 0 ? (
-        <EmptyState title="No sites yet">
-          <p>
-            Create a site so contractors can submit lift packages to it, then choose its lift coordinators.
-          </p>
-        </EmptyState>
-      ) : (
-        <table className="w-full border-collapse border border-rule bg-sheet text-sm">
-          <caption className="sr-only">Sites</caption>
-          <thead className="bg-sheet-alt text-left text-[12.5px] uppercase tracking-[0.06em] text-ink-soft">
-            <tr className="border-b border-rule">
-              <th scope="col" className="px-3 py-2 font-bold">
-                Site
-              </th>
-              <th scope="col" className="px-3 py-2 font-bold">
-                Code
-              </th>
-              <th scope="col" className="px-3 py-2 font-bold">
-                Time zone
-              </th>
-              <th scope="col" className="px-3 py-2 font-bold">
-                Lift coordinators
-              </th>
-              <th scope="col" className="px-3 py-2 font-bold">
-                Review policy
-              </th>
-              <th scope="col" className="px-3 py-2">
-                <span className="sr-only">Actions</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
+      <ListStates
+        query={sites}
+        loading="Loading sites"
+        failed="Sites could not be loaded"
+        isEmpty={() => items.length === 0}
+        empty={
+          <EmptyState title="No sites yet">
+            <p>
+              Create a site so contractors can submit lift packages to it, then choose its lift coordinators.
+            </p>
+          </EmptyState>
+        }
+      >
+        {() => (
+          <AdminTable caption="Sites" columns={COLUMNS}>
             {items.map((site) => (
               <tr key={site.id} className="border-b border-rule align-top last:border-b-0">
                 <td className="px-3 py-2">
@@ -115,9 +103,9 @@ export default function AdminSitesRoute() {
                 </td>
               </tr>
             ))}
-          </tbody>
-        </table>
-      )}
+          </AdminTable>
+        )}
+      </ListStates>
       {editing && (
         <SiteDialog site={editing === 'new' ? undefined : editing} onClose={() => setEditing(null)} />
       )}

@@ -4,11 +4,11 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { formatDateTime } from '@/lib/format';
 import { Button } from '@/components/ui/button';
-import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
-import { PageLoading } from '@/components/ui/page-loading';
+import { EmptyState } from '@/components/ui/panel-message';
 import { adminKeys, type MailFilters } from '../api/admin-keys';
 import { useMail, useRetryMail, type MailMessage } from '../api/mail';
 import { MAIL_EVENT_LABELS } from '../lib/labels';
+import { AdminTable, ListStates, type AdminColumn } from './admin-table';
 
 const STATUS_LABELS: Record<MailMessage['status'], string> = {
   queued: 'Waiting to send',
@@ -77,25 +77,52 @@ function RetryButton({ message }: { message: MailMessage }) {
 
 export function MailLog({ filters, onPage }: { filters: MailFilters; onPage: (page: number) => void }) {
   const mail = useMail(filters);
+  return (
+    <ListStates
+      query={mail}
+      loading="Loading the mail log"
+      failed="The mail log could not be loaded"
+      isEmpty={(data) => data.items.length === 0}
+      empty={
+        <EmptyState
+          title={
+            filters.status ? `No ${STATUS_LABELS[filters.status].toLowerCase()} messages` : 'No mail yet'
+          }
+        >
+          <p>
+            Messages are queued at each hand-off: a package submitted, an engineer assigned, a decision
+            returned, a package resubmitted, the daily lift-date reminder, and invitations.
+          </p>
+        </EmptyState>
+      }
+    >
+      {({ items, total }) => <MailPage items={items} total={total} filters={filters} onPage={onPage} />}
+    </ListStates>
+  );
+}
+
+const COLUMNS: AdminColumn[] = [
+  { label: 'Status' },
+  { label: 'Message' },
+  { label: 'To' },
+  { label: 'Attempts', className: 'text-right' },
+  { label: 'Queued' },
+  { label: 'Sent' },
+  { label: 'Actions', hidden: true },
+];
+
+function MailPage({
+  items,
+  total,
+  filters,
+  onPage,
+}: {
+  items: MailMessage[];
+  total: number;
+  filters: MailFilters;
+  onPage: (page: number) => void;
+}) {
   const queryClient = useQueryClient();
-
-  if (mail.isPending) return <PageLoading label="Loading the mail log" />;
-  if (mail.isError)
-    return <ErrorPanel title="The mail log could not be loaded" message={mail.error.message} />;
-
-  const { items, total } = mail.data;
-  if (items.length === 0) {
-    return (
-      <EmptyState
-        title={filters.status ? `No ${STATUS_LABELS[filters.status].toLowerCase()} messages` : 'No mail yet'}
-      >
-        <p>
-          Messages are queued at each hand-off: a package submitted, an engineer assigned, a decision
-          returned, a package resubmitted, the daily lift-date reminder, and invitations.
-        </p>
-      </EmptyState>
-    );
-  }
 
   // The server pages by a fixed size: the first page's length is that size.
   const firstPage = queryClient.getQueryData<{ items: unknown[] }>(
@@ -108,71 +135,43 @@ export function MailLog({ filters, onPage }: { filters: MailFilters; onPage: (pa
 
   return (
     <>
-      <table className="w-full border-collapse border border-rule bg-sheet text-sm">
-        <caption className="sr-only">Mail messages</caption>
-        <thead className="bg-sheet-alt text-left text-[12.5px] uppercase tracking-[0.06em] text-ink-soft">
-          <tr className="border-b border-rule">
-            <th scope="col" className="px-3 py-2 font-bold">
-              Status
-            </th>
-            <th scope="col" className="px-3 py-2 font-bold">
-              Message
-            </th>
-            <th scope="col" className="px-3 py-2 font-bold">
-              To
-            </th>
-            <th scope="col" className="px-3 py-2 text-right font-bold">
-              Attempts
-            </th>
-            <th scope="col" className="px-3 py-2 font-bold">
-              Queued
-            </th>
-            <th scope="col" className="px-3 py-2 font-bold">
-              Sent
-            </th>
-            <th scope="col" className="px-3 py-2">
-              <span className="sr-only">Actions</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {items.map((message) => {
-            const failed = message.status === 'failed';
-            return (
-              <tr
-                key={message.id}
-                data-status={message.status}
-                className={`border-b border-rule align-top last:border-b-0 ${failed ? 'border-l-4 border-l-failed-ink bg-failed-tint/55' : ''}`}
-              >
-                <td className="px-3 py-2">
-                  <MailStatus status={message.status} />
-                </td>
-                <td className="px-3 py-2">
-                  <span className="block text-[12px] font-bold uppercase tracking-[0.05em] text-ink-soft">
-                    {MAIL_EVENT_LABELS[message.event] ?? message.event}
-                  </span>
-                  <span className="block">{message.subject}</span>
-                  {failed && message.lastError && (
-                    <p className="mt-1 font-mono text-[12.5px] font-bold text-failed-ink">
-                      <span className="font-sans">Error: </span>
-                      {message.lastError}
-                    </p>
-                  )}
-                </td>
-                <td className="break-all px-3 py-2 text-[13px]">{message.to}</td>
-                <td className="tabular px-3 py-2 text-right">{message.attempts}</td>
-                <td className="tabular whitespace-nowrap px-3 py-2 text-[13px]">
-                  {formatDateTime(message.createdAt)}
-                </td>
-                <td className="tabular whitespace-nowrap px-3 py-2 text-[13px]">
-                  {formatDateTime(message.sentAt)}
-                </td>
-                <td className="px-3 py-2 text-right">{failed && <RetryButton message={message} />}</td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
+      <AdminTable caption="Mail messages" columns={COLUMNS}>
+        {items.map((message) => {
+          const failed = message.status === 'failed';
+          return (
+            <tr
+              key={message.id}
+              data-status={message.status}
+              className={`border-b border-rule align-top last:border-b-0 ${failed ? 'border-l-4 border-l-failed-ink bg-failed-tint/55' : ''}`}
+            >
+              <td className="px-3 py-2">
+                <MailStatus status={message.status} />
+              </td>
+              <td className="px-3 py-2">
+                <span className="block text-[12px] font-bold uppercase tracking-[0.05em] text-ink-soft">
+                  {MAIL_EVENT_LABELS[message.event] ?? message.event}
+                </span>
+                <span className="block">{message.subject}</span>
+                {failed && message.lastError && (
+                  <p className="mt-1 font-mono text-[12.5px] font-bold text-failed-ink">
+                    <span className="font-sans">Error: </span>
+                    {message.lastError}
+                  </p>
+                )}
+              </td>
+              <td className="break-all px-3 py-2 text-[13px]">{message.to}</td>
+              <td className="tabular px-3 py-2 text-right">{message.attempts}</td>
+              <td className="tabular whitespace-nowrap px-3 py-2 text-[13px]">
+                {formatDateTime(message.createdAt)}
+              </td>
+              <td className="tabular whitespace-nowrap px-3 py-2 text-[13px]">
+                {formatDateTime(message.sentAt)}
+              </td>
+              <td className="px-3 py-2 text-right">{failed && <RetryButton message={message} />}</td>
+            </tr>
+          );
+        })}
+      </AdminTable>
       <nav aria-label="Pages" className="mt-2 flex items-center justify-between text-[13px]">
         <p className="tabular text-ink-soft">
           Messages{' '}

@@ -11,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { useReinvitePerson, useUpdatePerson, type Person } from '../api/people';
 import { InviteLinkOnce } from './invite-link-once';
 import { PERSON_STATE_LABELS } from '../lib/labels';
+import { AdminTable, type AdminColumn } from './admin-table';
 import { ConfirmDialog } from './confirm-dialog';
 
 const STATE_STYLES: Record<Person['state'], string> = {
@@ -170,67 +171,51 @@ function Actions({
   );
 }
 
+const COLUMNS: AdminColumn[] = [
+  { label: 'Person' },
+  { label: 'Organisation' },
+  { label: 'Role' },
+  { label: 'State' },
+  { label: 'Added' },
+  { label: 'Actions', hidden: true },
+];
+
 export function PeopleTable({ people, currentUserId }: { people: Person[]; currentUserId: string }) {
   const [deactivating, setDeactivating] = useState<Person | null>(null);
   const deactivate = useUpdatePerson();
 
   return (
     <>
-      <table className="w-full border-collapse border border-rule bg-sheet text-sm">
-        <caption className="sr-only">People</caption>
-        <thead className="bg-sheet-alt text-left text-[12.5px] uppercase tracking-[0.06em] text-ink-soft">
-          <tr className="border-b border-rule">
-            <th scope="col" className="px-3 py-2 font-bold">
-              Person
-            </th>
-            <th scope="col" className="px-3 py-2 font-bold">
-              Organisation
-            </th>
-            <th scope="col" className="px-3 py-2 font-bold">
-              Role
-            </th>
-            <th scope="col" className="px-3 py-2 font-bold">
-              State
-            </th>
-            <th scope="col" className="px-3 py-2 font-bold">
-              Added
-            </th>
-            <th scope="col" className="px-3 py-2">
-              <span className="sr-only">Actions</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {people.map((person) => {
-            const isSelf = person.id === currentUserId;
-            return (
-              <tr
-                key={person.id}
-                className={`border-b border-rule align-top last:border-b-0 ${person.state === 'deactivated' ? 'text-ink-soft' : ''}`}
-              >
-                <td className="px-3 py-2">
-                  <span className="block font-bold text-ink">
-                    {person.name}
-                    {isSelf && <span className="ml-1.5 text-[12px] font-normal text-ink-soft">(you)</span>}
-                  </span>
-                  <span className="block text-[12.5px] text-ink-soft">{person.email}</span>
-                </td>
-                <td className="px-3 py-2">{person.organisation.name}</td>
-                <td className="px-3 py-2">
-                  <RoleCell person={person} isSelf={isSelf} />
-                </td>
-                <td className="px-3 py-2">
-                  <PersonState state={person.state} />
-                </td>
-                <td className="tabular whitespace-nowrap px-3 py-2">{formatDate(person.createdAt)}</td>
-                <td className="px-3 py-2">
-                  <Actions person={person} isSelf={isSelf} onDeactivate={() => setDeactivating(person)} />
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
+      <AdminTable caption="People" columns={COLUMNS}>
+        {people.map((person) => {
+          const isSelf = person.id === currentUserId;
+          return (
+            <tr
+              key={person.id}
+              className={`border-b border-rule align-top last:border-b-0 ${person.state === 'deactivated' ? 'text-ink-soft' : ''}`}
+            >
+              <td className="px-3 py-2">
+                <span className="block font-bold text-ink">
+                  {person.name}
+                  {isSelf && <span className="ml-1.5 text-[12px] font-normal text-ink-soft">(you)</span>}
+                </span>
+                <span className="block text-[12.5px] text-ink-soft">{person.email}</span>
+              </td>
+              <td className="px-3 py-2">{person.organisation.name}</td>
+              <td className="px-3 py-2">
+                <RoleCell person={person} isSelf={isSelf} />
+              </td>
+              <td className="px-3 py-2">
+                <PersonState state={person.state} />
+              </td>
+              <td className="tabular whitespace-nowrap px-3 py-2">{formatDate(person.createdAt)}</td>
+              <td className="px-3 py-2">
+                <Actions person={person} isSelf={isSelf} onDeactivate={() => setDeactivating(person)} />
+              </td>
+            </tr>
+          );
+        })}
+      </AdminTable>
       {deactivating && (
         <ConfirmDialog
           title={`Deactivate ${deactivating.name}?`}

@@ -2,7 +2,9 @@
 // the engine reads (the tandem margin is three), the unit it is stored in, the unit the
 // form edits it in, and the plain equivalent in the other unit system.
 import { z } from 'zod';
+import { TO_SI, type AnyUnit } from '@shared/engineering/units';
 import { POLICY_DEFAULTS, SitePolicy } from '@shared/schemas/site-policy';
+import { unitLabel } from '@shared/vocabulary/units';
 
 export type PolicyKey = keyof typeof POLICY_DEFAULTS;
 type TandemKey = keyof (typeof POLICY_DEFAULTS)['tandemMarginPct']['value'];
@@ -24,6 +26,11 @@ export type PolicyField = {
 };
 
 const sig3 = (value: number) => Number(value.toPrecision(3)).toLocaleString('en-GB');
+/** A stored SI value in another unit, by the engine's own factors. */
+const inUnits =
+  (...units: AnyUnit[]) =>
+  (stored: number) =>
+    units.map((unit) => `${sig3(stored / TO_SI[unit])} ${unitLabel(unit)}`).join(', ');
 
 const TANDEM_LABELS: Record<TandemKey, string> = {
   twoCranes: 'Tandem margin, two cranes: capacity must exceed share by (%)',
@@ -44,30 +51,18 @@ export const POLICY_FIELDS: readonly PolicyField[] = [
     scale: 1,
   })),
   { name: 'personnelLimitPct', key: 'personnelLimitPct', unit: '%', scale: 1 },
-  {
-    name: 'windLimitMps',
-    key: 'windLimitMps',
-    unit: 'm/s',
-    scale: 1,
-    equivalent: (v: number) => `${sig3(v / 0.44704)} mph`,
-  },
+  { name: 'windLimitMps', key: 'windLimitMps', unit: 'm/s', scale: 1, equivalent: inUnits('mph') },
   {
     name: 'personnelWindLimitMps',
     key: 'personnelWindLimitMps',
     unit: 'm/s',
     scale: 1,
-    equivalent: (v: number) => `${sig3(v / 0.44704)} mph`,
+    equivalent: inUnits('mph'),
   },
   { name: 'minSlingAngleDeg', key: 'minSlingAngleDeg', unit: '°', scale: 1 },
   { name: 'discrepancyTolerancePct', key: 'discrepancyTolerancePct', unit: '%', scale: 1 },
   { name: 'cautionMarginPct', key: 'cautionMarginPct', unit: '%', scale: 1 },
-  {
-    name: 'minBlockClearanceM',
-    key: 'minBlockClearanceM',
-    unit: 'm',
-    scale: 1,
-    equivalent: (v: number) => `${sig3(v / 0.3048)} ft`,
-  },
+  { name: 'minBlockClearanceM', key: 'minBlockClearanceM', unit: 'm', scale: 1, equivalent: inUnits('ft') },
   { name: 'backwardCrawlerCgPct', key: 'backwardCrawlerCgPct', unit: '%', scale: 1 },
   { name: 'backwardBoomSideSupportPct', key: 'backwardBoomSideSupportPct', unit: '%', scale: 1 },
   {
@@ -76,7 +71,7 @@ export const POLICY_FIELDS: readonly PolicyField[] = [
     label: 'Site rule: gross loads at or above this weight are critical (kN)',
     unit: 'kN',
     scale: 1000,
-    equivalent: (v: number) => `${sig3(v / 9806.65)} t, ${sig3(v / 4448.222)} kip`,
+    equivalent: inUnits('t', 'kip'),
   },
 ];
 
