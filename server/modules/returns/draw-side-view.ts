@@ -3,10 +3,21 @@
 // counterweight, the boom at its angle to the load at its radius, and the two moment arms
 // about the tipping line, labelled. Greys, hatching and dashes only, so it prints in
 // greyscale. Mobile cranes only: a gantry's frame and backstay are described in words.
-import { rgb, type PDFFont, type PDFPage } from 'pdf-lib';
+import { rgb, type PDFPage } from 'pdf-lib';
 import { formatQuantity, sig3, toDisplay } from '@shared/engineering/format';
 import type { LiftResult, UnitSystem } from '@shared/engineering/types';
-import { INK, INK_SOFT, RULE, safeText, WHITE, widthOf, wrapText, type Fonts } from './text-pdf';
+import {
+  drawText,
+  INK,
+  INK_SOFT,
+  RULE,
+  safeText,
+  WHITE,
+  widthOf,
+  wrapText,
+  type Face,
+  type Fonts,
+} from './text-pdf';
 import { squareGrid } from '@shared/drawing/plot-ticks';
 import { sideViewScene, sideViewUnavailableReason } from '@shared/drawing/side-view';
 
@@ -18,7 +29,7 @@ export { sideViewUnavailableReason };
 
 function label(
   page: PDFPage,
-  font: PDFFont,
+  font: Face,
   text: string,
   x: number,
   y: number,
@@ -30,14 +41,14 @@ function label(
   const w = widthOf(t, font, size);
   const lx = align === 'centre' ? x - w / 2 : align === 'right' ? x - w : x;
   if (halo) page.drawRectangle({ x: lx - 1.5, y: y - 2, width: w + 3, height: size + 2.5, color: WHITE });
-  page.drawText(t, { x: lx, y, size, font, color: INK });
+  drawText(page, t, { x: lx, y, size, font, color: INK });
 }
 
 /** A dimension's label above its line, or beside its right end when the line is too short. */
 function dimLabel(
   queue: (...args: Parameters<typeof label>) => void,
   page: PDFPage,
-  font: PDFFont,
+  font: Face,
   text: string,
   x1: number,
   x2: number,
@@ -112,7 +123,7 @@ export function drawSideView(
       color: GRID,
     });
     const t = String(Number(v.toPrecision(6)));
-    page.drawText(t, {
+    drawText(page, t, {
       x: X(xMin) - 4 - widthOf(t, regular, 6.5),
       y: Y(v / lu.value) - 2.2,
       size: 6.5,
@@ -120,7 +131,7 @@ export function drawSideView(
       color: INK_SOFT,
     });
   }
-  page.drawText(`height (${lu.unit})`, { x: box.x, y: Y(yMax) + 3, size: 6.5, font: bold, color: INK_SOFT });
+  drawText(page, `height (${lu.unit})`, { x: box.x, y: Y(yMax) + 3, size: 6.5, font: bold, color: INK_SOFT });
 
   // Ground with hatching below.
   let hatch = '';
@@ -147,7 +158,7 @@ export function drawSideView(
     borderWidth: 1.2,
   });
   if (Y(pivotHeight * 0.55) - Y(0.35) >= 9)
-    page.drawText('carrier', {
+    drawText(page, 'carrier', {
       x: X(-fulcrum) + 4,
       y: Y(0.35) + 2.5,
       size: 6,
@@ -323,7 +334,7 @@ export function drawSideView(
   }`;
   const lines = wrapText(caption, regular, 7, box.width);
   lines.forEach((t, i) =>
-    page.drawText(t, {
+    drawText(page, t, {
       x: box.x,
       y: box.y + 4 + (lines.length - 1 - i) * 9,
       size: 7,

@@ -11,6 +11,7 @@ import type { PageFrame } from './page-frame-pdf';
 import type { StampInput } from './stamp-input';
 import {
   drawStatusShape,
+  drawText,
   fitText,
   GRAPHITE,
   INK,
@@ -98,7 +99,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   const band = 15;
   page.drawRectangle({ x: 0, y: 0, width: W, height: H, color: WHITE, borderColor: INK, borderWidth: 1.4 });
   page.drawRectangle({ x: 0, y: H - band, width: W, height: band, color: GRAPHITE });
-  page.drawText('REVIEW STAMP', {
+  drawText(page, 'REVIEW STAMP', {
     x: pad,
     y: H - band + 4.6,
     size: 6.5,
@@ -106,7 +107,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
     color: WHITE,
   });
   const issued = `issued ${tradeDate(s.issuedAt, s.timeZone)}`;
-  page.drawText(issued, {
+  drawText(page, issued, {
     x: W - pad - widthOf(issued, fonts.bold, 6.5),
     y: H - band + 4.6,
     size: 6.5,
@@ -128,7 +129,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   while (dSize > 9 && widthOf(label, fonts.black, dSize) > colW - 22) dSize -= 0.5;
   let y = H - band - 19;
   drawStatusShape(page, DECISION_SHAPES[s.decision] ?? 'caution', pad, y - 1.5, 13);
-  page.drawText(fitText(label, fonts.black, dSize, colW - 17), {
+  drawText(page, fitText(label, fonts.black, dSize, colW - 17), {
     x: pad + 17,
     y,
     size: dSize,
@@ -136,7 +137,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
     color: INK,
   });
   y -= 13;
-  page.drawText(fitText(`${s.reference} · revision ${s.revision}`, fonts.bold, 7.5, colW), {
+  drawText(page, fitText(`${s.reference} · revision ${s.revision}`, fonts.bold, 7.5, colW), {
     x: pad,
     y,
     size: 7.5,
@@ -144,7 +145,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
     color: INK,
   });
   y -= 9;
-  page.drawText(fitText(s.title, fonts.regular, 6.5, colW), {
+  drawText(page, fitText(s.title, fonts.regular, 6.5, colW), {
     x: pad,
     y,
     size: 6.5,
@@ -159,8 +160,8 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   y -= 3;
   for (const [k2, v] of rows) {
     y -= 9;
-    page.drawText(k2, { x: pad, y, size: 6, font: fonts.regular, color: INK_SOFT });
-    page.drawText(fitText(v, fonts.bold, 6.5, colW - 58), {
+    drawText(page, k2, { x: pad, y, size: 6, font: fonts.regular, color: INK_SOFT });
+    drawText(page, fitText(v, fonts.bold, 6.5, colW - 58), {
       x: pad + 58,
       y,
       size: 6.5,
@@ -174,15 +175,15 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   y = Math.min(y, qrTop - qrSide) - 6;
   page.drawLine({ start: { x: pad, y: y + 4 }, end: { x: W - pad, y: y + 4 }, thickness: 0.6, color: RULE });
   y -= 4;
-  page.drawText('Conditions', { x: pad, y, size: 6, font: fonts.bold, color: INK });
+  drawText(page, 'Conditions', { x: pad, y, size: 6, font: fonts.bold, color: INK });
   const cond = s.conditions.trim() || 'None.';
   const condLines = conditionLines(cond, fonts, 6.3, fullW - 38, 3);
   condLines.forEach((line, i) =>
-    page.drawText(line, { x: pad + 38, y: y - i * 7.4, size: 6.3, font: fonts.regular, color: INK }),
+    drawText(page, line, { x: pad + 38, y: y - i * 7.4, size: 6.3, font: fonts.regular, color: INK }),
   );
   y -= condLines.length * 7.4 + 3;
-  page.drawText('Verify', { x: pad, y, size: 6, font: fonts.bold, color: INK });
-  page.drawText(fitText(s.verificationCode, fonts.black, 7.5, fullW - 38), {
+  drawText(page, 'Verify', { x: pad, y, size: 6, font: fonts.bold, color: INK });
+  drawText(page, fitText(s.verificationCode, fonts.black, 7.5, fullW - 38), {
     x: pad + 38,
     y,
     size: 7.5,
@@ -192,7 +193,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   const verifyTop = y + 8;
   y -= 7;
   const verifyBottom = y - 2.5;
-  page.drawText(fitText(s.verificationUrl, fonts.regular, 5.5, fullW - 38), {
+  drawText(page, fitText(s.verificationUrl, fonts.regular, 5.5, fullW - 38), {
     x: pad + 38,
     y,
     size: 5.5,
@@ -201,7 +202,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   });
   const caution = wrapText(SHORT_CAUTION, fonts.bold, 5.6, fullW);
   caution.forEach((line, i) =>
-    page.drawText(line, {
+    drawText(page, line, {
       x: pad,
       y: 4.5 + (caution.length - 1 - i) * 6.6,
       size: 5.6,
@@ -247,5 +248,5 @@ export function drawFooter(page: PDFPage, frame: PageFrame, fonts: Fonts, text: 
     color: WHITE,
     opacity: FOOTER.panelOpacity,
   });
-  page.drawText(t, { x, y, size, font: fonts.bold, color: INK });
+  drawText(page, t, { x, y, size, font: fonts.bold, color: INK });
 }

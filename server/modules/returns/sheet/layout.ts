@@ -1,9 +1,10 @@
 // The calculation sheet's layout: a cursor that flows down A4 pages, page breaks that repeat a
 // table's header, wrapped paragraphs, headings, tables and label/value pairs. Sections draw
 // only through these; the sheet's "page n of m" header is drawn later (header.ts).
-import { PageSizes, type Color, type PDFDocument, type PDFFont, type PDFPage } from 'pdf-lib';
+import { PageSizes, type Color, type PDFDocument, type PDFPage } from 'pdf-lib';
 import {
   drawStatusShape,
+  drawText,
   fitText,
   GRAPHITE,
   INK,
@@ -13,6 +14,7 @@ import {
   RULE_STRONG,
   WHITE,
   wrapText,
+  type Face,
   type Fonts,
   type StatusKey,
 } from '../text-pdf';
@@ -53,15 +55,12 @@ export class Flow {
     }
   }
 
-  text(t: string, x: number, y: number, size: number, font: PDFFont, color: Color = INK) {
-    this.page.drawText(t, { x, y, size, font, color });
+  text(t: string, x: number, y: number, size: number, font: Face, color: Color = INK) {
+    drawText(this.page, t, { x, y, size, font, color });
   }
 
   /** A wrapped paragraph at the cursor. */
-  para(
-    t: string,
-    opts: { size?: number; font?: PDFFont; color?: Color; indent?: number; gap?: number } = {},
-  ) {
+  para(t: string, opts: { size?: number; font?: Face; color?: Color; indent?: number; gap?: number } = {}) {
     const size = opts.size ?? 8.5;
     const font = opts.font ?? this.fonts.regular;
     const indent = opts.indent ?? 0;
