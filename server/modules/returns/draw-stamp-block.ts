@@ -1,7 +1,7 @@
 // The stamp block on the first page of the return: a compact white panel (230 × 150 pt) in
 // the top-right corner that reads over drawings — the decision in large type with its shape,
 // package reference, revision and title, engineer of record, reviewer, decision and issue
-// dates, the conditions (cut short with a pointer to the calculation sheet), the
+// dates, the conditions (cut short with a pointer to the calculation sheet's page), the
 // verification code with a QR code of the verification address drawn as vector squares,
 // and the caution. Also the small "REF rev N — page n of m" footer every page carries.
 import { concatTransformationMatrix, popGraphicsState, pushGraphicsState, type PDFPage } from 'pdf-lib';
@@ -64,11 +64,21 @@ export function qrPath(text: string): { path: string; size: number } {
   return { path: path.trim(), size: n };
 }
 
-/** Conditions cut to `maxLines`, the last line ending with a pointer to the full text. */
-function conditionLines(text: string, fonts: Fonts, size: number, width: number, maxLines: number) {
+/**
+ * Conditions cut to `maxLines`, the last line ending with a pointer to the calculation sheet's
+ * first page, where they print in full.
+ */
+function conditionLines(
+  text: string,
+  fonts: Fonts,
+  size: number,
+  width: number,
+  maxLines: number,
+  sheetPage: number,
+) {
   const lines = wrapText(text, fonts.regular, size, width);
   if (lines.length <= maxLines) return lines;
-  const tail = '… see calculation sheet';
+  const tail = `… see calculation sheet, page ${sheetPage}`;
   let last = lines[maxLines - 1];
   while (last.length > 0 && widthOf(last + tail, fonts.regular, size) > width) last = last.slice(0, -1);
   return [...lines.slice(0, maxLines - 1), last.trimEnd() + tail];
@@ -86,7 +96,14 @@ export interface FrameBox {
  * Draw the stamp block; must run inside the first page's display frame. Returns the box of its
  * verification rows in the display frame: the return's visible signature field goes there.
  */
-export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s: StampBlockData): FrameBox {
+export function drawStampBlock(
+  page: PDFPage,
+  frame: PageFrame,
+  fonts: Fonts,
+  s: StampBlockData,
+  /** The return's page number of the calculation sheet's first page. */
+  sheetPage: number,
+): FrameBox {
   const W = STAMP_WIDTH;
   const H = STAMP_HEIGHT;
   const margin = Math.min(18, frame.width * 0.04, frame.height * 0.04);
@@ -177,7 +194,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   y -= 4;
   drawText(page, 'Conditions', { x: pad, y, size: 6, font: fonts.bold, color: INK });
   const cond = s.conditions.trim() || 'None.';
-  const condLines = conditionLines(cond, fonts, 6.3, fullW - 38, 3);
+  const condLines = conditionLines(cond, fonts, 6.3, fullW - 38, 3, sheetPage);
   condLines.forEach((line, i) =>
     drawText(page, line, { x: pad + 38, y: y - i * 7.4, size: 6.3, font: fonts.regular, color: INK }),
   );

@@ -139,7 +139,8 @@ async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
       const frame = frameOf(page);
       inDisplayFrame(page, frame, () => {
         drawMarkups(page, frame, marks, fonts);
-        if (first) field = { rect: userRect(frame, drawStampBlock(page, frame, fonts, stamp)) };
+        if (first)
+          field = { rect: userRect(frame, drawStampBlock(page, frame, fonts, stamp, originalCount + 1)) };
       });
       slots.push({ o, frame, page });
     });
