@@ -16,9 +16,10 @@ const require = createRequire(import.meta.url);
  * A WOFF 1.0 file unwrapped into the plain TrueType (sfnt) font it carries (W3C WOFF 1.0,
  * section 5: the same tables, each zlib-compressed or stored). fontkit reads a WOFF font by
  * inflating a table again on every access — once per glyph for `glyf` — which made embedding
- * the fonts most of a return's fixed cost; the unwrapped font is read directly.
+ * the fonts most of a return's fixed cost; the unwrapped font is read directly. Tables named in
+ * `drop` are left out.
  */
-export function woffToSfnt(woff: Uint8Array): Uint8Array {
+export function woffToSfnt(woff: Uint8Array, drop: ReadonlySet<string> = new Set()): Uint8Array {
   const src = Buffer.from(woff.buffer, woff.byteOffset, woff.byteLength);
   if (src.toString('latin1', 0, 4) !== 'wOFF') throw new Error('not a WOFF 1.0 font');
   const flavor = src.readUInt32BE(4);
@@ -29,22 +30,24 @@ export function woffToSfnt(woff: Uint8Array): Uint8Array {
     const offset = src.readUInt32BE(e + 4);
     const compLength = src.readUInt32BE(e + 8);
     const origLength = src.readUInt32BE(e + 12);
+    if (drop.has(src.toString('latin1', e, e + 4))) continue;
     const raw = src.subarray(offset, offset + compLength);
     const data = compLength < origLength ? inflateSync(raw) : raw;
     if (data.length !== origLength) throw new Error('a WOFF table does not inflate to its stated length');
     tables.push({ tag: src.readUInt32BE(e), checksum: src.readUInt32BE(e + 16), data });
   }
   const pad = (n: number) => (n + 3) & ~3;
-  let size = 12 + 16 * numTables;
+  const n = tables.length;
+  let size = 12 + 16 * n;
   for (const t of tables) size += pad(t.data.length);
   const out = Buffer.alloc(size);
-  const log2 = Math.floor(Math.log2(numTables));
+  const log2 = Math.floor(Math.log2(n));
   out.writeUInt32BE(flavor, 0);
-  out.writeUInt16BE(numTables, 4);
+  out.writeUInt16BE(n, 4);
   out.writeUInt16BE(16 << log2, 6);
   out.writeUInt16BE(log2, 8);
-  out.writeUInt16BE(numTables * 16 - (16 << log2), 10);
-  let at = 12 + 16 * numTables;
+  out.writeUInt16BE(n * 16 - (16 << log2), 10);
+  let at = 12 + 16 * n;
   tables.forEach((t, i) => {
     const r = 12 + 16 * i;
     out.writeUInt32BE(t.tag, r);
@@ -56,6 +59,10 @@ export function woffToSfnt(woff: Uint8Array): Uint8Array {
   });
   return new Uint8Array(out.buffer, out.byteOffset, out.byteLength);
 }
+
+// pdf-lib draws glyphs at their advance widths and ignores the positions fontkit's layout works
+// out, so the glyph-positioning table (kerning, mark placement) is only cost: it is not loaded.
+const UNUSED_TABLES: ReadonlySet<string> = new Set(['GPOS']);
 
 /** One font file, read once per process: its TrueType bytes, fontkit's reading, its characters. */
 export class FontSource {
@@ -69,7 +76,7 @@ export class FontSource {
     readonly name: string,
     woffFile: string,
   ) {
-    this.bytes = woffToSfnt(new Uint8Array(readFileSync(require.resolve(woffFile))));
+    this.bytes = woffToSfnt(new Uint8Array(readFileSync(require.resolve(woffFile))), UNUSED_TABLES);
     this.font = fontkit.create(this.bytes);
     this.chars = new Set(this.font.characterSet);
   }

@@ -49,9 +49,9 @@ export function safeText(text: string, face: Face, keepNewlines = false): string
   return out;
 }
 
-/** Width of `text` at `size`, each run measured in the font that draws it. */
+/** Width of `text` (safe, or plain) at `size`, each run measured in the font that draws it. */
 export function widthOf(text: string, face: Face, size: number): number {
-  return face.spec.width(safeText(text, face)) * size;
+  return face.spec.width(text) * size;
 }
 
 /**
