@@ -6,7 +6,7 @@ import type { PDFPage } from 'pdf-lib';
 import { MARKUP_COLOURS, type MarkupColour } from '@shared/schemas/reviews';
 import type { MarkupKind } from '@shared/vocabulary/markups';
 import { markupToDisplay, type PageFrame } from './page-frame-pdf';
-import { fitText, hexColour, safeText, WHITE, wrapText, type Fonts } from './text-pdf';
+import { drawText, fitText, hexColour, safeText, WHITE, widthOf, wrapText, type Fonts } from './text-pdf';
 import { cloudPath } from '@shared/drawing/cloud-path';
 
 export interface MarkupToDraw {
@@ -56,7 +56,7 @@ function drawLabel(
   if (wrapText(text, fonts.bold, LABEL_SIZE, LABEL_WIDTH).length > 3)
     lines[2] = fitText(lines[2] + '…', fonts.bold, LABEL_SIZE, LABEL_WIDTH);
   const lh = LABEL_SIZE * 1.2;
-  const w = Math.max(...lines.map((l) => fonts.bold.widthOfTextAtSize(l, LABEL_SIZE)));
+  const w = Math.max(...lines.map((l) => widthOf(l, fonts.bold, LABEL_SIZE)));
   page.drawRectangle({
     x: x - 2,
     y: y - (lines.length - 1) * lh - 2.5,
@@ -66,7 +66,7 @@ function drawLabel(
     opacity: 0.85,
   });
   lines.forEach((line, i) =>
-    page.drawText(line, { x, y: y - i * lh, size: LABEL_SIZE, font: fonts.bold, color: colour }),
+    drawText(page, line, { x, y: y - i * lh, size: LABEL_SIZE, font: fonts.bold, color: colour }),
   );
 }
 
@@ -139,7 +139,7 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
         const [x, y] = markupToDisplay(frame, num(g, 'x'), num(g, 'y'));
         const lines = safeText(m.text ?? '', fonts.bold, true).split('\n');
         lines.forEach((line, i) =>
-          page.drawText(line, { x, y: y - i * size * 1.2, size, font: fonts.bold, color: colour }),
+          drawText(page, line, { x, y: y - i * size * 1.2, size, font: fonts.bold, color: colour }),
         );
         break;
       }
@@ -148,8 +148,8 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
         page.drawCircle({ x, y, size: PIN_RADIUS, color: colour, borderColor: WHITE, borderWidth: 1 });
         const label = m.number != null ? String(m.number) : '';
         const size = label.length > 2 ? 7 : 9;
-        const w = fonts.black.widthOfTextAtSize(label, size);
-        page.drawText(label, { x: x - w / 2, y: y - size * 0.35, size, font: fonts.black, color: WHITE });
+        const w = widthOf(label, fonts.black, size);
+        drawText(page, label, { x: x - w / 2, y: y - size * 0.35, size, font: fonts.black, color: WHITE });
         if (note) drawLabel(page, fonts, note, x + PIN_RADIUS + 3, y + 3, colour);
         break;
       }

@@ -3,7 +3,7 @@
 // Nothing here decides where anything goes.
 import { degrees, LineCapStyle, type Color, type PDFPage } from 'pdf-lib';
 import type { Point, Scene, Stroke, TextMetrics } from '@shared/drawing/scene';
-import { safeText, WHITE, widthOf, wrapText, type Fonts } from './text-pdf';
+import { drawText, safeText, WHITE, widthOf, wrapText, type Fonts } from './text-pdf';
 
 /** How the embedded Lato measures and wraps, for figures that keep their labels clear. */
 export function pdfMetrics(fonts: Fonts): TextMetrics {
@@ -98,7 +98,7 @@ export function paintScene<R extends string>(
             color: WHITE,
             rotate,
           });
-        page.drawText(t, { x, y, size: s.size, font, color: colours[s.role], rotate });
+        drawText(page, t, { x, y, size: s.size, font, color: colours[s.role], rotate: -(s.rotate ?? 0) });
         break;
       }
     }

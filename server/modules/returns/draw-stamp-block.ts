@@ -1,7 +1,7 @@
 // The stamp block on the first page of the return: a compact white panel (230 × 150 pt) in
 // the top-right corner that reads over drawings — the decision in large type with its shape,
 // package reference, revision and title, engineer of record, reviewer, decision and issue
-// dates, the conditions (cut short with a pointer to the calculation sheet), the
+// dates, the conditions (cut short with a pointer to the calculation sheet's page), the
 // verification code with a QR code of the verification address drawn as vector squares,
 // and the caution. Also the small "REF rev N — page n of m" footer every page carries.
 import { concatTransformationMatrix, popGraphicsState, pushGraphicsState, type PDFPage } from 'pdf-lib';
@@ -11,6 +11,7 @@ import type { PageFrame } from './page-frame-pdf';
 import type { StampInput } from './stamp-input';
 import {
   drawStatusShape,
+  drawText,
   fitText,
   GRAPHITE,
   INK,
@@ -63,11 +64,21 @@ export function qrPath(text: string): { path: string; size: number } {
   return { path: path.trim(), size: n };
 }
 
-/** Conditions cut to `maxLines`, the last line ending with a pointer to the full text. */
-function conditionLines(text: string, fonts: Fonts, size: number, width: number, maxLines: number) {
+/**
+ * Conditions cut to `maxLines`, the last line ending with a pointer to the calculation sheet's
+ * first page, where they print in full.
+ */
+function conditionLines(
+  text: string,
+  fonts: Fonts,
+  size: number,
+  width: number,
+  maxLines: number,
+  sheetPage: number,
+) {
   const lines = wrapText(text, fonts.regular, size, width);
   if (lines.length <= maxLines) return lines;
-  const tail = '… see calculation sheet';
+  const tail = `… see calculation sheet, page ${sheetPage}`;
   let last = lines[maxLines - 1];
   while (last.length > 0 && widthOf(last + tail, fonts.regular, size) > width) last = last.slice(0, -1);
   return [...lines.slice(0, maxLines - 1), last.trimEnd() + tail];
@@ -85,7 +96,14 @@ export interface FrameBox {
  * Draw the stamp block; must run inside the first page's display frame. Returns the box of its
  * verification rows in the display frame: the return's visible signature field goes there.
  */
-export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s: StampBlockData): FrameBox {
+export function drawStampBlock(
+  page: PDFPage,
+  frame: PageFrame,
+  fonts: Fonts,
+  s: StampBlockData,
+  /** The return's page number of the calculation sheet's first page. */
+  sheetPage: number,
+): FrameBox {
   const W = STAMP_WIDTH;
   const H = STAMP_HEIGHT;
   const margin = Math.min(18, frame.width * 0.04, frame.height * 0.04);
@@ -98,7 +116,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   const band = 15;
   page.drawRectangle({ x: 0, y: 0, width: W, height: H, color: WHITE, borderColor: INK, borderWidth: 1.4 });
   page.drawRectangle({ x: 0, y: H - band, width: W, height: band, color: GRAPHITE });
-  page.drawText('REVIEW STAMP', {
+  drawText(page, 'REVIEW STAMP', {
     x: pad,
     y: H - band + 4.6,
     size: 6.5,
@@ -106,7 +124,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
     color: WHITE,
   });
   const issued = `issued ${tradeDate(s.issuedAt, s.timeZone)}`;
-  page.drawText(issued, {
+  drawText(page, issued, {
     x: W - pad - widthOf(issued, fonts.bold, 6.5),
     y: H - band + 4.6,
     size: 6.5,
@@ -128,7 +146,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   while (dSize > 9 && widthOf(label, fonts.black, dSize) > colW - 22) dSize -= 0.5;
   let y = H - band - 19;
   drawStatusShape(page, DECISION_SHAPES[s.decision] ?? 'caution', pad, y - 1.5, 13);
-  page.drawText(fitText(label, fonts.black, dSize, colW - 17), {
+  drawText(page, fitText(label, fonts.black, dSize, colW - 17), {
     x: pad + 17,
     y,
     size: dSize,
@@ -136,7 +154,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
     color: INK,
   });
   y -= 13;
-  page.drawText(fitText(`${s.reference} · revision ${s.revision}`, fonts.bold, 7.5, colW), {
+  drawText(page, fitText(`${s.reference} · revision ${s.revision}`, fonts.bold, 7.5, colW), {
     x: pad,
     y,
     size: 7.5,
@@ -144,7 +162,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
     color: INK,
   });
   y -= 9;
-  page.drawText(fitText(s.title, fonts.regular, 6.5, colW), {
+  drawText(page, fitText(s.title, fonts.regular, 6.5, colW), {
     x: pad,
     y,
     size: 6.5,
@@ -159,8 +177,8 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   y -= 3;
   for (const [k2, v] of rows) {
     y -= 9;
-    page.drawText(k2, { x: pad, y, size: 6, font: fonts.regular, color: INK_SOFT });
-    page.drawText(fitText(v, fonts.bold, 6.5, colW - 58), {
+    drawText(page, k2, { x: pad, y, size: 6, font: fonts.regular, color: INK_SOFT });
+    drawText(page, fitText(v, fonts.bold, 6.5, colW - 58), {
       x: pad + 58,
       y,
       size: 6.5,
@@ -174,15 +192,15 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   y = Math.min(y, qrTop - qrSide) - 6;
   page.drawLine({ start: { x: pad, y: y + 4 }, end: { x: W - pad, y: y + 4 }, thickness: 0.6, color: RULE });
   y -= 4;
-  page.drawText('Conditions', { x: pad, y, size: 6, font: fonts.bold, color: INK });
+  drawText(page, 'Conditions', { x: pad, y, size: 6, font: fonts.bold, color: INK });
   const cond = s.conditions.trim() || 'None.';
-  const condLines = conditionLines(cond, fonts, 6.3, fullW - 38, 3);
+  const condLines = conditionLines(cond, fonts, 6.3, fullW - 38, 3, sheetPage);
   condLines.forEach((line, i) =>
-    page.drawText(line, { x: pad + 38, y: y - i * 7.4, size: 6.3, font: fonts.regular, color: INK }),
+    drawText(page, line, { x: pad + 38, y: y - i * 7.4, size: 6.3, font: fonts.regular, color: INK }),
   );
   y -= condLines.length * 7.4 + 3;
-  page.drawText('Verify', { x: pad, y, size: 6, font: fonts.bold, color: INK });
-  page.drawText(fitText(s.verificationCode, fonts.black, 7.5, fullW - 38), {
+  drawText(page, 'Verify', { x: pad, y, size: 6, font: fonts.bold, color: INK });
+  drawText(page, fitText(s.verificationCode, fonts.black, 7.5, fullW - 38), {
     x: pad + 38,
     y,
     size: 7.5,
@@ -192,7 +210,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   const verifyTop = y + 8;
   y -= 7;
   const verifyBottom = y - 2.5;
-  page.drawText(fitText(s.verificationUrl, fonts.regular, 5.5, fullW - 38), {
+  drawText(page, fitText(s.verificationUrl, fonts.regular, 5.5, fullW - 38), {
     x: pad + 38,
     y,
     size: 5.5,
@@ -201,7 +219,7 @@ export function drawStampBlock(page: PDFPage, frame: PageFrame, fonts: Fonts, s:
   });
   const caution = wrapText(SHORT_CAUTION, fonts.bold, 5.6, fullW);
   caution.forEach((line, i) =>
-    page.drawText(line, {
+    drawText(page, line, {
       x: pad,
       y: 4.5 + (caution.length - 1 - i) * 6.6,
       size: 5.6,
@@ -247,5 +265,5 @@ export function drawFooter(page: PDFPage, frame: PageFrame, fonts: Fonts, text: 
     color: WHITE,
     opacity: FOOTER.panelOpacity,
   });
-  page.drawText(t, { x, y, size, font: fonts.bold, color: INK });
+  drawText(page, t, { x, y, size, font: fonts.bold, color: INK });
 }

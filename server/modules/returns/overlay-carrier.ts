@@ -7,7 +7,7 @@
 // Only a page with something of its own (markups, the stamp block) is drawn on a pdf-lib page
 // (a scratch page, removed again once its drawing is a form). A page that carries only the
 // footer gets a small form written here directly: the footer's white panel and one line of
-// text in the shared bold font and transparency state, so its cost is a few hundred bytes and
+// text in the shared bold face's fonts and transparency state, so its cost is a few hundred bytes and
 // no page layout.
 import {
   PDFArray,
@@ -16,10 +16,10 @@ import {
   PDFName,
   PDFRef,
   type PDFDocument,
-  type PDFFont,
   type PDFPage,
 } from 'pdf-lib';
 import { FOOTER, type FooterLayout } from './draw-stamp-block';
+import type { Face } from './fonts-pdf';
 import { displayToUser, type PageFrame } from './page-frame-pdf';
 
 export const CARRIER_FORM = 'CPStamp';
@@ -52,39 +52,57 @@ export function pageForm(page: PDFPage): PDFRef {
 
 const num = (n: number) => String(Math.round(n * 1000) / 1000);
 
-/** Footer-only forms of one return share one resources dictionary (bold font, 0.9 opacity). */
+/**
+ * Footer-only forms of one return share resources (the footer face's fonts as /F0, /F1…, 0.9
+ * opacity): one dictionary per set of fonts the footer text needs, usually Lato bold alone.
+ */
 export class FooterForms {
-  private resources: PDFRef | null = null;
+  private readonly resources = new Map<string, PDFRef>();
+  private gs: PDFRef | null = null;
 
   constructor(
     private readonly doc: PDFDocument,
-    private readonly bold: PDFFont,
+    private readonly face: Face,
   ) {}
 
-  private sharedResources(): PDFRef {
-    if (!this.resources) {
+  private sharedResources(fonts: number[]): PDFRef {
+    const key = fonts.join(' ');
+    let ref = this.resources.get(key);
+    if (!ref) {
       const ctx = this.doc.context;
-      const gs = ctx.register(ctx.obj({ Type: 'ExtGState', ca: FOOTER.panelOpacity }));
-      this.resources = ctx.register(ctx.obj({ Font: { F: this.bold.ref }, ExtGState: { G: gs } }));
+      this.gs ??= ctx.register(ctx.obj({ Type: 'ExtGState', ca: FOOTER.panelOpacity }));
+      const named: Record<string, PDFRef> = {};
+      for (const at of fonts) named[`F${at}`] = this.face.font(at).ref;
+      ref = ctx.register(ctx.obj({ Font: named, ExtGState: { G: this.gs } }));
+      this.resources.set(key, ref);
     }
-    return this.resources;
+    return ref;
   }
 
-  /** The footer as drawFooter draws it, as a form for a page with `media` and `frame`. */
+  /** The footer as drawFooter draws it (its text already safe), as a form for a page with `media` and `frame`. */
   form(media: Box, frame: PageFrame, layout: FooterLayout): PDFRef {
     const ctx = this.doc.context;
     const [a, b, c, d, e, f] = displayToUser(frame);
     const [r, g, bl] = FOOTER.ink;
-    const hex = this.bold.encodeText(layout.text).toString();
+    const { spec } = this.face;
+    let x = layout.x;
+    const shows: string[] = [];
+    const runs = spec.runs(layout.text);
+    for (const run of runs) {
+      const hex = this.face.font(run.at).encodeText(run.text).toString();
+      shows.push(`/F${run.at} ${FOOTER.size} Tf 1 0 0 1 ${num(x)} ${num(layout.y)} Tm ${hex} Tj`);
+      x += spec.sources[run.at].width(run.text) * FOOTER.size;
+    }
     const ops = [
       `q ${[a, b, c, d, e, f].map(num).join(' ')} cm`,
       `q /G gs 1 1 1 rg ${num(layout.x - 3)} ${num(layout.y - 2.5)} ${num(layout.width + 6)} ${num(FOOTER.size + 4)} re f Q`,
-      `BT ${num(r)} ${num(g)} ${num(bl)} rg /F ${FOOTER.size} Tf 1 0 0 1 ${num(layout.x)} ${num(layout.y)} Tm ${hex} Tj ET`,
+      `BT ${num(r)} ${num(g)} ${num(bl)} rg ${shows.join(' ')} ET`,
       'Q',
     ].join('\n');
     const stream = ctx.stream(ops, {});
     asForm(stream.dict, media, undefined, this.doc);
-    stream.dict.set(PDFName.of('Resources'), this.sharedResources());
+    const fonts = [...new Set(runs.map((run) => run.at))].sort((p, q) => p - q);
+    stream.dict.set(PDFName.of('Resources'), this.sharedResources(fonts));
     return ctx.register(stream);
   }
 }

@@ -41,7 +41,7 @@ import { drawFooter, drawStampBlock, footerLayout, type FrameBox } from './draw-
 import { displayToUser, frameOf, inDisplayFrame, type PageFrame } from './page-frame-pdf';
 import { FooterForms, indexPage, pageForm } from './overlay-carrier';
 import { assembleReturn, signReturn, type SignatureField } from './return-structure';
-import { embedLato } from './text-pdf';
+import { embedFonts } from './fonts-pdf';
 import type { StampInput } from './stamp-input';
 
 export type { StampInput } from './stamp-input';
@@ -119,7 +119,7 @@ function frameFromBoxes(o: OriginalPage): PageFrame {
 async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
   const { stamp } = input;
   const out = await PDFDocument.create({ updateMetadata: false });
-  const fonts = await embedLato(out);
+  const fonts = embedFonts(out);
   let field: { rect: Box } | null = null;
   const originalCount = originals.reduce((n, pages) => n + pages.length, 0);
   type Slot = { o: OriginalPage; frame: PageFrame; page: PDFPage | null };
@@ -139,7 +139,8 @@ async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
       const frame = frameOf(page);
       inDisplayFrame(page, frame, () => {
         drawMarkups(page, frame, marks, fonts);
-        if (first) field = { rect: userRect(frame, drawStampBlock(page, frame, fonts, stamp)) };
+        if (first)
+          field = { rect: userRect(frame, drawStampBlock(page, frame, fonts, stamp, originalCount + 1)) };
       });
       slots.push({ o, frame, page });
     });

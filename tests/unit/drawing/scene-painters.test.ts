@@ -7,7 +7,7 @@ import { renderToStaticMarkup } from 'react-dom/server';
 import { describe, expect, it, vi } from 'vitest';
 import type { Scene } from '@shared/drawing/scene';
 import { paintScene } from '@server/modules/returns/draw-scene';
-import { embedLato, widthOf } from '@server/modules/returns/text-pdf';
+import { embedFonts, widthOf } from '@server/modules/returns/text-pdf';
 import { SceneSvg } from '@/components/lift/scene-svg';
 
 type Role = 'ink' | 'soft';
@@ -35,7 +35,7 @@ const scene: Scene<Role> = {
 describe('scene painters', () => {
   it('when the PDF painter paints into a box at (100, 200), then every y is flipped inside it', async () => {
     const doc = await PDFDocument.create();
-    const fonts = await embedLato(doc);
+    const fonts = embedFonts(doc);
     const page = doc.addPage([300, 300]);
     const calls = {
       line: vi.spyOn(page, 'drawLine'),

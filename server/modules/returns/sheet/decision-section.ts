@@ -65,12 +65,14 @@ export function decisionPanel(flow: Flow, input: StampInput) {
   );
   flow.text('Conditions', x, top - 92, 8.5, fonts.black);
   flow.y = top - 92 + 11.5 - 2;
+  const firstPage = flow.page;
   for (const line of condLines) {
     if (flow.y - 11.5 < BOTTOM) flow.newPage();
     flow.y -= 11.5;
     flow.text(line, x + 72, flow.y + 2, 8.5, fonts.regular);
   }
-  flow.y = Math.min(flow.y - 12, top - h);
+  // Conditions that ran onto another page go on from their last line there.
+  flow.y = flow.page === firstPage ? Math.min(flow.y - 12, top - h) : flow.y - 12;
 }
 
 export function cautionPanel(flow: Flow, result: LiftResult | null) {

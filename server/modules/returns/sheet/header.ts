@@ -4,14 +4,14 @@ import type { PDFPage } from 'pdf-lib';
 import { DECISION_LABELS } from '@shared/schemas/common';
 import { tradeDate } from '@shared/vocabulary/dates';
 import type { StampInput } from '../stamp-input';
-import { fitText, GRAPHITE, INK, INK_SOFT, widthOf, type Fonts } from '../text-pdf';
+import { drawText, fitText, GRAPHITE, INK, INK_SOFT, widthOf, type Fonts } from '../text-pdf';
 import { LEFT, PAGE_H, RIGHT, WIDTH } from './layout';
 
 export function drawSheetHeader(page: PDFPage, fonts: Fonts, input: StampInput, n: number, total: number) {
   const { stamp } = input;
   const top = PAGE_H - 30;
   page.drawRectangle({ x: LEFT, y: top + 8, width: WIDTH, height: 3, color: GRAPHITE });
-  page.drawText('CALCULATION SHEET · STAMPED RETURN', {
+  drawText(page, 'CALCULATION SHEET · STAMPED RETURN', {
     x: LEFT,
     y: top - 4,
     size: 7,
@@ -19,14 +19,14 @@ export function drawSheetHeader(page: PDFPage, fonts: Fonts, input: StampInput, 
     color: INK_SOFT,
   });
   const ref = `${stamp.reference} · revision ${stamp.revision}`;
-  page.drawText(fitText(ref, fonts.black, 12, WIDTH - 130), {
+  drawText(page, fitText(ref, fonts.black, 12, WIDTH - 130), {
     x: LEFT,
     y: top - 19,
     size: 12,
     font: fonts.black,
     color: INK,
   });
-  page.drawText(fitText(stamp.title, fonts.regular, 8, WIDTH - 130), {
+  drawText(page, fitText(stamp.title, fonts.regular, 8, WIDTH - 130), {
     x: LEFT,
     y: top - 31,
     size: 8,
@@ -34,7 +34,7 @@ export function drawSheetHeader(page: PDFPage, fonts: Fonts, input: StampInput, 
     color: INK,
   });
   const pg = `page ${n} of ${total}`;
-  page.drawText(pg, {
+  drawText(page, pg, {
     x: RIGHT - widthOf(pg, fonts.black, 10),
     y: top - 19,
     size: 10,
@@ -42,7 +42,7 @@ export function drawSheetHeader(page: PDFPage, fonts: Fonts, input: StampInput, 
     color: INK,
   });
   const dl = `${DECISION_LABELS[stamp.decision]} · ${tradeDate(stamp.issuedAt, stamp.timeZone)}`;
-  page.drawText(fitText(dl, fonts.bold, 7.5, 125), {
+  drawText(page, fitText(dl, fonts.bold, 7.5, 125), {
     x: RIGHT - Math.min(125, widthOf(dl, fonts.bold, 7.5)),
     y: top - 31,
     size: 7.5,
