@@ -134,19 +134,21 @@ export function SubmissionEditor({
             <h2 id="step-title" className="mb-3 text-[17px] font-black">
               {index + 1}. {current.title}
             </h2>
-            {(step === 'crane' || step === 'chart') && library?.picker(fillFromLibrary)}
+            {(step === 'crane' || step === 'chart') && library?.picker((f) => fillFromLibrary(f, 0), 0)}
             <FieldGroups
               groups={current.groups}
               values={live}
               system={system}
-              locked={library?.locked ? isLibraryPath : undefined}
+              locked={library?.locked(0) ? isLibraryPath : undefined}
             />
             {step === 'chart' && (
-              <fieldset className="contents" disabled={!!library?.locked}>
+              <fieldset className="contents" disabled={!!library?.locked(0)}>
                 <ChartRowsEditor system={system} />
               </fieldset>
             )}
-            {step === 'cranes' && <MultiCraneEditor system={system} />}
+            {step === 'cranes' && (
+              <MultiCraneEditor system={system} library={library && { ...library, fill: fillFromLibrary }} />
+            )}
             {step === 'documents' && (
               <DocumentsStep
                 detail={detail}
