@@ -3,6 +3,7 @@
 // point). The crane entered in the first steps is crane 1. Fields come from multi-crane-steps.
 // With the fleet library, each other crane has its own picker (slot index + 1): a crane picked
 // from the library keeps its configuration and chart read-only until a copy is detached.
+import { useState } from 'react';
 import { useFieldArray, useWatch } from 'react-hook-form';
 import type { LibraryFill } from '@shared/library/to-lift-input';
 import type { UnitSystem } from '@shared/schemas/common';
@@ -65,6 +66,13 @@ export function MultiCraneEditor({
   const multi = useWatch({ control, name: 'multiCrane' });
   const values = useWatch({ control }) as Record<string, unknown>;
   const { fields, append, remove } = useFieldArray({ control, name: 'multiCrane.others' });
+  // A fill from the library remounts that crane's chart rows editor, so its rows and column units
+  // are read again from the filled chart.
+  const [fills, setFills] = useState<Record<number, number>>({});
+  const fillSlot = (f: LibraryFill, slot: number) => {
+    library?.fill(f, slot);
+    setFills((n) => ({ ...n, [slot]: (n[slot] ?? 0) + 1 }));
+  };
 
   if (!multi) {
     return (
@@ -118,7 +126,7 @@ export function MultiCraneEditor({
                 Remove crane
               </Button>
             </header>
-            {library?.picker((f) => library.fill(f, slot), slot)}
+            {library?.picker((f) => fillSlot(f, slot), slot)}
             <FieldGroups
               groups={otherCraneGroups(index)}
               values={values}
@@ -126,7 +134,11 @@ export function MultiCraneEditor({
               locked={locked ? (path) => isSlotLibraryPath(slot, path) : undefined}
             />
             <fieldset className="contents" disabled={locked}>
-              <ChartRowsEditor system={system} base={`multiCrane.others.${index}.chart`} />
+              <ChartRowsEditor
+                key={fills[slot] ?? 0}
+                system={system}
+                base={`multiCrane.others.${index}.chart`}
+              />
             </fieldset>
           </section>
         );

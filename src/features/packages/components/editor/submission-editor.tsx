@@ -43,6 +43,8 @@ export function SubmissionEditor({
   const { control, reset, formState } = form;
   const values = useLiftValues(control);
   const fillFromLibrary = useLibraryFill(form);
+  // A fill from the library remounts the chart rows editor: its rows and column units are read again.
+  const [chartFills, setChartFills] = useState(0);
 
   const [title, setTitle] = useState(detail.package.title);
   const [plannedLiftDate, setPlannedLiftDate] = useState(detail.package.plannedLiftDate ?? '');
@@ -134,7 +136,11 @@ export function SubmissionEditor({
             <h2 id="step-title" className="mb-3 text-[17px] font-black">
               {index + 1}. {current.title}
             </h2>
-            {(step === 'crane' || step === 'chart') && library?.picker((f) => fillFromLibrary(f, 0), 0)}
+            {(step === 'crane' || step === 'chart') &&
+              library?.picker((f) => {
+                fillFromLibrary(f, 0);
+                setChartFills((n) => n + 1);
+              }, 0)}
             <FieldGroups
               groups={current.groups}
               values={live}
@@ -143,7 +149,7 @@ export function SubmissionEditor({
             />
             {step === 'chart' && (
               <fieldset className="contents" disabled={!!library?.locked(0)}>
-                <ChartRowsEditor system={system} />
+                <ChartRowsEditor key={chartFills} system={system} />
               </fieldset>
             )}
             {step === 'cranes' && (
