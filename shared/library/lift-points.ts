@@ -11,6 +11,8 @@ import { si, siOr } from '../engineering/units';
 
 export interface CraneLiftFigures {
   slot: number;
+  /** how many cranes the lift has (1 for a single crane), so a label can say "crane 2" */
+  cranesInLift: number;
   /** the check's radius (m) and this crane's gross load (N); null before a check has run */
   radius: number | null;
   grossLoad: number | null;
@@ -40,6 +42,7 @@ export function craneLiftFigures(inputs: unknown, result: LiftResult | null, slo
   const fig = result ? figuresOf(result, slot) : { radius: null, grossLoad: null };
   const out: CraneLiftFigures = {
     slot,
+    cranesInLift: result?.cranes?.length ?? 1,
     ...fig,
     blockHeight: null,
     clearance: result ? result.policy.minBlockClearanceM : null,
@@ -48,6 +51,7 @@ export function craneLiftFigures(inputs: unknown, result: LiftResult | null, slo
   const parsed = LiftInput.safeParse(inputs);
   if (!parsed.success) return out;
   const input = upgradeLiftInput(parsed.data);
+  if (input.multiCrane) out.cranesInLift = input.multiCrane.others.length + 1;
   const other = slot > 0 ? input.multiCrane?.others[slot - 1] : undefined;
   if (slot > 0 && !other) return out;
   const own = other ? { ...input, rigging: other.rigging, hookBlock: other.hookBlock } : input;

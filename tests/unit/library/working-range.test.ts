@@ -90,6 +90,7 @@ describe('a package on the chart', () => {
     expect(f.clearance).toBe(result.policy.minBlockClearanceM);
     // 6 m lift height + 1.8 m load height + 2.5 m rigging height = 10.3 m
     expect(f.neededHookHeight).toBeCloseTo(10.3, 9);
+    expect(f.cranesInLift).toBe(1);
   });
 
   it('when the hook needed is set against the working range, then the margin is the engine’s block clearance less the minimum', () => {
@@ -121,6 +122,7 @@ describe('a package on the chart', () => {
     expect(f.blockHeight).toBeCloseTo(1.1, 9);
     // 6 m lift height + 1.4 m load height + 3.0 m of crane 2's rigging
     expect(f.neededHookHeight).toBeCloseTo(10.4, 9);
+    expect(f.cranesInLift).toBe(2);
     // a slot the lift does not have gives nothing to draw
     expect(craneLiftFigures(raw, result, 3)).toMatchObject({
       radius: null,

@@ -192,7 +192,7 @@ export function ChartPlots({
   const lu = TO_SI[u.radius];
   const cu = TO_SI[u.capacity];
   const cranes = fromPackage?.cranes ?? [];
-  const several = cranes.length > 1 || cranes.some((c) => c.slot > 0);
+  const several = cranes.some((c) => c.cranesInLift > 1);
   const who = (c: CraneLiftFigures) => `${fromPackage?.reference}${several ? ` ${craneName(c.slot)}` : ''}`;
 
   // The allowance from the tip to the hook: the package's hook block and the site's clearance when
@@ -278,8 +278,10 @@ export function ChartPlots({
               rotation.
             </p>
           )}
-          <label htmlFor={allowanceId} className="mt-1 flex flex-wrap items-center gap-2">
-            <span className="font-bold">Allowance from boom tip to hook ({u.radius})</span>
+          <div className="mt-1 flex flex-wrap items-center gap-2">
+            <label htmlFor={allowanceId} className="font-bold">
+              Allowance from boom tip to hook ({u.radius})
+            </label>
             <input
               id={allowanceId}
               inputMode="decimal"
@@ -293,7 +295,7 @@ export function ChartPlots({
                 Enter a length of 0 {u.radius} or more; drawn with {f(initial)} meanwhile.
               </span>
             )}
-          </label>
+          </div>
           <p className="text-ink-soft">
             {known
               ? `From ${fromPackage?.reference}: hook block height ${f(first.blockHeight ?? 0)}${first.blockHeight === null ? ' (not entered)' : ''} + clearance kept under the tip ${f(first.clearance ?? 0)} (the site policy's minimum block clearance).`
