@@ -221,7 +221,7 @@ describe('fleet library', () => {
       expect(await name.isDisabled()).toBe(true);
       expect(await crane2.getByLabel('Crane type').isDisabled()).toBe(true);
       expect(await crane2.getByLabel('Boom length', { exact: true }).isDisabled()).toBe(false);
-      expect(await crane2.getByLabel('Pick point x').isDisabled()).toBe(false);
+      expect(await crane2.getByLabel('Pick point x', { exact: true }).isDisabled()).toBe(false);
       const rows = crane2.getByRole('table', { name: 'Chart rows' });
       expect(await rows.getByRole('row').count()).toBe(1 + 16);
       expect(await rows.getByRole('textbox').first().isDisabled()).toBe(true);

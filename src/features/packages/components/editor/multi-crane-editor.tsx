@@ -133,13 +133,12 @@ export function MultiCraneEditor({
               system={system}
               locked={locked ? (path) => isSlotLibraryPath(slot, path) : undefined}
             />
-            <fieldset className="contents" disabled={locked}>
-              <ChartRowsEditor
-                key={fills[slot] ?? 0}
-                system={system}
-                base={`multiCrane.others.${index}.chart`}
-              />
-            </fieldset>
+            <ChartRowsEditor
+              disabled={locked}
+              key={fills[slot] ?? 0}
+              system={system}
+              base={`multiCrane.others.${index}.chart`}
+            />
           </section>
         );
       })}

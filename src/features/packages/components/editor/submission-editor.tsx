@@ -148,9 +148,7 @@ export function SubmissionEditor({
               locked={library?.locked(0) ? isLibraryPath : undefined}
             />
             {step === 'chart' && (
-              <fieldset className="contents" disabled={!!library?.locked(0)}>
-                <ChartRowsEditor key={chartFills} system={system} />
-              </fieldset>
+              <ChartRowsEditor key={chartFills} system={system} disabled={!!library?.locked(0)} />
             )}
             {step === 'cranes' && (
               <MultiCraneEditor system={system} library={library && { ...library, fill: fillFromLibrary }} />
