@@ -225,7 +225,8 @@ describe('fleet library', () => {
       const rows = crane2.getByRole('table', { name: 'Chart rows' });
       expect(await rows.getByRole('row').count()).toBe(1 + 16);
       expect(await rows.getByRole('textbox').first().isDisabled()).toBe(true);
-      await picker.scrollIntoViewIfNeeded();
+      // crane 2's picker at the top of the window, its filled, read-only fields below it
+      await picker.evaluate((el) => el.scrollIntoView({ block: 'start' }));
       await screenshot(page, 'library-pick-crane-2');
       const violations = await seriousViolations(page);
       expect(violations, describeViolations(violations)).toEqual([]);
@@ -360,6 +361,8 @@ describe('fleet library', () => {
       const allowance = range.getByLabel('Allowance from boom tip to hook (m)');
       expect(Number(await allowance.inputValue())).toBeGreaterThan(1.4);
       await screenshot(page, 'library-version-from-package');
+      await range.evaluate((el) => el.scrollIntoView({ block: 'end' }));
+      await screenshot(page, 'library-working-range');
       violations = await seriousViolations(page);
       expect(violations, describeViolations(violations)).toEqual([]);
     });

@@ -103,7 +103,7 @@ export function LibraryPicker({
     >
       {use ? (
         <div className="flex flex-wrap items-center gap-2 text-[13.5px]">
-          <p className="flex-1">
+          <p className="min-w-[16rem] flex-[1_1_24rem]">
             <strong>{use.detached ? 'Detached copy of' : 'From the fleet library:'}</strong>{' '}
             {use.version.crane}, {use.version.configurationName} (library version {use.version.number}).{' '}
             {use.detached
@@ -129,7 +129,7 @@ export function LibraryPicker({
         </div>
       ) : (
         <div className="flex flex-wrap items-center gap-2 text-[13.5px]">
-          <p className="flex-1">
+          <p className="min-w-[16rem] flex-[1_1_24rem]">
             Pick {crane} and its configuration from your fleet library instead of typing its data and chart.
           </p>
           <Button size="sm" variant="primary" onClick={() => setOpen((o) => !o)}>

@@ -46,7 +46,13 @@ export function VerifyForm({
         />
       </label>
       <div>
-        <Button type="submit" variant="primary" disabled={!note.trim() || verify.isPending}>
+        <Button
+          type="submit"
+          variant="primary"
+          disabled={!note.trim() || verify.isPending}
+          // wraps in the review workspace's narrow column
+          className="h-auto! min-h-9 py-1.5 text-left whitespace-normal!"
+        >
           Mark the chart verified against the manufacturer's document
         </Button>
       </div>
