@@ -1,41 +1,90 @@
 // The pictures of a chart grid as plain data, drawn by a thin SVG renderer in the client:
-// capacity against radius (one line per boom length) and the working range (boom-tip height
-// against radius for each boom length). Pure; lengths in the chart's own length unit.
-// Tip height: a straight boom of length L hinged at the pivot (offset ahead of the centre of
-// rotation, height above ground) reaches the radius R at a height pivotHeight + √(L² − (R − offset)²)
-// (geometry; the engine's crane-model.ts uses the same pivot convention).
+// capacity against radius (one line per boom length) and the working range (hook height against
+// radius for each boom length). Pure; lengths in the chart's own length unit.
+//
+// Working range (plane geometry, the engine's convention in checks/geometry.ts): a straight boom of
+// length L hinged at the pivot — `a` ahead of the centre of rotation, `h0` above the ground —
+// reaches the radius R with its tip at h0 + √(L² − (R − a)²). The hook hangs below the tip by the
+// allowance d = hook block height (tip sheave to hook, as the lift input's hookBlock.height) + the
+// clearance kept under the tip (the site policy's minimum block clearance), so
+//   hook height = h0 + √(L² − (R − a)²) − d.
+// The engine's block-clearance check passes exactly when the hook needed for the lift (required
+// lift height + load height + rigging height) is at or below this hook height.
 import { TO_SI } from '../engineering/units';
 import type { ChartGrid } from './chart-grid';
 
+export interface PlotPoint {
+  x: number;
+  y: number;
+  /** a radius the chart rates (drawn with a marker); sampled points between them are not */
+  rated?: boolean;
+}
+
 export interface PlotLine {
   boomLength: number;
-  points: { x: number; y: number }[];
+  points: PlotPoint[];
 }
 
 export function capacityLines(g: ChartGrid): PlotLine[] {
   return g.boomLengths.map((b, j) => ({
     boomLength: b,
     points: g.radii
-      .map((r, i) => ({ x: r, y: g.capacities[i][j] }))
-      .filter((p): p is { x: number; y: number } => p.y !== null),
+      .map((r, i) => ({ x: r, y: g.capacities[i][j], rated: true }))
+      .filter((p): p is { x: number; y: number; rated: true } => p.y !== null),
   }));
 }
 
-/** pivotOffset and pivotHeight in SI (m); the result in the chart's length unit. */
-export function workingRange(g: ChartGrid, pivotOffsetSI = 0, pivotHeightSI = 0): PlotLine[] {
+/** What the working range is drawn from, in SI (m). */
+export interface RangeBasis {
+  /** boom foot pin ahead of the centre of rotation (a) */
+  pivotOffset: number;
+  /** boom foot pin above the ground (h0) */
+  pivotHeight: number;
+  /** from the boom tip down to the hook (d): block height + clearance kept under the tip */
+  allowance: number;
+}
+
+/**
+ * Hook height (m) at radius R (m) for a boom of length L (m): h0 + √(L² − (R − a)²) − d.
+ * Null when the boom cannot reach the radius (|R − a| > L).
+ */
+export function hookHeight(L: number, R: number, b: RangeBasis): number | null {
+  const reach = R - b.pivotOffset;
+  const h2 = L * L - reach * reach;
+  if (!(h2 >= 0)) return null;
+  return b.pivotHeight + Math.sqrt(h2) - b.allowance;
+}
+
+/**
+ * The working range: for each boom length, the hook height across the radii the chart rates it
+ * (from its smallest to its largest rated radius, `samples` steps between them so the arc reads as
+ * one), in the chart's radius unit on both axes. Radii the boom cannot reach, and hook heights
+ * below the ground, are left out.
+ */
+export function workingRange(g: ChartGrid, b: RangeBasis, samples = 24): PlotLine[] {
   const lu = TO_SI[g.units.boomLength];
   const ru = TO_SI[g.units.radius];
-  return g.boomLengths.map((b, j) => {
-    const L = b * lu;
-    const points = g.radii
-      .filter((_, i) => g.capacities[i][j] !== null)
-      .map((r) => {
-        const reach = r * ru - pivotOffsetSI;
-        const h2 = L * L - reach * reach;
-        return h2 >= 0 ? { x: r, y: (pivotHeightSI + Math.sqrt(h2)) / ru } : null;
+  return g.boomLengths.map((boom, j) => {
+    const L = boom * lu;
+    const rated = g.radii.filter((_, i) => g.capacities[i][j] !== null);
+    const xs = new Map<number, boolean>();
+    for (const r of rated) xs.set(r, true);
+    if (rated.length > 1 && samples > 0) {
+      const lo = Math.min(...rated);
+      const hi = Math.max(...rated);
+      for (let k = 1; k < samples; k++) {
+        const x = lo + ((hi - lo) * k) / samples;
+        if (!xs.has(x)) xs.set(x, false);
+      }
+    }
+    const points = [...xs.entries()]
+      .sort((p, q) => p[0] - q[0])
+      .map(([x, isRated]) => {
+        const h = hookHeight(L, x * ru, b);
+        return h !== null && h >= 0 ? { x, y: h / ru, ...(isRated ? { rated: true } : {}) } : null;
       })
-      .filter((p): p is { x: number; y: number } => p !== null);
-    return { boomLength: b, points };
+      .filter((p): p is PlotPoint => p !== null);
+    return { boomLength: boom, points };
   });
 }
 

@@ -9,6 +9,7 @@ import twoCranes from '@shared/engineering/examples/caution-two-cranes.json';
 import { evaluateLift } from '@shared/engineering/evaluate';
 import { LiftInput } from '@shared/schemas/lift-input';
 import { labelOfAnyPath } from '@shared/catalogue/multi-crane-steps';
+import type { LibraryUse, VersionDetail } from '@shared/schemas/library';
 import { makeUser, renderApp, stubFetch } from './support';
 import { makeDetail } from './package-fixtures';
 
@@ -17,8 +18,12 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-function openEditor(detail: ReturnType<typeof makeDetail>, step = 'cranes') {
+type Stub = Parameters<typeof stubFetch>[0];
+
+function openEditor(detail: ReturnType<typeof makeDetail>, step = 'cranes', more?: Stub) {
   const fetchMock = stubFetch((url, init) => {
+    const extra = more?.(url, init);
+    if (extra) return extra;
     if (url.pathname === '/api/me') return { status: 200, body: { user: makeUser('contractor') } };
     if (url.pathname === `/api/packages/${detail.package.id}/draft` && init?.method === 'PUT')
       return { status: 200, body: detail };
@@ -119,5 +124,202 @@ describe('several cranes in the submission editor', () => {
     expect(labelOfAnyPath('multiCrane.others.0.chart.rows.2.radius')).toBe('Crane 2: chart row 3');
     expect(labelOfAnyPath('multiCrane.loadCg.x')).toBe('Centre of gravity x');
     expect(labelOfAnyPath('crane.boomLength')).toBe('Boom length');
+  });
+
+  describe('with the fleet library', () => {
+    const VERSION_ID = '9d7a0e1c-3b4f-4e6a-8c2d-5f1a3b7c9e0d';
+    const version: VersionDetail = {
+      id: VERSION_ID,
+      number: 4,
+      createdAt: '2026-11-02T09:00:00.000Z',
+      createdBy: { id: '00000000-0000-4000-8000-000000000002', name: 'Lena Brisk' },
+      changeNote: null,
+      retiredAt: null,
+      usedBy: 0,
+      cellsChanged: null,
+      verified: false,
+      configurationId: '00000000-0000-4000-8000-000000000003',
+      configurationName: 'Main boom, 18 t',
+      crane: {
+        id: '00000000-0000-4000-8000-000000000004',
+        fleetNumber: 'BW-12',
+        make: 'Kestrel',
+        model: 'AT-60 east',
+        type: 'mobile_outriggers',
+        fixed: {
+          pivotOffset: { value: 1.2, unit: 'm' },
+          pivotHeight: { value: 2.8, unit: 'm' },
+          outriggerSpreads: [
+            {
+              name: 'full',
+              longitudinalSpread: { value: 7.2, unit: 'm' },
+              transverseSpread: { value: 7, unit: 'm' },
+            },
+          ],
+        },
+      },
+      details: {
+        workingArea: 'full_circle',
+        outriggerSpread: 'full',
+        hookBlock: { weight: { value: 0.45, unit: 't' } },
+      },
+      notes: { deductions: [], blockIncluded: false, interpolationAllowed: false },
+      document: { title: 'Demo chart (invented)', file: null },
+      // in feet and kip, so a chart rows editor left with the metric units of before would show
+      chart: {
+        units: { radius: 'ft', boomLength: 'ft', capacity: 'kip' },
+        boomLengths: [100],
+        radii: [30, 40, 50],
+        capacities: [[40], [30], [22]],
+      },
+      verifications: [],
+    };
+    const use = (detached: boolean): LibraryUse => ({
+      slot: 1,
+      version: {
+        id: VERSION_ID,
+        number: 4,
+        configurationName: 'Main boom, 18 t',
+        crane: 'BW-12 — Kestrel AT-60 east',
+      },
+      detached,
+      changedCells: [],
+      units: { radius: 'ft', boomLength: 'ft', capacity: 'kip' },
+      verifications: [],
+    });
+
+    it('when crane 2 comes from a library version, then its configuration and chart are read-only and its radius is not', async () => {
+      const detail = makeDetail({ inputs: twoCranes as Record<string, unknown> });
+      openEditor(detail, 'cranes', (url) =>
+        url.pathname === `/api/packages/${detail.package.id}/library-uses`
+          ? { status: 200, body: { items: [use(false)] } }
+          : undefined,
+      );
+      const crane2 = await screen.findByRole('region', { name: 'Crane 2' }, { timeout: 8000 });
+      const picker = await within(crane2).findByRole('region', { name: 'Fleet library, crane 2' });
+      await within(picker).findByText('From the fleet library:');
+      expect(
+        within(picker).getByText(/Crane 2's configuration and chart are filled from it and read-only/),
+      ).toBeTruthy();
+      await waitFor(() =>
+        expect(within(crane2).getByLabelText('Crane type').matches(':disabled')).toBe(true),
+      );
+      expect(within(crane2).getByLabelText('Crane (make, model, fleet number)').matches(':disabled')).toBe(
+        true,
+      );
+      expect(within(crane2).getByLabelText('Radius', { exact: true }).matches(':disabled')).toBe(false);
+      expect(within(crane2).getByLabelText('Boom length', { exact: true }).matches(':disabled')).toBe(false);
+      const rows = within(crane2).getByRole('table', { name: 'Chart rows' });
+      expect(within(rows).getAllByRole('textbox')[0].matches(':disabled')).toBe(true);
+      // crane 2's pick point is the planner's own
+      expect(within(crane2).getByLabelText('Pick point x').matches(':disabled')).toBe(false);
+    }, 60_000);
+
+    it('when crane 2 is picked from the library, then its configuration, chart (in the chart’s units) and block fill and the use is stored for slot 1', async () => {
+      const detail = makeDetail({
+        inputs: {
+          ...passOutriggers,
+          multiCrane: { lead: {}, others: [{ crane: { radius: { value: 12, unit: 'm' } } }] },
+        },
+      });
+      let items: LibraryUse[] = [];
+      const fetchMock = openEditor(detail, 'cranes', (url, init) => {
+        if (url.pathname === `/api/packages/${detail.package.id}/library-uses`) {
+          if (init?.method === 'PUT') items = [use(false)];
+          return { status: 200, body: { items } };
+        }
+        if (url.pathname === '/api/library/cranes')
+          return {
+            status: 200,
+            body: {
+              items: [
+                {
+                  id: version.crane.id,
+                  fleetNumber: 'BW-12',
+                  make: 'Kestrel',
+                  model: 'AT-60 east',
+                  type: 'mobile_outriggers',
+                  retiredAt: null,
+                  configurations: [
+                    {
+                      id: version.configurationId,
+                      name: 'Main boom, 18 t',
+                      retiredAt: null,
+                      current: { ...version },
+                      workingArea: 'full_circle',
+                      capacityAtRadius: null,
+                      capacityUnit: 'kip',
+                    },
+                  ],
+                },
+              ],
+            },
+          };
+        if (url.pathname === `/api/library/versions/${VERSION_ID}`) return { status: 200, body: version };
+      });
+      const user = userEvent.setup();
+      const crane2 = await screen.findByRole('region', { name: 'Crane 2' }, { timeout: 8000 });
+      await user.click(
+        await within(crane2).findByRole('button', { name: 'Pick crane 2 from the fleet library' }),
+      );
+      const list = await within(crane2).findByRole('list', { name: 'Configurations to pick for crane 2' });
+      await user.click(within(list).getByRole('button', { name: 'Use this' }));
+      await within(crane2).findByText('From the fleet library:');
+
+      const name = within(crane2).getByLabelText('Crane (make, model, fleet number)') as HTMLInputElement;
+      expect(name.value).toBe('BW-12 — Kestrel AT-60 east, Main boom, 18 t (library version 4)');
+      const rows = within(crane2).getByRole('table', { name: 'Chart rows' });
+      expect(within(rows).getAllByRole('row')).toHaveLength(4);
+      expect((within(rows).getByLabelText('Unit of the radius column') as HTMLSelectElement).value).toBe(
+        'ft',
+      );
+      expect(
+        (within(rows).getByLabelText('Unit of the rated capacity column') as HTMLSelectElement).value,
+      ).toBe('kip');
+
+      const put = fetchMock.mock.calls.find(
+        ([input, init]) => String(input).endsWith('/library-uses') && init?.method === 'PUT',
+      )!;
+      expect(JSON.parse(String(put[1]?.body))).toEqual({ versionId: VERSION_ID, slot: 1, detached: false });
+
+      // the draft saves crane 2's configuration from the library and keeps its planned radius
+      await waitFor(
+        () =>
+          expect(
+            fetchMock.mock.calls.some(([i, init]) => String(i).endsWith('/draft') && init?.method === 'PUT'),
+          ).toBe(true),
+        { timeout: 5000 },
+      );
+      const saved = fetchMock.mock.calls
+        .filter(([i, init]) => String(i).endsWith('/draft') && init?.method === 'PUT')
+        .at(-1)!;
+      const inputs = (
+        JSON.parse(String(saved[1]?.body)) as {
+          inputs: {
+            multiCrane: {
+              others: {
+                crane: { name?: string; radius?: unknown; pivotHeight?: unknown };
+                chart: { rows: unknown[] };
+                hookBlock?: unknown;
+              }[];
+            };
+            crane: { name?: string };
+          };
+        }
+      ).inputs;
+      const other = inputs.multiCrane.others[0];
+      expect(other.crane.name).toBe(name.value);
+      expect(other.crane.radius).toEqual({ value: 12, unit: 'm' });
+      expect(other.crane.pivotHeight).toEqual({ value: 2.8, unit: 'm' });
+      expect(other.chart.rows).toHaveLength(3);
+      expect(other.chart.rows[0]).toEqual({
+        radius: { value: 30, unit: 'ft' },
+        boomLength: { value: 100, unit: 'ft' },
+        capacity: { value: 40, unit: 'kip' },
+      });
+      expect(other.hookBlock).toEqual({ weight: { value: 0.45, unit: 't' } });
+      // crane 1 is left as it was
+      expect(inputs.crane.name).toBe(passOutriggers.crane.name);
+    }, 60_000);
   });
 });

@@ -1,5 +1,6 @@
 // /library/versions/:id[?package=…]: one library version as the owner side reads it from a
-// package that uses it; the engineer marks the chart verified for the desk here.
+// package that uses it; the engineer marks the chart verified for the desk here. Opened from a
+// package, the pictures show each of its cranes that uses this version (lift point, hook needed).
 import { useParams, useSearchParams } from 'react-router-dom';
 import { useCurrentUser } from '@/lib/auth';
 import { isApiError } from '@/lib/api-client';
@@ -9,10 +10,11 @@ import { ErrorPanel } from '@/components/ui/panel-message';
 import { useVersion } from '@/features/library/api/versions';
 import { VersionPanel } from '@/features/library/components/version-panel';
 import { versionLabel } from '@shared/library/to-lift-input';
-import { TO_SI } from '@shared/engineering/units';
-import type { LiftFigures } from '@shared/engineering/types';
+import { craneLiftFigures } from '@shared/library/lift-points';
+import { readStoredResult } from '@shared/engineering/stored-result';
 import { useQuery } from '@tanstack/react-query';
 import { packageQueryOptions } from '@/features/packages/api/get-package';
+import { libraryUsesQueryOptions } from '@/features/library/api/library-uses';
 
 export default function LibraryVersionRoute() {
   const { id = '' } = useParams();
@@ -21,19 +23,18 @@ export default function LibraryVersionRoute() {
   const { data: user } = useCurrentUser();
   const version = useVersion(id);
   const pkg = useQuery({ ...packageQueryOptions(packageId ?? ''), enabled: !!packageId });
+  const uses = useQuery({ ...libraryUsesQueryOptions(packageId ?? ''), enabled: !!packageId });
   if (!user) return null;
-  // The package's lift point (its recomputed radius and gross load), in the chart's units.
-  const figures = (pkg.data?.current.results as { figures?: LiftFigures } | null | undefined)?.figures;
-  const units = version.data?.chart.units;
-  const liftPoints =
-    packageId && figures?.radius != null && units
-      ? [
-          {
-            radius: figures.radius / TO_SI[units.radius],
-            load: figures.grossLoad / TO_SI[units.capacity],
-            label: `${pkg.data?.package.reference}: gross load`,
-          },
-        ]
+  // Opened from a package: the cranes of it that use this version, with their lift figures.
+  const slots = (uses.data?.items ?? []).filter((u) => u.version.id === id).map((u) => u.slot);
+  const fromPackage =
+    packageId && pkg.data && uses.data
+      ? {
+          reference: pkg.data.package.reference,
+          cranes: slots.map((slot) =>
+            craneLiftFigures(pkg.data.current.inputs, readStoredResult(pkg.data.current.results), slot),
+          ),
+        }
       : undefined;
   return (
     <>
@@ -48,12 +49,17 @@ export default function LibraryVersionRoute() {
           message={isApiError(version.error) ? version.error.message : 'Try again.'}
         />
       )}
+      {fromPackage && slots.length === 0 && (
+        <p className="mb-3 border border-rule bg-sheet px-3 py-2 text-[13px]">
+          {fromPackage.reference} does not use this version: nothing of it is drawn on the chart.
+        </p>
+      )}
       {version.data && (
         <VersionPanel
           version={version.data}
-          canVerify={user.role === 'engineer'}
+          canVerify={user.role === 'engineer' && user.organisation.kind === 'owner'}
           packageId={packageId}
-          liftPoints={liftPoints}
+          fromPackage={fromPackage}
         />
       )}
     </>

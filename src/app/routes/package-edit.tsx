@@ -7,13 +7,15 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { ErrorPanel, EmptyState } from '@/components/ui/panel-message';
 import { usePackage } from '@/features/packages/api/get-package';
 import { SubmissionEditor } from '@/features/packages/components/editor/submission-editor';
-import { LibraryPicker, useLibraryLock } from '@/features/library/components/library-picker';
+import { LibraryPicker, useLibraryLocks } from '@/features/library/components/library-picker';
+import { useCraneRemoved } from '@/features/library/api/library-uses';
 
 export default function PackageEditRoute() {
   const { id = '' } = useParams();
   const { data: user } = useCurrentUser();
   const detail = usePackage(id);
-  const locked = useLibraryLock(id);
+  const locks = useLibraryLocks(id);
+  const craneRemoved = useCraneRemoved(id);
   if (!user) return null;
   if (detail.isPending) return <PageLoading label="Opening the draft" />;
   if (detail.isError)
@@ -47,7 +49,11 @@ export default function PackageEditRoute() {
       key={detail.data.current.id}
       detail={detail.data}
       system={user.unitSystem}
-      library={{ locked, picker: (fill) => <LibraryPicker packageId={id} fill={fill} /> }}
+      library={{
+        locked: (slot) => locks[slot] ?? false,
+        picker: (fill, slot) => <LibraryPicker packageId={id} fill={fill} slot={slot} />,
+        onCraneRemoved: (slot) => craneRemoved.mutate(slot),
+      }}
     />
   );
 }

@@ -9,6 +9,7 @@ import { ErrorPanel } from '@/components/ui/panel-message';
 import { PageLoading } from '@/components/ui/page-loading';
 import { usePackage } from '@/features/packages/api/get-package';
 import { ReviewWorkspace } from '@/features/review-workspace/components/review-workspace';
+import { LibraryUsesPanel } from '@/features/library/components/library-uses-panel';
 
 export default function ReviewWorkspaceRoute() {
   const { id = '' } = useParams();
@@ -56,5 +57,14 @@ export default function ReviewWorkspaceRoute() {
       </>
     );
   }
-  return <ReviewWorkspace key={detail.data.package.id} detail={detail.data} user={user} />;
+  // An engineer of the owner desk verifies a library chart the desk has not verified yet.
+  const canVerify = user.role === 'engineer' && user.organisation.kind === 'owner';
+  return (
+    <ReviewWorkspace
+      key={detail.data.package.id}
+      detail={detail.data}
+      user={user}
+      library={<LibraryUsesPanel packageId={id} canVerify={canVerify} showEmpty />}
+    />
+  );
 }

@@ -213,18 +213,14 @@ describe('chart grid use', () => {
 });
 
 describe('chart pictures', () => {
-  it('when the working range is drawn, then the tip height follows the boom as a hinged straight line', async () => {
-    const { workingRange, capacityLines, ticks } = await import('@shared/library/chart-plot');
+  it('when the capacity lines are drawn, then each boom length keeps only its rated cells', async () => {
+    const { capacityLines, ticks } = await import('@shared/library/chart-plot');
     const g = previewText('radius (m) / boom (m) / capacity (t),10,20\n6,10,8\n12,,5').grid!;
-    // Hand-worked: L = 10 m, offset 1 m, pivot 2 m high, R = 6 m → 2 + √(100 − 25) = 10.660 m
-    const [ten, twenty] = workingRange(g, 1, 2);
-    expect(ten.points).toHaveLength(1);
-    expect(ten.points[0].y).toBeCloseTo(2 + Math.sqrt(75), 9);
-    // L = 20 m at R = 12 m → 2 + √(400 − 121)
-    expect(twenty.points[1].y).toBeCloseTo(2 + Math.sqrt(279), 9);
+    // (the working range has its own hand-worked tests in working-range.test.ts)
+    expect(capacityLines(g)[0].points).toEqual([{ x: 6, y: 10, rated: true }]);
     expect(capacityLines(g)[1].points).toEqual([
-      { x: 6, y: 8 },
-      { x: 12, y: 5 },
+      { x: 6, y: 8, rated: true },
+      { x: 12, y: 5, rated: true },
     ]);
     expect(ticks(47)).toEqual([0, 10, 20, 30, 40, 50]);
   });

@@ -1,20 +1,55 @@
-// The chart as pictures: capacity against radius with one line per boom length (and the
-// package's lift points when opened from a package), and the working range — boom-tip height
-// against radius for each boom length. SVG drawn from the grid; shapes as well as colours tell
-// the lines apart so the plot reads in greyscale print.
+// The chart as pictures: capacity against radius with one line per boom length (and, opened from
+// a package, each of its cranes' lift points: radius and gross load), and the working range —
+// hook height against radius for each boom length (and the hook height the package's lift needs).
+// The geometry is computed in shared/library/chart-plot.ts; this file only paints it. Shapes as
+// well as colours tell the lines apart so the plot reads in greyscale print.
+import { useId, useState, type ReactNode } from 'react';
 import type { ChartGrid } from '@shared/library/chart-grid';
 import { capacityLines, ticks, workingRange, type PlotLine } from '@shared/library/chart-plot';
+import type { CraneLiftFigures } from '@shared/library/lift-points';
+import { TO_SI } from '@shared/engineering/units';
 
 const W = 520;
 const H = 300;
 const PAD = { l: 52, r: 16, t: 14, b: 40 };
 const STROKES = ['#0f5f5b', '#a4461b', '#1a4c95', '#51368a', '#1c6434', '#7a4700', '#16191c'];
 const DASHES = ['', '6 3', '2 3', '10 3 2 3', '1 2', '8 2 2 2 2 2', '4 4'];
+const MARK = '#9b1c1c';
 
-export interface LiftPoint {
-  radius: number;
-  load: number;
+const sig3 = (x: number) => Number(x.toPrecision(3));
+
+/** A mark on a plot, in the plot's units. */
+export interface PlotMark {
+  x: number;
+  y: number;
   label: string;
+}
+
+/** The package a chart was opened from: its reference and the cranes that use this version. */
+export interface PackageOnChart {
+  reference: string;
+  cranes: CraneLiftFigures[];
+}
+
+function Cross({ x, y }: { x: number; y: number }) {
+  return (
+    <path
+      d={`M ${x - 6} ${y - 6} L ${x + 6} ${y + 6} M ${x - 6} ${y + 6} L ${x + 6} ${y - 6}`}
+      stroke={MARK}
+      strokeWidth="2.5"
+    />
+  );
+}
+
+function Triangle({ x, y }: { x: number; y: number }) {
+  return (
+    <path
+      d={`M ${x} ${y - 7} L ${x + 7} ${y + 5} L ${x - 7} ${y + 5} Z`}
+      fill="none"
+      stroke={MARK}
+      strokeWidth="2.5"
+    />
+  );
 }
 
 function Plot({
@@ -22,23 +57,28 @@ function Plot({
   title,
   xLabel,
   yLabel,
-  points = [],
+  marks = [],
+  markShape = 'cross',
   lineLabel,
+  children,
 }: {
   lines: PlotLine[];
   title: string;
   xLabel: string;
   yLabel: string;
-  points?: LiftPoint[];
+  marks?: PlotMark[];
+  markShape?: 'cross' | 'triangle';
   lineLabel: (l: PlotLine) => string;
+  children?: ReactNode;
 }) {
-  const all = [...lines.flatMap((l) => l.points), ...points.map((p) => ({ x: p.radius, y: p.load }))];
+  const all = [...lines.flatMap((l) => l.points), ...marks];
   const xt = ticks(Math.max(1, ...all.map((p) => p.x)));
   const yt = ticks(Math.max(1, ...all.map((p) => p.y)));
   const xMax = xt[xt.length - 1];
   const yMax = yt[yt.length - 1];
   const sx = (x: number) => PAD.l + (x / xMax) * (W - PAD.l - PAD.r);
-  const sy = (y: number) => H - PAD.b - (y / yMax) * (H - PAD.t - PAD.b);
+  const sy = (y: number) => H - PAD.b - (Math.max(0, y) / yMax) * (H - PAD.t - PAD.b);
+  const Shape = markShape === 'cross' ? Cross : Triangle;
   return (
     <figure className="border border-rule bg-sheet p-2">
       <figcaption className="mb-1 text-[13px] font-bold">{title}</figcaption>
@@ -81,23 +121,35 @@ function Plot({
               strokeDasharray={DASHES[k % DASHES.length]}
               points={l.points.map((p) => `${sx(p.x)},${sy(p.y)}`).join(' ')}
             />
-            {l.points.map((p) => (
-              <circle key={p.x} cx={sx(p.x)} cy={sy(p.y)} r="2.5" fill={STROKES[k % STROKES.length]} />
-            ))}
+            {l.points
+              .filter((p) => p.rated)
+              .map((p) => (
+                <circle key={p.x} cx={sx(p.x)} cy={sy(p.y)} r="2.5" fill={STROKES[k % STROKES.length]} />
+              ))}
           </g>
         ))}
-        {points.map((p) => (
-          <g key={p.label}>
-            <path
-              d={`M ${sx(p.radius) - 6} ${sy(p.load) - 6} L ${sx(p.radius) + 6} ${sy(p.load) + 6} M ${sx(p.radius) - 6} ${sy(p.load) + 6} L ${sx(p.radius) + 6} ${sy(p.load) - 6}`}
-              stroke="#9b1c1c"
-              strokeWidth="2.5"
-            />
-            <text x={sx(p.radius) + 8} y={sy(p.load) - 8} fontSize="11" fill="#9b1c1c">
-              {p.label}
-            </text>
-          </g>
-        ))}
+        {marks.map((p, k) => {
+          // labels to the left of a mark in the right half, so they stay on the plot
+          const right = sx(p.x) > W * 0.6;
+          return (
+            <g key={p.label} data-testid="plot-mark">
+              <Shape x={sx(p.x)} y={sy(p.y)} />
+              <text
+                x={sx(p.x) + (right ? -9 : 9)}
+                y={sy(p.y) - 9 - 13 * k}
+                fontSize="11"
+                fontWeight="bold"
+                textAnchor={right ? 'end' : 'start'}
+                fill={MARK}
+                stroke="#ffffff"
+                strokeWidth="3"
+                paintOrder="stroke"
+              >
+                {p.label}
+              </text>
+            </g>
+          );
+        })}
       </svg>
       <ul className="mt-1 flex flex-wrap gap-x-4 gap-y-1 text-[12px]" aria-label="Boom lengths">
         {lines.map((l, k) => (
@@ -117,23 +169,62 @@ function Plot({
           </li>
         ))}
       </ul>
+      {children}
     </figure>
   );
 }
+
+const craneName = (slot: number) => `crane ${slot + 1}`;
 
 export function ChartPlots({
   grid,
   pivotOffset,
   pivotHeight,
-  liftPoints,
+  fromPackage,
 }: {
   grid: ChartGrid;
-  /** m, from the crane's fixed data */
+  /** m, from the crane's fixed data; absent when the crane data does not give it */
   pivotOffset?: number;
   pivotHeight?: number;
-  liftPoints?: LiftPoint[];
+  fromPackage?: PackageOnChart;
 }) {
   const u = grid.units;
+  const lu = TO_SI[u.radius];
+  const cu = TO_SI[u.capacity];
+  const cranes = fromPackage?.cranes ?? [];
+  const several = cranes.some((c) => c.cranesInLift > 1);
+  const who = (c: CraneLiftFigures) => `${fromPackage?.reference}${several ? ` ${craneName(c.slot)}` : ''}`;
+
+  // The allowance from the tip to the hook: the package's hook block and the site's clearance when
+  // known; the person may change it (in the chart's length unit) to read other blocks.
+  const first = cranes[0];
+  const known = first && (first.blockHeight !== null || first.clearance !== null);
+  const initial = known ? (first.blockHeight ?? 0) + (first.clearance ?? 0) : 0;
+  // null until the person types: the package's figures may arrive after the chart.
+  const [typedText, setAllowanceText] = useState<string | null>(null);
+  const allowanceText = typedText ?? String(sig3(initial / lu));
+  const typed = allowanceText.trim() === '' ? NaN : Number(allowanceText);
+  const allowance = Number.isFinite(typed) && typed >= 0 ? typed * lu : initial;
+  const allowanceId = useId();
+
+  const liftMarks: PlotMark[] = cranes
+    .filter((c) => c.radius !== null && c.grossLoad !== null)
+    .map((c) => ({
+      x: c.radius! / lu,
+      y: c.grossLoad! / cu,
+      label: `${who(c)}: ${sig3(c.grossLoad! / cu)} ${u.capacity} at ${sig3(c.radius! / lu)} ${u.radius}`,
+    }));
+  const hookMarks: PlotMark[] = cranes
+    .filter((c) => c.radius !== null && c.neededHookHeight !== null)
+    .map((c) => ({
+      x: c.radius! / lu,
+      y: c.neededHookHeight! / lu,
+      label: `${who(c)}: hook needed ${sig3(c.neededHookHeight! / lu)} ${u.radius}`,
+    }));
+  const waiting = cranes.filter((c) => c.radius === null || c.grossLoad === null);
+  const basis = { pivotOffset: pivotOffset ?? 0, pivotHeight: pivotHeight ?? 0, allowance };
+  const f = (m: number) => `${sig3(m / lu)} ${u.radius}`;
+
   return (
     <div className="grid gap-3 xl:grid-cols-2">
       <Plot
@@ -141,16 +232,79 @@ export function ChartPlots({
         xLabel={`Radius (${u.radius})`}
         yLabel={`Rated capacity (${u.capacity})`}
         lines={capacityLines(grid)}
-        points={liftPoints}
+        marks={liftMarks}
         lineLabel={(l) => `Boom ${l.boomLength} ${u.boomLength}`}
-      />
+      >
+        {liftMarks.length > 0 && (
+          <p className="mt-1 text-[12px]">
+            <span aria-hidden="true" className="font-bold text-failed-ink">
+              ✕
+            </span>{' '}
+            {fromPackage?.reference}: the check’s radius and gross load{several ? ' of each crane' : ''}.
+          </p>
+        )}
+        {fromPackage && waiting.length > 0 && (
+          <p className="mt-1 text-[12px] text-ink-soft">
+            {waiting.map((c) => who(c)).join(', ')}: no check result yet — the lift point appears once the
+            package has been checked.
+          </p>
+        )}
+      </Plot>
       <Plot
-        title="Working range: boom-tip height against radius"
+        title="Working range: hook height against radius"
         xLabel={`Radius (${u.radius})`}
-        yLabel={`Boom-tip height (${u.radius})`}
-        lines={workingRange(grid, pivotOffset ?? 0, pivotHeight ?? 0)}
+        yLabel={`Hook height (${u.radius})`}
+        lines={workingRange(grid, basis)}
+        marks={hookMarks}
+        markShape="triangle"
         lineLabel={(l) => `Boom ${l.boomLength} ${u.boomLength}`}
-      />
+      >
+        <div className="mt-2 flex flex-col gap-1 text-[12px]">
+          <p>
+            Hook height = pivot height {f(basis.pivotHeight)} + √(L² − (R − pivot offset{' '}
+            {f(basis.pivotOffset)})²) − allowance {f(allowance)}: a straight boom hinged at its foot pin
+            (plane geometry).
+          </p>
+          {pivotHeight === undefined && (
+            <p className="font-bold text-caution-ink" role="note">
+              ! Assumed: the crane data has no pivot height, so heights are drawn from the boom foot pin
+              (taken as 0 {u.radius} above the ground). Add the pivot height on the crane page to read heights
+              above ground.
+            </p>
+          )}
+          {pivotOffset === undefined && (
+            <p className="font-bold text-caution-ink" role="note">
+              ! Assumed: the crane data has no pivot offset, so the boom foot is taken at the centre of
+              rotation.
+            </p>
+          )}
+          <div className="mt-1 flex flex-wrap items-center gap-2">
+            <label htmlFor={allowanceId} className="font-bold">
+              Allowance from boom tip to hook ({u.radius})
+            </label>
+            <input
+              id={allowanceId}
+              inputMode="decimal"
+              className="w-20 rounded-[3px] border border-rule-strong px-1.5 py-0.5 tabular-nums"
+              value={allowanceText}
+              onChange={(e) => setAllowanceText(e.target.value)}
+              aria-invalid={allowance !== typed * lu || undefined}
+            />
+            {allowance !== typed * lu && (
+              <span role="alert" className="font-bold text-failed-ink">
+                Enter a length of 0 {u.radius} or more; drawn with {f(initial)} meanwhile.
+              </span>
+            )}
+          </div>
+          <p className="text-ink-soft">
+            {known
+              ? `From ${fromPackage?.reference}: hook block height ${f(first.blockHeight ?? 0)}${first.blockHeight === null ? ' (not entered)' : ''} + clearance kept under the tip ${f(first.clearance ?? 0)} (the site policy's minimum block clearance).`
+              : 'The hook block height plus the clearance to keep under the tip; 0 draws the boom tip itself.'}
+            {hookMarks.length > 0 &&
+              ' ▵ the hook height the lift needs (required lift height + load height + rigging height): at or under the line of the boom used, the block keeps its clearance.'}
+          </p>
+        </div>
+      </Plot>
     </div>
   );
 }

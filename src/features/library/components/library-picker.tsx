@@ -1,7 +1,8 @@
-// The editor's "pick from the fleet library": search the fleet by fleet number or model, filter
-// by capacity at the planned radius, and use a configuration's current version. The crane and
-// chart steps then fill from it and stay read-only; "detach a copy" makes them editable again,
-// and the engineer then sees the copy flagged with every changed cell.
+// The editor's "pick from the fleet library", once per crane slot (0 the crane of the first steps,
+// 1 to 3 the other cranes of a lift with several cranes): search the fleet by fleet number or
+// model, filter by capacity at the planned radius, and use a configuration's current version. That
+// crane's configuration and chart then fill from it and stay read-only; "detach a copy" makes them
+// editable again, and the engineer then sees the copy flagged with every changed cell.
 import { useState } from 'react';
 import { fillFromVersion, type LibraryFill } from '@shared/library/to-lift-input';
 import { WORKING_AREA_LABELS } from '@shared/schemas/library';
@@ -13,7 +14,15 @@ import { useCranes } from '../api/cranes';
 import { useLibraryUses, useRemoveLibraryUse, useSetLibraryUse } from '../api/library-uses';
 import { useFleetFilters } from './fleet-view';
 
-function Finder({ onPick, busy }: { onPick: (versionId: string) => void; busy: boolean }) {
+function Finder({
+  onPick,
+  busy,
+  listLabel,
+}: {
+  onPick: (versionId: string) => void;
+  busy: boolean;
+  listLabel: string;
+}) {
   const { filters, controls } = useFleetFilters();
   const cranes = useCranes(filters);
   const rows = (cranes.data?.items ?? []).flatMap((c) =>
@@ -28,7 +37,7 @@ function Finder({ onPick, busy }: { onPick: (versionId: string) => void; busy: b
         </p>
       )}
       {rows.length > 0 && (
-        <ul className="flex max-h-72 flex-col gap-1 overflow-auto" aria-label="Configurations to pick">
+        <ul className="flex max-h-72 flex-col gap-1 overflow-auto" aria-label={listLabel}>
           {rows.map(({ crane, config }) => (
             <li
               key={config.id}
@@ -54,20 +63,32 @@ function Finder({ onPick, busy }: { onPick: (versionId: string) => void; busy: b
   );
 }
 
-export function LibraryPicker({ packageId, fill }: { packageId: string; fill: (f: LibraryFill) => void }) {
+export function LibraryPicker({
+  packageId,
+  fill,
+  slot = 0,
+}: {
+  packageId: string;
+  fill: (f: LibraryFill) => void;
+  /** 0 for the crane of the first steps, 1 to 3 for crane 2 to 4 of a lift with several cranes */
+  slot?: number;
+}) {
   const uses = useLibraryUses(packageId);
   const setUse = useSetLibraryUse(packageId);
   const remove = useRemoveLibraryUse(packageId);
   const [open, setOpen] = useState(false);
   const [error, setError] = useState<string | null>(null);
-  const use = uses.data?.items.find((u) => u.slot === 0);
+  const use = uses.data?.items.find((u) => u.slot === slot);
+  const crane = slot === 0 ? 'the crane' : `crane ${slot + 1}`;
+  const its =
+    slot === 0 ? 'The crane and chart fields are' : `Crane ${slot + 1}'s configuration and chart are`;
 
   const pick = async (versionId: string) => {
     setError(null);
     try {
       const version = await api.get(`/api/library/versions/${encodeURIComponent(versionId)}`, VersionDetail);
       fill(fillFromVersion(version));
-      await setUse.mutateAsync({ versionId, slot: 0, detached: false });
+      await setUse.mutateAsync({ versionId, slot, detached: false });
       setOpen(false);
     } catch (e) {
       setError(isApiError(e) ? e.message : 'The configuration could not be used. Try again.');
@@ -76,24 +97,25 @@ export function LibraryPicker({ packageId, fill }: { packageId: string; fill: (f
 
   return (
     <section
-      aria-label="Fleet library"
+      aria-label={slot === 0 ? 'Fleet library' : `Fleet library, crane ${slot + 1}`}
       className="mb-4 border border-l-4 border-verdigris bg-verdigris-tint px-3 py-2"
+      data-slot={slot}
     >
       {use ? (
         <div className="flex flex-wrap items-center gap-2 text-[13.5px]">
-          <p className="flex-1">
+          <p className="min-w-[16rem] flex-[1_1_24rem]">
             <strong>{use.detached ? 'Detached copy of' : 'From the fleet library:'}</strong>{' '}
             {use.version.crane}, {use.version.configurationName} (library version {use.version.number}).{' '}
             {use.detached
-              ? `You may edit the crane and chart; the engineer sees every cell changed from version ${use.version.number}${use.changedCells.length ? ` (${use.changedCells.length} so far)` : ''}.`
-              : 'The crane and chart fields are filled from it and read-only; enter boom length, radius and slew yourself.'}
+              ? `You may edit ${slot === 0 ? 'the crane and chart' : `crane ${slot + 1}'s configuration and chart`}; the engineer sees every cell changed from version ${use.version.number}${use.changedCells.length ? ` (${use.changedCells.length} so far)` : ''}.`
+              : `${its} filled from it and read-only; enter boom length, radius and slew yourself.`}
             {use.verifications[0] && ` ✓ Verified by ${use.verifications[0].engineer.name}.`}
           </p>
           {!use.detached && (
             <Button
               size="sm"
               disabled={setUse.isPending}
-              onClick={() => setUse.mutate({ versionId: use.version.id, slot: 0, detached: true })}
+              onClick={() => setUse.mutate({ versionId: use.version.id, slot, detached: true })}
             >
               Detach a copy to edit
             </Button>
@@ -101,23 +123,27 @@ export function LibraryPicker({ packageId, fill }: { packageId: string; fill: (f
           <Button size="sm" variant="quiet" onClick={() => setOpen((o) => !o)}>
             Pick another
           </Button>
-          <Button size="sm" variant="quiet" disabled={remove.isPending} onClick={() => remove.mutate(0)}>
+          <Button size="sm" variant="quiet" disabled={remove.isPending} onClick={() => remove.mutate(slot)}>
             Stop using the library
           </Button>
         </div>
       ) : (
         <div className="flex flex-wrap items-center gap-2 text-[13.5px]">
-          <p className="flex-1">
-            Pick the crane and configuration from your fleet library instead of typing its data and chart.
+          <p className="min-w-[16rem] flex-[1_1_24rem]">
+            Pick {crane} and its configuration from your fleet library instead of typing its data and chart.
           </p>
           <Button size="sm" variant="primary" onClick={() => setOpen((o) => !o)}>
-            Pick from the fleet library
+            {slot === 0 ? 'Pick from the fleet library' : `Pick crane ${slot + 1} from the fleet library`}
           </Button>
         </div>
       )}
       {open && (
         <div className="mt-2">
-          <Finder onPick={pick} busy={setUse.isPending} />
+          <Finder
+            onPick={pick}
+            busy={setUse.isPending}
+            listLabel={slot === 0 ? 'Configurations to pick' : `Configurations to pick for crane ${slot + 1}`}
+          />
         </div>
       )}
       {error && <ErrorPanel title="Not used" message={error} />}
@@ -125,8 +151,15 @@ export function LibraryPicker({ packageId, fill }: { packageId: string; fill: (f
   );
 }
 
-export function useLibraryLock(packageId: string): boolean {
+/** Per crane slot (0 to 3): a library version is in use and not detached, so its fields are read-only. */
+export function useLibraryLocks(packageId: string): readonly boolean[] {
   const uses = useLibraryUses(packageId);
-  const use = uses.data?.items.find((u) => u.slot === 0);
-  return !!use && !use.detached;
+  return [0, 1, 2, 3].map((slot) => {
+    const use = uses.data?.items.find((u) => u.slot === slot);
+    return !!use && !use.detached;
+  });
+}
+
+export function useLibraryLock(packageId: string, slot = 0): boolean {
+  return useLibraryLocks(packageId)[slot] ?? false;
 }

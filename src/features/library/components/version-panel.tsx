@@ -9,42 +9,31 @@ import { ErrorPanel } from '@/components/ui/panel-message';
 import { isApiError } from '@/lib/api-client';
 import { chartFileUrl, documentUrl, useAttachDocument, useVerifyVersion } from '../api/versions';
 import { ChartGridTable } from './chart-grid-table';
-import { ChartPlots, type LiftPoint } from './chart-plot';
+import { ChartPlots, type PackageOnChart } from './chart-plot';
 
 const qty = (x?: { value: number; unit: string }) => (x ? `${x.value} ${x.unit}` : '—');
 const si = (x?: { value: number; unit: string }) =>
   x ? x.value * TO_SI[x.unit as keyof typeof TO_SI] : undefined;
 
-export function VerificationBlock({
-  version,
-  canVerify,
+/** The owner desk engineer's "verified against the manufacturer's document" form for one version. */
+export function VerifyForm({
+  versionId,
   packageId,
+  label = 'Verify the chart',
 }: {
-  version: VersionDetail;
-  canVerify: boolean;
+  versionId: string;
   packageId?: string;
+  label?: string;
 }) {
   const verify = useVerifyVersion();
   const [note, setNote] = useState('');
-  const v = version.verifications[0];
-  if (v)
-    return (
-      <p
-        className="border border-l-4 border-pass-ink bg-pass-tint px-3 py-2 text-sm"
-        data-testid="chart-verified"
-      >
-        <strong>✓ Chart verified against the manufacturer's document</strong> by {v.engineer.name} on{' '}
-        {formatDate(v.at)}: {v.note}
-      </p>
-    );
-  if (!canVerify) return null;
   return (
     <form
       className="flex flex-col gap-2 border border-rule bg-sheet p-3"
-      aria-label="Verify the chart"
+      aria-label={label}
       onSubmit={(e) => {
         e.preventDefault();
-        verify.mutate({ id: version.id, note, packageId });
+        verify.mutate({ id: versionId, note, packageId });
       }}
     >
       <label className="flex flex-col gap-1 text-[13px] font-bold">
@@ -57,7 +46,13 @@ export function VerificationBlock({
         />
       </label>
       <div>
-        <Button type="submit" variant="primary" disabled={!note.trim() || verify.isPending}>
+        <Button
+          type="submit"
+          variant="primary"
+          disabled={!note.trim() || verify.isPending}
+          // wraps in the review workspace's narrow column
+          className="h-auto! min-h-9 py-1.5 text-left whitespace-normal!"
+        >
           Mark the chart verified against the manufacturer's document
         </Button>
       </div>
@@ -69,6 +64,30 @@ export function VerificationBlock({
       )}
     </form>
   );
+}
+
+export function VerificationBlock({
+  version,
+  canVerify,
+  packageId,
+}: {
+  version: VersionDetail;
+  canVerify: boolean;
+  packageId?: string;
+}) {
+  const v = version.verifications[0];
+  if (v)
+    return (
+      <p
+        className="border border-l-4 border-pass-ink bg-pass-tint px-3 py-2 text-sm"
+        data-testid="chart-verified"
+      >
+        <strong>✓ Chart verified against the manufacturer's document</strong> by {v.engineer.name} on{' '}
+        {formatDate(v.at)}: {v.note}
+      </p>
+    );
+  if (!canVerify) return null;
+  return <VerifyForm versionId={version.id} packageId={packageId} />;
 }
 
 function AttachDocument({ version }: { version: VersionDetail }) {
@@ -102,13 +121,14 @@ function AttachDocument({ version }: { version: VersionDetail }) {
 
 export function VersionPanel({
   version,
-  liftPoints,
+  fromPackage,
   canVerify = false,
   canAttach = false,
   packageId,
 }: {
   version: VersionDetail;
-  liftPoints?: LiftPoint[];
+  /** Opened from a package: its cranes that use this version, drawn on the pictures */
+  fromPackage?: PackageOnChart;
   canVerify?: boolean;
   /** The contractor may attach the PDF while the version has none and no package uses it */
   canAttach?: boolean;
@@ -182,7 +202,7 @@ export function VersionPanel({
         grid={version.chart}
         pivotOffset={si(version.crane.fixed.pivotOffset)}
         pivotHeight={si(version.crane.fixed.pivotHeight)}
-        liftPoints={liftPoints}
+        fromPackage={fromPackage}
       />
       <ChartGridTable grid={version.chart} caption={`Load chart, version ${version.number}`} />
       <div className="flex gap-2">

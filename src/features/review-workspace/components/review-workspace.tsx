@@ -5,7 +5,7 @@
 // This file composes; the state lives in ../hooks (document view, markup editing, the finding
 // being written, the keyboard map) and the pieces in their own files.
 import { readStoredResult } from '@shared/engineering/stored-result';
-import { useMemo, useState } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import type { CurrentUser } from '@shared/schemas/auth';
 import { DECISION_LABELS } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
@@ -37,7 +37,16 @@ const MAX_COLUMN = 900;
 
 const panelClass = 'min-h-0 flex-1 overflow-y-auto';
 
-export function ReviewWorkspace({ detail, user }: { detail: PackageDetail; user: CurrentUser }) {
+export function ReviewWorkspace({
+  detail,
+  user,
+  library,
+}: {
+  detail: PackageDetail;
+  user: CurrentUser;
+  /** The page's fleet-library panel (versions used, verification), shown on top of the checks */
+  library?: ReactNode;
+}) {
   const pkg = detail.package;
   const current = detail.current;
   const access = workspaceAccess(user, detail);
@@ -173,6 +182,7 @@ export function ReviewWorkspace({ detail, user }: { detail: PackageDetail; user:
         className="flex min-h-0 flex-1 flex-col"
       >
         <TabPanel value="checks" className={panelClass}>
+          {library && <div className="px-3 pt-3">{library}</div>}
           <CheckPanel
             packageId={pkg.id}
             result={result}

@@ -37,8 +37,20 @@ function isEmpty(row: Row | undefined): boolean {
   return !row || (!row.radius && !row.boomLength && !row.capacity);
 }
 
-/** `base` is where the chart sits: 'chart' for the crane at the top, 'multiCrane.others.N.chart' for another. */
-export function ChartRowsEditor({ system, base = 'chart' }: { system: UnitSystem; base?: string }) {
+/**
+ * `base` is where the chart sits: 'chart' for the crane at the top, 'multiCrane.others.N.chart' for
+ * another. `disabled` (a chart from the fleet library, not detached) puts every control in a
+ * disabled fieldset; the table's scroll box stays outside it so the rows still scroll by keyboard.
+ */
+export function ChartRowsEditor({
+  system,
+  base = 'chart',
+  disabled = false,
+}: {
+  system: UnitSystem;
+  base?: string;
+  disabled?: boolean;
+}) {
   const rowsPath = `${base}.rows` as 'chart.rows';
   const {
     control,
@@ -113,28 +125,30 @@ export function ChartRowsEditor({ system, base = 'chart' }: { system: UnitSystem
       <h3 id={`${baseId}-title`} className="text-[13px] font-bold">
         Chart rows for this configuration
       </h3>
-      <div className="grid gap-2 md:grid-cols-[1fr_auto]">
-        <label className="flex flex-col gap-1 text-[13px]">
-          <span className="font-bold">Paste from a spreadsheet</span>
-          <span className="text-[12.5px] text-ink-soft">
-            Copy the columns radius, boom length and capacity (a header row is optional; “Capacity (kip)” sets
-            the unit) and paste here. Rows are added below.
-          </span>
-          <textarea
-            value={pasteText}
-            onChange={(event) => setPasteText(event.target.value)}
-            onPaste={onPaste}
-            rows={3}
-            placeholder={'radius\tboom\tcapacity\n10\t30.5\t22.5'}
-            className="rounded-[3px] border border-rule-strong bg-sheet px-2 py-1 font-mono text-[13px] text-ink"
-          />
-        </label>
-        <div className="flex items-end">
-          <Button size="sm" disabled={pasteText.trim() === ''} onClick={() => addPasted(pasteText)}>
-            Add typed rows
-          </Button>
+      <fieldset className="contents" disabled={disabled}>
+        <div className="grid gap-2 md:grid-cols-[1fr_auto]">
+          <label className="flex flex-col gap-1 text-[13px]">
+            <span className="font-bold">Paste from a spreadsheet</span>
+            <span className="text-[12.5px] text-ink-soft">
+              Copy the columns radius, boom length and capacity (a header row is optional; “Capacity (kip)”
+              sets the unit) and paste here. Rows are added below.
+            </span>
+            <textarea
+              value={pasteText}
+              onChange={(event) => setPasteText(event.target.value)}
+              onPaste={onPaste}
+              rows={3}
+              placeholder={'radius\tboom\tcapacity\n10\t30.5\t22.5'}
+              className="rounded-[3px] border border-rule-strong bg-sheet px-2 py-1 font-mono text-[13px] text-ink"
+            />
+          </label>
+          <div className="flex items-end">
+            <Button size="sm" disabled={pasteText.trim() === ''} onClick={() => addPasted(pasteText)}>
+              Add typed rows
+            </Button>
+          </div>
         </div>
-      </div>
+      </fieldset>
       {report && (
         <div role="status" className="text-[13px]">
           <p className="font-bold text-pass-ink">{report.text}</p>
@@ -146,106 +160,114 @@ export function ChartRowsEditor({ system, base = 'chart' }: { system: UnitSystem
         </div>
       )}
 
-      <div className="max-h-[26rem] overflow-auto border border-rule">
-        <table className="w-full border-collapse text-[13px]" aria-label="Chart rows">
-          <thead className="sticky top-0 bg-sheet-alt">
-            <tr>
-              <th scope="col" className="w-8 px-2 py-1 text-left font-bold text-ink-soft">
-                #
-              </th>
-              {COLUMNS.map((column) => (
-                <th key={column.key} scope="col" className="px-2 py-1 text-left font-bold text-ink-soft">
-                  <span className="flex items-center gap-1.5">
-                    {column.label}
-                    <select
-                      aria-label={`Unit of the ${column.label.toLowerCase()} column`}
-                      value={units[column.key]}
-                      onChange={(event) => changeUnit(column.key, event.target.value)}
-                      className="h-6 rounded-[3px] border border-rule-strong bg-sheet px-0.5 text-[12.5px] font-normal text-ink"
-                    >
-                      {UNITS_BY_KIND[column.kind].map((unit) => (
-                        <option key={unit} value={unit}>
-                          {unitLabel(unit)}
-                        </option>
-                      ))}
-                    </select>
-                  </span>
-                </th>
-              ))}
-              <th scope="col" className="px-2 py-1 text-left font-bold text-ink-soft">
-                Chart allows interpolation
-              </th>
-              <th scope="col" className="w-10">
-                <span className="sr-only">Remove</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {fields.length === 0 && (
+      {/* focusable so the rows scroll by keyboard even when every input is read-only (library) */}
+      <div
+        tabIndex={0}
+        className="max-h-[26rem] overflow-auto border border-rule focus-visible:outline-2 focus-visible:outline-verdigris"
+      >
+        <fieldset className="contents" disabled={disabled}>
+          <table className="w-full border-collapse text-[13px]" aria-label="Chart rows">
+            <thead className="sticky top-0 bg-sheet-alt">
               <tr>
-                <td colSpan={6} className="px-3 py-4 text-ink-soft">
-                  No chart rows yet. Paste them above or add them one by one.
-                </td>
+                <th scope="col" className="w-8 px-2 py-1 text-left font-bold text-ink-soft">
+                  #
+                </th>
+                {COLUMNS.map((column) => (
+                  <th key={column.key} scope="col" className="px-2 py-1 text-left font-bold text-ink-soft">
+                    <span className="flex items-center gap-1.5">
+                      {column.label}
+                      <select
+                        aria-label={`Unit of the ${column.label.toLowerCase()} column`}
+                        value={units[column.key]}
+                        onChange={(event) => changeUnit(column.key, event.target.value)}
+                        className="h-6 rounded-[3px] border border-rule-strong bg-sheet px-0.5 text-[12.5px] font-normal text-ink"
+                      >
+                        {UNITS_BY_KIND[column.kind].map((unit) => (
+                          <option key={unit} value={unit}>
+                            {unitLabel(unit)}
+                          </option>
+                        ))}
+                      </select>
+                    </span>
+                  </th>
+                ))}
+                <th scope="col" className="px-2 py-1 text-left font-bold text-ink-soft">
+                  Chart allows interpolation
+                </th>
+                <th scope="col" className="w-10">
+                  <span className="sr-only">Remove</span>
+                </th>
               </tr>
-            )}
-            {fields.map((row, index) => (
-              <tr key={row.id} className="border-t border-rule align-top even:bg-sheet-alt">
-                <td className="px-2 py-1 tabular text-ink-soft">{index + 1}</td>
-                {COLUMNS.map((column) => {
-                  const name = `${rowsPath}.${index}.${column.key}`;
-                  const id = `${baseId}-${index}-${column.key}`;
-                  return (
-                    <td key={column.key} className="px-2 py-1">
-                      <ChartCell
-                        name={name}
-                        id={id}
-                        label={`Row ${index + 1} ${column.label.toLowerCase()} (${unitLabel(units[column.key])})`}
-                        unit={units[column.key]}
-                      />
-                    </td>
-                  );
-                })}
-                <td className="px-2 py-1">
-                  <Controller
-                    control={control}
-                    name={`${rowsPath}.${index}.interpolationAllowed`}
-                    render={({ field }) => (
-                      <input
-                        type="checkbox"
-                        aria-label={`Row ${index + 1}: the chart allows interpolation`}
-                        checked={field.value === true}
-                        onChange={(event) => field.onChange(event.target.checked || undefined)}
-                        className="mt-2 size-4 accent-verdigris"
-                      />
-                    )}
-                  />
-                </td>
-                <td className="px-1 py-1">
-                  <Button
-                    size="sm"
-                    variant="quiet"
-                    aria-label={`Remove chart row ${index + 1}`}
-                    onClick={() => remove(index)}
-                  >
-                    ✕
-                  </Button>
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {fields.length === 0 && (
+                <tr>
+                  <td colSpan={6} className="px-3 py-4 text-ink-soft">
+                    No chart rows yet. Paste them above or add them one by one.
+                  </td>
+                </tr>
+              )}
+              {fields.map((row, index) => (
+                <tr key={row.id} className="border-t border-rule align-top even:bg-sheet-alt">
+                  <td className="px-2 py-1 tabular text-ink-soft">{index + 1}</td>
+                  {COLUMNS.map((column) => {
+                    const name = `${rowsPath}.${index}.${column.key}`;
+                    const id = `${baseId}-${index}-${column.key}`;
+                    return (
+                      <td key={column.key} className="px-2 py-1">
+                        <ChartCell
+                          name={name}
+                          id={id}
+                          label={`Row ${index + 1} ${column.label.toLowerCase()} (${unitLabel(units[column.key])})`}
+                          unit={units[column.key]}
+                        />
+                      </td>
+                    );
+                  })}
+                  <td className="px-2 py-1">
+                    <Controller
+                      control={control}
+                      name={`${rowsPath}.${index}.interpolationAllowed`}
+                      render={({ field }) => (
+                        <input
+                          type="checkbox"
+                          aria-label={`Row ${index + 1}: the chart allows interpolation`}
+                          checked={field.value === true}
+                          onChange={(event) => field.onChange(event.target.checked || undefined)}
+                          className="mt-2 size-4 accent-verdigris"
+                        />
+                      )}
+                    />
+                  </td>
+                  <td className="px-1 py-1">
+                    <Button
+                      size="sm"
+                      variant="quiet"
+                      aria-label={`Remove chart row ${index + 1}`}
+                      onClick={() => remove(index)}
+                    >
+                      ✕
+                    </Button>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </fieldset>
       </div>
       <ErrorText id={`${baseId}-error`} message={listError} />
-      <div className="flex gap-2">
-        <Button size="sm" onClick={() => append({})}>
-          + Add a row
-        </Button>
-        {fields.length > 0 && (
-          <Button size="sm" variant="quiet" onClick={() => replace([])}>
-            Clear all rows
+      <fieldset className="contents" disabled={disabled}>
+        <div className="flex gap-2">
+          <Button size="sm" onClick={() => append({})}>
+            + Add a row
           </Button>
-        )}
-      </div>
+          {fields.length > 0 && (
+            <Button size="sm" variant="quiet" onClick={() => replace([])}>
+              Clear all rows
+            </Button>
+          )}
+        </div>
+      </fieldset>
     </section>
   );
 }

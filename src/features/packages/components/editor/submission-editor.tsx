@@ -43,6 +43,8 @@ export function SubmissionEditor({
   const { control, reset, formState } = form;
   const values = useLiftValues(control);
   const fillFromLibrary = useLibraryFill(form);
+  // A fill from the library remounts the chart rows editor: its rows and column units are read again.
+  const [chartFills, setChartFills] = useState(0);
 
   const [title, setTitle] = useState(detail.package.title);
   const [plannedLiftDate, setPlannedLiftDate] = useState(detail.package.plannedLiftDate ?? '');
@@ -134,19 +136,23 @@ export function SubmissionEditor({
             <h2 id="step-title" className="mb-3 text-[17px] font-black">
               {index + 1}. {current.title}
             </h2>
-            {(step === 'crane' || step === 'chart') && library?.picker(fillFromLibrary)}
+            {(step === 'crane' || step === 'chart') &&
+              library?.picker((f) => {
+                fillFromLibrary(f, 0);
+                setChartFills((n) => n + 1);
+              }, 0)}
             <FieldGroups
               groups={current.groups}
               values={live}
               system={system}
-              locked={library?.locked ? isLibraryPath : undefined}
+              locked={library?.locked(0) ? isLibraryPath : undefined}
             />
             {step === 'chart' && (
-              <fieldset className="contents" disabled={!!library?.locked}>
-                <ChartRowsEditor system={system} />
-              </fieldset>
+              <ChartRowsEditor key={chartFills} system={system} disabled={!!library?.locked(0)} />
             )}
-            {step === 'cranes' && <MultiCraneEditor system={system} />}
+            {step === 'cranes' && (
+              <MultiCraneEditor system={system} library={library && { ...library, fill: fillFromLibrary }} />
+            )}
             {step === 'documents' && (
               <DocumentsStep
                 detail={detail}
