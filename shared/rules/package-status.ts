@@ -85,7 +85,7 @@ const FIXED_ONCE_RETURN_REQUESTED: ReadonlySet<PackageAction> = new Set<PackageA
 ]);
 
 /** Whether the action is one the requested return of the current revision closes. */
-export function fixedByReturn(action: PackageAction): boolean {
+function fixedByReturn(action: PackageAction): boolean {
   return FIXED_ONCE_RETURN_REQUESTED.has(action);
 }
 

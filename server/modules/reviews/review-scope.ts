@@ -23,14 +23,6 @@ function requireSubmitted(revision: Revision) {
     throw new AppError(409, 'not_submitted', `Revision ${revision.number} is still a draft.`);
 }
 
-export async function currentSubmittedRevision(m: EntityManager, pkg: LiftPackage) {
-  const revision = await m
-    .getRepository(Revision)
-    .findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
-  requireSubmitted(revision);
-  return revision;
-}
-
 /**
  * The package in the user's scope, read and locked (FOR UPDATE) in the caller's transaction;
  * null when it is not (or no longer) in their scope. Only the package row is locked: TypeORM
@@ -44,17 +36,12 @@ export async function lockPackage(m: EntityManager, user: Actor, packageId: stri
 }
 
 /** Whether a stamped return has been requested for the revision (pending, ready or failed). */
-export async function returnRequested(m: EntityManager, revisionId: string): Promise<boolean> {
+async function returnRequested(m: EntityManager, revisionId: string): Promise<boolean> {
   return m.getRepository(StampedReturn).existsBy({ revisionId });
 }
 
 /** 409 `return_issued` when the action changes what the revision's requested return is built from. */
-export async function requireNotIssued(
-  m: EntityManager,
-  revision: Revision,
-  action: PackageAction,
-  what: string,
-) {
+async function requireNotIssued(m: EntityManager, revision: Revision, action: PackageAction, what: string) {
   const refusal = returnRefusal(action, await returnRequested(m, revision.id), revision.number, what);
   if (refusal) throw new AppError(409, 'return_issued', refusal);
 }
