@@ -22,6 +22,8 @@ interface RouteDoc {
   response?: ZodType;
   responseContentType?: string;
   status?: number;
+  /** When the route can answer 409 (a state that refuses it), what it means. */
+  conflict?: string;
 }
 
 export function describeRoute(doc: RouteDoc) {
@@ -54,6 +56,7 @@ export function describeRoute(doc: RouteDoc) {
       ...(doc.public ? {} : { 401: { description: 'Not signed in', content: errorContent } }),
       ...(doc.public ? {} : { 403: { description: 'Role not allowed', content: errorContent } }),
       404: { description: 'Not found (or outside your organisation)', content: errorContent },
+      ...(doc.conflict ? { 409: { description: doc.conflict, content: errorContent } } : {}),
     },
   });
 }

@@ -44,14 +44,14 @@ export const ACTION_STATES: Record<PackageAction, { states: readonly PackageStat
     when: 'once the package has been returned to the contractor',
   },
   raise_finding: { states: ['with_engineer'], when: 'while the package is with the engineer' },
-  // The engineer settles findings until the return is issued.
+  // The engineer settles findings until the return is requested (see fixedByReturn).
   close_or_reopen_finding: {
     states: ['with_engineer', 'decided'],
     when: 'while the package is with the engineer, before the return',
   },
   edit_markups: { states: ['with_engineer'], when: 'while the package is with the engineer' },
   accept_figure: { states: ['with_engineer'], when: 'while the package is with the engineer' },
-  // The engineer may change the decision until the return is issued.
+  // The engineer may change the decision until the return is requested (see fixedByReturn).
   record_decision: {
     states: ['with_engineer', 'decided'],
     when: 'while the package is with the engineer, before the return',
@@ -69,6 +69,38 @@ export const ACTION_STATES: Record<PackageAction, { states: readonly PackageStat
 
 export function actionAllowed(action: PackageAction, status: PackageStatus): boolean {
   return ACTION_STATES[action].states.includes(status);
+}
+
+/**
+ * Once the stamped return of a revision is requested, the engineer's record of that revision
+ * is fixed whatever the status: the return is built from exactly the decision, findings and
+ * markups it was issued for, so the PDF, the package page and /verify agree.
+ */
+const FIXED_ONCE_RETURN_REQUESTED: ReadonlySet<PackageAction> = new Set<PackageAction>([
+  'record_decision',
+  'raise_finding',
+  'close_or_reopen_finding',
+  'edit_markups',
+  'accept_figure',
+]);
+
+/** Whether the action is one the requested return of the current revision closes. */
+function fixedByReturn(action: PackageAction): boolean {
+  return FIXED_ONCE_RETURN_REQUESTED.has(action);
+}
+
+/**
+ * Null when the action may go on although a return is requested (or none is), otherwise the
+ * sentence to answer with (409 `return_issued`).
+ */
+export function returnRefusal(
+  action: PackageAction,
+  returnRequested: boolean,
+  revision: number,
+  what: string,
+): string | null {
+  if (!returnRequested || !fixedByReturn(action)) return null;
+  return `${what} only before the stamped return is issued; the return of revision ${revision} has been issued, so its decision, findings and markups stay as issued.`;
 }
 
 /** Null when the action is allowed in this status, otherwise the sentence to answer with. */

@@ -160,6 +160,11 @@ export const RevisionDetail = z.object({
   acceptedFigures: z.array(
     z.object({ figure: z.string(), reason: z.string(), engineer: z.string(), at: z.string() }),
   ),
+  /**
+   * When the stamped return of this revision was first requested; from then on its decision,
+   * findings and markups are fixed (shared/rules/package-status.ts, fixedByReturn). Null before.
+   */
+  returnRequestedAt: z.string().nullable(),
 });
 export type RevisionDetail = z.infer<typeof RevisionDetail>;
 

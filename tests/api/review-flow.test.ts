@@ -1,12 +1,8 @@
 // The review desk over the API: queue filters, assignment, markups, findings, the
 // decision with its stale-save guard, the stamped return, verification and resubmission.
-import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
-import os from 'node:os';
-import path from 'node:path';
 import supertest from 'supertest';
-import type TestAgent from 'supertest/lib/agent';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '@server/config';
 import { runCheckRun } from '@server/modules/check-runs/service';
@@ -14,8 +10,15 @@ import { buildReturn } from '@server/modules/returns/service';
 import { startTestApp, signedIn, type TestApp } from '../support/app';
 import { makeUser, makeWorld } from '../support/factories';
 import { makePdf } from '../support/pdfs';
+import {
+  desk as deskOf,
+  passing,
+  pdftotext,
+  submitted as submittedIn,
+  type Agent,
+  type World,
+} from '../support/review-desk';
 
-const passing = JSON.parse(fs.readFileSync('shared/engineering/examples/pass-outriggers.json', 'utf8'));
 const disagreeing = JSON.parse(
   fs.readFileSync('shared/engineering/examples/caution-discrepancies.json', 'utf8'),
 );
@@ -26,42 +29,9 @@ beforeAll(async () => {
 });
 afterAll(async () => t.close());
 
-type World = Awaited<ReturnType<typeof makeWorld>>;
-type Agent = InstanceType<typeof TestAgent>;
-
-/** A contractor's package through draft, upload, submit and the check run. */
-async function submitted(
-  w: World,
-  contractor: Agent,
-  inputs = passing,
-  title = 'Set the drive unit',
-  date = '2027-03-14',
-) {
-  const created = await contractor
-    .post('/api/packages')
-    .send({ title, siteId: w.site.id, plannedLiftDate: date });
-  const id = created.body.package.id as string;
-  await contractor.put(`/api/packages/${id}/draft`).send({ inputs });
-  const up = await contractor
-    .post(`/api/packages/${id}/files`)
-    .field('kind', 'lift_plan')
-    .attach('file', Buffer.from(await makePdf(2)), 'plan.pdf');
-  expect(up.status).toBe(201);
-  const sub = await contractor.post(`/api/packages/${id}/submit`);
-  expect(sub.status).toBe(202);
-  await runCheckRun(t.ctx.dataSource, sub.body.current.id);
-  return { id, fileId: up.body.id as string, revisionId: sub.body.current.id as string };
-}
-
-async function desk() {
-  const w = await makeWorld(t.ctx.dataSource);
-  const [contractor, reviewer, engineer] = await Promise.all([
-    signedIn(t.app, w.plannerA.email),
-    signedIn(t.app, w.reviewer.email),
-    signedIn(t.app, w.engineer.email),
-  ]);
-  return { w, contractor, reviewer, engineer };
-}
+const submitted = (w: World, contractor: Agent, inputs = passing, title?: string, date?: string) =>
+  submittedIn(t, w, contractor, inputs, title, date);
+const desk = () => deskOf(t);
 
 describe('the queue', () => {
   it('when the reviewer filters by engineer, criticality, discrepancies and date window, then the server filters', async () => {
@@ -252,20 +222,6 @@ describe('the engineer’s review', () => {
     expect(unknown.status).toBe(400);
   });
 });
-
-async function pdftotext(bytes: Buffer, first?: number): Promise<string> {
-  const file = path.join(os.tmpdir(), `return-${Date.now()}-${Math.random()}.pdf`);
-  fs.writeFileSync(file, bytes);
-  try {
-    return execFileSync(
-      'pdftotext',
-      [...(first ? ['-f', String(first), '-l', String(first)] : []), '-layout', file, '-'],
-      { encoding: 'utf8' },
-    );
-  } finally {
-    fs.rmSync(file, { force: true });
-  }
-}
 
 async function issueAndBuild(reviewer: Agent, id: string) {
   const issued = await reviewer.post(`/api/packages/${id}/returns`);

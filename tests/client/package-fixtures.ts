@@ -36,6 +36,7 @@ export function makeDetail(
     results: null,
     files: [],
     acceptedFigures: [],
+    returnRequestedAt: null,
     ...options.current,
   };
   return {

@@ -261,6 +261,61 @@ describe('review workspace', () => {
     expect(bodies.map((b) => b.baseVersion)).toEqual([1, 4]);
   });
 
+  it('when the return of the revision has been issued, then the decision, findings and markup tools are closed and say why', async () => {
+    const base = workspaceDetail({ status: 'decided' });
+    const detail: PackageDetail = {
+      ...base,
+      package: { ...base.package, decision: 'accepted', version: 3 },
+      current: { ...base.current, returnRequestedAt: '2030-03-02T10:00:00.000Z' },
+    };
+    const { sent } = serve({ detail });
+    const layer = await openWorkspace(`/packages/${detail.package.id}/review`);
+    expect(screen.getByTestId('read-only-note').textContent).toMatch(
+      /stamped return of revision 1 has been issued: its decision, findings and markups stay as issued/,
+    );
+    expect(screen.queryByRole('toolbar', { name: 'Markup tools' })).toBeNull();
+    drag(layer, [100, 100], [300, 250]);
+    fireEvent.click(screen.getByRole('tab', { name: /Decision/ }));
+    const form = screen.getByRole('form', { name: 'Decision' });
+    expect(
+      (within(form).getByRole('button', { name: 'Record the decision' }) as HTMLButtonElement).disabled,
+    ).toBe(true);
+    for (const radio of within(form).getAllByRole('radio')) expect(radio.matches(':disabled')).toBe(true);
+    expect(sent).toHaveLength(0);
+  });
+
+  it('when the decision races the return and answers 409 return_issued, then the server’s sentence shows and the form closes', async () => {
+    const detail = workspaceDetail();
+    const sentence =
+      'A decision can be recorded only before the stamped return is issued; the return of revision 1 has been issued, so its decision, findings and markups stay as issued.';
+    const server = serve({
+      detail,
+      onPost: (path) => {
+        if (!path.endsWith('/decision')) return undefined;
+        server.setDetail({
+          ...detail,
+          package: { ...detail.package, status: 'decided', decision: 'rejected', version: 2 },
+          current: { ...detail.current, returnRequestedAt: '2030-03-02T10:00:00.000Z' },
+        });
+        return { status: 409, body: { error: { code: 'return_issued', message: sentence } } };
+      },
+    });
+    await openWorkspace(`/packages/${detail.package.id}/review`);
+    fireEvent.click(screen.getByRole('tab', { name: /Decision/ }));
+    const form = screen.getByRole('form', { name: 'Decision' });
+    fireEvent.click(within(form).getByLabelText(/^Accepted/, { selector: 'input[value="accepted"]' }));
+    fireEvent.click(within(form).getByRole('button', { name: 'Record the decision' }));
+    expect((await within(form).findByRole('alert')).textContent).toBe(sentence);
+    expect(within(form).queryByText(/return_issued/)).toBeNull();
+    await waitFor(() =>
+      expect(
+        (within(form).getByRole('button', { name: 'Record the decision' }) as HTMLButtonElement).disabled,
+      ).toBe(true),
+    );
+    await waitFor(() => expect(within(form).getByTestId('current-decision').textContent).toBe('Rejected'));
+    for (const radio of within(form).getAllByRole('radio')) expect(radio.matches(':disabled')).toBe(true);
+  });
+
   it('when a stated figure is accepted without a reason, then nothing is sent; with a reason, it is sent and the reason shows', async () => {
     const detail = workspaceDetail();
     const reason = 'Heavier block from the site list; conservative.';

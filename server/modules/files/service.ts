@@ -2,7 +2,7 @@
 // interface, recorded. A refused upload leaves nothing on disk or in the database.
 import type { Actor } from '@shared/rules/actor';
 import { randomUUID } from 'node:crypto';
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import type { FileKind, FileSummary } from '@shared/schemas/packages';
 import { AppError } from '../../lib/app-error';
 import { sha256, type Storage } from '../../lib/storage';
@@ -24,11 +24,7 @@ export function toFileSummary(f: UploadedFile): FileSummary {
   };
 }
 
-async function currentDraft(ds: DataSource, user: Actor, packageId: string) {
-  const pkg = await findScopedPackage(ds.manager, user, packageId);
-  const revision = await ds
-    .getRepository(Revision)
-    .findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
+function requireDraft(revision: Pick<Revision, 'number' | 'state'>) {
   if (revision.state !== 'draft') {
     throw new AppError(
       409,
@@ -36,7 +32,25 @@ async function currentDraft(ds: DataSource, user: Actor, packageId: string) {
       `Revision ${revision.number} is submitted; its files can no longer change.`,
     );
   }
+}
+
+async function currentDraft(ds: DataSource, user: Actor, packageId: string) {
+  const pkg = await findScopedPackage(ds.manager, user, packageId);
+  const revision = await ds
+    .getRepository(Revision)
+    .findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
+  requireDraft(revision);
   return { pkg, revision };
+}
+
+/**
+ * Locks the revision row for the rest of the transaction and checks again that it is a
+ * draft: uploads, removals and the submission (which locks the same row) go one at a time,
+ * so two lift plans sent at once end as one, and no file changes under a submission.
+ */
+async function lockDraft(m: EntityManager, revisionId: string) {
+  const [row] = await m.query(`SELECT number, state FROM revisions WHERE id = $1 FOR UPDATE`, [revisionId]);
+  requireDraft({ number: Number(row.number), state: row.state });
 }
 
 export async function addFile(
@@ -55,6 +69,9 @@ export async function addFile(
   await storage.put(storageKey, upload.bytes);
   try {
     const saved = await ds.transaction(async (m) => {
+      await lockDraft(m, revision.id);
+      // One lift plan per revision: a new one replaces the one there is (under the lock, so
+      // the one there is is the last upload's).
       let replaced: UploadedFile | null = null;
       if (upload.kind === 'lift_plan') {
         replaced = await m
@@ -103,16 +120,18 @@ export async function removeFile(
   fileId: string,
 ) {
   const { pkg, revision } = await currentDraft(ds, user, packageId);
-  const file = await ds.getRepository(UploadedFile).findOneBy({ id: fileId, revisionId: revision.id });
-  if (!file) throw AppError.notFound('file');
-  await ds.transaction(async (m) => {
-    await m.getRepository(UploadedFile).delete(file.id);
+  const file = await ds.transaction(async (m) => {
+    await lockDraft(m, revision.id);
+    const found = await m.getRepository(UploadedFile).findOneBy({ id: fileId, revisionId: revision.id });
+    if (!found) throw AppError.notFound('file');
+    await m.getRepository(UploadedFile).delete(found.id);
     await recordAudit(m, {
       action: 'file.removed',
       actor: user,
       packageId: pkg.id,
-      detail: { revision: revision.number, name: file.originalName },
+      detail: { revision: revision.number, name: found.originalName },
     });
+    return found;
   });
   await storage.delete(file.storageKey).catch(() => undefined);
 }

@@ -105,6 +105,10 @@ export async function revisionDetail(dataSource: DataSource, revision: Revision)
     where: { revisionId: revision.id },
     order: { kind: 'ASC', createdAt: 'ASC' },
   });
+  const [requested] = await dataSource.query(
+    `SELECT min(created_at) AS at FROM stamped_returns WHERE revision_id = $1`,
+    [revision.id],
+  );
   return {
     id: revision.id,
     number: revision.number,
@@ -127,6 +131,7 @@ export async function revisionDetail(dataSource: DataSource, revision: Revision)
       engineer: a.engineer,
       at: a.at,
     })),
+    returnRequestedAt: requested?.at ? new Date(requested.at).toISOString() : null,
   };
 }
 

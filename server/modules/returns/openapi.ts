@@ -13,6 +13,8 @@ describeRoute({
   params: PackageIdParams,
   response: StampedReturn,
   status: 202,
+  conflict:
+    'No decision recorded yet (no_decision), or the engineer changed the decision while the return was being issued (decision_changed)',
 });
 describeRoute({
   method: 'get',

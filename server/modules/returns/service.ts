@@ -1,7 +1,9 @@
 // The stamped return: a reviewer issues it for the recorded decision; the stamp job
 // builds the PDF (original pages with markups burned in, the stamp block, the calculation
 // sheet), stores it with its sha-256 and marks the package returned. One return per
-// decision: issuing twice or retrying the job gives the same single return.
+// decision: issuing twice or retrying the job gives the same single return. Once requested,
+// the revision's decision, findings and markups are fixed, and the return is built from the
+// decision it was issued for.
 import type { Actor } from '@shared/rules/actor';
 import { randomBytes } from 'node:crypto';
 import { mkdir, mkdtemp, rm } from 'node:fs/promises';
@@ -25,6 +27,7 @@ import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { requireState } from '../packages/state-guard';
 import { DecisionRecord, Finding, Markup, StampedReturn } from '../reviews/review.entity';
+import { lockPackage } from '../reviews/review-scope';
 import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
@@ -70,6 +73,7 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Actor, p
   if (user.role !== 'reviewer') throw AppError.forbidden('Only a reviewer issues the stamped return.');
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   requireState('issue_return', pkg.status, 'The stamped return can be issued', 'no_decision');
+  // The decision the reviewer's request found; the return is issued for exactly this one.
   const decision = await latestDecision(ds.manager, pkg.id);
   if (!decision) {
     throw new AppError(
@@ -81,9 +85,24 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Actor, p
   let ret = await ds.getRepository(StampedReturn).findOneBy({ decisionId: decision.id });
   if (!ret) {
     ret = await ds.transaction(async (m) => {
+      // Under the package lock a decision cannot land between this check and the insert; from
+      // the insert on, the revision's decision, findings and markups are fixed (review-scope).
+      const locked = await lockPackage(m, user, pkg.id);
+      if (!locked) throw AppError.notFound('lift package');
+      requireState('issue_return', locked.status, 'The stamped return can be issued', 'no_decision');
+      const now = await latestDecision(m, pkg.id);
+      if (now?.id !== decision.id) {
+        throw new AppError(
+          409,
+          'decision_changed',
+          `The engineer changed the decision to ${now ? DECISION_LABELS[now.decision] : 'none'} while the return was being issued. Read the new decision, then issue the return again.`,
+        );
+      }
+      const existing = await m.getRepository(StampedReturn).findOneBy({ decisionId: decision.id });
+      if (existing) return existing;
       await m.query(
         `INSERT INTO stamped_returns (decision_id, package_id, revision_id, verification_code, issued_by_id)
-         VALUES ($1, $2, $3, $4, $5) ON CONFLICT (decision_id) DO NOTHING`,
+         VALUES ($1, $2, $3, $4, $5)`,
         [decision.id, pkg.id, decision.revisionId, newVerificationCode(), user.id],
       );
       await recordAudit(m, {
@@ -189,7 +208,9 @@ export async function buildReturn(
   await step(5, 'reading the review');
   const pkg = await ds.getRepository(LiftPackage).findOneByOrFail({ id: ret.packageId });
   const revision = await ds.getRepository(Revision).findOneByOrFail({ id: ret.revisionId });
-  const decision = (await latestDecision(ds.manager, pkg.id))!;
+  // The decision the return was issued for, never a later one: the stamp, /verify and the
+  // package page say the same.
+  const decision = await ds.getRepository(DecisionRecord).findOneByOrFail({ id: ret.decisionId });
   const site = await ds.getRepository(Site).findOneByOrFail({ id: pkg.siteId });
   const contractor = await ds
     .getRepository(Organisation)

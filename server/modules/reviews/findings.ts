@@ -1,5 +1,5 @@
 // Findings on a revision (raise, answer, close, reopen) and contractor figures the engineer
-// accepts with a reason.
+// accepts with a reason. The engineer's changes stop once the revision's return is requested.
 import type { Actor } from '@shared/rules/actor';
 import { stateRefusal } from '@shared/rules/package-status';
 import type { DataSource } from 'typeorm';
@@ -11,7 +11,7 @@ import { UploadedFile } from '../files/file.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { Finding, Markup } from './review.entity';
-import { currentSubmittedRevision, packageUnderReview, requireAssignedEngineer } from './review-scope';
+import { requireAssignedEngineer, underReview } from './review-scope';
 import { names } from './markups';
 
 export async function listFindings(
@@ -53,43 +53,48 @@ export async function listFindings(
 }
 
 export async function addFinding(ds: DataSource, user: Actor, packageId: string, body: FindingBody) {
-  const pkg = await packageUnderReview(ds, user, packageId, 'raise_finding', 'Findings can be raised');
-  await ds.transaction(async (m) => {
-    const revision = await currentSubmittedRevision(m, pkg);
-    if (
-      body.markupId &&
-      !(await m.getRepository(Markup).findOneBy({ id: body.markupId, revisionId: revision.id }))
-    ) {
-      throw AppError.badRequest('markupId: not a markup of this revision', [
-        { path: 'markupId', message: 'markupId must be a markup of the current revision' },
-      ]);
-    }
-    if (
-      body.fileId &&
-      !(await m.getRepository(UploadedFile).findOneBy({ id: body.fileId, revisionId: revision.id }))
-    ) {
-      throw AppError.badRequest('fileId: not a file of this revision', [
-        { path: 'fileId', message: 'fileId must be one of the revision’s files' },
-      ]);
-    }
-    await m.getRepository(Finding).save({
-      packageId: pkg.id,
-      revisionId: revision.id,
-      checkId: body.checkId ?? null,
-      markupId: body.markupId ?? null,
-      fileId: body.fileId ?? null,
-      pageNumber: body.pageNumber ?? null,
-      text: body.text,
-      severity: body.severity,
-      createdById: user.id,
-    });
-    await recordAudit(m, {
-      action: 'finding.raised',
-      actor: user,
-      packageId: pkg.id,
-      detail: { revision: revision.number, severity: body.severity },
-    });
-  });
+  await underReview(
+    ds,
+    user,
+    packageId,
+    'raise_finding',
+    'Findings can be raised',
+    async (m, pkg, revision) => {
+      if (
+        body.markupId &&
+        !(await m.getRepository(Markup).findOneBy({ id: body.markupId, revisionId: revision.id }))
+      ) {
+        throw AppError.badRequest('markupId: not a markup of this revision', [
+          { path: 'markupId', message: 'markupId must be a markup of the current revision' },
+        ]);
+      }
+      if (
+        body.fileId &&
+        !(await m.getRepository(UploadedFile).findOneBy({ id: body.fileId, revisionId: revision.id }))
+      ) {
+        throw AppError.badRequest('fileId: not a file of this revision', [
+          { path: 'fileId', message: 'fileId must be one of the revision’s files' },
+        ]);
+      }
+      await m.getRepository(Finding).save({
+        packageId: pkg.id,
+        revisionId: revision.id,
+        checkId: body.checkId ?? null,
+        markupId: body.markupId ?? null,
+        fileId: body.fileId ?? null,
+        pageNumber: body.pageNumber ?? null,
+        text: body.text,
+        severity: body.severity,
+        createdById: user.id,
+      });
+      await recordAudit(m, {
+        action: 'finding.raised',
+        actor: user,
+        packageId: pkg.id,
+        detail: { revision: revision.number, severity: body.severity },
+      });
+    },
+  );
   return listFindings(ds, user, packageId);
 }
 
@@ -105,47 +110,56 @@ export async function updateFinding(
   const finding = await ds.getRepository(Finding).findOneBy({ id: findingId, packageId: pkg.id });
   if (!finding) throw AppError.notFound('finding');
   // The status machine says when each side may touch a finding (409 otherwise).
-  const refusal =
-    user.role === 'contractor'
-      ? stateRefusal('answer_finding', pkg.status, 'Findings can be answered')
-      : stateRefusal('close_or_reopen_finding', pkg.status, 'Findings can be closed or reopened');
-  if (refusal) throw new AppError(409, 'wrong_state', refusal);
-  await ds.transaction(async (m) => {
-    if (user.role === 'contractor') {
-      if (body.response === undefined || body.response.length === 0) {
-        throw AppError.badRequest('response: write the answer to the finding', [
-          { path: 'response', message: 'response is required' },
-        ]);
-      }
-      if (finding.state === 'closed') throw new AppError(409, 'finding_closed', 'This finding is closed.');
-      await m
-        .getRepository(Finding)
-        .update(finding.id, { response: body.response, state: 'answered', answeredAt: new Date() });
-      await recordAudit(m, {
-        action: 'finding.answered',
-        actor: user,
-        packageId: pkg.id,
-        detail: { findingId },
-      });
-    } else {
-      requireAssignedEngineer(user, pkg);
-      if (!body.state || body.state === 'answered') {
-        throw AppError.badRequest("state: the engineer sets 'open' or 'closed'", [
-          { path: 'state', message: "state must be 'open' or 'closed'" },
-        ]);
-      }
-      await m
-        .getRepository(Finding)
-        .update(finding.id, { state: body.state, closedAt: body.state === 'closed' ? new Date() : null });
-      await recordAudit(m, {
-        action: body.state === 'closed' ? 'finding.closed' : 'finding.reopened',
-        actor: user,
-        packageId: pkg.id,
-        detail: {
-          findingId,
-        },
-      });
+  if (user.role !== 'contractor') {
+    requireAssignedEngineer(user, pkg);
+    const state = body.state;
+    if (!state || state === 'answered') {
+      throw AppError.badRequest("state: the engineer sets 'open' or 'closed'", [
+        { path: 'state', message: "state must be 'open' or 'closed'" },
+      ]);
     }
+    // Closing or reopening changes what the revision's return is built from: under the package
+    // lock, and not once that return is requested.
+    await underReview(
+      ds,
+      user,
+      packageId,
+      'close_or_reopen_finding',
+      'Findings can be closed or reopened',
+      async (m) => {
+        await m
+          .getRepository(Finding)
+          .update(finding.id, { state, closedAt: state === 'closed' ? new Date() : null });
+        await recordAudit(m, {
+          action: state === 'closed' ? 'finding.closed' : 'finding.reopened',
+          actor: user,
+          packageId: pkg.id,
+          detail: { findingId },
+        });
+      },
+      'wrong_state',
+    );
+    return listFindings(ds, user, packageId);
+  }
+  const refusal = stateRefusal('answer_finding', pkg.status, 'Findings can be answered');
+  if (refusal) throw new AppError(409, 'wrong_state', refusal);
+  if (body.response === undefined || body.response.length === 0) {
+    throw AppError.badRequest('response: write the answer to the finding', [
+      { path: 'response', message: 'response is required' },
+    ]);
+  }
+  const response = body.response;
+  if (finding.state === 'closed') throw new AppError(409, 'finding_closed', 'This finding is closed.');
+  await ds.transaction(async (m) => {
+    await m
+      .getRepository(Finding)
+      .update(finding.id, { response, state: 'answered', answeredAt: new Date() });
+    await recordAudit(m, {
+      action: 'finding.answered',
+      actor: user,
+      packageId: pkg.id,
+      detail: { findingId },
+    });
   });
   return listFindings(ds, user, packageId);
 }
@@ -157,27 +171,38 @@ export async function acceptFigure(
   figure: string,
   reason: string,
 ) {
-  const pkg = await packageUnderReview(ds, user, packageId, 'accept_figure', 'Figures can be accepted');
-  await ds.transaction(async (m) => {
-    const revision = await currentSubmittedRevision(m, pkg);
-    const discrepancies = (readStoredResult(revision.results)?.discrepancies ?? []).filter(
-      (d) => d.status === 'discrepancy',
-    );
-    if (!discrepancies.some((d) => d.figure === figure)) {
-      throw AppError.badRequest(`figure: ${figure} is not a discrepancy of this revision`, [
-        { path: 'figure', message: 'figure must be one of the revision’s discrepancies' },
-      ]);
-    }
-    const accepted = (revision.acceptedFigures ?? []).filter((a) => a.figure !== figure);
-    accepted.push({ figure, reason, engineerId: user.id, engineer: user.name, at: new Date().toISOString() });
-    await m.getRepository(Revision).update(revision.id, { acceptedFigures: accepted });
-    const open = discrepancies.filter((d) => !accepted.some((a) => a.figure === d.figure)).length;
-    await m.getRepository(LiftPackage).update(pkg.id, { openDiscrepancies: open });
-    await recordAudit(m, {
-      action: 'figure.accepted',
-      actor: user,
-      packageId: pkg.id,
-      detail: { figure, reason, revision: revision.number },
-    });
-  });
+  await underReview(
+    ds,
+    user,
+    packageId,
+    'accept_figure',
+    'Figures can be accepted',
+    async (m, pkg, revision) => {
+      const discrepancies = (readStoredResult(revision.results)?.discrepancies ?? []).filter(
+        (d) => d.status === 'discrepancy',
+      );
+      if (!discrepancies.some((d) => d.figure === figure)) {
+        throw AppError.badRequest(`figure: ${figure} is not a discrepancy of this revision`, [
+          { path: 'figure', message: 'figure must be one of the revision’s discrepancies' },
+        ]);
+      }
+      const accepted = (revision.acceptedFigures ?? []).filter((a) => a.figure !== figure);
+      accepted.push({
+        figure,
+        reason,
+        engineerId: user.id,
+        engineer: user.name,
+        at: new Date().toISOString(),
+      });
+      await m.getRepository(Revision).update(revision.id, { acceptedFigures: accepted });
+      const open = discrepancies.filter((d) => !accepted.some((a) => a.figure === d.figure)).length;
+      await m.getRepository(LiftPackage).update(pkg.id, { openDiscrepancies: open });
+      await recordAudit(m, {
+        action: 'figure.accepted',
+        actor: user,
+        packageId: pkg.id,
+        detail: { figure, reason, revision: revision.number },
+      });
+    },
+  );
 }

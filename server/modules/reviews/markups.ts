@@ -1,4 +1,5 @@
-// The engineer's markups on the pages of a submitted revision: list, add, delete.
+// The engineer's markups on the pages of a submitted revision: list, add, delete (not once
+// the revision's stamped return is requested).
 import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager } from 'typeorm';
 import { In } from 'typeorm';
@@ -9,7 +10,7 @@ import { Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { User } from '../users/user.entity';
 import { Markup } from './review.entity';
-import { currentSubmittedRevision, packageUnderReview } from './review-scope';
+import { underReview } from './review-scope';
 
 export async function names(m: EntityManager, ids: string[]) {
   const users = ids.length ? await m.getRepository(User).findBy({ id: In([...new Set(ids)]) }) : [];
@@ -49,46 +50,60 @@ export async function listMarkups(ds: DataSource, user: Actor, packageId: string
 }
 
 export async function addMarkup(ds: DataSource, user: Actor, packageId: string, body: MarkupBody) {
-  const pkg = await packageUnderReview(ds, user, packageId, 'edit_markups', 'Markups can be added');
-  return ds.transaction(async (m) => {
-    const revision = await currentSubmittedRevision(m, pkg);
-    const file = await m.getRepository(UploadedFile).findOneBy({ id: body.fileId, revisionId: revision.id });
-    if (!file)
-      throw AppError.badRequest('fileId: not a file of this revision', [
-        { path: 'fileId', message: 'fileId must be one of the revision’s files' },
-      ]);
-    if (body.pageNumber > file.pages) {
-      throw AppError.badRequest(`pageNumber: the file has ${file.pages} pages`, [
-        { path: 'pageNumber', message: `pageNumber must be between 1 and ${file.pages}` },
-      ]);
-    }
-    let number: number | null = null;
-    if (body.kind === 'pin') {
-      await m.query('SELECT pg_advisory_xact_lock(hashtext($1))', [revision.id]);
-      const [row] = await m.query(
-        `SELECT coalesce(max(number), 0) + 1 AS n FROM markups WHERE revision_id = $1 AND kind = 'pin'`,
-        [revision.id],
-      );
-      number = Number(row.n);
-    }
-    const saved = await m.getRepository(Markup).save({
-      revisionId: revision.id,
-      fileId: file.id,
-      pageNumber: body.pageNumber,
-      kind: body.kind,
-      geometry: body.geometry,
-      colour: body.colour,
-      text: body.text ?? null,
-      number,
-      createdById: user.id,
-    });
-    return toMarkup(saved, new Map([[user.id, user.name]]));
-  });
+  return underReview(
+    ds,
+    user,
+    packageId,
+    'edit_markups',
+    'Markups can be added',
+    async (m, _pkg, revision) => {
+      const file = await m
+        .getRepository(UploadedFile)
+        .findOneBy({ id: body.fileId, revisionId: revision.id });
+      if (!file)
+        throw AppError.badRequest('fileId: not a file of this revision', [
+          { path: 'fileId', message: 'fileId must be one of the revision’s files' },
+        ]);
+      if (body.pageNumber > file.pages) {
+        throw AppError.badRequest(`pageNumber: the file has ${file.pages} pages`, [
+          { path: 'pageNumber', message: `pageNumber must be between 1 and ${file.pages}` },
+        ]);
+      }
+      let number: number | null = null;
+      if (body.kind === 'pin') {
+        // The package lock underReview holds numbers the pins one at a time.
+        const [row] = await m.query(
+          `SELECT coalesce(max(number), 0) + 1 AS n FROM markups WHERE revision_id = $1 AND kind = 'pin'`,
+          [revision.id],
+        );
+        number = Number(row.n);
+      }
+      const saved = await m.getRepository(Markup).save({
+        revisionId: revision.id,
+        fileId: file.id,
+        pageNumber: body.pageNumber,
+        kind: body.kind,
+        geometry: body.geometry,
+        colour: body.colour,
+        text: body.text ?? null,
+        number,
+        createdById: user.id,
+      });
+      return toMarkup(saved, new Map([[user.id, user.name]]));
+    },
+  );
 }
 
 export async function deleteMarkup(ds: DataSource, user: Actor, packageId: string, markupId: string) {
-  const pkg = await packageUnderReview(ds, user, packageId, 'edit_markups', 'Markups can be removed');
-  const revision = await currentSubmittedRevision(ds.manager, pkg);
-  const result = await ds.getRepository(Markup).delete({ id: markupId, revisionId: revision.id });
-  if (!result.affected) throw AppError.notFound('markup');
+  await underReview(
+    ds,
+    user,
+    packageId,
+    'edit_markups',
+    'Markups can be removed',
+    async (m, _pkg, revision) => {
+      const result = await m.getRepository(Markup).delete({ id: markupId, revisionId: revision.id });
+      if (!result.affected) throw AppError.notFound('markup');
+    },
+  );
 }

@@ -18,6 +18,10 @@ import { PackageIdParams } from '../packages/routes';
 import { CompareQuery, FindingParams, MarkupParams, MarkupQuery } from './routes';
 import { describeRoute } from '../../lib/openapi';
 
+/** The 409s of the engineer's changes to a revision (review-scope.ts, underReview). */
+const ENGINEER_EDIT_CONFLICT =
+  "The package is no longer with the engineer (review_closed), it was reassigned meanwhile (reassigned), or the revision's stamped return is requested (return_issued)";
+
 describeRoute({
   method: 'get',
   path: '/engineers',
@@ -32,6 +36,7 @@ describeRoute({
   tags: ['review'],
   body: AssignBody,
   response: AssignResult,
+  conflict: "The package's status allows no assignment, e.g. once decided (not_assignable)",
 });
 describeRoute({
   method: 'get',
@@ -51,6 +56,7 @@ describeRoute({
   body: MarkupBody,
   response: Markup,
   status: 201,
+  conflict: ENGINEER_EDIT_CONFLICT,
 });
 describeRoute({
   method: 'delete',
@@ -59,6 +65,7 @@ describeRoute({
   tags: ['review'],
   params: MarkupParams,
   status: 204,
+  conflict: ENGINEER_EDIT_CONFLICT,
 });
 describeRoute({
   method: 'get',
@@ -77,6 +84,7 @@ describeRoute({
   body: FindingBody,
   response: FindingList,
   status: 201,
+  conflict: ENGINEER_EDIT_CONFLICT,
 });
 describeRoute({
   method: 'patch',
@@ -86,6 +94,8 @@ describeRoute({
   params: FindingParams,
   body: FindingUpdateBody,
   response: FindingList,
+  conflict:
+    "Not in this package status (wrong_state), the finding is closed (finding_closed), the package was reassigned meanwhile (reassigned), or the revision's stamped return is requested (return_issued)",
 });
 describeRoute({
   method: 'post',
@@ -95,6 +105,7 @@ describeRoute({
   params: PackageIdParams,
   body: AcceptFigureBody,
   response: PackageDetail,
+  conflict: ENGINEER_EDIT_CONFLICT,
 });
 describeRoute({
   method: 'post',
@@ -104,6 +115,8 @@ describeRoute({
   params: PackageIdParams,
   body: DecisionBody,
   response: PackageDetail,
+  conflict:
+    "The package changed since baseVersion (stale_review), its status allows no decision (review_closed), it was reassigned meanwhile (reassigned), or the revision's stamped return is requested (return_issued)",
 });
 describeRoute({
   method: 'post',
@@ -113,6 +126,7 @@ describeRoute({
   params: PackageIdParams,
   response: PackageDetail,
   status: 201,
+  conflict: 'Only after a return as Revise and resubmit or Rejected (not_returned_for_revision)',
 });
 describeRoute({
   method: 'get',

@@ -19,7 +19,7 @@ import { requireState } from '../packages/state-guard';
 import { User } from '../users/user.entity';
 import { Assignment, DecisionRecord } from './review.entity';
 import { carryLibraryUses } from '../library/service';
-import { currentSubmittedRevision, requireAssignedEngineer } from './review-scope';
+import { lockPackage, underReview } from './review-scope';
 
 // ---- assignment -------------------------------------------------------------------------
 
@@ -62,8 +62,12 @@ export async function assignEngineer(
     ]);
   const outcome = await ds.transaction(async (m) => {
     const mail: MailDraft[] = [];
+    // Locked in id order (two reviewers' overlapping batches cannot deadlock), so a decision
+    // recorded meanwhile is seen here and the package's status is the one it has now.
     const packages = await scopedPackages(m, user)
       .andWhere('p.id IN (:...ids)', { ids: packageIds })
+      .orderBy('p.id')
+      .setLock('pessimistic_write')
       .getMany();
     const found = new Set(packages.map((p) => p.id));
     const missing = packageIds.filter((id) => !found.has(id));
@@ -135,12 +139,14 @@ export async function assignEngineer(
 
 // ---- decision ---------------------------------------------------------------------------
 
+/**
+ * The assigned engineer's decision, under the package lock: a reassignment that got there
+ * first answers 409 `reassigned`, a requested return 409 `return_issued`; a decision that got
+ * there first makes the reassignment answer 409 (the status machine allows none after it).
+ */
 export async function recordDecision(ds: DataSource, user: Actor, packageId: string, body: DecisionBody) {
-  const pkg = await findScopedPackage(ds.manager, user, packageId);
-  requireAssignedEngineer(user, pkg);
-  requireState('record_decision', pkg.status, 'A decision can be recorded', 'review_closed');
-  await ds.transaction(async (m) => {
-    const revision = await currentSubmittedRevision(m, pkg);
+  const what = 'A decision can be recorded';
+  await underReview(ds, user, packageId, 'record_decision', what, async (m, pkg, revision) => {
     // Optimistic lock: the version the engineer read must still be the current one.
     const result = await m
       .createQueryBuilder()
@@ -179,16 +185,12 @@ export async function latestDecision(m: EntityManager, packageId: string) {
 
 export async function startNextRevision(ds: DataSource, user: Actor, packageId: string) {
   if (user.role !== 'contractor') throw AppError.forbidden('Only the contractor starts a new revision.');
-  const pkg = await findScopedPackage(ds.manager, user, packageId);
-  requireState('start_next_revision', pkg.status, 'A new revision can start', 'not_returned_for_revision');
-  if (!['revise_and_resubmit', 'rejected'].includes(pkg.decision ?? '')) {
-    throw new AppError(
-      409,
-      'not_returned_for_revision',
-      'A new revision can start only after the package is returned as Revise and resubmit or Rejected.',
-    );
-  }
+  requireReturnedForRevision(await findScopedPackage(ds.manager, user, packageId));
   await ds.transaction(async (m) => {
+    // Again under the package lock: the same click twice starts one revision.
+    const pkg = await lockPackage(m, user, packageId);
+    if (!pkg) throw AppError.notFound('lift package');
+    requireReturnedForRevision(pkg);
     const previous = await m
       .getRepository(Revision)
       .findOneByOrFail({ packageId: pkg.id, number: pkg.currentRevision });
@@ -211,4 +213,16 @@ export async function startNextRevision(ds: DataSource, user: Actor, packageId: 
       detail: { revision: number, from: previous.number },
     });
   });
+}
+
+/** A next revision only after a return as Revise and resubmit or Rejected, never after an acceptance. */
+function requireReturnedForRevision(pkg: LiftPackage) {
+  requireState('start_next_revision', pkg.status, 'A new revision can start', 'not_returned_for_revision');
+  if (!['revise_and_resubmit', 'rejected'].includes(pkg.decision ?? '')) {
+    throw new AppError(
+      409,
+      'not_returned_for_revision',
+      'A new revision can start only after the package is returned as Revise and resubmit or Rejected.',
+    );
+  }
 }

@@ -4,7 +4,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { PackageDetail } from '@shared/schemas/packages';
 import { api } from '@/lib/api-client';
 import { packageKeys } from '@/lib/query-client';
-import { packagePath } from './review-keys';
+import { packagePath, refetchIfReviewClosed } from './review-keys';
 
 export type AcceptFigureInput = { figure: string; reason: string };
 
@@ -20,5 +20,6 @@ export function useAcceptFigure(packageId: string) {
       queryClient.setQueryData(packageKeys.detail(packageId), detail);
       void queryClient.invalidateQueries({ queryKey: packageKeys.lists() });
     },
+    onError: (error) => refetchIfReviewClosed(queryClient, packageId, error),
   });
 }

@@ -3,7 +3,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { FindingList, type Finding, type FindingBody } from '@shared/schemas/reviews';
 import { api, request } from '@/lib/api-client';
-import { packagePath, reviewKeys } from './review-keys';
+import { packagePath, refetchIfReviewClosed, reviewKeys } from './review-keys';
 
 export function getFindings(packageId: string, signal?: AbortSignal): Promise<Finding[]> {
   return api.get(`${packagePath(packageId)}/findings`, FindingList, { signal }).then((list) => list.items);
@@ -28,6 +28,7 @@ export function useCreateFinding(packageId: string) {
   return useMutation({
     mutationFn: (body: FindingBody) => createFinding(packageId, body),
     onSuccess: (items) => queryClient.setQueryData(reviewKeys.findings(packageId), items),
+    onError: (error) => refetchIfReviewClosed(queryClient, packageId, error),
   });
 }
 
@@ -49,5 +50,6 @@ export function useSetFindingState(packageId: string) {
     mutationFn: ({ findingId, state }: { findingId: string; state: 'open' | 'closed' }) =>
       setFindingState(packageId, findingId, state),
     onSuccess: (items) => queryClient.setQueryData(reviewKeys.findings(packageId), items),
+    onError: (error) => refetchIfReviewClosed(queryClient, packageId, error),
   });
 }

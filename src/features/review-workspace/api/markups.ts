@@ -4,7 +4,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { z } from 'zod';
 import { Markup, type MarkupBody } from '@shared/schemas/reviews';
 import { api } from '@/lib/api-client';
-import { packagePath, reviewKeys } from './review-keys';
+import { packagePath, refetchIfReviewClosed, reviewKeys } from './review-keys';
 
 const MarkupList = z.object({ items: z.array(Markup) });
 
@@ -36,6 +36,7 @@ export function useCreateMarkup(packageId: string) {
     onSuccess: (saved) => {
       queryClient.setQueryData<Markup[]>(reviewKeys.markups(packageId), (list) => [...(list ?? []), saved]);
     },
+    onError: (error) => refetchIfReviewClosed(queryClient, packageId, error),
     onSettled: () => queryClient.invalidateQueries({ queryKey: reviewKeys.markups(packageId) }),
   });
 }
@@ -53,6 +54,7 @@ export function useDeleteMarkup(packageId: string) {
         (list ?? []).filter((m) => m.id !== markupId),
       );
     },
+    onError: (error) => refetchIfReviewClosed(queryClient, packageId, error),
     onSettled: () => queryClient.invalidateQueries({ queryKey: reviewKeys.markups(packageId) }),
   });
 }

@@ -6,7 +6,7 @@ import type { Decision } from '@shared/schemas/common';
 import { PackageDetail } from '@shared/schemas/packages';
 import { api, isApiError } from '@/lib/api-client';
 import { packageKeys } from '@/lib/query-client';
-import { packagePath } from './review-keys';
+import { packagePath, refetchIfReviewClosed } from './review-keys';
 
 export type DecisionInput = { decision: Decision; conditions: string; baseVersion: number };
 
@@ -29,6 +29,7 @@ export function useRecordDecision(packageId: string) {
     onError: (error) => {
       if (isStaleReview(error))
         void queryClient.invalidateQueries({ queryKey: packageKeys.detail(packageId), exact: true });
+      else refetchIfReviewClosed(queryClient, packageId, error);
     },
   });
 }

@@ -1,7 +1,8 @@
 // Who may do what in the workspace. The statuses come from the shared status machine, the
-// same the server asks (shared/rules/package-status.ts); the client only keeps people from
-// starting work the server would refuse.
-import { actionAllowed } from '@shared/rules/package-status';
+// same the server asks (shared/rules/package-status.ts), and so does the rule that a requested
+// return fixes the revision's decision, findings and markups; the client only keeps people
+// from starting work the server would refuse.
+import { actionAllowed, returnRefusal, type PackageAction } from '@shared/rules/package-status';
 import type { CurrentUser } from '@shared/schemas/auth';
 import { PACKAGE_STATUS_LABELS } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
@@ -11,7 +12,7 @@ export type WorkspaceAccess = {
   assigned: boolean;
   /** Markups, findings and accepted figures: only while the package is with the engineer. */
   canMarkUp: boolean;
-  /** The decision can still change after it is recorded, until the return is issued. */
+  /** The decision can still change after it is recorded, until the return is requested. */
   canDecide: boolean;
   /** Closing and reopening findings. */
   canChangeFindings: boolean;
@@ -22,8 +23,13 @@ export type WorkspaceAccess = {
 export function workspaceAccess(user: CurrentUser, detail: PackageDetail): WorkspaceAccess {
   const pkg = detail.package;
   const assigned = user.role === 'engineer' && pkg.engineer?.id === user.id;
-  const canMarkUp = assigned && actionAllowed('edit_markups', pkg.status);
-  const canDecide = assigned && actionAllowed('record_decision', pkg.status);
+  const returnRequested = detail.current.returnRequestedAt !== null;
+  const allowed = (action: PackageAction) =>
+    assigned &&
+    actionAllowed(action, pkg.status) &&
+    returnRefusal(action, returnRequested, detail.current.number, '') === null;
+  const canMarkUp = allowed('edit_markups');
+  const canDecide = allowed('record_decision');
   let reason: string | null = null;
   if (user.role !== 'engineer') {
     reason = `Read-only: you are signed in as ${ROLE_LABELS[user.role].toLowerCase()}. Only the engineer of record assigned to this package marks it up and decides.`;
@@ -31,12 +37,14 @@ export function workspaceAccess(user: CurrentUser, detail: PackageDetail): Works
     reason = pkg.engineer
       ? `Read-only: this package is assigned to ${pkg.engineer.name}.`
       : 'Read-only: no engineer of record is assigned to this package yet.';
+  } else if (returnRequested) {
+    reason = `The stamped return of revision ${detail.current.number} has been issued: its decision, findings and markups stay as issued.`;
   } else if (pkg.status === 'decided') {
     reason =
       'A decision is recorded: markups and findings are closed. You can still change the decision until the coordinator issues the return.';
   } else if (!canDecide) {
     reason = `Read-only: the package is ${PACKAGE_STATUS_LABELS[pkg.status].toLowerCase()}.`;
   }
-  const canChangeFindings = assigned && actionAllowed('close_or_reopen_finding', pkg.status);
+  const canChangeFindings = allowed('close_or_reopen_finding');
   return { assigned, canMarkUp, canDecide, canChangeFindings, reason };
 }
