@@ -1,5 +1,5 @@
-// Builds the Express app (no listen): security headers, request logs, JSON parsing,
-// the API routes, the built client with its history fallback, and one error handler.
+// Builds the Express app (no listen): security headers, request logs, compression, JSON
+// parsing, the API routes, the built client with its history fallback, and one error handler.
 import fs from 'node:fs';
 import path from 'node:path';
 import cookieParser from 'cookie-parser';
@@ -12,6 +12,7 @@ import type { AppContext } from './context';
 import { logger, redactUrl } from './lib/logger';
 import { openApiDocument } from './openapi';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
+import { clientFiles, compressResponses } from './middleware/delivery';
 import { contentTypeGuard, csrfGuard, inputTextGuard, verifyJsonDepth } from './middleware/request-guards';
 import { adminRoutes } from './modules/admin/routes';
 import { authRoutes } from './modules/auth/routes';
@@ -58,6 +59,7 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
       },
     }),
   );
+  app.use(compressResponses());
   app.use(cookieParser());
   app.use('/api', csrfGuard(ctx.config.APP_URL ? new URL(ctx.config.APP_URL).origin : null));
   app.use('/api', contentTypeGuard);
@@ -83,10 +85,7 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
 
   const clientDir = opts.clientDir ?? path.resolve('dist');
   if (fs.existsSync(path.join(clientDir, 'index.html'))) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    app.get(/^\/(?!api\/).*/, (_req, res) => {
-      res.sendFile(path.join(clientDir, 'index.html'));
-    });
+    app.use(clientFiles(clientDir));
   }
   app.use(notFoundHandler);
   app.use(errorHandler);

@@ -1,13 +1,31 @@
 // Where file bytes live. The embedded default is a folder under the data directory;
-// another backend (an object store) implements the same three calls.
+// another backend (an object store) implements the same calls.
 import { createHash } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import fs from 'node:fs/promises';
 import path from 'node:path';
+import type { Readable } from 'node:stream';
+
+/** Byte offsets, both inclusive, as in an HTTP Range. */
+export interface ByteRange {
+  start: number;
+  end: number;
+}
+
+/** A stored object opened for reading: its size first, so a caller can answer a Range before any byte is read. */
+export interface StoredObject {
+  size: number;
+  /** The bytes of `range` (the whole object without one) as a stream; nothing is held in memory. */
+  stream(range?: ByteRange): Readable;
+}
 
 export interface Storage {
   put(key: string, bytes: Uint8Array): Promise<void>;
-  get(key: string): Promise<Uint8Array>;
+  /**
+   * The object's size and a ranged reader, or null when there is no such object. An object
+   * store does the same with a HEAD for the size and a GET with a Range header for the stream.
+   */
+  open(key: string): Promise<StoredObject | null>;
   delete(key: string): Promise<void>;
   /** Store the file at `file`, moving it when it can (large files never pass through memory). */
   putFile(key: string, file: string): Promise<void>;
@@ -45,8 +63,18 @@ export class LocalFolderStorage implements Storage {
     await fs.link(this.resolve(key), dest).catch(() => fs.copyFile(this.resolve(key), dest));
   }
 
-  async get(key: string) {
-    return new Uint8Array(await fs.readFile(this.resolve(key)));
+  async open(key: string): Promise<StoredObject | null> {
+    const file = this.resolve(key);
+    const stat = await fs.stat(file).catch((error: NodeJS.ErrnoException) => {
+      if (error.code === 'ENOENT') return null;
+      throw error;
+    });
+    if (!stat?.isFile()) return null;
+    return {
+      size: stat.size,
+      // Every stored file has its own key and is never rewritten, so the size holds while it streams.
+      stream: (range) => createReadStream(file, { ...range, highWaterMark: 1 << 16 }),
+    };
   }
 
   async delete(key: string) {

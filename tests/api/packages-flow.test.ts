@@ -1,4 +1,5 @@
 // The contractor's submission over the API: drafts, uploads, submit, and their refusals.
+import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import supertest from 'supertest';
@@ -133,6 +134,131 @@ describe('uploads', () => {
     expect(back.status).toBe(200);
     expect(back.headers['content-type']).toBe('application/pdf');
     expect(Buffer.compare(back.body, Buffer.from(pdf))).toBe(0);
+  });
+
+  describe('downloads', () => {
+    // Random text on each page (it does not deflate), so the file is well over the 1024 bytes
+    // a first range asks for and every slice differs from its neighbours.
+    async function uploaded() {
+      const { agent, pkg } = await newDraft();
+      const pdf = Buffer.from(await makePdf(5, randomBytes(1500).toString('hex')));
+      const res = await agent
+        .post(`/api/packages/${pkg.package.id}/files`)
+        .field('kind', 'lift_plan')
+        .attach('file', pdf, 'plan.pdf');
+      expect(res.status).toBe(201);
+      expect(pdf.byteLength).toBeGreaterThan(4096);
+      return { agent, pkg, pdf, url: `/api/packages/${pkg.package.id}/files/${res.body.id}`, body: res.body };
+    }
+
+    it('when no Range is sent, then 200 with the whole file, its length, byte ranges offered and the sha-256 as ETag', async () => {
+      const { agent, pdf, url, body } = await uploaded();
+      const res = await agent.get(url).buffer(true);
+      expect(res.status).toBe(200);
+      expect(res.headers['accept-ranges']).toBe('bytes');
+      expect(res.headers['content-length']).toBe(String(pdf.byteLength));
+      expect(res.headers['content-range']).toBeUndefined();
+      expect(res.headers.etag).toBe(`"${body.sha256}"`);
+      expect(res.headers['x-content-sha256']).toBe(body.sha256);
+      expect(res.headers['content-disposition']).toBe('inline; filename="plan.pdf"');
+      expect(Buffer.compare(res.body, pdf)).toBe(0);
+    });
+
+    it('when Range asks for bytes 0-1023, then 206 with exactly the first 1024 bytes and their Content-Range', async () => {
+      const { agent, pdf, url } = await uploaded();
+      const res = await agent.get(url).set('Range', 'bytes=0-1023').buffer(true);
+      expect(res.status).toBe(206);
+      expect(res.headers['content-range']).toBe(`bytes 0-1023/${pdf.byteLength}`);
+      expect(res.headers['content-length']).toBe('1024');
+      expect(res.headers['content-type']).toBe('application/pdf');
+      expect(res.body.byteLength).toBe(1024);
+      expect(Buffer.compare(res.body, pdf.subarray(0, 1024))).toBe(0);
+    });
+
+    it('when Range asks for a middle slice, then 206 with those bytes', async () => {
+      const { agent, pdf, url } = await uploaded();
+      const res = await agent.get(url).set('Range', 'bytes=1000-2999').buffer(true);
+      expect(res.status).toBe(206);
+      expect(res.headers['content-range']).toBe(`bytes 1000-2999/${pdf.byteLength}`);
+      expect(Buffer.compare(res.body, pdf.subarray(1000, 3000))).toBe(0);
+    });
+
+    it('when Range asks for the last 500 bytes (a suffix range), then 206 with the tail of the file', async () => {
+      const { agent, pdf, url } = await uploaded();
+      const res = await agent.get(url).set('Range', 'bytes=-500').buffer(true);
+      expect(res.status).toBe(206);
+      const size = pdf.byteLength;
+      expect(res.headers['content-range']).toBe(`bytes ${size - 500}-${size - 1}/${size}`);
+      expect(res.headers['content-length']).toBe('500');
+      expect(Buffer.compare(res.body, pdf.subarray(size - 500))).toBe(0);
+    });
+
+    it('when Range starts past the end, then 416 with Content-Range bytes */size and a JSON error', async () => {
+      const { agent, pdf, url } = await uploaded();
+      const res = await agent.get(url).set('Range', `bytes=${pdf.byteLength + 10}-`);
+      expect(res.status).toBe(416);
+      expect(res.headers['content-range']).toBe(`bytes */${pdf.byteLength}`);
+      expect(res.headers['content-type']).toMatch(/^application\/json/);
+      expect(res.body.error.code).toBe('range_not_satisfiable');
+      expect(res.body.error.message).toContain(`${pdf.byteLength} bytes`);
+    });
+
+    it('when If-Range names another copy, then the Range is ignored and the whole file comes back', async () => {
+      const { agent, pdf, url } = await uploaded();
+      const res = await agent
+        .get(url)
+        .set('Range', 'bytes=0-9')
+        .set('If-Range', '"not-this-copy"')
+        .buffer(true);
+      expect(res.status).toBe(200);
+      expect(Buffer.compare(res.body, pdf)).toBe(0);
+    });
+
+    it('when If-None-Match carries the ETag, then 304 with no body', async () => {
+      const { agent, url, body } = await uploaded();
+      const res = await agent.get(url).set('If-None-Match', `"${body.sha256}"`);
+      expect(res.status).toBe(304);
+    });
+
+    it('when the stored bytes are gone, then 404 as JSON, not a PDF header over an error', async () => {
+      const { agent, pkg, url, body } = await uploaded();
+      fs.rmSync(path.join(t.ctx.config.DATA_DIR, 'files', 'revisions', pkg.current.id, `${body.id}.pdf`));
+      const res = await agent.get(url);
+      expect(res.status).toBe(404);
+      expect(res.headers['content-type']).toMatch(/^application\/json/);
+      expect(res.headers['content-disposition']).toBeUndefined();
+      expect(res.body.error.message).toBe('No such file.');
+    });
+
+    it("when another organisation's contractor asks for a range, then 404 as before", async () => {
+      const { url } = await uploaded();
+      const w = await makeWorld(t.ctx.dataSource);
+      const other = await signedIn(t.app, w.plannerB.email);
+      expect((await other.get(url).set('Range', 'bytes=0-1023')).status).toBe(404);
+    });
+
+    it('when gzip is accepted, then a JSON route is gzip-encoded and the PDF download is not', async () => {
+      const { agent, pkg, pdf, url } = await uploaded();
+      await agent.put(`/api/packages/${pkg.package.id}/draft`).send({ inputs: example });
+      const json = await agent.get(`/api/packages/${pkg.package.id}`).set('Accept-Encoding', 'gzip');
+      expect(json.status).toBe(200);
+      expect(json.headers['content-encoding']).toBe('gzip');
+      expect(json.headers.vary).toMatch(/Accept-Encoding/);
+      expect(json.body.current.inputs).toEqual(example);
+      const file = await agent.get(url).set('Accept-Encoding', 'gzip').buffer(true);
+      expect(file.status).toBe(200);
+      expect(file.headers['content-encoding']).toBeUndefined();
+      expect(file.headers['content-length']).toBe(String(pdf.byteLength));
+      expect(Buffer.compare(file.body, pdf)).toBe(0);
+      const part = await agent
+        .get(url)
+        .set('Accept-Encoding', 'gzip')
+        .set('Range', 'bytes=0-1023')
+        .buffer(true);
+      expect(part.status).toBe(206);
+      expect(part.headers['content-encoding']).toBeUndefined();
+      expect(Buffer.compare(part.body, pdf.subarray(0, 1024))).toBe(0);
+    });
   });
 
   it('when a second lift plan is uploaded, then it replaces the first on disk and in the database', async () => {

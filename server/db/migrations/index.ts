@@ -8,6 +8,7 @@ import { ReturnSignature1764690000000 } from './1764690000000-return-signature';
 import { Sessions1764700000000 } from './1764700000000-sessions';
 import { SealedInviteLinks1764715000000 } from './1764715000000-sealed-invite-links';
 import { FleetLibrary1764717000000 } from './1764717000000-fleet-library';
+import { ForeignKeyIndexes1764718000000 } from './1764718000000-foreign-key-indexes';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
@@ -19,4 +20,5 @@ export const MIGRATIONS = [
   Sessions1764700000000,
   SealedInviteLinks1764715000000,
   FleetLibrary1764717000000,
+  ForeignKeyIndexes1764718000000,
 ];

@@ -5,6 +5,8 @@ import { LiftPackage } from '../packages/package.entity';
 import { User } from '../users/user.entity';
 import { Organisation } from '../organisations/organisation.entity';
 
+@Index('audit_events_actor_idx', ['actorId'])
+@Index('audit_events_organisation_idx', ['organisationId'])
 @Entity({ name: 'audit_events' })
 @Index('audit_events_package_idx', ['packageId', 'createdAt'])
 export class AuditEvent {

@@ -5,6 +5,7 @@ import {
   CreateDateColumn,
   Entity,
   ForeignKey,
+  Index,
   JoinColumn,
   ManyToOne,
   PrimaryGeneratedColumn,
@@ -14,6 +15,8 @@ import { Revision } from '../packages/package.entity';
 
 export type FileKind = 'lift_plan' | 'supporting';
 
+@Index('uploaded_files_revision_idx', ['revisionId'])
+@Index('uploaded_files_uploaded_by_idx', ['uploadedById'])
 @Entity({ name: 'uploaded_files' })
 @Check('uploaded_files_kind_check', `kind IN ('lift_plan', 'supporting')`)
 export class UploadedFile {

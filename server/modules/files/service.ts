@@ -136,13 +136,8 @@ export async function removeFile(
   await storage.delete(file.storageKey).catch(() => undefined);
 }
 
-export async function readFile(
-  ds: DataSource,
-  storage: Storage,
-  user: Actor,
-  packageId: string,
-  fileId: string,
-) {
+/** The uploaded file of a package the person may see (its bytes are streamed by the route). */
+export async function readFile(ds: DataSource, user: Actor, packageId: string, fileId: string) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const file = await ds
     .getRepository(UploadedFile)
@@ -151,5 +146,5 @@ export async function readFile(
     .where('f.id = :fileId AND r.package_id = :packageId', { fileId, packageId: pkg.id })
     .getOne();
   if (!file) throw AppError.notFound('file');
-  return { file, bytes: await storage.get(file.storageKey) };
+  return file;
 }

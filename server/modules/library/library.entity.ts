@@ -21,6 +21,7 @@ import { Organisation } from '../organisations/organisation.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { User } from '../users/user.entity';
 
+@Index('library_cranes_created_by_idx', ['createdById'])
 @Entity({ name: 'library_cranes' })
 @Check('library_cranes_type_check', `type IN ('mobile_outriggers', 'mobile_crawler', 'gantry_a_frame')`)
 @Unique('library_cranes_organisation_id_fleet_number_key', ['organisationId', 'fleetNumber'])
@@ -72,6 +73,8 @@ export interface DocumentFile {
   pages: number;
 }
 
+@Index('library_versions_created_by_idx', ['createdById'])
+@Index('library_versions_retired_by_idx', ['retiredById'])
 @Entity({ name: 'library_versions' })
 @Check('library_versions_number_check', `number >= 1`)
 @Unique('library_versions_configuration_id_number_key', ['configurationId', 'number'])
@@ -114,6 +117,9 @@ export class LibraryChartCell {
   @Column({ type: 'double precision' }) capacity: number;
 }
 
+@Index('library_verifications_engineer_idx', ['engineerId'])
+@Index('library_verifications_owner_organisation_idx', ['ownerOrganisationId'])
+@Index('library_verifications_package_idx', ['packageId'])
 @Entity({ name: 'library_verifications' })
 @Unique('library_verifications_version_id_owner_organisation_id_key', ['versionId', 'ownerOrganisationId'])
 export class LibraryVerification {
@@ -134,6 +140,7 @@ export class LibraryVerification {
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }
 
+@Index('library_uses_package_idx', ['packageId'])
 @Entity({ name: 'library_uses' })
 @Check('library_uses_slot_check', `slot BETWEEN 0 AND 3`)
 @Index('library_uses_version_idx', ['versionId'])

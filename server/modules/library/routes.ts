@@ -27,6 +27,7 @@ import { previewText } from '@shared/library/chart-text';
 import type { AppContext } from '../../context';
 import { AppError } from '../../lib/app-error';
 import { describeRoute } from '../../lib/openapi';
+import { sendStored } from '../../lib/send-stored';
 import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { chartCsv, chartXlsx, previewChartFile } from './chart-files';
@@ -383,16 +384,14 @@ export function libraryRoutes(ctx: AppContext): Router {
     },
   );
   router.get('/library/versions/:id/document', validate({ params: LibraryIdParams }), async (req, res) => {
-    const { file, bytes } = await readDocument(
-      ds,
-      ctx.storage,
-      currentUser(req),
-      valid(req, 'params', LibraryIdParams).id,
-    );
-    res.setHeader('Content-Type', 'application/pdf');
-    res.setHeader('Content-Disposition', `inline; filename="${encodeURIComponent(file.name)}"`);
-    res.setHeader('X-Content-SHA256', file.sha256);
-    res.end(Buffer.from(bytes));
+    const file = await readDocument(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id);
+    await sendStored(req, res, ctx.storage, {
+      key: file.storageKey,
+      contentType: 'application/pdf',
+      disposition: `inline; filename="${encodeURIComponent(file.name)}"`,
+      sha256: file.sha256,
+      what: "manufacturer's document",
+    });
   });
   router.get(
     '/library/versions/:id/chart',

@@ -613,10 +613,10 @@ export async function attachDocument(
   return getVersion(ds, user, id);
 }
 
-export async function readDocument(ds: DataSource, storage: Storage, user: U, id: string) {
+export async function readDocument(ds: DataSource, user: U, id: string) {
   const { version } = await readableVersion(ds.manager, user, id);
   if (!version.documentFile) throw AppError.notFound("manufacturer's document");
-  return { file: version.documentFile, bytes: await storage.get(version.documentFile.storageKey) };
+  return version.documentFile;
 }
 
 export async function chartOf(ds: DataSource, user: U, id: string) {

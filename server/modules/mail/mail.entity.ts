@@ -15,6 +15,8 @@ import { User } from '../users/user.entity';
 
 export type MailEvent = 'submitted' | 'assigned' | 'returned' | 'resubmitted' | 'reminder' | 'invite';
 
+@Index('mail_messages_package_idx', ['packageId'])
+@Index('mail_messages_recipient_idx', ['recipientId'])
 @Entity({ name: 'mail_messages' })
 @Check('mail_messages_status_check', `status IN ('queued', 'sent', 'failed')`)
 @Index('mail_messages_status_idx', ['status', 'createdAt'])

@@ -1,7 +1,8 @@
 // An organisation: a lifting contractor or a site owner (or general contractor).
-import { Check, Column, CreateDateColumn, Entity, ForeignKey, PrimaryGeneratedColumn } from 'typeorm';
+import { Check, Column, CreateDateColumn, Entity, ForeignKey, Index, PrimaryGeneratedColumn } from 'typeorm';
 import type { OrganisationKind } from '@shared/schemas/common';
 
+@Index('organisations_desk_owner_idx', ['deskOwnerId'])
 @Entity({ name: 'organisations' })
 @Check('organisations_kind_check', `kind IN ('contractor', 'owner')`)
 export class Organisation {

@@ -22,6 +22,7 @@ import { Organisation } from '../organisations/organisation.entity';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
 
+@Index('lift_packages_created_by_idx', ['createdById'])
 @Entity({ name: 'lift_packages' })
 @Index('lift_packages_contractor_idx', ['contractorOrganisationId'])
 @Index('lift_packages_engineer_idx', ['assignedEngineerId'])
@@ -70,6 +71,7 @@ export type RevisionState = 'draft' | 'submitted';
 /** The site policy a check run used, with the site and the policy's version at the time. */
 export type PolicyUsed = SitePolicy & { siteId: string; policyVersion: number };
 
+@Index('revisions_submitted_by_idx', ['submittedById'])
 @Entity({ name: 'revisions' })
 @Check('revisions_state_check', `state IN ('draft', 'submitted')`)
 @Index('revisions_package_idx', ['packageId', 'number'])

@@ -11,6 +11,7 @@ import {
 import { appUrl } from '../../config';
 import type { AppContext } from '../../context';
 import { AppError, fromZod } from '../../lib/app-error';
+import { sendStored } from '../../lib/send-stored';
 import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { addFile, readFile, removeFile } from '../files/service';
@@ -146,11 +147,14 @@ export function packageRoutes(ctx: AppContext): Router {
 
   router.get('/packages/:id/files/:fileId', validate({ params: FileParams }), async (req, res) => {
     const { id, fileId } = valid(req, 'params', FileParams);
-    const { file, bytes } = await readFile(ds, ctx.storage, currentActor(req), id, fileId);
-    res.setHeader('Content-Type', 'application/pdf');
-    res.setHeader('Content-Disposition', `inline; filename="${encodeURIComponent(file.originalName)}"`);
-    res.setHeader('X-Content-SHA256', file.sha256);
-    res.end(Buffer.from(bytes));
+    const file = await readFile(ds, currentActor(req), id, fileId);
+    await sendStored(req, res, ctx.storage, {
+      key: file.storageKey,
+      contentType: 'application/pdf',
+      disposition: `inline; filename="${encodeURIComponent(file.originalName)}"`,
+      sha256: file.sha256,
+      what: 'file',
+    });
   });
 
   return router;

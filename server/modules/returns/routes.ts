@@ -3,6 +3,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../../context';
+import { sendStored } from '../../lib/send-stored';
 import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { PackageIdParams } from '../packages/routes';
@@ -39,11 +40,14 @@ export function returnRoutes(ctx: AppContext): Router {
     validate({ params: ReturnParams }),
     async (req, res) => {
       const { id, returnId } = valid(req, 'params', ReturnParams);
-      const { ret, fileName, bytes } = await readReturn(ds, ctx.storage, currentActor(req), id, returnId);
-      res.setHeader('Content-Type', 'application/pdf');
-      res.setHeader('Content-Disposition', `inline; filename="${fileName}"`);
-      res.setHeader('X-Content-SHA256', ret.sha256 ?? '');
-      res.end(Buffer.from(bytes));
+      const { ret, storageKey, fileName } = await readReturn(ds, currentActor(req), id, returnId);
+      await sendStored(req, res, ctx.storage, {
+        key: storageKey,
+        contentType: 'application/pdf',
+        disposition: `inline; filename="${fileName}"`,
+        sha256: ret.sha256,
+        what: 'stamped return',
+      });
     },
   );
   return router;

@@ -150,13 +150,7 @@ export async function listReturns(ds: DataSource, user: Actor, packageId: string
   return { items: rows.map(toReturn) };
 }
 
-export async function readReturn(
-  ds: DataSource,
-  storage: Storage,
-  user: Actor,
-  packageId: string,
-  returnId: string,
-) {
+export async function readReturn(ds: DataSource, user: Actor, packageId: string, returnId: string) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const ret = await ds.getRepository(StampedReturn).findOneBy({ id: returnId, packageId: pkg.id });
   if (!ret || ret.state !== 'ready' || !ret.storageKey) throw AppError.notFound('stamped return');
@@ -164,8 +158,8 @@ export async function readReturn(
   const decision = await ds.getRepository(DecisionRecord).findOneByOrFail({ id: ret.decisionId });
   return {
     ret,
+    storageKey: ret.storageKey,
     fileName: returnFileName(pkg.reference, revision.number, decision.decision),
-    bytes: await storage.get(ret.storageKey),
   };
 }
 

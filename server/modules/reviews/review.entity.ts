@@ -18,6 +18,9 @@ import { UploadedFile } from '../files/file.entity';
 import { Revision } from '../packages/package.entity';
 import type { Decision } from '@shared/schemas/common';
 
+@Index('assignments_assigned_by_idx', ['assignedById'])
+@Index('assignments_engineer_idx', ['engineerId'])
+@Index('assignments_package_idx', ['packageId'])
 @Entity({ name: 'assignments' })
 export class Assignment {
   @PrimaryGeneratedColumn('uuid') id: string;
@@ -34,6 +37,10 @@ export class Assignment {
   @Column({ type: 'timestamptz', name: 'ended_at', nullable: true }) endedAt: Date | null;
 }
 
+@Index('findings_created_by_idx', ['createdById'])
+@Index('findings_file_idx', ['fileId'])
+@Index('findings_markup_idx', ['markupId'])
+@Index('findings_revision_idx', ['revisionId'])
 @Entity({ name: 'findings' })
 @Index('findings_package_idx', ['packageId'])
 export class Finding {
@@ -65,6 +72,8 @@ export class Finding {
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' }) updatedAt: Date;
 }
 
+@Index('markups_created_by_idx', ['createdById'])
+@Index('markups_file_idx', ['fileId'])
 @Entity({ name: 'markups' })
 @Check('markups_page_number_check', `(page_number >= 1)`)
 @Index('markups_revision_idx', ['revisionId', 'fileId', 'pageNumber'])
@@ -89,6 +98,8 @@ export class Markup {
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }
 
+@Index('decisions_engineer_idx', ['engineerId'])
+@Index('decisions_revision_idx', ['revisionId'])
 @Entity({ name: 'decisions' })
 @Check(
   'decisions_decision_check',
@@ -112,6 +123,8 @@ export class DecisionRecord {
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }
 
+@Index('stamped_returns_issued_by_idx', ['issuedById'])
+@Index('stamped_returns_revision_idx', ['revisionId'])
 @Entity({ name: 'stamped_returns' })
 @Index('stamped_returns_package_idx', ['packageId', 'createdAt'])
 @Unique('stamped_returns_decision_id_key', ['decisionId'])

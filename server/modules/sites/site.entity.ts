@@ -4,6 +4,7 @@ import {
   Column,
   CreateDateColumn,
   Entity,
+  Index,
   JoinColumn,
   ManyToOne,
   PrimaryColumn,
@@ -13,6 +14,7 @@ import {
 import { Organisation } from '../organisations/organisation.entity';
 import { User } from '../users/user.entity';
 
+@Index('sites_owner_organisation_idx', ['ownerOrganisationId'])
 @Entity({ name: 'sites' })
 @Unique('sites_code_key', ['code'])
 export class Site {
@@ -30,6 +32,7 @@ export class Site {
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }
 
+@Index('site_members_user_idx', ['userId'])
 @Entity({ name: 'site_members' })
 export class SiteMember {
   @PrimaryColumn({ type: 'uuid', name: 'site_id' }) siteId: string;

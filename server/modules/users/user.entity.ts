@@ -13,6 +13,7 @@ import {
 import type { Role, UnitSystem } from '@shared/schemas/common';
 import { Organisation } from '../organisations/organisation.entity';
 
+@Index('users_organisation_idx', ['organisationId'])
 @Entity({ name: 'users' })
 @Check('users_role_check', `role IN ('contractor', 'reviewer', 'engineer', 'admin')`)
 @Check('users_unit_system_check', `unit_system IN ('metric', 'imperial')`)
