@@ -18,7 +18,7 @@ import { atLeast, exceeds } from '../compare';
 import type { SoilClass } from '../../schemas/lift-input';
 import { planModel, resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
-import { gantryStatics } from './stability';
+import { gantryStatics } from './stability-gantry';
 import { fourSupportReactions, supportReactions } from './support-reactions';
 import { SOURCES } from '../sources';
 import { si, TO_SI } from '../units';
