@@ -5,17 +5,17 @@
 //   negative that support lifts off; the load is then shared by the other three (statically
 //   determinate) and the result is flagged. When the resultant lies outside the box no compressive
 //   reactions balance the crane: "no support solution", fail, and no force is reported.
-// Wind: for each slew the wind is tried from several directions (ground-wind.ts); the largest
-//   reaction or pressure governs. Crawler tracks as eccentric footings, on mats or not:
-//   track-bearing.ts. Pressure under the mats against the allowable bearing (as entered, else IBC
-//   Table 1806.2 for the soil class): bearing-pressure.ts.
+// Wind: for each slew the wind is tried from several directions (ground-bearing-wind.ts); the
+//   largest reaction or pressure governs. Crawler tracks as eccentric footings, on mats or not:
+//   ground-bearing-tracks.ts. Pressure under the mats against the allowable bearing (as entered,
+//   else IBC Table 1806.2 for the soil class): ground-bearing-pressure.ts.
 import { planModel, resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { check, f, item, term, type Ctx } from '../context';
-import { pressureItem } from './bearing-pressure';
-import { CALM, NO_WIND, withWind } from './ground-wind';
+import { pressureItem } from './ground-bearing-pressure';
+import { CALM, NO_WIND, withWind } from './ground-bearing-wind';
 import { gantryStatics } from './stability-gantry';
 import { fourSupportReactions, supportReactions } from './support-reactions';
-import { crawler } from './track-bearing';
+import { crawler } from './ground-bearing-tracks';
 import { SOURCES } from '../sources';
 import { si } from '../units';
 import type { CheckItem, CheckResult, Fix, LiftFigures } from '../types';

@@ -6,8 +6,8 @@
 import { atLeast, exceeds } from '../compare';
 import { resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { f, item, statusMax, term, type Ctx } from '../context';
-import { allowable } from './bearing-pressure';
-import { CALM, NO_WIND, withWind } from './ground-wind';
+import { allowable } from './ground-bearing-pressure';
+import { CALM, NO_WIND, withWind } from './ground-bearing-wind';
 import { SOURCES } from '../sources';
 import { si } from '../units';
 import type { CheckItem, Fix, LiftFigures } from '../types';
