@@ -12,5 +12,6 @@ import './modules/returns/openapi';
 import './modules/verify/openapi';
 import './modules/admin/openapi';
 import './modules/profile/openapi';
+import './modules/library/openapi';
 
 export { openApiDocument } from './lib/openapi';

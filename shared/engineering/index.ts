@@ -19,7 +19,7 @@ export { leadLineFactor, SHEAVE_BEARING_CONSTANT, ROPE_DESIGN_FACTOR } from './c
 export { angleFactor, twoLegTensions } from './checks/rigging';
 export { dynamicPressure, AIR_DENSITY } from './checks/wind';
 export { twoCraneShares, tandemMarginPct } from './checks/tandem';
-export { IBC_1806_2_PSF } from './checks/ground-bearing';
+export { IBC_1806_2_PSF } from './checks/ground-bearing-pressure';
 export { lookupCapacity } from './chart';
 export type * from './types';
 export { LiftInput } from '../schemas/lift-input';

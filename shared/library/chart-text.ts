@@ -2,7 +2,8 @@
 // CSV. papaparse guesses the delimiter; what it returns goes to readChartGrid, and the table out
 // again for export. Pure (no I/O), so the browser and the server read text alike.
 import Papa from 'papaparse';
-import { gridToTable, readChartGrid, type ChartGrid, type ChartPreview } from './chart-grid';
+import { gridToTable, type ChartGrid } from './chart-grid';
+import { readChartGrid, type ChartPreview } from './chart-reader';
 
 /** Most characters of chart text read (a chart of 300 × 100 cells fits well within it). */
 export const MAX_CHART_TEXT = 500_000;

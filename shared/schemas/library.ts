@@ -4,7 +4,7 @@
 import { z } from 'zod';
 import { CRANE_TYPES, Gantry } from './lift-input';
 import { LENGTH_UNITS, TO_SI, WEIGHT_UNITS } from '../engineering/units';
-import { checkGrid } from '../library/chart-grid';
+import { checkGrid } from '../library/chart-reader';
 
 const text = (label: string, max: number) =>
   z

@@ -3,16 +3,14 @@
 // values are read: a formula's cached result is taken (and said so), never calculated; a workbook
 // with macros is refused; nothing in it is run. Limits name themselves in the messages.
 import ExcelJS from 'exceljs';
+import { cellRef, type RawCell } from '@shared/library/chart-cells';
+import { gridToTable, type ChartGrid } from '@shared/library/chart-grid';
 import {
   readChartGrid,
-  gridToTable,
-  type ChartGrid,
   type ChartPreview,
-  type RawCell,
-  cellRef,
   MAX_GRID_COLUMNS,
   MAX_GRID_ROWS,
-} from '@shared/library/chart-grid';
+} from '@shared/library/chart-reader';
 import { gridToCsv, previewText } from '@shared/library/chart-text';
 import { AppError } from '../../lib/app-error';
 

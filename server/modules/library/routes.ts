@@ -1,56 +1,42 @@
-// The fleet library's routes, thin, each described for OpenAPI beside it. The contractor keeps
-// its cranes, configurations and versions; the owner side reads the versions its packages use
-// and its engineers verify them. Chart files are previewed here; nothing is stored until the
-// client sends the accepted grid as a new version.
+// The fleet library's routes, thin, each described for OpenAPI in openapi.ts beside it. The
+// contractor keeps its cranes, configurations and versions; the owner side reads the versions its
+// packages use and its engineers verify them. Chart files are previewed here; nothing is stored
+// until the client sends the accepted grid as a new version.
 import type { NextFunction, Request, Response } from 'express';
 import { Router } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import {
-  ChartPreviewResponse,
   ChartTextBody,
   ConfigurationBody,
-  ConfigurationDetail,
   CraneBody,
-  CraneDetail,
-  CraneList,
   CraneListQuery,
   CranePatch,
   ExportQuery,
   LibraryUseBody,
-  LibraryUseList,
   VerificationBody,
   VersionBody,
-  VersionDetail,
 } from '@shared/schemas/library';
 import { previewText } from '@shared/library/chart-text';
 import type { AppContext } from '../../context';
 import { AppError } from '../../lib/app-error';
-import { describeRoute } from '../../lib/openapi';
 import { sendStored } from '../../lib/send-stored';
 import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { chartCsv, chartXlsx, previewChartFile } from './chart-files';
+import { createCrane, getCrane, listCranes, patchCrane, retireCrane } from './cranes';
+import { listUses, removeUse, setUse } from './uses';
+import { verifyVersion } from './verifications';
+import { attachDocument, readDocument } from './version-document';
 import {
   addVersion,
-  attachDocument,
   chartOf,
   createConfiguration,
-  createCrane,
   deleteVersion,
   getConfiguration,
-  getCrane,
   getVersion,
-  listCranes,
-  listUses,
-  patchCrane,
-  readDocument,
-  removeUse,
-  retireCrane,
   retireVersion,
-  setUse,
-  verifyVersion,
-} from './service';
+} from './versions';
 
 export const LibraryIdParams = z.object({ id: z.uuid({ error: 'id must be a valid id' }) });
 export const LibraryUseParams = z.object({
@@ -61,190 +47,7 @@ export const LibraryUseParams = z.object({
     .min(0, { error: 'slot must be 0 to 3' })
     .max(3, { error: 'slot must be 0 to 3' }),
 });
-const VerifyBody = VerificationBody.extend({ packageId: z.uuid().optional() });
-const FileUpload = z.object({ file: z.string().meta({ format: 'binary' }) });
-
-const tags = ['library'];
-describeRoute({
-  method: 'get',
-  path: '/library/cranes',
-  summary: "The contractor's fleet: search by fleet number, make or model; filter by capacity at a radius",
-  tags,
-  query: CraneListQuery,
-  response: CraneList,
-});
-describeRoute({
-  method: 'post',
-  path: '/library/cranes',
-  summary: 'Add a crane to the fleet (contractor)',
-  tags,
-  body: CraneBody,
-  response: CraneDetail,
-  status: 201,
-});
-describeRoute({
-  method: 'get',
-  path: '/library/cranes/:id',
-  summary: 'A crane of the fleet with its configurations (contractor)',
-  tags,
-  params: LibraryIdParams,
-  response: CraneDetail,
-});
-describeRoute({
-  method: 'patch',
-  path: '/library/cranes/:id',
-  summary: "Change a crane's fixed data; versions already written keep theirs (contractor)",
-  tags,
-  params: LibraryIdParams,
-  body: CranePatch,
-  response: CraneDetail,
-});
-describeRoute({
-  method: 'post',
-  path: '/library/cranes/:id/retire',
-  summary: 'Retire a crane from the fleet (contractor)',
-  tags,
-  params: LibraryIdParams,
-  response: CraneDetail,
-});
-describeRoute({
-  method: 'post',
-  path: '/library/cranes/:id/configurations',
-  summary: 'Add a configuration with its first version and chart (contractor)',
-  tags,
-  params: LibraryIdParams,
-  body: ConfigurationBody,
-  response: ConfigurationDetail,
-  status: 201,
-});
-describeRoute({
-  method: 'get',
-  path: '/library/configurations/:id',
-  summary: "A configuration's versions: who changed what, when (contractor)",
-  tags,
-  params: LibraryIdParams,
-  response: ConfigurationDetail,
-});
-describeRoute({
-  method: 'post',
-  path: '/library/configurations/:id/versions',
-  summary: 'Edit a configuration: writes a new version (contractor)',
-  tags,
-  params: LibraryIdParams,
-  body: VersionBody,
-  response: VersionDetail,
-  status: 201,
-});
-describeRoute({
-  method: 'get',
-  path: '/library/versions/:id',
-  summary:
-    'One configuration version with its chart grid (contractor, or the owner side of a package using it)',
-  tags,
-  params: LibraryIdParams,
-  response: VersionDetail,
-});
-describeRoute({
-  method: 'post',
-  path: '/library/versions/:id/retire',
-  summary: 'Retire a version: packages keep it, new ones cannot pick it (contractor)',
-  tags,
-  params: LibraryIdParams,
-  response: VersionDetail,
-});
-describeRoute({
-  method: 'delete',
-  path: '/library/versions/:id',
-  summary: 'Delete a version no package uses (contractor; 409 when in use: retire it)',
-  tags,
-  params: LibraryIdParams,
-  status: 204,
-});
-describeRoute({
-  method: 'post',
-  path: '/library/versions/:id/document',
-  summary: "Attach the manufacturer's document (PDF) to a version not yet in use (contractor)",
-  tags,
-  params: LibraryIdParams,
-  body: FileUpload,
-  bodyContentType: 'multipart/form-data',
-  response: VersionDetail,
-  status: 201,
-});
-describeRoute({
-  method: 'get',
-  path: '/library/versions/:id/document',
-  summary: "The manufacturer's document of a version (PDF)",
-  tags,
-  params: LibraryIdParams,
-  response: z.string().meta({ format: 'binary' }),
-  responseContentType: 'application/pdf',
-});
-describeRoute({
-  method: 'get',
-  path: '/library/versions/:id/chart',
-  summary: "A version's chart as CSV or .xlsx (values only)",
-  tags,
-  params: LibraryIdParams,
-  query: ExportQuery,
-  response: z.string().meta({ format: 'binary' }),
-  responseContentType: 'application/octet-stream',
-});
-describeRoute({
-  method: 'post',
-  path: '/library/versions/:id/verifications',
-  summary:
-    "Mark a version's chart verified against the manufacturer's document, for the engineer's own desk (engineer)",
-  tags,
-  params: LibraryIdParams,
-  body: VerifyBody,
-  response: VersionDetail,
-  status: 201,
-});
-describeRoute({
-  method: 'post',
-  path: '/library/chart-import/file',
-  summary:
-    'Preview a chart file (CSV or .xlsx): how each cell was read, the header units, errors by cell; stores nothing (contractor)',
-  tags,
-  body: FileUpload,
-  bodyContentType: 'multipart/form-data',
-  response: ChartPreviewResponse,
-});
-describeRoute({
-  method: 'post',
-  path: '/library/chart-import/text',
-  summary: 'Preview a chart pasted as text; stores nothing (contractor)',
-  tags,
-  body: ChartTextBody,
-  response: ChartPreviewResponse,
-});
-describeRoute({
-  method: 'get',
-  path: '/packages/:id/library-uses',
-  summary:
-    "The library versions a package's current revision uses, changed cells of a detached copy, and the desk's verifications",
-  tags,
-  params: LibraryIdParams,
-  response: LibraryUseList,
-});
-describeRoute({
-  method: 'put',
-  path: '/packages/:id/library-uses',
-  summary: 'Record that a draft uses a library version for one crane (contractor)',
-  tags,
-  params: LibraryIdParams,
-  body: LibraryUseBody,
-  response: LibraryUseList,
-});
-describeRoute({
-  method: 'delete',
-  path: '/packages/:id/library-uses/:slot',
-  summary: 'Stop using the library for one crane of a draft (contractor)',
-  tags,
-  params: LibraryUseParams,
-  status: 204,
-});
+export const VerifyBody = VerificationBody.extend({ packageId: z.uuid().optional() });
 
 export function libraryRoutes(ctx: AppContext): Router {
   const router = Router();

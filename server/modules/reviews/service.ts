@@ -18,7 +18,7 @@ import { findScopedPackage, scopedPackages } from '../packages/package-scope';
 import { requireState } from '../packages/state-guard';
 import { User } from '../users/user.entity';
 import { Assignment, DecisionRecord } from './review.entity';
-import { carryLibraryUses } from '../library/service';
+import { carryLibraryUses } from '../library/uses';
 import { lockPackage, underReview } from './review-scope';
 
 // ---- assignment -------------------------------------------------------------------------

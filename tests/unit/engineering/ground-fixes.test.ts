@@ -2,7 +2,7 @@
 // minimum pressure. Rigid mats: pressure = reaction ÷ mat area (statics, common practice). Eccentric
 // footing (statics): e ≤ L/6 trapezoidal p = V/(bL)(1 ± 6e/L); e > L/6 triangular over 3(L/2 − e).
 import { describe, expect, it } from 'vitest';
-import { trackPeakPressure } from '@shared/engineering/checks/ground-bearing';
+import { trackPeakPressure } from '@shared/engineering/checks/ground-bearing-tracks';
 import { findItem, outriggerLift, q, run } from './support';
 
 describe('ground bearing', () => {

@@ -161,7 +161,7 @@ describe('crawler, boom over the track ends (slew 0°), tipping line 3 m behind 
   // With the load over the tracks' middle the track is uniform-or-trapezoidal: move the load in to 4 m:
   // moment = 20×4 + 5×(12 × 4/24... ) — checked by the eccentric footing formula directly.
   it('when the eccentricity is within L/6, then the pressure is trapezoidal V/(bL)·(1 + 6e/L)', async () => {
-    const { trackPeakPressure } = await import('@shared/engineering/checks/ground-bearing');
+    const { trackPeakPressure } = await import('@shared/engineering/checks/ground-bearing-tracks');
     expect(trackPeakPressure(600, 0.5, 6, 1).p).toBeCloseTo((600 / 6) * (1 + (6 * 0.5) / 6), 12);
     expect(trackPeakPressure(600, 0.5, 6, 1).shape).toBe('trapezoidal');
     expect(trackPeakPressure(600, 3, 6, 1).shape).toBe('tipping');

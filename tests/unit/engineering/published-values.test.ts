@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { minimumClearanceFt } from '@shared/engineering/checks/power-line';
 import { angleFactor, hitchFactor, twoLegTensions } from '@shared/engineering/checks/rigging';
-import { IBC_1806_2_PSF } from '@shared/engineering/checks/ground-bearing';
+import { IBC_1806_2_PSF } from '@shared/engineering/checks/ground-bearing-pressure';
 import {
   leadLineFactor,
   SHEAVE_BEARING_CONSTANT,

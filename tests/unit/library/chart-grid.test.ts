@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { gridToTable, readChartGrid } from '@shared/library/chart-grid';
+import { gridToTable } from '@shared/library/chart-grid';
+import { readChartGrid } from '@shared/library/chart-reader';
 import { gridToCsv, previewText } from '@shared/library/chart-text';
 import { capacityAtRadius, changedCells, fillFromVersion } from '@shared/library/to-lift-input';
 import { TO_SI } from '@shared/engineering/units';
