@@ -1,7 +1,8 @@
-// The worker process: takes jobs off the BullMQ queues, runs the job hand-off's relay (at
-// start and every few seconds) so no job waits for ever between the database and the
-// queue, and closes on SIGTERM within a time limit: running jobs get that long to finish,
-// and any still running then are picked up again by BullMQ's stalled-job check.
+// The worker process: takes jobs off the BullMQ queues WORKER_QUEUES names (all by default;
+// each queue its own BullMQ Worker with its own concurrency), runs the job hand-off's relay
+// for those queues (at start and every few seconds) so no job waits for ever between the
+// database and the queue, and closes on SIGTERM within a time limit: running jobs get that
+// long to finish, and any still running then are picked up again by BullMQ's stalled-job check.
 import 'reflect-metadata';
 import type { Worker } from 'bullmq';
 import { connect, handleProcessEvents, StartupError } from '../server/bootstrap';
@@ -27,24 +28,25 @@ handleProcessEvents('worker', (code) => close(code));
 
 async function main() {
   const config = loadConfig();
+  const want = new Set(config.WORKER_QUEUES);
   // The signing certificate is read (or the desk's own made) before any job can need it.
-  const signer = await signerFor(config);
-  logger.info(
-    { certificateSha256: signer.fingerprint, subject: signer.subject },
-    'stamped returns are signed',
-  );
+  const signer = want.has('stamp') ? await signerFor(config) : null;
+  if (signer)
+    logger.info(
+      { certificateSha256: signer.fingerprint, subject: signer.subject },
+      'stamped returns are signed',
+    );
   const ctx = await connect(config);
   const connection = createRedis(config.REDIS_URL, { forWorker: true });
   connection.on('error', () => undefined);
-  const tasks: Array<TaskDefinition<Record<string, string>>> = [
-    checkRunTask(ctx, config.CHECK_CONCURRENCY),
-    stampedReturnTask(ctx, 1, signer),
-    remindersTask(ctx),
-  ];
-  if (config.SMTP_URL) tasks.push(mailTask(ctx, config.SMTP_URL));
-  else logger.warn('SMTP_URL is not set: mail is recorded but not sent');
+  const tasks: Array<TaskDefinition<Record<string, string>>> = [];
+  if (want.has('check')) tasks.push(checkRunTask(ctx, config.CHECK_CONCURRENCY));
+  if (signer) tasks.push(stampedReturnTask(ctx, config.STAMP_CONCURRENCY, signer));
+  if (want.has('reminders')) tasks.push(remindersTask(ctx));
+  if (want.has('mail') && config.SMTP_URL) tasks.push(mailTask(ctx, config.SMTP_URL, config.MAIL_CONCURRENCY));
+  else if (want.has('mail')) logger.warn('SMTP_URL is not set: mail is recorded but not sent');
   const workers: Worker[] = tasks.map((t) => startTask(ctx, connection, t));
-  await scheduleReminders(ctx);
+  if (want.has('reminders')) await scheduleReminders(ctx);
 
   const finalise: FinalFailure = async (queue, payload, reason) => {
     await tasks.find((t) => t.queue === queue)?.onFinalFailure(payload, reason);
@@ -55,7 +57,10 @@ async function main() {
     queues: relayed,
   });
   await relay.settled();
-  logger.info({ queues: workers.map((w) => w.name), concurrency: config.CHECK_CONCURRENCY }, 'worker ready');
+  logger.info(
+    { queues: Object.fromEntries(tasks.map((t) => [t.queue, t.concurrency])) },
+    'worker ready (queue: concurrency)',
+  );
 
   let closing = false;
   close = async (code: number) => {
