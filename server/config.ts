@@ -153,3 +153,15 @@ export function logSettings(env: NodeJS.ProcessEnv = process.env): { level: stri
 export function mailCatcherPort(env: NodeJS.ProcessEnv = process.env): number {
   return Number(env.CP_SMTP_PORT ?? 2526);
 }
+
+/**
+ * The environment of a worker's child process that takes only the given queues (the worker
+ * runs stamping in a child of its own beside other queues); its log lines say which it is.
+ */
+export function childWorkerEnv(
+  queues: WorkerQueueKind[],
+  service: string,
+  env: NodeJS.ProcessEnv = process.env,
+): NodeJS.ProcessEnv {
+  return { ...env, WORKER_QUEUES: queues.join(','), CP_SERVICE: service };
+}

@@ -16,6 +16,7 @@ import { checkRunTask } from './tasks/check-run-task';
 import { mailTask } from './tasks/mail-task';
 import { remindersTask, scheduleReminders } from './tasks/reminders-task';
 import { stampedReturnTask } from './tasks/stamped-return-task';
+import { closeWithParent, startStampProcess } from './stamp-process';
 import { startTask, type TaskDefinition } from './tasks/task';
 
 /** How often the relay looks for job intents without a job. */
@@ -27,8 +28,17 @@ let close: (code: number) => Promise<void> = async (code) => process.exit(code);
 handleProcessEvents('worker', (code) => close(code));
 
 async function main() {
+  // A stamping child closes when its parent goes.
+  closeWithParent(() => void close(0));
   const config = loadConfig();
   const want = new Set(config.WORKER_QUEUES);
+  // Stamping beside other queues runs in a child process of its own (stamp-process.ts says why).
+  const stamper =
+    want.has('stamp') && want.size > 1 ? startStampProcess(process.argv[1], () => void close(1)) : null;
+  if (stamper) want.delete('stamp');
+  const stamperReady = stamper
+    ? new Promise<void>((resolve) => stamper.child.once('message', () => resolve()))
+    : Promise.resolve();
   // The signing certificate is read (or the desk's own made) before any job can need it.
   const signer = want.has('stamp') ? await signerFor(config) : null;
   if (signer)
@@ -43,7 +53,8 @@ async function main() {
   if (want.has('check')) tasks.push(checkRunTask(ctx, config.CHECK_CONCURRENCY));
   if (signer) tasks.push(stampedReturnTask(ctx, config.STAMP_CONCURRENCY, signer));
   if (want.has('reminders')) tasks.push(remindersTask(ctx));
-  if (want.has('mail') && config.SMTP_URL) tasks.push(mailTask(ctx, config.SMTP_URL, config.MAIL_CONCURRENCY));
+  if (want.has('mail') && config.SMTP_URL)
+    tasks.push(mailTask(ctx, config.SMTP_URL, config.MAIL_CONCURRENCY));
   else if (want.has('mail')) logger.warn('SMTP_URL is not set: mail is recorded but not sent');
   const workers: Worker[] = tasks.map((t) => startTask(ctx, connection, t));
   if (want.has('reminders')) await scheduleReminders(ctx);
@@ -57,16 +68,23 @@ async function main() {
     queues: relayed,
   });
   await relay.settled();
+  await stamperReady;
   logger.info(
-    { queues: Object.fromEntries(tasks.map((t) => [t.queue, t.concurrency])) },
+    {
+      queues: Object.fromEntries(tasks.map((t) => [t.queue, t.concurrency])),
+      ...(stamper ? { stampProcess: stamper.child.pid } : {}),
+    },
     'worker ready (queue: concurrency)',
   );
+  // A stamping child tells its parent.
+  process.send?.('ready');
 
   let closing = false;
   close = async (code: number) => {
     if (closing) return;
     closing = true;
     logger.info({ code }, 'worker closing');
+    const stamperStopped = stamper?.stop(CLOSE_LIMIT_MS + 2_000);
     await relay.stop();
     const closed = Promise.all(workers.map((w) => w.close())).then(() => true);
     const inTime = await Promise.race([
@@ -80,6 +98,7 @@ async function main() {
       );
       await Promise.all(workers.map((w) => w.close(true).catch(() => undefined)));
     }
+    await stamperStopped;
     connection.disconnect();
     await ctx.close?.().catch(() => undefined);
     process.exit(code);

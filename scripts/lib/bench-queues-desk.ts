@@ -36,7 +36,9 @@ export interface BenchDesk {
 async function waitForLine(file: string, text: string, ms: number, worker: Managed) {
   const until = Date.now() + ms;
   while (Date.now() < until) {
-    if (fs.existsSync(file) && fs.readFileSync(file, 'utf8').includes(text)) return;
+    // A worker's stamping child logs its own "worker ready" (service worker-stamp) first.
+    const lines = fs.existsSync(file) ? fs.readFileSync(file, 'utf8').split('\n') : [];
+    if (lines.some((l) => l.includes(text) && !l.includes('"worker-stamp"'))) return;
     if (worker.child.exitCode !== null)
       throw new Error(`${worker.name} exited at start:\n${fs.readFileSync(file, 'utf8').slice(-3000)}`);
     await new Promise((r) => setTimeout(r, 100));
@@ -103,7 +105,8 @@ export async function startBenchDesk(opts: { checks: number; largePdf: string })
         ).id,
       );
     // Not waiting for a check until the benchmark asks (else the worker's relay adopts them).
-    const rows: Array<{ id: string }> = await ds.query(
+    // TypeORM answers an UPDATE with [rows, affected].
+    const [rows]: [Array<{ id: string }>, number] = await ds.query(
       `UPDATE revisions SET check_status = 'none' WHERE package_id = ANY($1) RETURNING id`,
       [packages],
     );

@@ -15,9 +15,12 @@ export function checkRunTask(ctx: AppContext, concurrency: number): TaskDefiniti
     fromIntents: true,
     async run(job) {
       try {
-        const outcome = await runCheckRun(ctx.dataSource, job.data.revisionId, (percent, step) =>
-          job.updateProgress({ percent, step }),
-        );
+        // The page reads the check's progress from its revision; the job's copy is for BullMQ's
+        // tools, so the run does not wait for Redis at each step (the writes stay in order on
+        // the worker's connection, before the job's completion).
+        const outcome = await runCheckRun(ctx.dataSource, job.data.revisionId, (percent, step) => {
+          job.updateProgress({ percent, step }).catch(() => undefined);
+        });
         return { skipped: outcome.skipped };
       } catch (error) {
         if (error instanceof InvalidLiftData) throw new UnrecoverableError(error.message);
