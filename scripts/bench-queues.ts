@@ -188,7 +188,9 @@ async function main() {
     defaultJobOptions: desk.ctx.queues.checkRun.defaultJobOptions,
   });
   const noopEvents = new QueueEvents(NOOP_QUEUE, { connection: conn(), prefix });
+  // Waiting for every job of the throughput run at once listens on the queue once per job.
   checkEvents.setMaxListeners(THROUGHPUT + 50);
+  desk.ctx.queues.checkRun.setMaxListeners(THROUGHPUT + 50);
   await Promise.all([checkEvents.waitUntilReady(), noopEvents.waitUntilReady()]);
   try {
     const cpus = os.cpus().length;
@@ -223,17 +225,20 @@ async function main() {
     say('throughput, one and two check worker processes');
     const one = await throughput(desk, checkEvents, THROUGHPUT);
     const checker2 = await desk.startWorker('check-2', { WORKER_QUEUES: 'check' });
+    await throughput(desk, checkEvents, WARM * 2);
     const two = await throughput(desk, checkEvents, THROUGHPUT);
     await desk.stopWorker(checker2);
     await desk.stopWorker(checker);
 
     say('check runs while the large return builds, one worker with WORKER_QUEUES=check,stamp');
     const both = await desk.startWorker('check-stamp', { WORKER_QUEUES: 'check,stamp' });
+    await sequentialChecks(desk, checkEvents, WARM);
     const forked = await checksDuringStamp(desk, checkEvents);
     await desk.stopWorker(both);
 
     say('check runs while the large return builds in the same event loop (the worker before the fork)');
     const inline = await desk.startWorker('inline', {}, [process.argv[1], '--inline-worker']);
+    await sequentialChecks(desk, checkEvents, WARM);
     const together = await checksDuringStamp(desk, checkEvents);
     await desk.stopWorker(inline);
 
