@@ -3,6 +3,10 @@
 import path from 'node:path';
 import { z } from 'zod';
 
+/** What WORKER_QUEUES names: the check run, the stamped return, mail, the daily reminders. */
+export const WORKER_QUEUE_KINDS = ['check', 'stamp', 'mail', 'reminders'] as const;
+export type WorkerQueueKind = (typeof WORKER_QUEUE_KINDS)[number];
+
 const Env = z
   .object({
     NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -54,7 +58,31 @@ const Env = z
       .string()
       .regex(/^[a-z0-9-]{1,40}$/, 'REDIS_PREFIX must be 1 to 40 of a-z, 0-9 and -')
       .default('cp'),
+    // Each queue has its own BullMQ Worker with its own concurrency, so a long stamped return
+    // never takes a slot a check run waits for.
     CHECK_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
+    STAMP_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(1),
+    MAIL_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(4),
+    // The queues this worker process takes jobs from (a deployment can run stamping in
+    // processes of its own); unset = all.
+    WORKER_QUEUES: z
+      .string()
+      .default(WORKER_QUEUE_KINDS.join(','))
+      .transform((value, ctx) => {
+        const names = value
+          .split(',')
+          .map((v) => v.trim())
+          .filter(Boolean);
+        const unknown = names.filter((n) => !(WORKER_QUEUE_KINDS as readonly string[]).includes(n));
+        if (!names.length || unknown.length)
+          ctx.addIssue({
+            code: 'custom',
+            message: `WORKER_QUEUES must list one or more of ${WORKER_QUEUE_KINDS.join(', ')}, separated by commas${
+              unknown.length ? ` (not known: ${unknown.join(', ')})` : ''
+            }`,
+          });
+        return [...new Set(names)] as WorkerQueueKind[];
+      }),
     SMTP_URL: z.string().optional(),
     MAIL_FROM: z.string().default('Counterpoise lift desk <desk@counterpoise.invalid>'),
     REMINDER_DAYS: z.coerce.number().int().min(0).max(60).default(3),
@@ -124,4 +152,16 @@ export function logSettings(env: NodeJS.ProcessEnv = process.env): { level: stri
 
 export function mailCatcherPort(env: NodeJS.ProcessEnv = process.env): number {
   return Number(env.CP_SMTP_PORT ?? 2526);
+}
+
+/**
+ * The environment of a worker's child process that takes only the given queues (the worker
+ * runs stamping in a child of its own beside other queues); its log lines say which it is.
+ */
+export function childWorkerEnv(
+  queues: WorkerQueueKind[],
+  service: string,
+  env: NodeJS.ProcessEnv = process.env,
+): NodeJS.ProcessEnv {
+  return { ...env, WORKER_QUEUES: queues.join(','), CP_SERVICE: service };
 }

@@ -8,6 +8,9 @@ import { QUEUE_NAMES, type CheckRunJob } from '../../server/lib/queues';
 import { InvalidLiftData, markCheckFailed, runCheckRun } from '../../server/modules/check-runs/service';
 import { startTask, UnrecoverableError, type TaskDefinition, type TaskTiming } from './task';
 
+/** Below this a check run's steps are not worth a Redis write each. */
+const PROGRESS_AFTER_MS = 250;
+
 export function checkRunTask(ctx: AppContext, concurrency: number): TaskDefinition<CheckRunJob> {
   return {
     queue: QUEUE_NAMES.checkRun,
@@ -15,9 +18,15 @@ export function checkRunTask(ctx: AppContext, concurrency: number): TaskDefiniti
     fromIntents: true,
     async run(job) {
       try {
-        const outcome = await runCheckRun(ctx.dataSource, job.data.revisionId, (percent, step) =>
-          job.updateProgress({ percent, step }),
-        );
+        // The page reads the check's progress from its revision; the job's copy is for BullMQ's
+        // tools. A check takes milliseconds, so only a run still going after PROGRESS_AFTER_MS
+        // reports its steps, and the run never waits for Redis to take them (they go out in
+        // order on the worker's connection, ahead of the job's completion).
+        const started = Date.now();
+        const outcome = await runCheckRun(ctx.dataSource, job.data.revisionId, (percent, step) => {
+          if (percent === 100 || Date.now() - started >= PROGRESS_AFTER_MS)
+            job.updateProgress({ percent, step }).catch(() => undefined);
+        });
         return { skipped: outcome.skipped };
       } catch (error) {
         if (error instanceof InvalidLiftData) throw new UnrecoverableError(error.message);

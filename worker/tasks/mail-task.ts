@@ -6,10 +6,10 @@ import { QUEUE_NAMES, type MailJob } from '../../server/lib/queues';
 import { sendStaged } from '../../server/modules/mail/sender';
 import { startTask, type TaskDefinition, type TaskTiming } from './task';
 
-export function mailTask(ctx: AppContext, smtpUrl: string): TaskDefinition<MailJob> {
+export function mailTask(ctx: AppContext, smtpUrl: string, concurrency = 4): TaskDefinition<MailJob> {
   return {
     queue: QUEUE_NAMES.mail,
-    concurrency: 4,
+    concurrency,
     fromIntents: true,
     async run(job) {
       const attempts = job.opts.attempts ?? 1;
