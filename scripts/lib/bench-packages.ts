@@ -55,4 +55,3 @@ export async function scannedPackage(): Promise<Uint8Array> {
   }
   return doc.save();
 }
-
