@@ -117,6 +117,16 @@ async function throughput(desk: BenchDesk, events: QueueEvents, n: number) {
   return unique.length / ((performance.now() - t0) / 1000);
 }
 
+/**
+ * CPU time (user + system) a process has used, from /proc: on a machine other work shares, the
+ * CPU a job costs its worker process is the figure the load does not stretch.
+ */
+function cpuMs(pid: number): number {
+  const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  // utime and stime are fields 14 and 15 of stat(5), in clock ticks (100 a second on Linux).
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
+}
+
 /** A durable commit on the same PostgreSQL (an UPDATE outside a transaction). */
 async function commitFloor(desk: BenchDesk) {
   const ds = desk.ctx.dataSource;
@@ -209,13 +219,17 @@ async function main() {
       timeJob(noopQueue, noopEvents, () => noopQueue.add('noop', {}, { jobId: `noop-${n++}` }));
     for (let i = 0; i < WARM; i++) await noop();
     const noops: Sample[] = [];
+    const noopCpu0 = cpuMs(noopProc.child.pid!);
     for (let i = 0; i < CHECKS; i++) noops.push(await noop());
+    const noopCpu = (cpuMs(noopProc.child.pid!) - noopCpu0) / CHECKS;
     await desk.stopWorker(noopProc);
 
     say('check runs, a worker process for checks only');
     const checker = await desk.startWorker('check-1', { WORKER_QUEUES: 'check' });
     await sequentialChecks(desk, checkEvents, WARM);
+    const checkCpu0 = cpuMs(checker.child.pid!);
     const checks = await sequentialChecks(desk, checkEvents, CHECKS);
+    const checkCpu = (cpuMs(checker.child.pid!) - checkCpu0) / CHECKS;
 
     say('check runs while the large return builds in another process (WORKER_QUEUES=stamp)');
     const stamper = await desk.startWorker('stamp', { WORKER_QUEUES: 'stamp' });
@@ -269,6 +283,12 @@ async function main() {
         'check run, round trip',
         checks.map((s) => s.roundTripMs),
       ),
+    );
+    console.log(
+      `CPU of the worker process per job: no-op ${f(noopCpu, 2)} ms, check run ${f(checkCpu, 2)} ms (× ${f(
+        checkCpu / noopCpu,
+        1,
+      )})`,
     );
     const large = `${f(desk.largeReturnBytes / 1e6, 0)} MB return`;
     console.log(
