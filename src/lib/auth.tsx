@@ -7,7 +7,7 @@ import { Navigate, useLocation } from 'react-router-dom';
 import { MeResponse, type CurrentUser, type SignInBody } from '@shared/schemas/auth';
 import type { Role } from '@shared/schemas/common';
 import { api, isApiError } from './api-client';
-import { authKeys } from './query-client';
+import { authKeys } from './query-keys';
 import { ROLE_HOME } from './roles';
 import { PageLoading } from '@/components/ui/page-loading';
 

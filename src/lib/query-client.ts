@@ -1,62 +1,8 @@
-// The TanStack Query client and the query-key factories. Keys run from general to
-// specific and include every input, so invalidating `packageKeys.all` reaches every list.
+// The TanStack Query client: cache defaults and the 401 handling. The key factories are in
+// query-keys.ts.
 import { QueryCache, QueryClient, type QueryClientConfig } from '@tanstack/react-query';
-import type { PackageListQuery } from '@shared/schemas/packages';
 import { isApiError } from './api-client';
-
-export const authKeys = {
-  all: ['auth'] as const,
-  me: () => [...authKeys.all, 'me'] as const,
-};
-
-/** Every input of a package list request; the whole object is part of the query key. */
-export type PackageListFilters = Pick<
-  PackageListQuery,
-  | 'status'
-  | 'siteId'
-  | 'contractorId'
-  | 'engineerId'
-  | 'critical'
-  | 'discrepancies'
-  | 'liftWithinDays'
-  | 'revisionMin'
-  | 'q'
-  | 'sort'
-  | 'page'
-  | 'pageSize'
->;
-
-export const packageKeys = {
-  all: ['packages'] as const,
-  lists: () => [...packageKeys.all, 'list'] as const,
-  list: (filters: PackageListFilters) => [...packageKeys.lists(), filters] as const,
-  details: () => [...packageKeys.all, 'detail'] as const,
-  detail: (id: string) => [...packageKeys.details(), id] as const,
-  /** Under the package's detail key, so refreshing a package refreshes these too. */
-  returns: (id: string) => [...packageKeys.detail(id), 'returns'] as const,
-  findings: (id: string) => [...packageKeys.detail(id), 'findings'] as const,
-};
-
-export const engineerKeys = {
-  all: ['engineers'] as const,
-};
-
-export const organisationKeys = {
-  all: ['organisations'] as const,
-};
-
-export const verifyKeys = {
-  all: ['verify'] as const,
-  code: (code: string) => [...verifyKeys.all, code] as const,
-};
-
-export const siteKeys = {
-  all: ['sites'] as const,
-};
-
-export const healthKeys = {
-  all: ['health'] as const,
-};
+import { authKeys } from './query-keys';
 
 export function createQueryClient(config: QueryClientConfig = {}): QueryClient {
   const client: QueryClient = new QueryClient({

@@ -3,7 +3,7 @@
 // server received. The view, status filter and page live in the URL.
 import { Link, useSearchParams } from 'react-router-dom';
 import { PageHeader } from '@/components/layouts/page-header';
-import type { MailFilters } from '@/features/admin/api/admin-keys';
+import type { MailFilters } from '@/lib/query-keys';
 import { MailLog } from '@/features/admin/components/mail-log';
 import { CaughtMailView } from '@/features/admin/components/caught-mail';
 

@@ -10,7 +10,7 @@ import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/panel-message';
 import { useOrganisations } from '@/features/admin/api/organisations';
 import { usePeople, type InvitedPerson } from '@/features/admin/api/people';
-import type { PeopleFilters } from '@/features/admin/api/admin-keys';
+import type { PeopleFilters } from '@/lib/query-keys';
 import { ListStates } from '@/features/admin/components/admin-table';
 import { InviteDialog } from '@/features/admin/components/invite-dialog';
 import { InviteLinkOnce } from '@/features/admin/components/invite-link-once';

@@ -7,7 +7,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import type { Role } from '@shared/schemas/common';
 import type { PackageListResponse, PackageSummary } from '@shared/schemas/packages';
 import { useCurrentUser } from '@/lib/auth';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 import { PageHeader } from '@/components/layouts/page-header';
 import { PackageListView } from '@/features/packages/components/package-list-view';
 import type { PackageTableVariant } from '@/features/packages/components/package-columns';

@@ -5,7 +5,7 @@ import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient }
 import { z } from 'zod';
 import { CaughtMail, MailMessage } from '@shared/schemas/admin';
 import { api, apiErrorFrom, CSRF_HEADER } from '@/lib/api-client';
-import { adminKeys, type MailFilters } from './admin-keys';
+import { adminKeys, type MailFilters } from '@/lib/query-keys';
 
 export type MailMessage = z.infer<typeof MailMessage>;
 export type CaughtMail = z.infer<typeof CaughtMail>;

@@ -9,8 +9,8 @@ import {
   type OrganisationPatch,
 } from '@shared/schemas/admin';
 import { api, request } from '@/lib/api-client';
-import { organisationKeys } from '@/lib/query-client';
-import { adminKeys } from './admin-keys';
+import { organisationKeys } from '@/lib/query-keys';
+import { adminKeys } from '@/lib/query-keys';
 
 export function getOrganisations(signal?: AbortSignal) {
   return api.get('/api/admin/organisations', OrganisationList, { signal });

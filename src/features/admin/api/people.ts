@@ -5,8 +5,8 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { z } from 'zod';
 import { InvitedPerson, Person, type InviteBody, type PersonPatch } from '@shared/schemas/admin';
 import { api, request } from '@/lib/api-client';
-import { engineerKeys } from '@/lib/query-client';
-import { adminKeys, type PeopleFilters } from './admin-keys';
+import { engineerKeys } from '@/lib/query-keys';
+import { adminKeys, type PeopleFilters } from '@/lib/query-keys';
 
 export type { InvitedPerson, Person };
 const PeopleList = z.object({ items: z.array(Person) });

@@ -4,7 +4,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { api } from '@/lib/api-client';
-import { adminKeys } from './admin-keys';
+import { adminKeys } from '@/lib/query-keys';
 
 const Overrides = z.record(z.string(), z.unknown());
 

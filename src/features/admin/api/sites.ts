@@ -4,8 +4,8 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { z } from 'zod';
 import { AdminSite, type SiteBody, type SitePatch } from '@shared/schemas/admin';
 import { api, request } from '@/lib/api-client';
-import { siteKeys } from '@/lib/query-client';
-import { adminKeys } from './admin-keys';
+import { siteKeys } from '@/lib/query-keys';
+import { adminKeys } from '@/lib/query-keys';
 
 export type AdminSite = z.infer<typeof AdminSite>;
 const SiteList = z.object({ items: z.array(AdminSite) });

@@ -5,7 +5,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { formatDateTime } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/panel-message';
-import { adminKeys, type MailFilters } from '../api/admin-keys';
+import { adminKeys, type MailFilters } from '@/lib/query-keys';
 import { useMail, useRetryMail, type MailMessage } from '../api/mail';
 import { MAIL_EVENT_LABELS } from '../lib/labels';
 import { AdminTable, ListStates, type AdminColumn } from './admin-table';

@@ -2,7 +2,7 @@
 // with the same body when either is down, so a 503 is read as a report, not a failure.
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { HealthResponse } from '@shared/schemas/health';
-import { healthKeys } from '@/lib/query-client';
+import { healthKeys } from '@/lib/query-keys';
 
 export async function getHealth(signal?: AbortSignal): Promise<HealthResponse> {
   const response = await fetch('/api/health', {

@@ -6,12 +6,7 @@ import type { z } from 'zod';
 import { AcceptInviteBody, InviteInfo } from '@shared/schemas/admin';
 import { MeResponse } from '@shared/schemas/auth';
 import { api } from '@/lib/api-client';
-import { authKeys } from '@/lib/query-client';
-
-export const inviteKeys = {
-  all: ['invites'] as const,
-  token: (token: string) => [...inviteKeys.all, token] as const,
-};
+import { authKeys, inviteKeys } from '@/lib/query-keys';
 
 export function getInvite(token: string, signal?: AbortSignal) {
   return api.get(`/api/invites/${encodeURIComponent(token)}`, InviteInfo, { signal });

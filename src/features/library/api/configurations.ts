@@ -4,7 +4,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { z } from 'zod';
 import { ConfigurationBody, ConfigurationDetail, VersionBody, VersionDetail } from '@shared/schemas/library';
 import { api } from '@/lib/api-client';
-import { libraryKeys } from './keys';
+import { libraryKeys } from '@/lib/query-keys';
 
 export const configurationQueryOptions = (id: string) =>
   queryOptions({

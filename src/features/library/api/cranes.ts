@@ -3,7 +3,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { CraneDetail, CraneList, type CraneBody } from '@shared/schemas/library';
 import { api } from '@/lib/api-client';
-import { libraryKeys, type CraneFilters } from './keys';
+import { libraryKeys, type CraneFilters } from '@/lib/query-keys';
 
 export const cranesQueryOptions = (filters: CraneFilters) =>
   queryOptions({

@@ -2,7 +2,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { LibraryUseList } from '@shared/schemas/library';
 import { api } from '@/lib/api-client';
-import { libraryKeys } from './keys';
+import { libraryKeys } from '@/lib/query-keys';
 
 const base = (packageId: string) => `/api/packages/${encodeURIComponent(packageId)}/library-uses`;
 

@@ -3,7 +3,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { VersionDetail } from '@shared/schemas/library';
 import { api, apiErrorFrom, CSRF_HEADER } from '@/lib/api-client';
-import { libraryKeys } from './keys';
+import { libraryKeys } from '@/lib/query-keys';
 
 const base = (id: string) => `/api/library/versions/${encodeURIComponent(id)}`;
 

@@ -8,7 +8,7 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { EmptyState, ErrorPanel } from '@/components/ui/panel-message';
 import { isApiError } from '@/lib/api-client';
 import { useCranes } from '../api/cranes';
-import type { CraneFilters } from '../api/keys';
+import type { CraneFilters } from '@/lib/query-keys';
 
 export function useFleetFilters() {
   const [q, setQ] = useState('');

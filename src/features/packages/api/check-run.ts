@@ -6,7 +6,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { CheckRunStatus } from '@shared/schemas/check-runs';
 import { PackageDetail } from '@shared/schemas/packages';
 import { api } from '@/lib/api-client';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 
 export const CHECK_RUN_POLL_MS = 2000;
 

@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { PackageDetail } from '@shared/schemas/packages';
 import { api } from '@/lib/api-client';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 
 export function duplicatePackage(id: string): Promise<PackageDetail> {
   return api.post(`/api/packages/${encodeURIComponent(id)}/duplicate`, undefined, PackageDetail);

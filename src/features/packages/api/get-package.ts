@@ -4,7 +4,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { PackageDetail } from '@shared/schemas/packages';
 import { api } from '@/lib/api-client';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 
 export const CHECK_POLL_MS = 1500;
 

@@ -3,7 +3,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { PackageListResponse } from '@shared/schemas/packages';
 import { api } from '@/lib/api-client';
-import { packageKeys, type PackageListFilters } from '@/lib/query-client';
+import { packageKeys, type PackageListFilters } from '@/lib/query-keys';
 
 export function getPackages(filters: PackageListFilters, signal?: AbortSignal): Promise<PackageListResponse> {
   // The order of the parameters is fixed, so the same filters always give the same URL.

@@ -2,7 +2,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { SiteList } from '@shared/schemas/packages';
 import { api } from '@/lib/api-client';
-import { siteKeys } from '@/lib/query-client';
+import { siteKeys } from '@/lib/query-keys';
 
 export function getSites(signal?: AbortSignal): Promise<SiteList> {
   return api.get('/api/sites', SiteList, { signal });

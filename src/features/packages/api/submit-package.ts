@@ -3,7 +3,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { PackageDetail } from '@shared/schemas/packages';
 import { api } from '@/lib/api-client';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 
 export function submitPackage(id: string): Promise<PackageDetail> {
   return api.post(`/api/packages/${encodeURIComponent(id)}/submit`, undefined, PackageDetail);

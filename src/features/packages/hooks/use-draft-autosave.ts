@@ -6,7 +6,7 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { PackageDetail, SaveDraftBody } from '@shared/schemas/packages';
 import { isApiError } from '@/lib/api-client';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 import { saveDraft, saveDraftOnExit } from '../api/save-draft';
 import { getPackage } from '../api/get-package';
 

@@ -6,7 +6,7 @@ import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { PACKAGE_STATUSES, type PackageStatus } from '@shared/schemas/common';
 import { PACKAGE_SORTS } from '@shared/schemas/packages';
-import type { PackageListFilters } from '@/lib/query-client';
+import type { PackageListFilters } from '@/lib/query-keys';
 
 export type PackageSort = PackageListFilters['sort'];
 export const DEFAULT_SORT: PackageSort = 'plannedLiftDate';

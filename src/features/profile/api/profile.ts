@@ -5,11 +5,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { z } from 'zod';
 import { Profile, type PasswordChangeBody, type ProfilePatch } from '@shared/schemas/admin';
 import { api, request } from '@/lib/api-client';
-import { authKeys } from '@/lib/query-client';
-
-export const profileKeys = {
-  all: ['profile'] as const,
-};
+import { authKeys, profileKeys } from '@/lib/query-keys';
 
 export function getProfile(signal?: AbortSignal) {
   return api.get('/api/me/profile', Profile, { signal });

@@ -5,7 +5,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { ReturnList, StampedReturn } from '@shared/schemas/returns';
 import { api } from '@/lib/api-client';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 
 export const POLL_MS = 1000;
 

@@ -7,7 +7,7 @@ import { plural } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/page-loading';
 import { FindingEntry } from '@/components/findings/finding-entry';
-import { useAnswerFinding } from '../api/findings';
+import { useAnswerFinding } from '@/lib/findings-client';
 
 const SEVERITY_ORDER = { blocking: 0, major: 1, minor: 2, note: 3 } as const;
 

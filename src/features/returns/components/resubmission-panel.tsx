@@ -6,7 +6,7 @@ import { DECISION_LABELS, type Decision } from '@shared/schemas/common';
 import { isApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/page-loading';
-import { useFindings } from '../api/findings';
+import { useFindings } from '@/lib/findings-client';
 import { returnFileUrl, useReturns } from '../api/returns';
 import { useStartRevision } from '../api/start-revision';
 import { FindingAnswers } from './finding-answers';

@@ -7,7 +7,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { DECISION_LABELS, type Decision, type PackageStatus } from '@shared/schemas/common';
 import { isApiError } from '@/lib/api-client';
 import { formatDateTime, plural } from '@/lib/format';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/page-loading';
 import type { StampedReturn } from '@shared/schemas/returns';

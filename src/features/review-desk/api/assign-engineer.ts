@@ -4,7 +4,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { AssignResult } from '@shared/schemas/reviews';
 import { api, isApiError } from '@/lib/api-client';
-import { engineerKeys, packageKeys } from '@/lib/query-client';
+import { engineerKeys, packageKeys } from '@/lib/query-keys';
 
 export type AssignInput = { packageIds: string[]; engineerId: string };
 

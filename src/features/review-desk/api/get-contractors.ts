@@ -3,7 +3,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { OrganisationList } from '@shared/schemas/admin';
 import { api } from '@/lib/api-client';
-import { organisationKeys } from '@/lib/query-client';
+import { organisationKeys } from '@/lib/query-keys';
 
 export type Contractor = { id: string; name: string };
 

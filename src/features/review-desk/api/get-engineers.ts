@@ -3,7 +3,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { EngineerList } from '@shared/schemas/reviews';
 import { api } from '@/lib/api-client';
-import { engineerKeys } from '@/lib/query-client';
+import { engineerKeys } from '@/lib/query-keys';
 
 export function getEngineers(signal?: AbortSignal): Promise<EngineerList> {
   return api.get('/api/engineers', EngineerList, { signal });

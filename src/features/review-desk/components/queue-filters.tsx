@@ -2,7 +2,7 @@
 // lifts, open discrepancies, lifts coming up within some days and later revisions. Each
 // choice goes straight into the URL; the server does the filtering.
 import type { ReactNode } from 'react';
-import type { PackageListFilters } from '@/lib/query-client';
+import type { PackageListFilters } from '@/lib/query-keys';
 import { Button } from '@/components/ui/button';
 
 export type QueueFilterChanges = Partial<{

@@ -3,8 +3,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { PackageDetail } from '@shared/schemas/packages';
 import { api } from '@/lib/api-client';
-import { packageKeys } from '@/lib/query-client';
-import { packagePath, refetchIfReviewClosed } from './review-keys';
+import { packageKeys } from '@/lib/query-keys';
+import { packagePath, refetchIfReviewClosed } from '@/lib/findings-client';
 
 export type AcceptFigureInput = { figure: string; reason: string };
 

@@ -3,7 +3,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { RevisionCompare } from '@shared/schemas/reviews';
 import { api } from '@/lib/api-client';
-import { packagePath, reviewKeys } from './review-keys';
+import { packagePath } from '@/lib/findings-client';
+import { packageKeys } from '@/lib/query-keys';
 
 export function getCompare(
   packageId: string,
@@ -16,7 +17,7 @@ export function getCompare(
 
 export const compareQueryOptions = (packageId: string, from: number, to: number) =>
   queryOptions({
-    queryKey: reviewKeys.compare(packageId, from, to),
+    queryKey: packageKeys.compare(packageId, from, to),
     queryFn: ({ signal }) => getCompare(packageId, from, to, signal),
   });
 

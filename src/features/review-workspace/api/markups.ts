@@ -4,7 +4,8 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { z } from 'zod';
 import { Markup, type MarkupBody } from '@shared/schemas/reviews';
 import { api } from '@/lib/api-client';
-import { packagePath, refetchIfReviewClosed, reviewKeys } from './review-keys';
+import { packagePath, refetchIfReviewClosed } from '@/lib/findings-client';
+import { packageKeys } from '@/lib/query-keys';
 
 const MarkupList = z.object({ items: z.array(Markup) });
 
@@ -14,7 +15,7 @@ export function getMarkups(packageId: string, signal?: AbortSignal): Promise<Mar
 
 export const markupsQueryOptions = (packageId: string) =>
   queryOptions({
-    queryKey: reviewKeys.markups(packageId),
+    queryKey: packageKeys.markups(packageId),
     queryFn: ({ signal }) => getMarkups(packageId, signal),
   });
 
@@ -34,10 +35,10 @@ export function useCreateMarkup(packageId: string) {
   return useMutation({
     mutationFn: (body: MarkupDraft) => createMarkup(packageId, body),
     onSuccess: (saved) => {
-      queryClient.setQueryData<Markup[]>(reviewKeys.markups(packageId), (list) => [...(list ?? []), saved]);
+      queryClient.setQueryData<Markup[]>(packageKeys.markups(packageId), (list) => [...(list ?? []), saved]);
     },
     onError: (error) => refetchIfReviewClosed(queryClient, packageId, error),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: reviewKeys.markups(packageId) }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: packageKeys.markups(packageId) }),
   });
 }
 
@@ -50,11 +51,11 @@ export function useDeleteMarkup(packageId: string) {
   return useMutation({
     mutationFn: (markupId: string) => deleteMarkup(packageId, markupId),
     onSuccess: (_nothing, markupId) => {
-      queryClient.setQueryData<Markup[]>(reviewKeys.markups(packageId), (list) =>
+      queryClient.setQueryData<Markup[]>(packageKeys.markups(packageId), (list) =>
         (list ?? []).filter((m) => m.id !== markupId),
       );
     },
     onError: (error) => refetchIfReviewClosed(queryClient, packageId, error),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: reviewKeys.markups(packageId) }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: packageKeys.markups(packageId) }),
   });
 }

@@ -5,8 +5,8 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Decision } from '@shared/schemas/common';
 import { PackageDetail } from '@shared/schemas/packages';
 import { api, isApiError } from '@/lib/api-client';
-import { packageKeys } from '@/lib/query-client';
-import { packagePath, refetchIfReviewClosed } from './review-keys';
+import { packageKeys } from '@/lib/query-keys';
+import { packagePath, refetchIfReviewClosed } from '@/lib/findings-client';
 
 export type DecisionInput = { decision: Decision; conditions: string; baseVersion: number };
 

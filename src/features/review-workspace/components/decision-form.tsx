@@ -10,7 +10,7 @@ import { StatusBadge } from '@/components/ui/status-badge';
 import { Button } from '@/components/ui/button';
 import { isApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 import { isStaleReview, useRecordDecision } from '../api/record-decision';
 
 const MEANINGS: Record<Decision, string> = {

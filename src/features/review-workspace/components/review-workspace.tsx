@@ -14,7 +14,7 @@ import { SplitPane } from '@/components/ui/split-pane';
 import { TabPanel, Tabs, type TabItem } from '@/components/ui/tabs';
 import { isApiError } from '@/lib/api-client';
 import { useMarkups } from '../api/markups';
-import { useFindings, useSetFindingState } from '../api/findings';
+import { useFindings, useSetFindingState } from '@/lib/findings-client';
 import { workspaceAccess } from '../lib/permissions';
 import { useDocumentView } from '../hooks/use-document-view';
 import { useFindingComposer } from '../hooks/use-finding-composer';

@@ -1,7 +1,7 @@
 // The finding being written: its text, severity and what it is tied to, and the save. A check's
 // "Raise a finding" fills the draft; the severity chosen stays for the next finding.
 import { useState } from 'react';
-import { useCreateFinding } from '../api/findings';
+import { useCreateFinding } from '@/lib/findings-client';
 import type { RaiseFinding } from '../components/check-panel';
 import { EMPTY_DRAFT, MIN_FINDING, type FindingDraft } from '../components/findings-panel';
 

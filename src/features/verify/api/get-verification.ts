@@ -4,7 +4,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { Verification } from '@shared/schemas/reviews';
 import { api } from '@/lib/api-client';
-import { verifyKeys } from '@/lib/query-client';
+import { verifyKeys } from '@/lib/query-keys';
 
 /** Codes are printed in groups and read aloud: keep only letters and digits, in capitals. */
 export function normaliseCode(raw: string): string {

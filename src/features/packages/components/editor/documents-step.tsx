@@ -5,7 +5,7 @@ import { useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { FileKind, FileSummary, PackageDetail } from '@shared/schemas/packages';
 import { isApiError } from '@/lib/api-client';
-import { packageKeys } from '@/lib/query-client';
+import { packageKeys } from '@/lib/query-keys';
 import { formatDateTime } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { deleteFile, fileUrl, uploadFile } from '../../api/files';
