@@ -114,7 +114,7 @@ function table(r: LiftResult, units: UnitSystem): string {
 const args = parseArgs(process.argv.slice(2));
 const raw = readJson(args.file, 'input file');
 const policy = args.policy ? readJson(args.policy, 'policy file') : undefined;
-const outcome = checkLift(raw, policy as never, { units: args.units });
+const outcome = checkLift(raw, policy, { units: args.units });
 if (!outcome.ok) {
   fail(
     2,

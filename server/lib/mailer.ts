@@ -1,16 +1,19 @@
 // Sends one message over SMTP with nodemailer. SMTP_URL names the server (a provider in
 // production, the local fake SMTP server in the embedded set-up).
 import nodemailer, { type Transporter } from 'nodemailer';
+import type SMTPTransport from 'nodemailer/lib/smtp-transport';
 
 let cached: { url: string; transport: Transporter } | null = null;
 
 export function mailTransport(url: string): Transporter {
   if (cached?.url === url) return cached.transport;
-  const transport = nodemailer.createTransport(url, {
+  const options: SMTPTransport.Options = {
+    url,
     connectionTimeout: 10_000,
     greetingTimeout: 10_000,
     socketTimeout: 20_000,
-  } as never);
+  };
+  const transport = nodemailer.createTransport(options);
   cached = { url, transport };
   return transport;
 }

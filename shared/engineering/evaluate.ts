@@ -4,7 +4,7 @@
 // returns a LiftResult (versioned, with the policy used copied in). checkLift parses unknown JSON
 // first and returns the zod issues (path and message) instead of throwing.
 import { LiftInput } from '../schemas/lift-input';
-import { DEFAULT_POLICY, SitePolicy, type SitePolicyInput } from '../schemas/site-policy';
+import { DEFAULT_POLICY, SitePolicy } from '../schemas/site-policy';
 import { lookupCapacity, type ChartRowSI } from './chart';
 import type { Ctx } from './context';
 import { worst } from './context';
@@ -366,7 +366,8 @@ function issuesOf(err: { issues: { path: PropertyKey[]; message: string }[] }, p
 /** Parse unknown data (e.g. a request body) and evaluate it; never throws for bad input. */
 export function checkLift(
   raw: unknown,
-  policy?: SitePolicyInput | null,
+  /** parsed here like the input: a file's or a request's policy arrives unchecked */
+  policy?: unknown,
   options: EvaluateOptions = {},
 ): CheckLiftOutcome {
   const parsed = LiftInput.safeParse(raw);

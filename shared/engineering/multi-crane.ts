@@ -13,7 +13,7 @@
 // moved by a fraction of the pick spacing (default 5%, common practice, no source).
 import type { LiftInput } from '../schemas/lift-input';
 import { exceeds } from './compare';
-import { si } from './units';
+import { si, type Quantity } from './units';
 
 export const SHARE_BALANCE_TOLERANCE = 0.01;
 export const DEFAULT_CG_OFFSET_FRACTION = 0.05;
@@ -37,8 +37,11 @@ export interface SharePlan {
   reason: string | null;
 }
 
-const pt = (p: { x: { value: number; unit: string }; y: { value: number; unit: string } } | undefined) =>
-  p ? ([si(p.x as never)!, si(p.y as never)!] as Point) : null;
+const pt = (p: { x: Quantity; y: Quantity } | undefined): Point | null => {
+  const x = si(p?.x);
+  const y = si(p?.y);
+  return x === undefined || y === undefined ? null : [x, y];
+};
 
 export function solveShares(W: number, picks: Point[], g: Point): number[] | null {
   if (picks.length === 2) {

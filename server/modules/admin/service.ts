@@ -241,7 +241,7 @@ export async function setPolicy(
   await ds.transaction(async (m) => {
     await m
       .getRepository(Site)
-      .update(site.id, { reviewPolicy: overrides as never, policyVersion: site.policyVersion + 1 });
+      .save({ id: site.id, reviewPolicy: overrides, policyVersion: site.policyVersion + 1 });
     await recordAudit(m, {
       action: 'policy.changed',
       actor: admin,

@@ -15,12 +15,22 @@ import { cellsOf, gridOf, names, verificationsFor } from './version-summaries';
 
 type U = Express.User;
 
-type ChartRows = { rows?: unknown[] } | undefined;
+type ChartRows = NonNullable<Parameters<typeof changedCells>[1]>;
 
-function chartRowsOf(inputs: Record<string, unknown>, slot: number) {
-  if (slot === 0) return (inputs.chart as ChartRows)?.rows;
-  const others = (inputs.multiCrane as { others?: { chart?: ChartRows }[] } | undefined)?.others;
-  return others?.[slot - 1]?.chart?.rows;
+/** Rows are read field by field by changedCells (a non-number reads as no value), so an array of objects is enough. */
+const isRows = (x: unknown): x is ChartRows =>
+  Array.isArray(x) && x.every((r) => typeof r === 'object' && r !== null);
+
+function chartRowsOf(inputs: Record<string, unknown>, slot: number): ChartRows | undefined {
+  const chart = (c: unknown) =>
+    typeof c === 'object' && c !== null ? (c as { rows?: unknown }).rows : undefined;
+  const rows =
+    slot === 0
+      ? chart(inputs.chart)
+      : chart(
+          (inputs.multiCrane as { others?: { chart?: unknown }[] } | undefined)?.others?.[slot - 1]?.chart,
+        );
+  return isRows(rows) ? rows : undefined;
 }
 
 export async function listUses(ds: DataSource, user: U, packageId: string): Promise<{ items: LibraryUse[] }> {
@@ -66,7 +76,7 @@ export async function listUses(ds: DataSource, user: U, packageId: string): Prom
           crane: craneLabel({ crane: { ...v.craneSnapshot, id: k.craneId } }),
         },
         detached: u.detached,
-        changedCells: changedCells(grid, chartRowsOf(revision.inputs, u.slot) as never),
+        changedCells: changedCells(grid, chartRowsOf(revision.inputs, u.slot)),
         units: v.chartUnits,
         verifications: verifications
           .filter((x) => x.versionId === v.id)

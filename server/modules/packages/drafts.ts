@@ -114,7 +114,7 @@ export async function saveDraft(ds: DataSource, user: Actor, packageId: string, 
     // Always touch the revision so updated_at moves on and a stale tab is detected.
     await m
       .getRepository(Revision)
-      .update(revision.id, { inputs: (body.inputs ?? revision.inputs) as never, updatedAt: new Date() });
+      .save({ id: revision.id, inputs: body.inputs ?? revision.inputs, updatedAt: new Date() });
   });
 }
 

@@ -83,24 +83,25 @@ export function ConfigurationForm({
     </label>
   );
   const submit = () => {
-    const body: VersionDraft = {
+    // Built as typed; the schema checks the units and numbers and names what is wrong.
+    const body = {
       details: {
         workingArea: d.workingArea,
         ...(d.outriggerSpread ? { outriggerSpread: d.outriggerSpread } : {}),
         ...(d.jib.trim() ? { jib: d.jib } : {}),
-        ...(q.bMin ? { boomLengthMin: q.bMin as never } : {}),
-        ...(q.bMax ? { boomLengthMax: q.bMax as never } : {}),
+        ...(q.bMin ? { boomLengthMin: q.bMin } : {}),
+        ...(q.bMax ? { boomLengthMax: q.bMax } : {}),
         ...(d.cwArrangement.trim() || q.cw
           ? {
               counterweight: {
                 arrangement: d.cwArrangement,
-                weight: q.cw as never,
-                cgBehindRotation: q.cwCg as never,
+                weight: q.cw,
+                cgBehindRotation: q.cwCg,
               },
             }
           : {}),
         ...(q.hook
-          ? { hookBlock: { ...(d.hookName.trim() ? { name: d.hookName } : {}), weight: q.hook as never } }
+          ? { hookBlock: { ...(d.hookName.trim() ? { name: d.hookName } : {}), weight: q.hook } }
           : {}),
       },
       notes: {
@@ -114,7 +115,7 @@ export function ConfigurationForm({
         ...(d.edition.trim() ? { edition: d.edition } : {}),
         ...(d.page.trim() ? { page: d.page } : {}),
       },
-      chart: chart as never,
+      chart: chart ?? undefined,
       ...(d.changeNote.trim() ? { changeNote: d.changeNote } : {}),
     };
     const fieldsMissing = [];
@@ -129,7 +130,7 @@ export function ConfigurationForm({
         : zodFieldErrors(parsed.error).filter((e) => !(e.path.startsWith('chart') && !chart))),
     ];
     setErrors(found);
-    if (found.length === 0) onSubmit(body, name);
+    if (found.length === 0 && parsed.success) onSubmit(parsed.data, name);
   };
   return (
     <form

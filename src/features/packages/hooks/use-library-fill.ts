@@ -5,10 +5,9 @@
 import { useCallback, type ReactNode } from 'react';
 import type { LibraryFill } from '@shared/library/to-lift-input';
 import { isLibraryPath } from '@shared/library/to-lift-input';
-import type { useLiftForm } from './use-lift-form';
+import type { LiftFormValues, useLiftForm } from './use-lift-form';
 
 type Form = ReturnType<typeof useLiftForm>;
-type Crane = { boomLength?: unknown; boomAngle?: unknown; radius?: unknown; slewAngle?: unknown };
 
 /** Where slot `slot`'s crane sits in the lift input: '' for the crane at the top. */
 export function slotPrefix(slot: number): string {
@@ -21,27 +20,43 @@ export function isSlotLibraryPath(slot: number, path: string): boolean {
   return path.startsWith(prefix) && isLibraryPath(path.slice(prefix.length));
 }
 
+type Slot = Pick<LiftFormValues, 'crane' | 'chart' | 'hookBlock' | 'chartDeductions'>;
+
+/** A crane slot's four parts with the library's filled in; the planner's own figures stay. */
+function filled(cur: Slot, fill: LibraryFill): Slot {
+  return {
+    crane: {
+      ...fill.crane,
+      boomLength: cur.crane?.boomLength,
+      boomAngle: cur.crane?.boomAngle,
+      radius: cur.crane?.radius,
+      slewAngle: cur.crane?.slewAngle,
+    },
+    chart: fill.chart,
+    hookBlock: fill.hookBlock ? { ...cur.hookBlock, ...fill.hookBlock } : cur.hookBlock,
+    chartDeductions: fill.chartDeductions ?? cur.chartDeductions,
+  };
+}
+
 export function useLibraryFill(form: Form) {
   return useCallback(
     (fill: LibraryFill, slot = 0) => {
-      const p = slotPrefix(slot);
-      // react-hook-form's typed paths cannot name an index chosen at run time; the paths are the
-      // lift input's own (crane, chart, hookBlock, chartDeductions under the slot's prefix).
-      const get = (path: string) => form.getValues(path as never) as unknown;
-      const set = (path: string, value: unknown) =>
-        form.setValue(path as never, value as never, { shouldDirty: true, shouldTouch: true });
-      const crane = (get(`${p}crane`) ?? {}) as Crane;
-      set(`${p}crane`, {
-        ...fill.crane,
-        boomLength: crane.boomLength,
-        boomAngle: crane.boomAngle,
-        radius: crane.radius,
-        slewAngle: crane.slewAngle,
-      });
-      set(`${p}chart`, fill.chart);
-      if (fill.hookBlock)
-        set(`${p}hookBlock`, { ...((get(`${p}hookBlock`) ?? {}) as object), ...fill.hookBlock });
-      if (fill.chartDeductions) set(`${p}chartDeductions`, fill.chartDeductions);
+      const opts = { shouldDirty: true, shouldTouch: true };
+      if (slot === 0) {
+        const next = filled(form.getValues(), fill);
+        form.setValue('crane', next.crane, opts);
+        form.setValue('chart', next.chart, opts);
+        if (fill.hookBlock) form.setValue('hookBlock', next.hookBlock, opts);
+        if (fill.chartDeductions) form.setValue('chartDeductions', next.chartDeductions, opts);
+        return;
+      }
+      const i = slot - 1;
+      const next = filled(form.getValues(`multiCrane.others.${i}`) ?? {}, fill);
+      form.setValue(`multiCrane.others.${i}.crane`, next.crane, opts);
+      form.setValue(`multiCrane.others.${i}.chart`, next.chart, opts);
+      if (fill.hookBlock) form.setValue(`multiCrane.others.${i}.hookBlock`, next.hookBlock, opts);
+      if (fill.chartDeductions)
+        form.setValue(`multiCrane.others.${i}.chartDeductions`, next.chartDeductions, opts);
     },
     [form],
   );
