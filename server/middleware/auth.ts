@@ -47,7 +47,13 @@ export function requireRole(...roles: Role[]): RequestHandler {
 /** The signed-in user as the domain's Actor: what routes hand to services. */
 export function currentActor(req: Request): Actor {
   const user = currentUser(req);
-  return { id: user.id, role: user.role, organisationId: user.organisationId, name: user.name };
+  return {
+    id: user.id,
+    role: user.role,
+    organisationId: user.organisationId,
+    organisationKind: user.organisation.kind,
+    name: user.name,
+  };
 }
 
 /** The signed-in user of a route behind requireAuth. */

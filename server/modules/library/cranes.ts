@@ -1,5 +1,6 @@
 // The contractor's fleet: cranes with their fixed data, searched by fleet number, make or model
 // and filtered by capacity at a radius. A crane's configurations live in versions.ts.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import type {
@@ -17,7 +18,7 @@ import { audit } from './library-audit';
 import { ownCrane } from './library-scope';
 import { cellsOf, gridOf, readerDesk, versionSummaries } from './version-summaries';
 
-type U = Express.User;
+type U = Actor;
 
 export async function listCranes(ds: DataSource, user: U, query: z.infer<typeof CraneListQuery>) {
   const m = ds.manager;

@@ -1,11 +1,12 @@
 // What a user may reach in the fleet library: a contractor its own cranes, configurations and
 // versions; the owner side sees a version only through a package on its sites that uses it.
+import type { Actor } from '@shared/rules/actor';
 import type { EntityManager } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import { scopedPackages } from '../packages/package-scope';
 import { LibraryConfiguration, LibraryCrane, LibraryUseRow, LibraryVersion } from './library.entity';
 
-type U = Express.User;
+type U = Actor;
 
 export async function ownCrane(m: EntityManager, user: U, id: string): Promise<LibraryCrane> {
   const crane = await m.getRepository(LibraryCrane).findOneBy({ id, organisationId: user.organisationId });

@@ -21,7 +21,7 @@ import { previewText } from '@shared/library/chart-text';
 import type { AppContext } from '../../context';
 import { AppError } from '../../lib/app-error';
 import { sendStored } from '../../lib/send-stored';
-import { currentUser, requireAuth, requireRole } from '../../middleware/auth';
+import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { chartCsv, chartXlsx, previewChartFile } from './chart-files';
 import { createCrane, getCrane, listCranes, patchCrane, retireCrane } from './cranes';
@@ -57,13 +57,13 @@ export function libraryRoutes(ctx: AppContext): Router {
   router.use(['/library', '/packages/:id/library-uses'], auth);
 
   router.get('/library/cranes', contractor, validate({ query: CraneListQuery }), async (req, res) => {
-    res.json(await listCranes(ds, currentUser(req), valid(req, 'query', CraneListQuery)));
+    res.json(await listCranes(ds, currentActor(req), valid(req, 'query', CraneListQuery)));
   });
   router.post('/library/cranes', contractor, validate({ body: CraneBody }), async (req, res) => {
-    res.status(201).json(await createCrane(ds, currentUser(req), valid(req, 'body', CraneBody)));
+    res.status(201).json(await createCrane(ds, currentActor(req), valid(req, 'body', CraneBody)));
   });
   router.get('/library/cranes/:id', contractor, validate({ params: LibraryIdParams }), async (req, res) => {
-    res.json(await getCrane(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+    res.json(await getCrane(ds, currentActor(req), valid(req, 'params', LibraryIdParams).id));
   });
   router.patch(
     '/library/cranes/:id',
@@ -71,7 +71,7 @@ export function libraryRoutes(ctx: AppContext): Router {
     validate({ params: LibraryIdParams, body: CranePatch }),
     async (req, res) => {
       const { id } = valid(req, 'params', LibraryIdParams);
-      res.json(await patchCrane(ds, currentUser(req), id, valid(req, 'body', CranePatch)));
+      res.json(await patchCrane(ds, currentActor(req), id, valid(req, 'body', CranePatch)));
     },
   );
   router.post(
@@ -79,7 +79,7 @@ export function libraryRoutes(ctx: AppContext): Router {
     contractor,
     validate({ params: LibraryIdParams }),
     async (req, res) => {
-      res.json(await retireCrane(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+      res.json(await retireCrane(ds, currentActor(req), valid(req, 'params', LibraryIdParams).id));
     },
   );
   router.post(
@@ -90,7 +90,7 @@ export function libraryRoutes(ctx: AppContext): Router {
       const { id } = valid(req, 'params', LibraryIdParams);
       res
         .status(201)
-        .json(await createConfiguration(ds, currentUser(req), id, valid(req, 'body', ConfigurationBody)));
+        .json(await createConfiguration(ds, currentActor(req), id, valid(req, 'body', ConfigurationBody)));
     },
   );
   router.get(
@@ -98,7 +98,7 @@ export function libraryRoutes(ctx: AppContext): Router {
     contractor,
     validate({ params: LibraryIdParams }),
     async (req, res) => {
-      res.json(await getConfiguration(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+      res.json(await getConfiguration(ds, currentActor(req), valid(req, 'params', LibraryIdParams).id));
     },
   );
   router.post(
@@ -107,18 +107,18 @@ export function libraryRoutes(ctx: AppContext): Router {
     validate({ params: LibraryIdParams, body: VersionBody }),
     async (req, res) => {
       const { id } = valid(req, 'params', LibraryIdParams);
-      res.status(201).json(await addVersion(ds, currentUser(req), id, valid(req, 'body', VersionBody)));
+      res.status(201).json(await addVersion(ds, currentActor(req), id, valid(req, 'body', VersionBody)));
     },
   );
   router.get('/library/versions/:id', validate({ params: LibraryIdParams }), async (req, res) => {
-    res.json(await getVersion(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+    res.json(await getVersion(ds, currentActor(req), valid(req, 'params', LibraryIdParams).id));
   });
   router.post(
     '/library/versions/:id/retire',
     contractor,
     validate({ params: LibraryIdParams }),
     async (req, res) => {
-      res.json(await retireVersion(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+      res.json(await retireVersion(ds, currentActor(req), valid(req, 'params', LibraryIdParams).id));
     },
   );
   router.delete(
@@ -126,7 +126,7 @@ export function libraryRoutes(ctx: AppContext): Router {
     contractor,
     validate({ params: LibraryIdParams }),
     async (req, res) => {
-      await deleteVersion(ds, ctx.storage, currentUser(req), valid(req, 'params', LibraryIdParams).id);
+      await deleteVersion(ds, ctx.storage, currentActor(req), valid(req, 'params', LibraryIdParams).id);
       res.status(204).end();
     },
   );
@@ -176,7 +176,7 @@ export function libraryRoutes(ctx: AppContext): Router {
         await attachDocument(
           ds,
           ctx.storage,
-          currentUser(req),
+          currentActor(req),
           id,
           { originalName: f.name, bytes: new Uint8Array(f.bytes) },
           {
@@ -187,7 +187,7 @@ export function libraryRoutes(ctx: AppContext): Router {
     },
   );
   router.get('/library/versions/:id/document', validate({ params: LibraryIdParams }), async (req, res) => {
-    const file = await readDocument(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id);
+    const file = await readDocument(ds, currentActor(req), valid(req, 'params', LibraryIdParams).id);
     await sendStored(req, res, ctx.storage, {
       key: file.storageKey,
       contentType: 'application/pdf',
@@ -200,7 +200,7 @@ export function libraryRoutes(ctx: AppContext): Router {
     '/library/versions/:id/chart',
     validate({ params: LibraryIdParams, query: ExportQuery }),
     async (req, res) => {
-      const { grid, name } = await chartOf(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id);
+      const { grid, name } = await chartOf(ds, currentActor(req), valid(req, 'params', LibraryIdParams).id);
       const { format } = valid(req, 'query', ExportQuery);
       const file = `${name.replace(/[^\w.-]+/g, '-')}.${format}`;
       res.setHeader('Content-Disposition', `attachment; filename="${file}"`);
@@ -220,7 +220,7 @@ export function libraryRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id } = valid(req, 'params', LibraryIdParams);
       const body = valid(req, 'body', VerifyBody);
-      res.status(201).json(await verifyVersion(ds, currentUser(req), id, body.note, body.packageId));
+      res.status(201).json(await verifyVersion(ds, currentActor(req), id, body.note, body.packageId));
     },
   );
 
@@ -243,7 +243,7 @@ export function libraryRoutes(ctx: AppContext): Router {
   );
 
   router.get('/packages/:id/library-uses', validate({ params: LibraryIdParams }), async (req, res) => {
-    res.json(await listUses(ds, currentUser(req), valid(req, 'params', LibraryIdParams).id));
+    res.json(await listUses(ds, currentActor(req), valid(req, 'params', LibraryIdParams).id));
   });
   router.put(
     '/packages/:id/library-uses',
@@ -251,7 +251,7 @@ export function libraryRoutes(ctx: AppContext): Router {
     validate({ params: LibraryIdParams, body: LibraryUseBody }),
     async (req, res) => {
       const { id } = valid(req, 'params', LibraryIdParams);
-      res.json(await setUse(ds, currentUser(req), id, valid(req, 'body', LibraryUseBody)));
+      res.json(await setUse(ds, currentActor(req), id, valid(req, 'body', LibraryUseBody)));
     },
   );
   router.delete(
@@ -260,7 +260,7 @@ export function libraryRoutes(ctx: AppContext): Router {
     validate({ params: LibraryUseParams }),
     async (req, res) => {
       const { id, slot } = valid(req, 'params', LibraryUseParams);
-      await removeUse(ds, currentUser(req), id, slot);
+      await removeUse(ds, currentActor(req), id, slot);
       res.status(204).end();
     },
   );

@@ -1,5 +1,6 @@
 // A package's use of the library: which version each crane slot of a revision uses, whether the
 // chart was detached as a copy (and which cells the copy changed), and the desk's verifications.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import type { LibraryUse, LibraryUseBody } from '@shared/schemas/library';
@@ -13,7 +14,7 @@ import { audit } from './library-audit';
 import { readableVersion } from './library-scope';
 import { cellsOf, gridOf, names, verificationsFor } from './version-summaries';
 
-type U = Express.User;
+type U = Actor;
 
 type ChartRows = NonNullable<Parameters<typeof changedCells>[1]>;
 

@@ -1,5 +1,6 @@
 // Owner desk verification: an owner desk's engineer verifies a version's chart against the
 // manufacturer's document for that desk alone; other desks do not see it.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import type { LiftPackage } from '../packages/package.entity';
@@ -10,10 +11,10 @@ import { readableVersion } from './library-scope';
 import { names } from './version-summaries';
 import { getVersion } from './versions';
 
-type U = Express.User;
+type U = Actor;
 
 export async function verifyVersion(ds: DataSource, user: U, id: string, note: string, packageId?: string) {
-  if (user.organisation.kind !== 'owner')
+  if (user.organisationKind !== 'owner')
     throw AppError.forbidden("Only an owner desk's engineer verifies a chart.");
   await ds.transaction(async (m) => {
     const { version, config } = await readableVersion(m, user, id);

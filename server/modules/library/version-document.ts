@@ -1,5 +1,6 @@
 // The manufacturer's document (PDF) of a version: attached once, before any package uses the
 // version, and read by everyone who may read the version.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import { sha256, type Storage } from '../../lib/storage';
@@ -10,7 +11,7 @@ import { ownVersion, readableVersion } from './library-scope';
 import { useCounts } from './version-summaries';
 import { getVersion } from './versions';
 
-type U = Express.User;
+type U = Actor;
 
 export async function attachDocument(
   ds: DataSource,

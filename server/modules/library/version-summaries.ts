@@ -1,12 +1,13 @@
 // Reading the fleet library in bulk: the cells of versions, who made them, how many packages use
 // them and one owner desk's verifications, folded into the summaries the cranes and versions show.
+import type { Actor } from '@shared/rules/actor';
 import type { EntityManager } from 'typeorm';
 import { gridFromCells, type ChartGrid } from '@shared/library/chart-grid';
 import { gridDifference } from '@shared/library/to-lift-input';
 import { User } from '../users/user.entity';
 import { LibraryChartCell, LibraryVerification, LibraryVersion } from './library.entity';
 
-type U = Express.User;
+type U = Actor;
 
 export async function cellsOf(
   m: EntityManager,
@@ -61,7 +62,7 @@ export async function verificationsFor(m: EntityManager, versionIds: string[], d
 }
 
 /** The owner desk whose verifications a reader sees outside a package: the owner side's own. */
-export const readerDesk = (user: U) => (user.organisation.kind === 'owner' ? user.organisationId : null);
+export const readerDesk = (user: U) => (user.organisationKind === 'owner' ? user.organisationId : null);
 
 export async function versionSummaries(m: EntityManager, versions: LibraryVersion[], deskId: string | null) {
   const ids = versions.map((v) => v.id);

@@ -1,5 +1,6 @@
 // A crane's configurations and their versions: each edit of a configuration writes a new version
 // (the old ones never change); a version a package uses can be retired but not deleted.
+import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import type {
@@ -31,7 +32,7 @@ import {
   versionSummaries,
 } from './version-summaries';
 
-type U = Express.User;
+type U = Actor;
 
 async function writeVersion(
   m: EntityManager,
