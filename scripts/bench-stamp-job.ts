@@ -12,9 +12,9 @@ import { createHash, randomBytes } from 'node:crypto';
 import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import supertest from 'supertest';
 import { freePort, startPostgres, startRedis } from './lib/services';
 import { runMigrations } from './lib/migrate';
+import { decidedPackage, must } from './lib/bench-flow';
 
 export interface JobFigure {
   file: string;
@@ -71,64 +71,25 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
       signedIn(app, w.reviewer.email),
       signedIn(app, w.engineer.email),
     ]);
-    const must = (res: supertest.Response, status: number, what: string) => {
-      if (res.status !== status) throw new Error(`${what}: ${res.status} ${JSON.stringify(res.body)}`);
-      return res;
-    };
     const figures: JobFigure[] = [];
     for (const file of files) {
       const bytes = readFileSync(file);
       const figure: JobFigure = { file, seconds: [], queuedSeconds: [], runSeconds: [], pages: 0 };
       for (let round = 0; round < 2; round++) {
-        const created = must(
-          await contractor.post('/api/packages').send({
-            title: `Bench ${path.basename(file)} ${round}`,
-            siteId: w.site.id,
-            plannedLiftDate: '2030-03-14',
-          }),
-          201,
-          'create package',
-        );
-        const id = created.body.package.id as string;
-        must(await contractor.put(`/api/packages/${id}/draft`).send({ inputs }), 200, 'draft');
-        const up = must(
-          await contractor
-            .post(`/api/packages/${id}/files`)
-            .field('kind', 'lift_plan')
-            .attach('file', bytes, path.basename(file)),
-          201,
-          'upload',
-        );
-        const sub = must(await contractor.post(`/api/packages/${id}/submit`), 202, 'submit');
-        await runCheck(ctx.dataSource, sub.body.current.id);
-        must(
-          await reviewer.post('/api/assignments').send({ packageIds: [id], engineerId: w.engineer.id }),
-          200,
-          'assign',
-        );
-        for (const [k, kind] of (['cloud', 'arrow', 'text'] as const).entries())
-          must(
-            await engineer.post(`/api/packages/${id}/markups`).send({
-              fileId: up.body.id,
-              pageNumber: 1,
-              kind,
-              geometry:
-                kind === 'arrow'
-                  ? { x1: 80, y1: 200, x2: 200, y2: 260 }
-                  : { x: 80 + k * 120, y: 300, width: 100, height: 60 },
-              ...(kind === 'text' ? { text: 'Check the mat size' } : {}),
-            }),
-            201,
-            'markup',
-          );
-        const version = (await engineer.get(`/api/packages/${id}`)).body.package.version;
-        must(
-          await engineer
-            .post(`/api/packages/${id}/decision`)
-            .send({ decision: 'accepted', conditions: '', baseVersion: version }),
-          200,
-          'decision',
-        );
+        const id = await decidedPackage({
+          contractor,
+          reviewer,
+          engineer,
+          siteId: w.site.id,
+          engineerId: w.engineer.id,
+          title: `Bench ${path.basename(file)} ${round}`,
+          inputs,
+          plan: bytes,
+          planName: path.basename(file),
+          runCheck,
+          ds: ctx.dataSource,
+          markups: true,
+        });
         const t0 = process.hrtime.bigint();
         const issued = must(await reviewer.post(`/api/packages/${id}/returns`), 202, 'issue');
         let item: { id: string; state: string; sha256: string; pages: number } | undefined;

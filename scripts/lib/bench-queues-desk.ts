@@ -10,8 +10,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { Job } from 'bullmq';
-import supertest from 'supertest';
 import type { AppContext } from '../../server/context';
+import { decidedPackage, must } from './bench-flow';
 import { runMigrations } from './migrate';
 import { startProcess, stopChild, type Managed } from './processes';
 import { freePort, startPostgres, startRedis } from './services';
@@ -118,42 +118,19 @@ export async function startBenchDesk(opts: { checks: number; largePdf: string })
     const [contractor, reviewer, engineer] = await Promise.all(
       [w.plannerA, w.reviewer, w.engineer].map((u) => signedIn(app, u.email)),
     );
-    const must = (res: supertest.Response, status: number, what: string) => {
-      if (res.status !== status) throw new Error(`${what}: ${res.status} ${JSON.stringify(res.body)}`);
-      return res;
-    };
-    const created = must(
-      await contractor
-        .post('/api/packages')
-        .send({ title: 'Bench large return', siteId: w.site.id, plannedLiftDate: '2030-03-14' }),
-      201,
-      'create package',
-    );
-    const id = created.body.package.id as string;
-    must(await contractor.put(`/api/packages/${id}/draft`).send({ inputs }), 200, 'draft');
-    must(
-      await contractor
-        .post(`/api/packages/${id}/files`)
-        .field('kind', 'lift_plan')
-        .attach('file', fs.readFileSync(opts.largePdf), 'scanned-plan.pdf'),
-      201,
-      'upload',
-    );
-    const sub = must(await contractor.post(`/api/packages/${id}/submit`), 202, 'submit');
-    await runCheckRun(ds, sub.body.current.id);
-    must(
-      await reviewer.post('/api/assignments').send({ packageIds: [id], engineerId: w.engineer.id }),
-      200,
-      'assign',
-    );
-    const version = (await engineer.get(`/api/packages/${id}`)).body.package.version;
-    must(
-      await engineer
-        .post(`/api/packages/${id}/decision`)
-        .send({ decision: 'accepted', conditions: '', baseVersion: version }),
-      200,
-      'decision',
-    );
+    const id = await decidedPackage({
+      contractor,
+      reviewer,
+      engineer,
+      siteId: w.site.id,
+      engineerId: w.engineer.id,
+      title: 'Bench large return',
+      inputs,
+      plan: fs.readFileSync(opts.largePdf),
+      planName: 'scanned-plan.pdf',
+      runCheck: runCheckRun,
+      ds,
+    });
     const issued = must(await reviewer.post(`/api/packages/${id}/returns`), 202, 'issue');
     const returnId = issued.body.id as string;
     // The jobs the API queued are taken back: the benchmark says when each build starts.

@@ -40,3 +40,9 @@ export const STATUS_GLYPHS: Record<CheckStatus, GlyphPart[]> = {
     { kind: 'path', d: 'M4.5 7 H9.5', stroke: 'soft', width: 1.4 },
   ],
 };
+
+/** A stated figure that disagrees with the recomputed one: a struck-through equals sign. */
+export const DISAGREE_GLYPH: GlyphPart[] = [
+  { kind: 'path', d: 'M2 4 H12 M2 10 H12', stroke: 'ink', width: 1.6 },
+  { kind: 'path', d: 'M9 1.5 L5 12.5', stroke: 'ink', width: 1.6 },
+];

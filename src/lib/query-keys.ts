@@ -25,6 +25,19 @@ export type PackageListFilters = Pick<
   | 'pageSize'
 >;
 
+/** The filters that narrow the list (not the sort or the page): any of them on means "filtered". */
+export const NARROWING_FILTERS = [
+  'status',
+  'siteId',
+  'contractorId',
+  'engineerId',
+  'critical',
+  'discrepancies',
+  'liftWithinDays',
+  'revisionMin',
+  'q',
+] as const satisfies readonly (keyof PackageListFilters)[];
+
 export const packageKeys = {
   all: ['packages'] as const,
   lists: () => [...packageKeys.all, 'list'] as const,

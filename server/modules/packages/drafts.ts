@@ -81,16 +81,21 @@ export async function createPackage(
   });
 }
 
+/** The package's current revision, locked for the rest of the transaction. */
+function lockCurrentRevision(m: EntityManager, pkg: LiftPackage): Promise<Revision> {
+  return m
+    .getRepository(Revision)
+    .createQueryBuilder('r')
+    .setLock('pessimistic_write')
+    .where('r.package_id = :id AND r.number = :n', { id: pkg.id, n: pkg.currentRevision })
+    .getOneOrFail();
+}
+
 export async function saveDraft(ds: DataSource, user: Actor, packageId: string, body: SaveDraftBody) {
   requireContractor(user);
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   await ds.transaction(async (m) => {
-    const revision = await m
-      .getRepository(Revision)
-      .createQueryBuilder('r')
-      .setLock('pessimistic_write')
-      .where('r.package_id = :id AND r.number = :n', { id: pkg.id, n: pkg.currentRevision })
-      .getOneOrFail();
+    const revision = await lockCurrentRevision(m, pkg);
     if (revision.state !== 'draft') {
       throw new AppError(
         409,
@@ -143,12 +148,7 @@ export async function submitPackage(
   requireContractor(user);
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const { revisionId, mailIds } = await ds.transaction(async (m) => {
-    const revision = await m
-      .getRepository(Revision)
-      .createQueryBuilder('r')
-      .setLock('pessimistic_write')
-      .where('r.package_id = :id AND r.number = :n', { id: pkg.id, n: pkg.currentRevision })
-      .getOneOrFail();
+    const revision = await lockCurrentRevision(m, pkg);
     if (revision.state !== 'draft') {
       throw new AppError(409, 'already_submitted', `Revision ${revision.number} was already submitted.`);
     }

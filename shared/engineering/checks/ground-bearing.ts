@@ -151,30 +151,23 @@ export function groundBearingCheck(ctx: Ctx, figures: LiftFigures, fixes?: Fix[]
   if (m.kind === 'outriggers') outriggers(ctx, m, figures, items, fixes);
   else crawler(ctx, m, items, figures, fixes);
   if (items.length === 1 && m.kind === 'outriggers')
-    items.push(
-      item(ctx, {
-        id: 'ground-bearing.pressure',
-        label: 'Ground bearing pressure',
-        status: 'not_applicable',
-        value: null,
-        unit: 'pressure',
-        source: SOURCES.input,
-        message: 'Enter the mat size to check the pressure under the outriggers.',
-      }),
-    );
+    items.push(pressureNotChecked(ctx, 'Enter the mat size to check the pressure under the outriggers.'));
   return check('ground-bearing', 'Support reactions and ground bearing', items, 'ground-bearing.pressure');
 }
 
+/** The pressure could not be checked: the reason names what to enter. */
+function pressureNotChecked(ctx: Ctx, message: string) {
+  return item(ctx, {
+    id: 'ground-bearing.pressure',
+    label: 'Ground bearing pressure',
+    status: 'not_applicable',
+    value: null,
+    unit: 'pressure',
+    source: SOURCES.input,
+    message,
+  });
+}
+
 function na(ctx: Ctx, message: string): CheckResult {
-  return check('ground-bearing', 'Support reactions and ground bearing', [
-    item(ctx, {
-      id: 'ground-bearing.pressure',
-      label: 'Ground bearing pressure',
-      status: 'not_applicable',
-      value: null,
-      unit: 'pressure',
-      source: SOURCES.input,
-      message,
-    }),
-  ]);
+  return check('ground-bearing', 'Support reactions and ground bearing', [pressureNotChecked(ctx, message)]);
 }

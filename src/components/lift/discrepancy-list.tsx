@@ -2,6 +2,7 @@
 import { formatPercent, formatQuantity } from '@shared/engineering/format';
 import type { Discrepancy, UnitSystem } from '@shared/engineering/types';
 import { sortDiscrepancies } from './result-order';
+import { DisagreeMark } from '@/components/ui/check-status-mark';
 
 /** The engine's message starts with the figure's name, already shown beside it. */
 export function withoutLabel(d: Discrepancy): string {
@@ -70,20 +71,7 @@ export function DiscrepancyTable({
             <td className="px-2 py-1.5">
               {d.status === 'discrepancy' ? (
                 <span className="flex flex-col items-start gap-0.5">
-                  <span className="inline-flex items-center gap-1 rounded-sm bg-caution-tint px-1.5 text-[12.5px] font-bold text-caution-ink">
-                    <svg
-                      className="size-3.5"
-                      viewBox="0 0 14 14"
-                      aria-hidden="true"
-                      fill="none"
-                      stroke="currentColor"
-                      strokeWidth="1.6"
-                    >
-                      <path d="M2 4 H12 M2 10 H12" />
-                      <path d="M9 1.5 L5 12.5" />
-                    </svg>
-                    Disagrees
-                  </span>
+                  <DisagreeMark />
                   {d.unsafeSide && (
                     <span className="text-[12px] font-bold text-fail-ink">▲ on the unsafe side</span>
                   )}

@@ -1,6 +1,12 @@
 // The outcome of one check (pass, caution, fail, not applicable) as word + shape + colour.
 import type { CheckStatus } from '@shared/schemas/packages';
-import { GLYPH_BOX, STATUS_GLYPHS, type GlyphTone } from '@shared/drawing/status-glyphs';
+import {
+  DISAGREE_GLYPH,
+  GLYPH_BOX,
+  STATUS_GLYPHS,
+  type GlyphPart,
+  type GlyphTone,
+} from '@shared/drawing/status-glyphs';
 import { CHECK_STATUS_LABELS } from '@shared/vocabulary/check-statuses';
 
 const STYLES: Record<CheckStatus, string> = {
@@ -11,6 +17,10 @@ const STYLES: Record<CheckStatus, string> = {
 };
 
 export function CheckShape({ status, className = 'size-3.5' }: { status: CheckStatus; className?: string }) {
+  return <GlyphSvg parts={STATUS_GLYPHS[status]} className={className} />;
+}
+
+function GlyphSvg({ parts, className }: { parts: GlyphPart[]; className: string }) {
   // The shape is computed in shared/drawing; ink and soft take the mark's colour, paper is white.
   const paint = (t: GlyphTone | undefined) =>
     t === undefined ? 'none' : t === 'paper' ? '#fff' : 'currentColor';
@@ -23,7 +33,7 @@ export function CheckShape({ status, className = 'size-3.5' }: { status: CheckSt
       strokeLinecap="round"
       strokeLinejoin="round"
     >
-      {STATUS_GLYPHS[status].map((part, i) =>
+      {parts.map((part, i) =>
         part.kind === 'circle' ? (
           <circle
             key={i}
@@ -56,6 +66,18 @@ export function CheckStatusMark({ status, className = '' }: { status: CheckStatu
     >
       <CheckShape status={status} />
       {CHECK_STATUS_LABELS[status]}
+    </span>
+  );
+}
+
+/** A stated figure the recomputation disagrees with (beside its percentages and tolerance). */
+export function DisagreeMark({ className = '' }: { className?: string }) {
+  return (
+    <span
+      className={`inline-flex items-center gap-1 rounded-sm bg-caution-tint px-1.5 text-[12.5px] font-bold leading-5 text-caution-ink ${className}`}
+    >
+      <GlyphSvg parts={DISAGREE_GLYPH} className="size-3.5" />
+      Disagrees
     </span>
   );
 }

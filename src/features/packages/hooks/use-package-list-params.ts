@@ -6,7 +6,7 @@ import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { PACKAGE_STATUSES, type PackageStatus } from '@shared/schemas/common';
 import { PACKAGE_SORTS } from '@shared/schemas/packages';
-import type { PackageListFilters } from '@/lib/query-keys';
+import { NARROWING_FILTERS, type PackageListFilters } from '@/lib/query-keys';
 
 export type PackageSort = PackageListFilters['sort'];
 export const DEFAULT_SORT: PackageSort = 'plannedLiftDate';
@@ -94,19 +94,6 @@ export function usePackageListParams() {
 
   return { filters, update };
 }
-
-/** The filters that narrow the list (not the sort or the page): any of them on means "filtered". */
-export const NARROWING_FILTERS = [
-  'status',
-  'siteId',
-  'contractorId',
-  'engineerId',
-  'critical',
-  'discrepancies',
-  'liftWithinDays',
-  'revisionMin',
-  'q',
-] as const satisfies readonly (keyof PackageListFilters)[];
 
 export function isFiltered(filters: PackageListFilters): boolean {
   return NARROWING_FILTERS.some((key) => filters[key] !== undefined);

@@ -1,14 +1,4 @@
 // The URL parameters a saved view keeps: every filter and the sort, not the page.
-export const NARROWING_KEYS = [
-  'status',
-  'siteId',
-  'contractorId',
-  'engineerId',
-  'critical',
-  'discrepancies',
-  'liftWithinDays',
-  'revisionMin',
-  'q',
-  'sort',
-  'pageSize',
-] as const;
+import { NARROWING_FILTERS } from '@/lib/query-keys';
+
+export const NARROWING_KEYS = [...NARROWING_FILTERS, 'sort', 'pageSize'] as const;

@@ -5,7 +5,7 @@
 import { useState } from 'react';
 import { formatFormula, formatPercent, formatQuantity } from '@shared/engineering/format';
 import type { CheckResult, Discrepancy, LiftResult, UnitSystem } from '@shared/engineering/types';
-import { CheckStatusMark } from '@/components/ui/check-status-mark';
+import { CheckStatusMark, DisagreeMark } from '@/components/ui/check-status-mark';
 import { Button } from '@/components/ui/button';
 import { formatCheckLimit, formatCheckValue, SOURCE_KIND_LABELS } from '@/components/lift/result-format';
 import { sortChecks, sortDiscrepancies } from '@/components/lift/result-order';
@@ -22,25 +22,6 @@ const MIN_REASON = 5;
 function figureValue(si: number | null, d: Discrepancy, system: UnitSystem) {
   if (si === null) return '—';
   return d.unit === 'percent' ? formatPercent(si) : formatQuantity(si, d.unit, system);
-}
-
-function DisagreeMark() {
-  return (
-    <span className="inline-flex items-center gap-1 rounded-sm bg-caution-tint px-1.5 text-[12px] font-bold leading-5 text-caution-ink">
-      <svg
-        className="size-3.5"
-        viewBox="0 0 14 14"
-        aria-hidden="true"
-        fill="none"
-        stroke="currentColor"
-        strokeWidth="1.6"
-      >
-        <path d="M2 4 H12 M2 10 H12" />
-        <path d="M9 1.5 L5 12.5" />
-      </svg>
-      Disagrees
-    </span>
-  );
 }
 
 function AcceptedMark() {

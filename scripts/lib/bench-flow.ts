@@ -1,0 +1,82 @@
+// A package taken through the desk's API as the benchmarks need it: created, drafted with the
+// inputs, its lift plan uploaded, submitted, checked, assigned, optionally marked up, and
+// decided "accepted". Shared by bench:stamp (the real job) and bench:queues (the large return).
+import type supertest from 'supertest';
+import type { DataSource } from 'typeorm';
+
+type Agent = ReturnType<typeof supertest.agent>;
+
+export function must(res: supertest.Response, status: number, what: string): supertest.Response {
+  if (res.status !== status) throw new Error(`${what}: ${res.status} ${JSON.stringify(res.body)}`);
+  return res;
+}
+
+export interface DecidedPackageOptions {
+  contractor: Agent;
+  reviewer: Agent;
+  engineer: Agent;
+  siteId: string;
+  engineerId: string;
+  title: string;
+  inputs: unknown;
+  plan: Buffer;
+  planName: string;
+  /** the check run, in this process (the service's runCheckRun) */
+  runCheck: (ds: DataSource, revisionId: string) => Promise<unknown>;
+  ds: DataSource;
+  /** three markups (cloud, arrow, text) on page 1 before the decision */
+  markups?: boolean;
+}
+
+/** Returns the package's id; the caller issues the return. */
+export async function decidedPackage(o: DecidedPackageOptions): Promise<string> {
+  const created = must(
+    await o.contractor
+      .post('/api/packages')
+      .send({ title: o.title, siteId: o.siteId, plannedLiftDate: '2030-03-14' }),
+    201,
+    'create package',
+  );
+  const id = created.body.package.id as string;
+  must(await o.contractor.put(`/api/packages/${id}/draft`).send({ inputs: o.inputs }), 200, 'draft');
+  const up = must(
+    await o.contractor
+      .post(`/api/packages/${id}/files`)
+      .field('kind', 'lift_plan')
+      .attach('file', o.plan, o.planName),
+    201,
+    'upload',
+  );
+  const sub = must(await o.contractor.post(`/api/packages/${id}/submit`), 202, 'submit');
+  await o.runCheck(o.ds, sub.body.current.id);
+  must(
+    await o.reviewer.post('/api/assignments').send({ packageIds: [id], engineerId: o.engineerId }),
+    200,
+    'assign',
+  );
+  if (o.markups)
+    for (const [k, kind] of (['cloud', 'arrow', 'text'] as const).entries())
+      must(
+        await o.engineer.post(`/api/packages/${id}/markups`).send({
+          fileId: up.body.id,
+          pageNumber: 1,
+          kind,
+          geometry:
+            kind === 'arrow'
+              ? { x1: 80, y1: 200, x2: 200, y2: 260 }
+              : { x: 80 + k * 120, y: 300, width: 100, height: 60 },
+          ...(kind === 'text' ? { text: 'Check the mat size' } : {}),
+        }),
+        201,
+        'markup',
+      );
+  const version = (await o.engineer.get(`/api/packages/${id}`)).body.package.version;
+  must(
+    await o.engineer
+      .post(`/api/packages/${id}/decision`)
+      .send({ decision: 'accepted', conditions: '', baseVersion: version }),
+    200,
+    'decision',
+  );
+  return id;
+}
