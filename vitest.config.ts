@@ -4,14 +4,17 @@
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
-export default defineConfig({
-  resolve: {
-    alias: {
-      '@': fileURLToPath(new URL('./src', import.meta.url)),
-      '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
-      '@server': fileURLToPath(new URL('./server', import.meta.url)),
-    },
+/** The import aliases of every suite (the browser tests' configuration reads them too). */
+export const testResolve = {
+  alias: {
+    '@': fileURLToPath(new URL('./src', import.meta.url)),
+    '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+    '@server': fileURLToPath(new URL('./server', import.meta.url)),
   },
+};
+
+export default defineConfig({
+  resolve: testResolve,
   test: {
     include: ['tests/**/*.test.{ts,tsx}'],
     exclude: ['tests/e2e/**', 'node_modules/**'],

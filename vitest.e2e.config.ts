@@ -1,17 +1,11 @@
 // Browser tests (tests/e2e/**/*.e2e.ts): one app started the way the start command starts
 // it (its own PostgreSQL, Redis and fake SMTP in a temporary folder), driven by Debian's
 // Chromium through playwright-core. Files run one after another: the machine has two cores.
-import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
+import { testResolve } from './vitest.config';
 
 export default defineConfig({
-  resolve: {
-    alias: {
-      '@': fileURLToPath(new URL('./src', import.meta.url)),
-      '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
-      '@server': fileURLToPath(new URL('./server', import.meta.url)),
-    },
-  },
+  resolve: testResolve,
   test: {
     include: ['tests/e2e/**/*.e2e.ts'],
     pool: 'forks',

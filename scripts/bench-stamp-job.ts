@@ -8,13 +8,10 @@
 // storing the file and its sha-256. The stored sha-256 is then checked against the download.
 // Each file is issued twice (two packages); the second, warm, figure is the one reported.
 import 'reflect-metadata';
-import { createHash, randomBytes } from 'node:crypto';
-import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { createHash } from 'node:crypto';
+import { readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
-import { freePort, startPostgres, startRedis } from './lib/services';
-import { runMigrations } from './lib/migrate';
-import { decidedPackage, must } from './lib/bench-flow';
+import { benchServices, decidedPackage, must } from './lib/bench-flow';
 
 export interface JobFigure {
   file: string;
@@ -26,23 +23,8 @@ export interface JobFigure {
 }
 
 export async function benchThroughJob(files: string[]): Promise<{ figures: JobFigure[]; maxRssMb: number }> {
-  const dir = mkdtempSync(path.join(tmpdir(), 'cp-bench-job-'));
-  // PostgreSQL runs as its own user when this runs as root (scripts/lib/services.ts).
-  chmodSync(dir, 0o755);
-  const pg = await startPostgres(path.join(dir, 'pg'), await freePort(), 'counterpoise_bench');
-  const redis = await startRedis(path.join(dir, 'redis'), await freePort(), { persist: false });
-  Object.assign(process.env, {
-    NODE_ENV: 'test',
-    DATABASE_URL: pg.url,
-    REDIS_URL: redis.url,
-    JWT_SECRET: randomBytes(32).toString('hex'),
-    DATA_DIR: path.join(dir, 'data'),
-    UPLOAD_MAX_BYTES: String(300 * 1024 * 1024),
-    LOG_LEVEL: 'silent',
-  });
-  const stops: Array<() => Promise<void> | void> = [() => redis.stop(), () => pg.stop()];
+  const { dir, stops } = await benchServices('cp-bench-job-', { NODE_ENV: 'test' });
   try {
-    await runMigrations(pg.url);
     const { loadConfig } = await import('../server/config');
     const { connect } = await import('../server/bootstrap');
     const { createApp } = await import('../server/app');

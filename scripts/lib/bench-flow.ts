@@ -1,10 +1,46 @@
 // A package taken through the desk's API as the benchmarks need it: created, drafted with the
 // inputs, its lift plan uploaded, submitted, checked, assigned, optionally marked up, and
 // decided "accepted". Shared by bench:stamp (the real job) and bench:queues (the large return).
+import { randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import type supertest from 'supertest';
 import type { DataSource } from 'typeorm';
+import { runMigrations } from './migrate';
+import { freePort, startPostgres, startRedis } from './services';
 
 type Agent = ReturnType<typeof supertest.agent>;
+
+/**
+ * A throwaway PostgreSQL (migrated) and Redis in a new temporary folder, as the test command
+ * starts them, and the environment the desk's code reads (also set on this process, quiet).
+ * `stops` stops both servers, last started first.
+ */
+export async function benchServices(folder: string, extra: Record<string, string>) {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), folder));
+  // PostgreSQL runs as its own user when this runs as root (scripts/lib/services.ts).
+  fs.chmodSync(dir, 0o755);
+  const pg = await startPostgres(path.join(dir, 'pg'), await freePort(), 'counterpoise_bench');
+  const redis = await startRedis(path.join(dir, 'redis'), await freePort(), { persist: false });
+  const stops: Array<() => Promise<void> | void> = [() => redis.stop(), () => pg.stop()];
+  const env = {
+    DATABASE_URL: pg.url,
+    REDIS_URL: redis.url,
+    JWT_SECRET: randomBytes(32).toString('hex'),
+    DATA_DIR: path.join(dir, 'data'),
+    UPLOAD_MAX_BYTES: String(300 * 1024 * 1024),
+    ...extra,
+  };
+  Object.assign(process.env, env, { LOG_LEVEL: 'silent' });
+  try {
+    await runMigrations(pg.url);
+  } catch (e) {
+    for (const stop of stops) await Promise.resolve(stop()).catch(() => undefined);
+    throw e;
+  }
+  return { dir, env, stops };
+}
 
 export function must(res: supertest.Response, status: number, what: string): supertest.Response {
   if (res.status !== status) throw new Error(`${what}: ${res.status} ${JSON.stringify(res.body)}`);

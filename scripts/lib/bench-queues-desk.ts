@@ -5,16 +5,12 @@
 // built again, and real worker processes (`worker/index.ts` with WORKER_QUEUES) with their
 // logs in files, as the start command runs them.
 import 'reflect-metadata';
-import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
 import type { Job } from 'bullmq';
 import type { AppContext } from '../../server/context';
-import { decidedPackage, must } from './bench-flow';
-import { runMigrations } from './migrate';
+import { benchServices, decidedPackage, must } from './bench-flow';
 import { startProcess, stopChild, type Managed } from './processes';
-import { freePort, startPostgres, startRedis } from './services';
 
 export interface BenchDesk {
   dir: string;
@@ -47,23 +43,11 @@ async function waitForLine(file: string, text: string, ms: number, worker: Manag
 }
 
 export async function startBenchDesk(opts: { checks: number; largePdf: string }): Promise<BenchDesk> {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cp-bench-queues-'));
-  // PostgreSQL runs as its own user when this runs as root (scripts/lib/services.ts).
-  fs.chmodSync(dir, 0o755);
-  fs.mkdirSync(path.join(dir, 'logs'));
-  const pg = await startPostgres(path.join(dir, 'pg'), await freePort(), 'counterpoise_bench');
-  const redis = await startRedis(path.join(dir, 'redis'), await freePort(), { persist: false });
-  const env = {
+  const { dir, env, stops } = await benchServices('cp-bench-queues-', {
     NODE_ENV: 'production',
-    DATABASE_URL: pg.url,
-    REDIS_URL: redis.url,
-    JWT_SECRET: randomBytes(32).toString('hex'),
-    DATA_DIR: path.join(dir, 'data'),
     REDIS_PREFIX: 'bench',
-    UPLOAD_MAX_BYTES: String(300 * 1024 * 1024),
-  };
-  Object.assign(process.env, env, { LOG_LEVEL: 'silent' });
-  const stops: Array<() => Promise<void> | void> = [() => redis.stop(), () => pg.stop()];
+  });
+  fs.mkdirSync(path.join(dir, 'logs'));
   const workers = new Set<Managed>();
   const close = async () => {
     await Promise.all([...workers].map((w) => stopChild(w.child, 15_000)));
@@ -71,7 +55,6 @@ export async function startBenchDesk(opts: { checks: number; largePdf: string })
     fs.rmSync(dir, { recursive: true, force: true });
   };
   try {
-    await runMigrations(pg.url);
     const { loadConfig } = await import('../../server/config');
     const { connect } = await import('../../server/bootstrap');
     const { createApp } = await import('../../server/app');

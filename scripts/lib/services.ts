@@ -178,16 +178,8 @@ export interface PostgresHandle {
 
 /** The pid of the PostgreSQL running on dataDir, if one is. */
 export function postmasterPid(dataDir: string): number | null {
-  const pidFile = path.join(dataDir, 'postmaster.pid');
-  if (!fs.existsSync(pidFile)) return null;
-  const pid = Number(fs.readFileSync(pidFile, 'utf8').split('\n')[0]);
-  if (!pid) return null;
-  try {
-    process.kill(pid, 0);
-    return pid;
-  } catch {
-    return null;
-  }
+  // Its first line is the pid; the lines after it are PostgreSQL's own.
+  return readPid(path.join(dataDir, 'postmaster.pid'));
 }
 
 /** Starts (initialising when new) a PostgreSQL cluster in dataDir on 127.0.0.1:port. */
@@ -343,10 +335,10 @@ export async function startRedis(
   };
 }
 
-/** The live pid in a pid file, if any. */
+/** The live pid on the first line of a pid file, if any. */
 export function readPid(pidFile: string): number | null {
   if (!fs.existsSync(pidFile)) return null;
-  const pid = Number(fs.readFileSync(pidFile, 'utf8').trim());
+  const pid = Number(fs.readFileSync(pidFile, 'utf8').split('\n')[0].trim());
   if (!pid) return null;
   try {
     process.kill(pid, 0);

@@ -48,6 +48,13 @@ const SlingSetBase = z.object({
     .max(4, { error: 'rigging.slings.legs must list 1 to 4 legs' }),
 });
 
+/** Each leg's pick point from the centre of gravity, where the shares depend on it. */
+function requirePickPoints(legs: { pickPoint?: unknown }[], ctx: z.RefinementCtx, message: string) {
+  legs.forEach((l, i) => {
+    if (!l.pickPoint) ctx.addIssue({ code: 'custom', path: ['legs', i, 'pickPoint'], message });
+  });
+}
+
 export const SlingSet = SlingSetBase.superRefine((s, ctx) => {
   if (s.legs.length < 3) {
     s.legs.forEach((l, i) => {
@@ -67,15 +74,11 @@ export const SlingSet = SlingSetBase.superRefine((s, ctx) => {
       path: ['hookHeight'],
       message: 'rigging.slings.hookHeight: give the hook height above the pick points for 3 or 4 legs',
     });
-  s.legs.forEach((l, i) => {
-    if (!l.pickPoint)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['legs', i, 'pickPoint'],
-        message:
-          'rigging.slings.legs[].pickPoint: give each leg of a 3- or 4-leg bridle its pick point from the centre of gravity',
-      });
-  });
+  requirePickPoints(
+    s.legs,
+    ctx,
+    'rigging.slings.legs[].pickPoint: give each leg of a 3- or 4-leg bridle its pick point from the centre of gravity',
+  );
 });
 
 export const Hardware = z.object({
@@ -97,15 +100,11 @@ export const BeamDrops = SlingSetBase.omit({ hookHeight: true, equalised: true }
   })
   .superRefine((s, ctx) => {
     if (s.legs.length === 2)
-      s.legs.forEach((l, i) => {
-        if (!l.pickPoint)
-          ctx.addIssue({
-            code: 'custom',
-            path: ['legs', i, 'pickPoint'],
-            message:
-              'rigging.beam.slingsBelow.legs[].pickPoint: give each of two drops its pick point from the centre of gravity',
-          });
-      });
+      requirePickPoints(
+        s.legs,
+        ctx,
+        'rigging.beam.slingsBelow.legs[].pickPoint: give each of two drops its pick point from the centre of gravity',
+      );
   });
 
 /** A spreader or lifting beam between the slings above (rigging.slings) and the drops to the load. */

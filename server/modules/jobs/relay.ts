@@ -27,26 +27,38 @@ const REDIS_MS = 2000;
 
 /** Intents for records that wait for a job but have none. */
 export async function adoptOrphans(ds: DataSource): Promise<number> {
-  const statements = [
-    `INSERT INTO job_intents (queue, job_id, subject_id, payload)
-     SELECT 'check-run', 'check-' || r.id, r.id, jsonb_build_object('revisionId', r.id)
-     FROM revisions r
-     WHERE r.state = 'submitted' AND r.check_status IN ('queued', 'running')
-       AND NOT EXISTS (SELECT 1 FROM job_intents i WHERE i.queue = 'check-run' AND i.subject_id = r.id)
-     ON CONFLICT (job_id) DO NOTHING RETURNING id`,
-    `INSERT INTO job_intents (queue, job_id, subject_id, payload)
-     SELECT 'stamp-return', 'stamp-' || s.decision_id, s.id, jsonb_build_object('returnId', s.id)
-     FROM stamped_returns s
-     WHERE s.state = 'pending'
-       AND NOT EXISTS (SELECT 1 FROM job_intents i WHERE i.queue = 'stamp-return' AND i.subject_id = s.id)
-     ON CONFLICT (job_id) DO NOTHING RETURNING id`,
-    `INSERT INTO job_intents (queue, job_id, subject_id, payload)
-     SELECT 'mail', 'mail-' || m.id, m.id, jsonb_build_object('messageId', m.id)
-     FROM mail_messages m
-     WHERE m.status = 'queued'
-       AND NOT EXISTS (SELECT 1 FROM job_intents i WHERE i.queue = 'mail' AND i.subject_id = m.id)
-     ON CONFLICT (job_id) DO NOTHING RETURNING id`,
+  // Each queue: its job id prefix, the records waiting for a job and the payload's key.
+  const waiting = [
+    {
+      queue: 'check-run',
+      jobId: `'check-' || t.id`,
+      from: 'revisions',
+      when: `t.state = 'submitted' AND t.check_status IN ('queued', 'running')`,
+      key: 'revisionId',
+    },
+    {
+      queue: 'stamp-return',
+      jobId: `'stamp-' || t.decision_id`,
+      from: 'stamped_returns',
+      when: `t.state = 'pending'`,
+      key: 'returnId',
+    },
+    {
+      queue: 'mail',
+      jobId: `'mail-' || t.id`,
+      from: 'mail_messages',
+      when: `t.status = 'queued'`,
+      key: 'messageId',
+    },
   ];
+  const statements = waiting.map(
+    (w) => `INSERT INTO job_intents (queue, job_id, subject_id, payload)
+     SELECT '${w.queue}', ${w.jobId}, t.id, jsonb_build_object('${w.key}', t.id)
+     FROM ${w.from} t
+     WHERE ${w.when}
+       AND NOT EXISTS (SELECT 1 FROM job_intents i WHERE i.queue = '${w.queue}' AND i.subject_id = t.id)
+     ON CONFLICT (job_id) DO NOTHING RETURNING id`,
+  );
   let adopted = 0;
   for (const sql of statements) adopted += ((await ds.query(sql)) as unknown[]).length;
   return adopted;

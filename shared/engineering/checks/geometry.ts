@@ -32,19 +32,20 @@ export function computeGeometry(
   const pivotOffset = siOr(c.pivotOffset, 0);
   const pivotHeight = siOr(c.pivotHeight, 0);
   const radiusEntered = si(c.radius) ?? null;
+  // Without the frame or the boom length only the entered radius is known.
+  const unknownBoom = {
+    radius: radiusEntered,
+    boomAngleDeg: null,
+    tipHeight: null,
+    boomLength: null,
+    pivotOffset,
+    pivotHeight,
+    unreachable: false,
+    radiusFromAngle: null,
+    radiusEntered,
+  };
   if (c.type === 'gantry_a_frame') {
-    if (!c.gantry)
-      return {
-        radius: radiusEntered,
-        boomAngleDeg: null,
-        tipHeight: null,
-        boomLength: null,
-        pivotOffset,
-        pivotHeight,
-        unreachable: false,
-        radiusFromAngle: null,
-        radiusEntered,
-      };
+    if (!c.gantry) return unknownBoom;
     const g = gantryFrame(input);
     return {
       radius: Math.max(g.outreach, radiusEntered ?? 0),
@@ -59,18 +60,7 @@ export function computeGeometry(
     };
   }
   const L = si(c.boomLength);
-  if (L === undefined)
-    return {
-      radius: radiusEntered,
-      boomAngleDeg: null,
-      tipHeight: null,
-      boomLength: null,
-      pivotOffset,
-      pivotHeight,
-      unreachable: false,
-      radiusFromAngle: null,
-      radiusEntered,
-    };
+  if (L === undefined) return unknownBoom;
   const radiusFromAngle = c.boomAngle ? pivotOffset + L * Math.cos(c.boomAngle.value * DEG) : null;
   let radius: number;
   let angleDeg: number;

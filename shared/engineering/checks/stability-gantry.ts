@@ -109,39 +109,47 @@ export function gantryStabilityItems(
       message: 'Moment balance about the feet of the legs; the ballast at the backstay anchor resists.',
     }),
   );
-  const tieLimit = si(g.backstayRatedLoad);
-  items.push(
+  // A member's force against its rating when one is entered; statics only otherwise.
+  const rated = (
+    id: string,
+    label: string,
+    value: number,
+    limit: number | undefined,
+    formula: ReturnType<typeof f>,
+    against: string,
+    none: string,
+  ) =>
     item(ctx, {
-      id: 'stability.backstay',
-      label: 'Backstay tension',
-      status: tieLimit !== undefined ? statusMax(gs.backstayTension, tieLimit, policy) : 'pass',
-      value: gs.backstayTension,
-      limit: tieLimit ?? null,
-      limitType: tieLimit !== undefined ? 'max' : null,
+      id,
+      label,
+      status: limit !== undefined ? statusMax(value, limit, policy) : 'pass',
+      value,
+      limit: limit ?? null,
+      limitType: limit !== undefined ? 'max' : null,
       unit: 'force',
-      formula: f`apex equilibrium, backstay at ${term(gs.backstayAngleDeg, 'angle')}: T = ${term(gs.backstayTension, 'force')}`,
-      source: tieLimit !== undefined ? SOURCES.input : SOURCES.statics,
-      message:
-        tieLimit !== undefined ? 'Backstay tension against its rated load.' : 'No backstay rating entered.',
-    }),
-  );
-  const legLimit = si(g.legRatedCompression);
+      formula,
+      source: limit !== undefined ? SOURCES.input : SOURCES.statics,
+      message: limit !== undefined ? against : none,
+    });
   items.push(
-    item(ctx, {
-      id: 'stability.leg-compression',
-      label: 'Leg compression (each)',
-      status: legLimit !== undefined ? statusMax(gs.legCompression, legLimit, policy) : 'pass',
-      value: gs.legCompression,
-      limit: legLimit ?? null,
-      limitType: legLimit !== undefined ? 'max' : null,
-      unit: 'force',
-      formula: f`frame compression ${term(gs.frameCompression, 'force')} ÷ 2 legs ÷ cos(leg splay) = ${term(
-        gs.legCompression,
-        'force',
-      )}`,
-      source: legLimit !== undefined ? SOURCES.input : SOURCES.statics,
-      message: legLimit !== undefined ? 'Leg compression against its rating.' : 'No leg rating entered.',
-    }),
+    rated(
+      'stability.backstay',
+      'Backstay tension',
+      gs.backstayTension,
+      si(g.backstayRatedLoad),
+      f`apex equilibrium, backstay at ${term(gs.backstayAngleDeg, 'angle')}: T = ${term(gs.backstayTension, 'force')}`,
+      'Backstay tension against its rated load.',
+      'No backstay rating entered.',
+    ),
+    rated(
+      'stability.leg-compression',
+      'Leg compression (each)',
+      gs.legCompression,
+      si(g.legRatedCompression),
+      f`frame compression ${term(gs.frameCompression, 'force')} ÷ 2 legs ÷ cos(leg splay) = ${term(gs.legCompression, 'force')}`,
+      'Leg compression against its rating.',
+      'No leg rating entered.',
+    ),
   );
   if (fallsShort(gs.ratio, minR) && g.ballastWeight) {
     const d = si(g.backstayAnchorDistance)!;
