@@ -93,6 +93,32 @@ export const AcceptInviteBody = z.object({
 });
 
 /** A site's policy overrides: any subset of the engine's policy; an absent key takes the default. */
+/** GET/PUT /api/admin/sites/:id/policy: the overrides, the effective values, defaults with sources, the history. */
+const PolicyValues = z.record(z.string(), z.unknown());
+
+export const PolicyDefault = z.object({
+  value: z.unknown(),
+  label: z.string(),
+  source: z.object({ kind: z.string(), text: z.string() }),
+});
+
+const PolicyActor = z.union([z.string(), z.object({ name: z.string() }).loose(), z.null()]);
+
+export const PolicyResponse = z.object({
+  policyVersion: z.number().int(),
+  overrides: PolicyValues,
+  effective: PolicyValues,
+  defaults: z.record(z.string(), PolicyDefault),
+  history: z.array(
+    z.object({
+      at: z.string(),
+      actor: PolicyActor.optional(),
+      before: PolicyValues.nullable().optional(),
+      after: PolicyValues.nullable().optional(),
+    }),
+  ),
+});
+export type PolicyResponse = z.infer<typeof PolicyResponse>;
 export const PolicyOverridesBody = z.object({ overrides: z.record(z.string(), z.unknown()) });
 
 export const ProfilePatch = z.object({

@@ -10,6 +10,7 @@ import {
   OrganisationPatch,
   InvitedPerson,
   Person,
+  PolicyResponse,
   PersonPatch,
   PolicyOverridesBody,
   SiteBody,
@@ -85,6 +86,7 @@ describeRoute({
   summary: 'The site review policy: overrides, effective values, defaults with sources, history',
   tags: ['admin'],
   params: IdParams,
+  response: PolicyResponse,
 });
 describeRoute({
   method: 'put',
@@ -93,6 +95,7 @@ describeRoute({
   tags: ['admin'],
   params: IdParams,
   body: PolicyOverridesBody,
+  response: PolicyResponse,
 });
 describeRoute({
   method: 'get',

@@ -2,35 +2,11 @@
 // has, the policy the engine will use, the defaults with their sources, and who changed
 // what. A PUT replaces the whole set of overrides; a key left out takes its default.
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
+import { PolicyResponse } from '@shared/schemas/admin';
 import { api } from '@/lib/api-client';
 import { adminKeys } from '@/lib/query-keys';
 
-const Overrides = z.record(z.string(), z.unknown());
-
-export const PolicyDefault = z.object({
-  value: z.unknown(),
-  label: z.string(),
-  source: z.object({ kind: z.string(), text: z.string() }),
-});
-
-const Actor = z.union([z.string(), z.object({ name: z.string() }).loose(), z.null()]);
-
-export const PolicyResponse = z.object({
-  policyVersion: z.number().int(),
-  overrides: Overrides,
-  effective: Overrides,
-  defaults: z.record(z.string(), PolicyDefault),
-  history: z.array(
-    z.object({
-      at: z.string(),
-      actor: Actor.optional(),
-      before: Overrides.nullable().optional(),
-      after: Overrides.nullable().optional(),
-    }),
-  ),
-});
-export type PolicyResponse = z.infer<typeof PolicyResponse>;
+export type { PolicyResponse };
 export type PolicyOverrides = Record<string, unknown>;
 
 export function getSitePolicy(siteId: string, signal?: AbortSignal) {
