@@ -1,11 +1,11 @@
 // Display of engine values: an SI value and its unit kind become a string in the user's unit
 // system, to three significant figures. The client, the CLI and the PDF calculation sheet all use
 // this so a number reads the same everywhere. Rounding happens here only, never in the engine.
-import { STANDARD_GRAVITY } from './units';
+import { STANDARD_GRAVITY, TO_SI } from './units';
 import type { FormulaPart, UnitKind, UnitSystem } from './types';
 
-const LBF = 0.45359237 * STANDARD_GRAVITY;
-const FT = 0.3048;
+const LBF = TO_SI.lb;
+const FT = TO_SI.ft;
 
 function group(intPart: string): string {
   if (intPart.length <= 3) return intPart;

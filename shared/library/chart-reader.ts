@@ -8,6 +8,7 @@ import { LENGTH_UNITS, TO_SI, WEIGHT_UNITS, type LengthUnit, type WeightUnit } f
 import { same } from '../engineering/chart';
 import { cellRef, isLength, isWeight, readNumber, readUnitsHeader, type RawCell } from './chart-cells';
 import { gridToTable, sortGrid, type ChartGrid, type ChartUnits } from './chart-grid';
+import { limitFigure } from '../vocabulary/units';
 
 /** Most rated cells a chart may hold: the lift input takes at most 2000 chart rows. */
 export const MAX_RATED_CELLS = 2000;
@@ -229,7 +230,7 @@ export function readChartGrid(table: readonly (readonly RawCell[])[]): ChartPrev
           mark(
             p,
             'error',
-            `capacity ${r.value} ${u} is beyond ${(MAX_CAPACITY_SI / TO_SI[u as keyof typeof TO_SI]).toLocaleString('en-US', { maximumFractionDigits: 0 })} ${u}: check the figure and the unit`,
+            `capacity ${r.value} ${u} is beyond ${limitFigure(MAX_CAPACITY_SI / TO_SI[u as keyof typeof TO_SI])} ${u}: check the figure and the unit`,
           );
       } else {
         const min = k === 'boom' ? 'greater than 0' : '0 or more';
@@ -238,7 +239,7 @@ export function readChartGrid(table: readonly (readonly RawCell[])[]): ChartPrev
           mark(
             p,
             'error',
-            `${label} ${r.value} ${u} is beyond ${(MAX_LENGTH_SI / TO_SI[u as keyof typeof TO_SI]).toLocaleString('en-US', { maximumFractionDigits: 0 })} ${u}: check the figure and the unit`,
+            `${label} ${r.value} ${u} is beyond ${limitFigure(MAX_LENGTH_SI / TO_SI[u as keyof typeof TO_SI])} ${u}: check the figure and the unit`,
           );
         else if (i === 0) across.push({ col: j, value: r.value });
         else down.push({ row: i, value: r.value });

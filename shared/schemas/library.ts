@@ -5,6 +5,7 @@ import { z } from 'zod';
 import { CRANE_TYPES, Gantry } from './lift-input';
 import { LENGTH_UNITS, TO_SI, WEIGHT_UNITS } from '../engineering/units';
 import { checkGrid } from '../library/chart-reader';
+import { limitFigure } from '../vocabulary/units';
 
 const text = (label: string, max: number) =>
   z
@@ -40,7 +41,7 @@ function q<const U extends readonly [string, ...string[]]>(
         ctx.addIssue({
           code: 'custom',
           path: ['value'],
-          message: `${label} must be ${(opts.maxSI / TO_SI[x.unit as keyof typeof TO_SI]).toLocaleString('en-US', { maximumFractionDigits: 0 })} ${x.unit} or less`,
+          message: `${label} must be ${limitFigure(opts.maxSI / TO_SI[x.unit as keyof typeof TO_SI])} ${x.unit} or less`,
         });
     });
 }

@@ -13,6 +13,7 @@ import {
   WEIGHT_UNITS,
   TO_SI,
 } from '../engineering/units';
+import { limitFigure } from '../vocabulary/units';
 
 const finite = (label: string) =>
   z.number({
@@ -71,7 +72,7 @@ const KIND_OF_UNITS = new Map<readonly string[], keyof typeof QUANTITY_MAX_SI>([
   [MOMENT_UNITS, 'moment'],
 ]);
 
-const limitText = (x: number) => x.toLocaleString('en-US', { maximumFractionDigits: x >= 100 ? 0 : 3 });
+const limitText = limitFigure;
 
 export function quantity<const U extends readonly [string, ...string[]]>(
   units: U,

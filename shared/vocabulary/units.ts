@@ -79,3 +79,8 @@ const DEFAULTS: Record<UnitSystem, Record<QuantityKind, string>> = {
 export function defaultUnit(kind: QuantityKind, system: UnitSystem): string {
   return DEFAULTS[system][kind];
 }
+
+/** A bound in a message ("must be 2,000 t or less"): whole above 100, else up to 3 decimals. */
+export function limitFigure(x: number): string {
+  return x.toLocaleString('en-US', { maximumFractionDigits: x >= 100 ? 0 : 3 });
+}

@@ -1,12 +1,16 @@
 /* eslint-disable @typescript-eslint/no-explicit-any -- the demo inputs are plain JSON read from the example files */
 // What a demo lift plan PDF says, read from the example input: the sections of figures and
 // the sketch's few numbers (drawPlanPdf draws them).
+import { si, type Quantity } from '@shared/engineering/units';
+import { quantityAsEntered } from '@shared/vocabulary/units';
+import { STATED_FIGURE_LABELS } from '@shared/vocabulary/stated-figures';
+import { SOIL_LABELS } from '@shared/vocabulary/soil-classes';
 import type { PlanSection } from './plan-pdf';
 
 function q(v: unknown): string {
   if (v && typeof v === 'object' && 'value' in v && 'unit' in v) {
     const { value, unit } = v as { value: number; unit: string };
-    return `${value} ${unit.replace('m2', 'm²').replace('ft2', 'ft²').replace('deg', '°')}`;
+    return quantityAsEntered(value, unit);
   }
   return String(v);
 }
@@ -60,14 +64,20 @@ export function planSections(input: Record<string, any>): PlanSection[] {
           ? ([['Allowable bearing', q(input.ground.allowableBearing)]] as [string, string][])
           : []),
         ...(input.ground.soilClass
-          ? ([['Soil class', String(input.ground.soilClass).replace(/_/g, ' ')]] as [string, string][])
+          ? ([
+              [
+                'Soil class',
+                SOIL_LABELS[input.ground.soilClass as keyof typeof SOIL_LABELS] ??
+                  String(input.ground.soilClass),
+              ],
+            ] as [string, string][])
           : []),
       ],
     });
   }
   const stated = input.stated ?? {};
   const statedRows = Object.entries(stated).map(
-    ([k, v]) => [k.replace(/([A-Z])/g, ' $1').toLowerCase(), q(v)] as [string, string],
+    ([k, v]) => [STATED_FIGURE_LABELS[k as keyof typeof STATED_FIGURE_LABELS] ?? k, q(v)] as [string, string],
   );
   if (statedRows.length) sections.push({ heading: 'Figures stated in this plan', rows: statedRows });
   sections.push({
@@ -84,16 +94,7 @@ export function planSections(input: Record<string, any>): PlanSection[] {
 
 export function sketchOf(input: Record<string, any>) {
   const c = input.crane ?? {};
-  const toM = (x: { value: number; unit: string } | undefined) =>
-    x
-      ? x.unit === 'ft'
-        ? x.value * 0.3048
-        : x.unit === 'in'
-          ? x.value * 0.0254
-          : x.unit === 'mm'
-            ? x.value / 1000
-            : x.value
-      : undefined;
+  const toM = (x: Quantity | undefined) => si(x);
   const boom = toM(c.boomLength);
   const radius = toM(c.radius);
   if (!boom || !radius) return undefined;

@@ -1,15 +1,11 @@
 // The package's history: each revision with its state and check, and the events (created,
 // saved, submitted, checked, assigned, decided…) in time order, newest first.
+import { DECISION_LABELS } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
 import { auditActionWords } from '@shared/rules/audit-actions';
 import { formatDateTime } from '@/lib/format';
 
-const DECISION_WORDS: Record<string, string> = {
-  accepted: 'Accepted',
-  accepted_as_noted: 'Accepted as noted',
-  revise_and_resubmit: 'Revise and resubmit',
-  rejected: 'Rejected',
-};
+const DECISION_WORDS: Record<string, string> = DECISION_LABELS;
 
 const SEVERITY_WORDS: Record<string, string> = {
   note: 'note',
