@@ -14,11 +14,9 @@ import {
 import { Role } from '@shared/schemas/common';
 import { appUrl } from '../../config';
 import type { AppContext } from '../../context';
-import { AppError } from '../../lib/app-error';
 import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
-import { handOff, mailIntent, nextRound, recordIntent } from '../jobs/intents';
-import { MailMessage } from '../mail/mail.entity';
+import { listCaught, listOutbox, retryMail } from '../mail/outbox';
 import {
   createOrganisation,
   createSite,
@@ -43,14 +41,6 @@ export const MailQuery = z.object({
   page: z.coerce.number().int().min(1).max(10_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200, 'pageSize must be at most 200').default(50),
 });
-
-/**
- * An invitation link works once, for the person invited: the admin reading caught mail sees
- * that a link was sent, not the link itself.
- */
-export function hideInviteLinks(text: string): string {
-  return text.replace(/\/invite\/[A-Za-z0-9_-]+/g, '/invite/[link sent to the recipient]');
-}
 
 export function adminRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -136,90 +126,14 @@ export function adminRoutes(ctx: AppContext): Router {
   // The outbox: what the desk sent, queued or failed (with the error), and for the embedded
   // set-up what the local fake SMTP server received. Mail of the admin's desk only.
   router.get('/admin/mail', validate({ query: MailQuery }), async (req, res) => {
-    const q = valid(req, 'query', MailQuery);
-    const org = currentActor(req).organisationId;
-    const qb = ds
-      .getRepository(MailMessage)
-      .createQueryBuilder('mm')
-      .leftJoin('users', 'u', 'u.id = mm.recipient_id')
-      .leftJoin('organisations', 'o', 'o.id = u.organisation_id')
-      .where('(u.organisation_id = :org OR o.desk_owner_id = :org)', { org })
-      .orderBy('mm.created_at', 'DESC')
-      .skip((q.page - 1) * q.pageSize)
-      .take(q.pageSize);
-    if (q.status) qb.andWhere('mm.status = :status', { status: q.status });
-    const [rows, total] = await qb.getManyAndCount();
-    res.json({
-      total,
-      items: rows.map((m) => ({
-        id: m.id,
-        event: m.event,
-        to: m.toAddress,
-        subject: m.subject,
-        status: m.status,
-        attempts: m.attempts,
-        lastError: m.lastError,
-        packageId: m.packageId,
-        createdAt: m.createdAt.toISOString(),
-        sentAt: m.sentAt?.toISOString() ?? null,
-      })),
-    });
+    res.json(await listOutbox(ds, currentActor(req), valid(req, 'query', MailQuery)));
   });
-
   router.get('/admin/mail/caught', async (req, res) => {
-    const org = currentActor(req).organisationId;
-    const rows: Array<{
-      id: string;
-      envelope_from: string;
-      envelope_to: string[];
-      subject: string;
-      text_body: string;
-      html_body: string | null;
-      received_at: Date;
-    }> = await ds.query(
-      `SELECT c.* FROM caught_mail c
-         WHERE EXISTS (SELECT 1 FROM users u JOIN organisations o ON o.id = u.organisation_id
-                       WHERE lower(u.email) = ANY (SELECT lower(x) FROM unnest(c.envelope_to) x)
-                         AND (u.organisation_id = $1 OR o.desk_owner_id = $1))
-         ORDER BY c.received_at DESC LIMIT 200`,
-      [org],
-    );
-    res.json({
-      items: rows.map((r) => ({
-        id: r.id,
-        from: r.envelope_from,
-        to: r.envelope_to,
-        subject: r.subject,
-        text: hideInviteLinks(r.text_body),
-        html: r.html_body === null ? null : hideInviteLinks(r.html_body),
-        receivedAt: new Date(r.received_at).toISOString(),
-      })),
-    });
+    res.json(await listCaught(ds, currentActor(req)));
   });
-
   router.post('/admin/mail/:id/retry', validate({ params: IdParams }), async (req, res) => {
     const { id } = valid(req, 'params', IdParams);
-    // The same desk filter as the outbox: another desk's message is a plain 404.
-    const org = currentActor(req).organisationId;
-    const msg = await ds
-      .getRepository(MailMessage)
-      .createQueryBuilder('mm')
-      .leftJoin('users', 'u', 'u.id = mm.recipient_id')
-      .leftJoin('organisations', 'o', 'o.id = u.organisation_id')
-      .where('mm.id = :id AND mm.status = :status', { id, status: 'failed' })
-      .andWhere('(u.organisation_id = :org OR o.desk_owner_id = :org)', { org })
-      .getOne();
-    if (!msg) throw AppError.notFound('failed message');
-    // Through the job hand-off: the intent is written with the status, a new round gets a job id
-    // of its own (the failed job keeps the old one), and a dead Redis leaves it to the relay.
-    const intent = await ds.transaction(async (m) => {
-      await m.getRepository(MailMessage).update(id, { status: 'queued' });
-      const next = mailIntent(id, await nextRound(m, 'mail', id));
-      await recordIntent(m, next);
-      return next;
-    });
-    await handOff(ctx.queues, [intent]);
-    res.status(202).json({ id, status: 'queued' });
+    res.status(202).json(await retryMail(ds, ctx.queues, currentActor(req), id));
   });
 
   return router;
