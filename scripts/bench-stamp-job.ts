@@ -11,7 +11,7 @@ import 'reflect-metadata';
 import { createHash } from 'node:crypto';
 import { readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
-import { benchServices, decidedPackage, must } from './lib/bench-flow';
+import { benchPeople, benchServices, decidedPackage, must } from './lib/bench-flow';
 
 export interface JobFigure {
   file: string;
@@ -48,22 +48,15 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
     });
     const inputs = JSON.parse(readFileSync('shared/engineering/examples/pass-outriggers.json', 'utf8'));
     const w = await makeWorld(ctx.dataSource);
-    const [contractor, reviewer, engineer] = await Promise.all([
-      signedIn(app, w.plannerA.email),
-      signedIn(app, w.reviewer.email),
-      signedIn(app, w.engineer.email),
-    ]);
+    const people = await benchPeople((email) => signedIn(app, email), w);
+    const { reviewer } = people;
     const figures: JobFigure[] = [];
     for (const file of files) {
       const bytes = readFileSync(file);
       const figure: JobFigure = { file, seconds: [], queuedSeconds: [], runSeconds: [], pages: 0 };
       for (let round = 0; round < 2; round++) {
         const id = await decidedPackage({
-          contractor,
-          reviewer,
-          engineer,
-          siteId: w.site.id,
-          engineerId: w.engineer.id,
+          ...people,
           title: `Bench ${path.basename(file)} ${round}`,
           inputs,
           plan: bytes,

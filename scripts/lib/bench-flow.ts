@@ -47,12 +47,33 @@ export function must(res: supertest.Response, status: number, what: string): sup
   return res;
 }
 
-export interface DecidedPackageOptions {
+/** The three people the benchmarks act as, signed in, with the site and engineer they use. */
+export interface BenchPeople {
   contractor: Agent;
   reviewer: Agent;
   engineer: Agent;
   siteId: string;
   engineerId: string;
+}
+
+type World = {
+  site: { id: string };
+  plannerA: { email: string };
+  reviewer: { email: string };
+  engineer: { id: string; email: string };
+};
+
+export async function benchPeople(
+  signedIn: (email: string) => Promise<Agent>,
+  w: World,
+): Promise<BenchPeople> {
+  const [contractor, reviewer, engineer] = await Promise.all(
+    [w.plannerA, w.reviewer, w.engineer].map((u) => signedIn(u.email)),
+  );
+  return { contractor, reviewer, engineer, siteId: w.site.id, engineerId: w.engineer.id };
+}
+
+export interface DecidedPackageOptions extends BenchPeople {
   title: string;
   inputs: unknown;
   plan: Buffer;

@@ -9,7 +9,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Job } from 'bullmq';
 import type { AppContext } from '../../server/context';
-import { benchServices, decidedPackage, must } from './bench-flow';
+import { benchPeople, benchServices, decidedPackage, must } from './bench-flow';
 import { startProcess, stopChild, type Managed } from './processes';
 
 export interface BenchDesk {
@@ -98,15 +98,10 @@ export async function startBenchDesk(opts: { checks: number; largePdf: string })
 
     // The large return: draft, upload, submit, check, assign, decide, issue, through the API.
     const app = createApp(ctx, { clientDir: '/nonexistent' });
-    const [contractor, reviewer, engineer] = await Promise.all(
-      [w.plannerA, w.reviewer, w.engineer].map((u) => signedIn(app, u.email)),
-    );
+    const people = await benchPeople((email) => signedIn(app, email), w);
+    const { reviewer } = people;
     const id = await decidedPackage({
-      contractor,
-      reviewer,
-      engineer,
-      siteId: w.site.id,
-      engineerId: w.engineer.id,
+      ...people,
       title: 'Bench large return',
       inputs,
       plan: fs.readFileSync(opts.largePdf),
