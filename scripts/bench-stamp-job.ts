@@ -52,7 +52,7 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
     const { startTask } = await import('../worker/tasks/task');
     const { signerFor } = await import('../server/lib/pdf-tools/signer');
     const { makeWorld } = await import('../tests/support/factories');
-    const { signedIn } = await import('../tests/support/app');
+    const { signedIn, TEST_PASSWORD } = await import('../tests/support/app');
     const config = loadConfig();
     const ctx = await connect(config);
     stops.unshift(async () => ctx.close?.());
@@ -125,7 +125,7 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
         must(
           await engineer
             .post(`/api/packages/${id}/decision`)
-            .send({ decision: 'accepted', conditions: '', baseVersion: version }),
+            .send({ decision: 'accepted', conditions: '', baseVersion: version, password: TEST_PASSWORD }),
           200,
           'decision',
         );

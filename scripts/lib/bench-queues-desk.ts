@@ -81,7 +81,7 @@ export async function startBenchDesk(opts: { checks: number; largePdf: string })
       await import('../../server/modules/jobs/intents');
     const { runCheckRun } = await import('../../server/modules/check-runs/service');
     const { makePackage, makeWorld } = await import('../../tests/support/factories');
-    const { signedIn } = await import('../../tests/support/app');
+    const { signedIn, TEST_PASSWORD } = await import('../../tests/support/app');
     const config = loadConfig();
     // The desk's own signing certificate is made here once, not by two worker processes at once.
     await signerFor(config);
@@ -150,7 +150,7 @@ export async function startBenchDesk(opts: { checks: number; largePdf: string })
     must(
       await engineer
         .post(`/api/packages/${id}/decision`)
-        .send({ decision: 'accepted', conditions: '', baseVersion: version }),
+        .send({ decision: 'accepted', conditions: '', baseVersion: version, password: TEST_PASSWORD }),
       200,
       'decision',
     );

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '@server/config';
 import { buildReturn } from '@server/modules/returns/service';
 import { DECISION_LABELS, type Decision } from '@shared/schemas/common';
-import { startTestApp, type TestApp } from '../support/app';
+import { startTestApp, TEST_PASSWORD, type TestApp } from '../support/app';
 import { makePackage, makeUser } from '../support/factories';
 import { makePdf } from '../support/pdfs';
 import { desk, passing, pdftotext, submitted } from '../support/review-desk';
@@ -64,7 +64,7 @@ async function decidedPackage(decision: Decision) {
   const version = (await d.engineer.get(`/api/packages/${p.id}`)).body.package.version;
   const decided = await d.engineer
     .post(`/api/packages/${p.id}/decision`)
-    .send({ decision, baseVersion: version });
+    .send({ password: TEST_PASSWORD, decision, baseVersion: version });
   expect(decided.status).toBe(200);
   return { ...d, p, markupId: markup.body.id as string, findingId: finding.body.items[0].id as string };
 }
@@ -74,7 +74,9 @@ function lateChanges(d: Awaited<ReturnType<typeof decidedPackage>>, version: num
   const id = d.p.id;
   return {
     decision: () =>
-      d.engineer.post(`/api/packages/${id}/decision`).send({ decision: 'rejected', baseVersion: version }),
+      d.engineer
+        .post(`/api/packages/${id}/decision`)
+        .send({ password: TEST_PASSWORD, decision: 'rejected', baseVersion: version }),
     'raise a finding': () =>
       d.engineer.post(`/api/packages/${id}/findings`).send({ text: 'One more thing.', severity: 'major' }),
     'close a finding': () =>
@@ -243,9 +245,13 @@ describe('a decision racing a reassignment', () => {
       expect(assigned.status).toBe(200);
       const version = (await d.engineer.get(`/api/packages/${pkg.id}`)).body.package.version;
       const decide = () =>
-        d.engineer
-          .post(`/api/packages/${pkg.id}/decision`)
-          .send({ decision: 'accepted', baseVersion: version });
+        d.engineer.post(`/api/packages/${pkg.id}/decision`).send({
+          password: TEST_PASSWORD,
+          decision: 'accepted',
+          baseVersion: version,
+          // Made by the factory: no check result, which stands against an acceptance.
+          overrideReason: 'Race test: the check result is not what this test is about.',
+        });
       const reassign = () =>
         d.reviewer.post('/api/assignments').send({ packageIds: [pkg.id], engineerId: second.id });
       // Alternate which request leaves first, so both orders are tried.
