@@ -94,7 +94,7 @@ export async function addFile(
 ): Promise<FileSummary> {
   const { pkg, revision } = await currentDraft(ds, user, packageId);
   const originalName = checkFileName(upload.originalName);
-  const { pages } = await inspectPdf(upload.bytes, limits);
+  const { pages } = await inspectPdf(upload.bytes, limits, originalName);
   const id = randomUUID();
   const storageKey = `revisions/${revision.id}/${id}.pdf`;
   await storage.put(storageKey, upload.bytes);
