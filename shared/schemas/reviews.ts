@@ -216,6 +216,10 @@ export const Verification = z.object({
   decisionLabel: z.string(),
   decidedOn: z.string(),
   issuedOn: z.string(),
+  /** The decision's conditions as the stamp prints them ('' for none). */
+  conditions: z.string().default(''),
+  /** Why an acceptance stands over what stood against it; null when nothing did. */
+  overrideReason: z.string().nullable().default(null),
   sha256: z.string(),
   /** SHA-256 of the certificate that signed the return; null for a return made before signing. */
   signingCertificateSha256: z.string().nullable().default(null),

@@ -4,6 +4,7 @@
 // wrong ones); the record keeps who, when, what it overrode and the version of the inputs and
 // results it was made on; the reason prints on the return and shows in the history.
 import fs from 'node:fs';
+import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '@server/config';
 import { jsonSha256 } from '@server/modules/reviews/decision-gate';
@@ -247,5 +248,8 @@ describe('the override on the stamped return', () => {
     expect(sheet).toContain(flat(REASON));
     expect(sheet).toContain('Overridden');
     expect(sheet).toContain('Failing check: Rated-capacity use: Gross load is 94.0% of the chart capacity');
+    // And /verify says the same: the decision, its conditions and the override reason.
+    const verified = await supertest(t.app).get(`/api/verify/${issued.body.verificationCode}`);
+    expect(verified.body).toMatchObject({ decision: 'accepted', conditions: '', overrideReason: REASON });
   }, 60_000);
 });
