@@ -232,6 +232,7 @@ describe('a decision racing a reassignment', () => {
     const d = await desk(t);
     const second = await makeUser(t.ctx.dataSource, d.w.owner, 'engineer');
     const outcomes: string[] = [];
+    let stepUpMs: number | null = null;
     for (let i = 0; i < 20; i++) {
       const pkg = await makePackage(t.ctx.dataSource, {
         contractor: d.w.contractorA,
@@ -254,10 +255,25 @@ describe('a decision racing a reassignment', () => {
         });
       const reassign = () =>
         d.reviewer.post('/api/assignments').send({ packageIds: [pkg.id], engineerId: second.id });
-      // Alternate which request leaves first, so both orders are tried.
+      // How long the decision's password check takes before it reaches the lock, measured once
+      // with a wrong password (one of the person's five).
+      if (stepUpMs === null) {
+        const started = Date.now();
+        const refused = await d.engineer
+          .post(`/api/packages/${pkg.id}/decision`)
+          .send({ password: 'not the password', decision: 'accepted', baseVersion: version });
+        expect(refused.status).toBe(401);
+        stepUpMs = Date.now() - started;
+      }
+      const afterStepUp = stepUpMs;
+      // Alternate which request leaves first, so both orders are tried; in the even pairs the
+      // reassignment leaves as the decision's password check ends, so both reach the lock together.
       const [decision, reassignment] =
         i % 2 === 0
-          ? await Promise.all([decide(), reassign()])
+          ? await Promise.all([
+              decide(),
+              new Promise((resolve) => setTimeout(resolve, Math.max(0, afterStepUp - 15))).then(reassign),
+            ])
           : await Promise.all([reassign(), decide()]).then(([r, dd]) => [dd, r]);
       const after = await stored(pkg.id);
       const pair = {
