@@ -34,7 +34,7 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
     const { startTask } = await import('../worker/tasks/task');
     const { signerFor } = await import('../server/lib/pdf-tools/signer');
     const { makeWorld } = await import('../tests/support/factories');
-    const { signedIn } = await import('../tests/support/app');
+    const { signedIn, TEST_PASSWORD } = await import('../tests/support/app');
     const config = loadConfig();
     const ctx = await connect(config);
     stops.unshift(async () => ctx.close?.());
@@ -57,6 +57,7 @@ export async function benchThroughJob(files: string[]): Promise<{ figures: JobFi
       for (let round = 0; round < 2; round++) {
         const id = await decidedPackage({
           ...people,
+          password: TEST_PASSWORD,
           title: `Bench ${path.basename(file)} ${round}`,
           inputs,
           plan: bytes,

@@ -42,6 +42,8 @@ const Env = z
     SIGN_IN_ADDRESS_LIMIT: z.coerce.number().int().min(1).default(30),
     SIGN_IN_ACCOUNT_LIMIT: z.coerce.number().int().min(1).default(20),
     PASSWORD_CHANGE_LIMIT: z.coerce.number().int().min(1).default(5),
+    // Wrong passwords when confirming a decision, per person per sign-in window.
+    STEP_UP_LIMIT: z.coerce.number().int().min(1).default(5),
     INVITE_LOOKUP_LIMIT: z.coerce.number().int().min(1).default(20),
     // Which proxies' X-Forwarded-For to believe: unset = none (the socket address counts),
     // or a list Express understands ("loopback", "10.0.0.0/8,127.0.0.1", a hop count "1").

@@ -75,6 +75,8 @@ export async function benchPeople(
 
 export interface DecidedPackageOptions extends BenchPeople {
   title: string;
+  /** the engineer's password: a decision is confirmed with it */
+  password: string;
   inputs: unknown;
   plan: Buffer;
   planName: string;
@@ -131,7 +133,7 @@ export async function decidedPackage(o: DecidedPackageOptions): Promise<string> 
   must(
     await o.engineer
       .post(`/api/packages/${id}/decision`)
-      .send({ decision: 'accepted', conditions: '', baseVersion: version }),
+      .send({ decision: 'accepted', conditions: '', baseVersion: version, password: o.password }),
     200,
     'decision',
   );

@@ -64,7 +64,7 @@ export async function startBenchDesk(opts: { checks: number; largePdf: string })
       await import('../../server/modules/jobs/intents');
     const { runCheckRun } = await import('../../server/modules/check-runs/service');
     const { makePackage, makeWorld } = await import('../../tests/support/factories');
-    const { signedIn } = await import('../../tests/support/app');
+    const { signedIn, TEST_PASSWORD } = await import('../../tests/support/app');
     const config = loadConfig();
     // The desk's own signing certificate is made here once, not by two worker processes at once.
     await signerFor(config);
@@ -102,6 +102,7 @@ export async function startBenchDesk(opts: { checks: number; largePdf: string })
     const { reviewer } = people;
     const id = await decidedPackage({
       ...people,
+      password: TEST_PASSWORD,
       title: 'Bench large return',
       inputs,
       plan: fs.readFileSync(opts.largePdf),

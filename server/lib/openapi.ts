@@ -24,6 +24,8 @@ interface RouteDoc {
   status?: number;
   /** When the route can answer 409 (a state that refuses it), what it means. */
   conflict?: string;
+  /** Other answers the route can give (401 of a step-up, 422, 429), by status: what each means. */
+  answers?: Record<number, string>;
 }
 
 export function describeRoute(doc: RouteDoc) {
@@ -57,6 +59,12 @@ export function describeRoute(doc: RouteDoc) {
       ...(doc.public ? {} : { 403: { description: 'Role not allowed', content: errorContent } }),
       404: { description: 'Not found (or outside your organisation)', content: errorContent },
       ...(doc.conflict ? { 409: { description: doc.conflict, content: errorContent } } : {}),
+      ...Object.fromEntries(
+        Object.entries(doc.answers ?? {}).map(([status, description]) => [
+          status,
+          { description, content: errorContent },
+        ]),
+      ),
     },
   });
 }

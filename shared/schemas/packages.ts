@@ -188,6 +188,17 @@ export const PackageDetail = z.object({
       engineer: z.string(),
       revisionNumber: z.number().int(),
       at: z.string(),
+      /** Why an acceptance stands despite the items listed in `overridden`; null when none stood. */
+      overrideReason: z.string().nullable().default(null),
+      overridden: z.array(z.string()).default([]),
+      /** sha-256 of the inputs and results it was made on, and the engine's version (null before these were kept). */
+      madeOn: z
+        .object({
+          inputsSha256: z.string().nullable(),
+          resultsSha256: z.string().nullable(),
+          engineVersion: z.string().nullable(),
+        })
+        .default({ inputsSha256: null, resultsSha256: null, engineVersion: null }),
     })
     .nullable(),
   /** The site's review policy as the check run applies it (defaults with the site's overrides). */

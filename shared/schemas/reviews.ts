@@ -162,6 +162,9 @@ export const AcceptFigureBody = z.object({
     .max(2000, 'reason must be at most 2000 characters'),
 });
 
+export const OVERRIDE_REASON_MIN = 10;
+export const OVERRIDE_REASON_MAX = 2000;
+
 export const DecisionBody = z
   .object({
     decision: Decision,
@@ -171,10 +174,28 @@ export const DecisionBody = z
       .default(''),
     /** The package version the engineer was looking at: a newer one answers 409. */
     baseVersion: z.number().int().min(1, 'baseVersion must be the package version you read'),
+    /**
+     * Why Accepted / Accepted as noted stands although a check fails, a Major finding is open or
+     * a disagreeing figure is not accepted (shared/rules/decision-gate.ts). Required then; printed
+     * on the return and kept in the history.
+     */
+    overrideReason: safeText('overrideReason')
+      .trim()
+      .max(OVERRIDE_REASON_MAX, `overrideReason must be at most ${OVERRIDE_REASON_MAX} characters`)
+      .default(''),
+    /** The engineer's own password again: the decision is confirmed by the person, not the session. */
+    password: z
+      .string({ message: 'password is required: enter your password to confirm the decision' })
+      .min(1, 'password is required: enter your password to confirm the decision')
+      .max(200, 'password must be at most 200 characters'),
   })
   .refine((d) => d.decision !== 'accepted_as_noted' || d.conditions.length > 0, {
     message: 'conditions are required with Accepted as noted',
     path: ['conditions'],
+  })
+  .refine((d) => d.overrideReason.length === 0 || d.overrideReason.length >= OVERRIDE_REASON_MIN, {
+    message: `overrideReason must be at least ${OVERRIDE_REASON_MIN} characters`,
+    path: ['overrideReason'],
   });
 export type DecisionBody = z.infer<typeof DecisionBody>;
 
@@ -195,6 +216,10 @@ export const Verification = z.object({
   decisionLabel: z.string(),
   decidedOn: z.string(),
   issuedOn: z.string(),
+  /** The decision's conditions as the stamp prints them ('' for none). */
+  conditions: z.string().default(''),
+  /** Why an acceptance stands over what stood against it; null when nothing did. */
+  overrideReason: z.string().nullable().default(null),
   sha256: z.string(),
   /** SHA-256 of the certificate that signed the return; null for a return made before signing. */
   signingCertificateSha256: z.string().nullable().default(null),

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '@server/config';
 import { buildReturn } from '@server/modules/returns/service';
 import { DECISION_LABELS, type Decision } from '@shared/schemas/common';
-import { startTestApp, type TestApp } from '../support/app';
+import { startTestApp, TEST_PASSWORD, type TestApp } from '../support/app';
 import { makePackage, makeUser } from '../support/factories';
 import { makePdf } from '../support/pdfs';
 import { desk, passing, pdftotext, submitted } from '../support/review-desk';
@@ -64,7 +64,7 @@ async function decidedPackage(decision: Decision) {
   const version = (await d.engineer.get(`/api/packages/${p.id}`)).body.package.version;
   const decided = await d.engineer
     .post(`/api/packages/${p.id}/decision`)
-    .send({ decision, baseVersion: version });
+    .send({ password: TEST_PASSWORD, decision, baseVersion: version });
   expect(decided.status).toBe(200);
   return { ...d, p, markupId: markup.body.id as string, findingId: finding.body.items[0].id as string };
 }
@@ -74,7 +74,9 @@ function lateChanges(d: Awaited<ReturnType<typeof decidedPackage>>, version: num
   const id = d.p.id;
   return {
     decision: () =>
-      d.engineer.post(`/api/packages/${id}/decision`).send({ decision: 'rejected', baseVersion: version }),
+      d.engineer
+        .post(`/api/packages/${id}/decision`)
+        .send({ password: TEST_PASSWORD, decision: 'rejected', baseVersion: version }),
     'raise a finding': () =>
       d.engineer.post(`/api/packages/${id}/findings`).send({ text: 'One more thing.', severity: 'major' }),
     'close a finding': () =>
@@ -230,6 +232,7 @@ describe('a decision racing a reassignment', () => {
     const d = await desk(t);
     const second = await makeUser(t.ctx.dataSource, d.w.owner, 'engineer');
     const outcomes: string[] = [];
+    let stepUpMs: number | null = null;
     for (let i = 0; i < 20; i++) {
       const pkg = await makePackage(t.ctx.dataSource, {
         contractor: d.w.contractorA,
@@ -243,15 +246,34 @@ describe('a decision racing a reassignment', () => {
       expect(assigned.status).toBe(200);
       const version = (await d.engineer.get(`/api/packages/${pkg.id}`)).body.package.version;
       const decide = () =>
-        d.engineer
-          .post(`/api/packages/${pkg.id}/decision`)
-          .send({ decision: 'accepted', baseVersion: version });
+        d.engineer.post(`/api/packages/${pkg.id}/decision`).send({
+          password: TEST_PASSWORD,
+          decision: 'accepted',
+          baseVersion: version,
+          // Made by the factory: no check result, which stands against an acceptance.
+          overrideReason: 'Race test: the check result is not what this test is about.',
+        });
       const reassign = () =>
         d.reviewer.post('/api/assignments').send({ packageIds: [pkg.id], engineerId: second.id });
-      // Alternate which request leaves first, so both orders are tried.
+      // How long the decision's password check takes before it reaches the lock, measured once
+      // with a wrong password (one of the person's five).
+      if (stepUpMs === null) {
+        const started = Date.now();
+        const refused = await d.engineer
+          .post(`/api/packages/${pkg.id}/decision`)
+          .send({ password: 'not the password', decision: 'accepted', baseVersion: version });
+        expect(refused.status).toBe(401);
+        stepUpMs = Date.now() - started;
+      }
+      const afterStepUp = stepUpMs;
+      // Alternate which request leaves first, so both orders are tried; in the even pairs the
+      // reassignment leaves as the decision's password check ends, so both reach the lock together.
       const [decision, reassignment] =
         i % 2 === 0
-          ? await Promise.all([decide(), reassign()])
+          ? await Promise.all([
+              decide(),
+              new Promise((resolve) => setTimeout(resolve, Math.max(0, afterStepUp - 15))).then(reassign),
+            ])
           : await Promise.all([reassign(), decide()]).then(([r, dd]) => [dd, r]);
       const after = await stored(pkg.id);
       const pair = {

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '@server/config';
 import { runCheckRun } from '@server/modules/check-runs/service';
 import { buildReturn } from '@server/modules/returns/service';
-import { startTestApp, signedIn, type TestApp } from '../support/app';
+import { startTestApp, signedIn, TEST_PASSWORD, type TestApp } from '../support/app';
 import { makeUser, makeWorld } from '../support/factories';
 import { makePdf } from '../support/pdfs';
 import {
@@ -162,12 +162,15 @@ describe('the engineer’s review', () => {
       (
         await otherEngineer
           .post(`/api/packages/${p.id}/decision`)
-          .send({ decision: 'accepted', baseVersion: 1 })
+          .send({ password: TEST_PASSWORD, decision: 'accepted', baseVersion: 1 })
       ).status,
     ).toBe(404);
     expect(
-      (await reviewer.post(`/api/packages/${p.id}/decision`).send({ decision: 'accepted', baseVersion: 1 }))
-        .status,
+      (
+        await reviewer
+          .post(`/api/packages/${p.id}/decision`)
+          .send({ password: TEST_PASSWORD, decision: 'accepted', baseVersion: 1 })
+      ).status,
     ).toBe(403);
   });
 
@@ -178,12 +181,12 @@ describe('the engineer’s review', () => {
     const seen = (await engineer.get(`/api/packages/${p.id}`)).body.package.version;
     const first = await engineer
       .post(`/api/packages/${p.id}/decision`)
-      .send({ decision: 'accepted', baseVersion: seen });
+      .send({ password: TEST_PASSWORD, decision: 'accepted', baseVersion: seen });
     expect(first.status).toBe(200);
     expect(first.body.package).toMatchObject({ status: 'decided', decision: 'accepted' });
     const second = await engineer
       .post(`/api/packages/${p.id}/decision`)
-      .send({ decision: 'rejected', baseVersion: seen });
+      .send({ password: TEST_PASSWORD, decision: 'rejected', baseVersion: seen });
     expect(second.status).toBe(409);
     expect(second.body.error.code).toBe('stale_review');
     expect((await engineer.get(`/api/packages/${p.id}`)).body.package.decision).toBe('accepted');
@@ -195,7 +198,7 @@ describe('the engineer’s review', () => {
     await reviewer.post('/api/assignments').send({ packageIds: [p.id], engineerId: w.engineer.id });
     const res = await engineer
       .post(`/api/packages/${p.id}/decision`)
-      .send({ decision: 'accepted_as_noted', conditions: '', baseVersion: 1 });
+      .send({ password: TEST_PASSWORD, decision: 'accepted_as_noted', conditions: '', baseVersion: 1 });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toEqual([
       { path: 'conditions', message: 'Conditions are required with Accepted as noted' },
@@ -258,9 +261,12 @@ describe('the stamped return, verification and resubmission', () => {
     });
     expect(raised.status).toBe(201);
     const version = (await engineer.get(`/api/packages/${p.id}`)).body.package.version;
-    await engineer
-      .post(`/api/packages/${p.id}/decision`)
-      .send({ decision: 'revise_and_resubmit', conditions: 'Add the spotter.', baseVersion: version });
+    await engineer.post(`/api/packages/${p.id}/decision`).send({
+      password: TEST_PASSWORD,
+      decision: 'revise_and_resubmit',
+      conditions: 'Add the spotter.',
+      baseVersion: version,
+    });
 
     // Only reviewers issue; issuing twice gives the same single return.
     expect((await engineer.post(`/api/packages/${p.id}/returns`)).status).toBe(403);

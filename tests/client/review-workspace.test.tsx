@@ -140,6 +140,21 @@ async function openWorkspace(path: string) {
   return screen.findByTestId('markup-layer-1', {}, { timeout: 8000 });
 }
 
+const PASSWORD = 'lift-desk-demo';
+const OVERRIDE = 'Figures checked by hand against the site survey; the recomputed ones govern.';
+
+/** The confirmation dialog the decision opens: the override reason when asked, the password, confirm. */
+async function confirmInDialog(options: { reason?: string; password?: string } = {}) {
+  const dialog = await screen.findByRole('dialog');
+  const reason = within(dialog).queryByLabelText(/^Override reason/);
+  if (reason && options.reason !== undefined) fireEvent.change(reason, { target: { value: options.reason } });
+  fireEvent.change(within(dialog).getByLabelText(/^Your password/), {
+    target: { value: options.password ?? PASSWORD },
+  });
+  fireEvent.click(within(dialog).getByRole('button', { name: /^(Override and record|Record) / }));
+  return dialog;
+}
+
 describe('review workspace', () => {
   it('when a rectangle is drawn at 100% and again over the same place at 200%, then both posts carry the same PDF coordinates', async () => {
     const detail = workspaceDetail();
@@ -196,12 +211,19 @@ describe('review workspace', () => {
       target: { value: 'Mats under every outrigger.' },
     });
     fireEvent.click(within(form).getByRole('button', { name: 'Record the decision' }));
+    // The dialog asks for the password; nothing is sent before it is confirmed.
+    await screen.findByRole('dialog');
+    expect(sent.filter((s) => s.path.endsWith('/decision'))).toHaveLength(0);
+    await confirmInDialog({ reason: OVERRIDE });
     await waitFor(() => expect(sent.filter((s) => s.path.endsWith('/decision'))).toHaveLength(1));
     expect(sent.find((s) => s.path.endsWith('/decision'))!.body).toEqual({
       decision: 'accepted_as_noted',
       conditions: 'Mats under every outrigger.',
       baseVersion: 1,
+      overrideReason: OVERRIDE,
+      password: PASSWORD,
     });
+    await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
   });
 
   it('when the decision answers 409 stale_review, then the message and the newer decision show and the next attempt uses the newer version', async () => {
@@ -246,6 +268,7 @@ describe('review workspace', () => {
     const form = screen.getByRole('form', { name: 'Decision' });
     fireEvent.click(within(form).getByLabelText(/^Accepted/, { selector: 'input[value="accepted"]' }));
     fireEvent.click(within(form).getByRole('button', { name: 'Record the decision' }));
+    await confirmInDialog({ reason: OVERRIDE });
 
     const alert = await within(form).findByText('Someone changed this package after you opened it.');
     expect(alert).toBeTruthy();
@@ -254,6 +277,7 @@ describe('review workspace', () => {
     await waitFor(() => expect(within(form).getByTestId('current-decision').textContent).toBe('Rejected'));
 
     fireEvent.click(within(form).getByRole('button', { name: 'Record my decision on the newer version' }));
+    await confirmInDialog({ reason: OVERRIDE });
     await waitFor(() => expect(attempts).toBe(2));
     const bodies = server.sent
       .filter((s) => s.path.endsWith('/decision'))
@@ -305,6 +329,7 @@ describe('review workspace', () => {
     const form = screen.getByRole('form', { name: 'Decision' });
     fireEvent.click(within(form).getByLabelText(/^Accepted/, { selector: 'input[value="accepted"]' }));
     fireEvent.click(within(form).getByRole('button', { name: 'Record the decision' }));
+    await confirmInDialog({ reason: OVERRIDE });
     expect((await within(form).findByRole('alert')).textContent).toBe(sentence);
     expect(within(form).queryByText(/return_issued/)).toBeNull();
     await waitFor(() =>
@@ -314,6 +339,77 @@ describe('review workspace', () => {
     );
     await waitFor(() => expect(within(form).getByTestId('current-decision').textContent).toBe('Rejected'));
     for (const radio of within(form).getAllByRole('radio')) expect(radio.matches(':disabled')).toBe(true);
+  });
+
+  it('when Accepted is chosen while figures disagree, then the dialog lists them in words and asks for the reason; a wrong password shows one message and keeps the dialog open', async () => {
+    const detail = workspaceDetail();
+    let attempts = 0;
+    const { sent } = serve({
+      detail,
+      onPost: (path) => {
+        if (!path.endsWith('/decision')) return undefined;
+        attempts += 1;
+        if (attempts === 1)
+          return {
+            status: 401,
+            body: {
+              error: {
+                code: 'step_up_failed',
+                message: 'The password did not confirm the decision. Nothing was recorded.',
+              },
+            },
+          };
+        return {
+          status: 200,
+          body: {
+            ...detail,
+            package: { ...detail.package, status: 'decided', decision: 'accepted', version: 2 },
+          },
+        };
+      },
+    });
+    await openWorkspace(`/packages/${detail.package.id}/review`);
+    fireEvent.click(screen.getByRole('tab', { name: /Decision/ }));
+    const form = screen.getByRole('form', { name: 'Decision' });
+    fireEvent.click(within(form).getByLabelText(/^Accepted/, { selector: 'input[value="accepted"]' }));
+    const disagreeing = results.discrepancies.filter((d) => d.status === 'discrepancy');
+    expect(within(form).getByTestId('gate-note').textContent).toContain(
+      `${disagreeing.length} items stand against Accepted`,
+    );
+    fireEvent.click(within(form).getByRole('button', { name: 'Record the decision' }));
+
+    const dialog = await screen.findByRole('dialog');
+    const items = within(within(dialog).getByTestId('decision-blockers')).getAllByRole('listitem');
+    expect(items).toHaveLength(disagreeing.length);
+    expect(items[0].textContent).toContain('Disagreeing stated figure not accepted');
+    expect(items.map((li) => li.textContent).join(' ')).toContain(disagreeing[0].message);
+    // Words only: no figure keys, no check ids.
+    expect(dialog.textContent).not.toMatch(/grossLoad|chartCapacity|stated:|_/);
+
+    // Without the reason, nothing is sent.
+    fireEvent.change(within(dialog).getByLabelText(/^Your password/), { target: { value: 'wrong' } });
+    fireEvent.click(within(dialog).getByRole('button', { name: 'Override and record Accepted' }));
+    expect(await within(dialog).findByText(/Write why the lift may go ahead/)).toBeTruthy();
+    expect(sent.filter((s) => s.path.endsWith('/decision'))).toHaveLength(0);
+
+    await confirmInDialog({ reason: OVERRIDE, password: 'wrong' });
+    expect(
+      await within(screen.getByRole('dialog')).findByText(
+        'The password did not confirm the decision. Nothing was recorded.',
+      ),
+    ).toBeTruthy();
+    expect(
+      (within(screen.getByRole('dialog')).getByLabelText(/^Your password/) as HTMLInputElement).value,
+    ).toBe('');
+    await confirmInDialog({ password: PASSWORD });
+    await waitFor(() => expect(attempts).toBe(2));
+    expect(sent.filter((s) => s.path.endsWith('/decision')).map((s) => s.body)).toEqual([
+      { decision: 'accepted', conditions: '', baseVersion: 1, overrideReason: OVERRIDE, password: 'wrong' },
+      { decision: 'accepted', conditions: '', baseVersion: 1, overrideReason: OVERRIDE, password: PASSWORD },
+    ]);
+    expect(
+      await within(form).findByText('Recorded: Accepted. The coordinator issues the stamped return.'),
+    ).toBeTruthy();
   });
 
   it('when a stated figure is accepted without a reason, then nothing is sent; with a reason, it is sent and the reason shows', async () => {

@@ -23,6 +23,8 @@ function verification(overrides: Partial<Verification> = {}): Verification {
     decisionLabel: 'Accepted',
     decidedOn: '2030-03-01T09:00:00.000Z',
     issuedOn: '2030-03-02T10:00:00.000Z',
+    conditions: '',
+    overrideReason: null,
     sha256: SHA,
     signingCertificateSha256: null,
     current: true,
@@ -57,6 +59,35 @@ describe('public verification', () => {
     expect(screen.getByText('SHA-256 of the signing certificate')).toBeTruthy();
     expect(screen.getByText('5ea1ed00')).toBeTruthy();
     expect(screen.getByText(/A PDF reader can check the signature/)).toBeTruthy();
+  });
+
+  it('when the acceptance has conditions and an override reason, then both show in full; without them, "None." and no override row', async () => {
+    const conditions = 'Mats under every outrigger.\nA spotter at the power line, 6.1 m minimum approach.';
+    const overrideReason = 'Ground report GR-114 governs; the bearing check used the presumptive value.';
+    answer({
+      status: 200,
+      body: verification({
+        decision: 'accepted_as_noted',
+        decisionLabel: 'Accepted as noted',
+        conditions,
+        overrideReason,
+      }),
+    });
+    const first = renderApp(`/verify/${CODE}`);
+    await answerHeading();
+    expect(screen.getByText('Conditions')).toBeTruthy();
+    expect(screen.getByText((_, el) => el?.textContent === conditions && el.tagName === 'SPAN')).toBeTruthy();
+    expect(screen.getByText(/the engineer’s reason/)).toBeTruthy();
+    expect(screen.getByText(overrideReason)).toBeTruthy();
+    first.unmount();
+    cleanup();
+    vi.unstubAllGlobals();
+
+    answer({ status: 200, body: verification() });
+    renderApp(`/verify/${CODE}`);
+    await answerHeading();
+    expect(screen.getByText('None.')).toBeTruthy();
+    expect(screen.queryByText(/the engineer’s reason/)).toBeNull();
   });
 
   it('when the return was issued before signing, then the page says so instead of a fingerprint', async () => {

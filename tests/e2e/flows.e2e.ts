@@ -15,6 +15,7 @@ import {
   launch,
   mailTo,
   PEOPLE,
+  screenshot,
   screenshotOnFailure,
   signedIn,
   unique,
@@ -22,6 +23,7 @@ import {
 } from './support/browser';
 import { liftPlanPdf, pdfPages, pdfText } from './support/pdf';
 import { internalWords } from '../support/internal-words';
+import { DEMO_PASSWORD } from '@server/db/seed/demo-accounts';
 
 const TITLE = unique('E2E set feed pump skid');
 const CHART = [
@@ -34,6 +36,8 @@ const CHART = [
 const FINDING = 'Show the mat layout under the front outriggers and the ground report it relies on.';
 const CONDITIONS = 'Resubmit with the mat layout drawing; keep the exclusion zone at 1.5 times the radius.';
 const ANSWER = 'Mat layout added as sheet 3; ground report GR-114 applies.';
+const OVERRIDE =
+  'Answer read against sheet 3 and ground report GR-114: the mats suffice; the finding stays open for the site file.';
 
 /** The lift as the contractor types it, in the schema's own form (for the engine's expectation). */
 function liftAsTyped(loadWeight: number) {
@@ -302,6 +306,10 @@ describe('the four flows, in a real browser', () => {
     await page.getByRole('radio', { name: /Revise and resubmit/ }).check();
     await page.getByLabel(/^Conditions/).fill(CONDITIONS);
     await page.getByRole('button', { name: 'Record the decision' }).click();
+    // Confirmed with the engineer's password; Revise and resubmit is not gated.
+    const confirm = page.getByRole('dialog', { name: 'Confirm: Revise and resubmit' });
+    await confirm.getByLabel(/^Your password/).fill(DEMO_PASSWORD);
+    await confirm.getByRole('button', { name: 'Record Revise and resubmit' }).click();
     await page.getByRole('status').filter({ hasText: 'Recorded: Revise and resubmit' }).waitFor();
     await engineer.context.close();
 
@@ -376,6 +384,15 @@ describe('the four flows, in a real browser', () => {
     await page.getByRole('tab', { name: /Decision/ }).click();
     await page.getByRole('radio', { name: /^Accepted\b(?! as noted)/ }).check();
     await page.getByRole('button', { name: 'Record the decision' }).click();
+    // The Major finding is answered but not closed: it stands against Accepted, in words, and
+    // Accepted goes ahead only with the override reason and the password.
+    const gate = page.getByRole('dialog', { name: 'Accepted over what stands against it' });
+    await gate.getByTestId('decision-blockers').getByText('Major finding not closed').waitFor();
+    await expect(gate.getByTestId('decision-blockers').textContent()).resolves.toContain(FINDING);
+    await gate.getByLabel(/^Override reason/).fill(OVERRIDE);
+    await gate.getByLabel(/^Your password/).fill(DEMO_PASSWORD);
+    await screenshot(page, 'decision-gate');
+    await gate.getByRole('button', { name: 'Override and record Accepted' }).click();
     await page.getByRole('status').filter({ hasText: 'Recorded: Accepted' }).waitFor();
     await engineer.context.close();
 
@@ -413,6 +430,9 @@ describe('the four flows, in a real browser', () => {
     expect(first).toContain('Accepted');
     expect(first).toContain(state.finalCode!);
     expect(first).toContain(state.reference!);
+    // The override prints on the stamp (cut short) and in full on the calculation sheet.
+    expect(first).toContain('Override');
+    expect(pdfText(bytes).replace(/\s+/g, ' ')).toContain(OVERRIDE);
     const pages = pdfPages(bytes);
     // The three plan pages and at least one page of calculation sheet.
     expect(pages).toBeGreaterThanOrEqual(4);

@@ -6,7 +6,7 @@ import { LiftPackage, Revision } from '@server/modules/packages/package.entity';
 import { Finding } from '@server/modules/reviews/review.entity';
 import { canMove, stateRefusal } from '@shared/rules/package-status';
 import type { PackageStatus } from '@shared/schemas/common';
-import { signedIn, startTestApp, type TestApp } from '../support/app';
+import { signedIn, startTestApp, TEST_PASSWORD, type TestApp } from '../support/app';
 import { makePackage, makeWorld } from '../support/factories';
 
 let t: TestApp;
@@ -133,7 +133,11 @@ describe('actions only in their state', () => {
       action: 'record a decision',
       status: 'returned',
       as: 'engineer',
-      send: (id) => ['post', `/api/packages/${id}/decision`, { decision: 'accepted', baseVersion: 1 }],
+      send: (id) => [
+        'post',
+        `/api/packages/${id}/decision`,
+        { password: TEST_PASSWORD, decision: 'accepted', baseVersion: 1 },
+      ],
       message:
         /^A decision can be recorded only while the package is with the engineer, before the return; this package is returned\.$/,
     },

@@ -15,7 +15,7 @@ import { templates } from '@server/modules/mail/templates';
 import { buildReturn } from '@server/modules/returns/service';
 import { User } from '@server/modules/users/user.entity';
 import { startMailWorker } from '../../worker/tasks/mail-task';
-import { startTestApp, signedIn, type TestApp } from '../support/app';
+import { startTestApp, signedIn, TEST_PASSWORD, type TestApp } from '../support/app';
 import { makePackage, makeUser, makeWorld } from '../support/factories';
 import { makePdf } from '../support/pdfs';
 import { until } from '../support/until';
@@ -79,9 +79,12 @@ describe('hand-off mail', () => {
     expect(assigned.subject).toContain(`${reference} assigned to you`);
 
     const version = (await engineer.get(`/api/packages/${id}`)).body.package.version;
-    await engineer
-      .post(`/api/packages/${id}/decision`)
-      .send({ decision: 'accepted_as_noted', conditions: 'Level the mats first.', baseVersion: version });
+    await engineer.post(`/api/packages/${id}/decision`).send({
+      password: TEST_PASSWORD,
+      decision: 'accepted_as_noted',
+      conditions: 'Level the mats first.',
+      baseVersion: version,
+    });
     const issued = await reviewer.post(`/api/packages/${id}/returns`);
     const built = await buildReturn(t.ctx.dataSource, t.ctx.storage, issued.body.id, appUrl(t.ctx.config));
     expect(built.skipped).toBe(false);

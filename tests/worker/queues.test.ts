@@ -19,7 +19,7 @@ import { StampedReturn } from '@server/modules/reviews/review.entity';
 import { runMigrations } from '../../scripts/lib/migrate';
 import { stampedReturnTask } from '../../worker/tasks/stamped-return-task';
 import { startTask } from '../../worker/tasks/task';
-import { signedIn, startTestApp, type TestApp } from '../support/app';
+import { signedIn, startTestApp, TEST_PASSWORD, type TestApp } from '../support/app';
 import { makeWorld } from '../support/factories';
 import { makePdf } from '../support/pdfs';
 import { until } from '../support/until';
@@ -134,7 +134,7 @@ async function issue(p: Awaited<ReturnType<typeof people>>, id: string) {
   const version = (await p.engineer.get(`/api/packages/${id}`)).body.package.version;
   const decided = await p.engineer
     .post(`/api/packages/${id}/decision`)
-    .send({ decision: 'accepted', conditions: '', baseVersion: version });
+    .send({ password: TEST_PASSWORD, decision: 'accepted', conditions: '', baseVersion: version });
   expect(decided.status).toBe(200);
   const issued = await p.reviewer.post(`/api/packages/${id}/returns`);
   expect(issued.status).toBe(202);

@@ -9,6 +9,8 @@ import { Sessions1764700000000 } from './1764700000000-sessions';
 import { SealedInviteLinks1764715000000 } from './1764715000000-sealed-invite-links';
 import { FleetLibrary1764717000000 } from './1764717000000-fleet-library';
 import { ForeignKeyIndexes1764718000000 } from './1764718000000-foreign-key-indexes';
+import { DeliberateDecision1764720100000 } from './1764720100000-deliberate-decision';
+import { OneLiftPlan1764720200000 } from './1764720200000-one-lift-plan';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
@@ -21,4 +23,6 @@ export const MIGRATIONS = [
   SealedInviteLinks1764715000000,
   FleetLibrary1764717000000,
   ForeignKeyIndexes1764718000000,
+  DeliberateDecision1764720100000,
+  OneLiftPlan1764720200000,
 ];

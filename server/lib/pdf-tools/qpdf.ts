@@ -53,6 +53,36 @@ function run(args: string[], file: string, maxBuffer = 512 * 1024 * 1024): Promi
   });
 }
 
+/**
+ * qpdf --check: parses every object, decodes every stream it can and each page's content.
+ * Exit 0 is clean, 3 is warnings only (qpdf repaired what it found: the stamp reads it the
+ * same way), 2 is errors. The problems are qpdf's lines, with the file's path taken out.
+ */
+export function checkDocument(file: string): Promise<{ ok: boolean; problems: string[] }> {
+  return new Promise((resolve, reject) => {
+    execFile(
+      'qpdf',
+      ['--check', '--', file],
+      { maxBuffer: 16 * 1024 * 1024, encoding: 'utf8' },
+      (err, stdout, stderr) => {
+        const code =
+          err && typeof (err as { code?: unknown }).code === 'number' ? (err as { code: number }).code : 0;
+        if (err && code !== 2 && code !== 3) {
+          reject(
+            new QpdfError(String(stderr || err.message).trim() || `qpdf exited with code ${code}`, file),
+          );
+          return;
+        }
+        const problems = `${stdout}\n${stderr}`
+          .split('\n')
+          .map((l) => l.split(file).join('').trim())
+          .filter((l) => /^(ERROR|WARNING|qpdf):/.test(l) && !/operation succeeded|errors detected$/.test(l));
+        resolve({ ok: code !== 2, problems });
+      },
+    );
+  });
+}
+
 /** Every object's dictionary (no stream data), the page list and the trailer. */
 export async function readStructure(file: string): Promise<QpdfStructure> {
   const out = await run(['--json=2', '--json-key=pages', '--json-key=qpdf', '--', file], file);

@@ -56,6 +56,8 @@ export interface LimitSpec {
   code?: string;
   /** Count only refused attempts (a correct password does not use up the allowance). */
   failuresOnly?: boolean;
+  /** With failuresOnly: which answers count as refused (default: any 4xx or 5xx). */
+  refusedWhen?: (status: number) => boolean;
 }
 
 export function limiter(ctx: AppContext, spec: LimitSpec): RequestHandler {
@@ -70,6 +72,7 @@ export function limiter(ctx: AppContext, spec: LimitSpec): RequestHandler {
     ),
     keyGenerator: spec.key,
     skipSuccessfulRequests: spec.failuresOnly ?? false,
+    ...(spec.refusedWhen ? { requestWasSuccessful: (_req, res) => !spec.refusedWhen!(res.statusCode) } : {}),
     passOnStoreError: false,
     handler: (_req, _res, next) => next(new AppError(429, spec.code ?? 'too_many_attempts', spec.message)),
   });
@@ -110,4 +113,22 @@ export function signInLimits(ctx: AppContext): RequestHandler[] {
       key: (req) => email(req),
     }),
   ];
+}
+
+/**
+ * The decision's password step-up: wrong passwords per person (from any address), counted only
+ * when the password is refused (401), so a 409 or 422 does not use up the allowance.
+ */
+export function stepUpLimit(ctx: AppContext): RequestHandler {
+  const windowMs = ctx.config.SIGN_IN_WINDOW_MINUTES * 60_000;
+  return limiter(ctx, {
+    name: 'step-up',
+    limit: ctx.config.STEP_UP_LIMIT,
+    windowMs,
+    failuresOnly: true,
+    refusedWhen: (status) => status === 401,
+    key: (req, res) => req.user?.id ?? byAddress(req, res),
+    code: 'too_many_attempts',
+    message: `Too many wrong passwords. Wait ${minutes(windowMs)} minutes, then confirm the decision again.`,
+  });
 }

@@ -17,6 +17,8 @@ export type FileKind = 'lift_plan' | 'supporting';
 
 @Index('uploaded_files_revision_idx', ['revisionId'])
 @Index('uploaded_files_uploaded_by_idx', ['uploadedById'])
+// One lift plan per revision (migration OneLiftPlan1764720200000).
+@Index('uploaded_files_one_lift_plan_key', ['revisionId'], { unique: true, where: "kind = 'lift_plan'" })
 @Entity({ name: 'uploaded_files' })
 @Check('uploaded_files_kind_check', `kind IN ('lift_plan', 'supporting')`)
 export class UploadedFile {

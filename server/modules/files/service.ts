@@ -2,7 +2,7 @@
 // interface, recorded. A refused upload leaves nothing on disk or in the database.
 import type { Actor } from '@shared/rules/actor';
 import { randomUUID } from 'node:crypto';
-import type { DataSource, EntityManager } from 'typeorm';
+import { QueryFailedError, type DataSource, type EntityManager } from 'typeorm';
 import type { FileKind, FileSummary } from '@shared/schemas/packages';
 import { AppError } from '../../lib/app-error';
 import { sha256, type Storage } from '../../lib/storage';
@@ -53,6 +53,37 @@ async function lockDraft(m: EntityManager, revisionId: string) {
   requireDraft({ number: Number(row.number), state: row.state });
 }
 
+const ONE_LIFT_PLAN = 'uploaded_files_one_lift_plan_key';
+const ATTEMPTS = 3;
+
+function isOnePlanConflict(error: unknown): boolean {
+  const driver = (error as { driverError?: { code?: string; constraint?: string } }).driverError;
+  return error instanceof QueryFailedError && driver?.code === '23505' && driver.constraint === ONE_LIFT_PLAN;
+}
+
+/**
+ * The database's one-lift-plan index answered a conflict: a lift plan was stored beside the
+ * revision lock (a row written outside the upload path). The upload runs again and replaces it,
+ * as one upload after another does; after a few tries it gives up with 409 and the sentence.
+ */
+async function onePlanAtATime<T>(save: () => Promise<T>): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await save();
+    } catch (error) {
+      if (!isOnePlanConflict(error)) throw error;
+      if (attempt >= ATTEMPTS) {
+        throw new AppError(
+          409,
+          'lift_plan_conflict',
+          'Another lift plan was stored for this revision at the same moment. Upload the plan again to replace it.',
+          [{ path: 'file', message: 'file: another lift plan was stored at the same moment' }],
+        );
+      }
+    }
+  }
+}
+
 export async function addFile(
   ds: DataSource,
   storage: Storage,
@@ -63,47 +94,49 @@ export async function addFile(
 ): Promise<FileSummary> {
   const { pkg, revision } = await currentDraft(ds, user, packageId);
   const originalName = checkFileName(upload.originalName);
-  const { pages } = await inspectPdf(upload.bytes, limits);
+  const { pages } = await inspectPdf(upload.bytes, limits, originalName);
   const id = randomUUID();
   const storageKey = `revisions/${revision.id}/${id}.pdf`;
   await storage.put(storageKey, upload.bytes);
   try {
-    const saved = await ds.transaction(async (m) => {
-      await lockDraft(m, revision.id);
-      // One lift plan per revision: a new one replaces the one there is (under the lock, so
-      // the one there is is the last upload's).
-      let replaced: UploadedFile | null = null;
-      if (upload.kind === 'lift_plan') {
-        replaced = await m
-          .getRepository(UploadedFile)
-          .findOneBy({ revisionId: revision.id, kind: 'lift_plan' });
-        if (replaced) await m.getRepository(UploadedFile).delete(replaced.id);
-      }
-      const file = await m.getRepository(UploadedFile).save({
-        id,
-        revisionId: revision.id,
-        kind: upload.kind,
-        originalName,
-        sha256: sha256(upload.bytes),
-        sizeBytes: String(upload.bytes.byteLength),
-        pages,
-        storageKey,
-        uploadedById: user.id,
-      });
-      await recordAudit(m, {
-        action: 'file.added',
-        actor: user,
-        packageId: pkg.id,
-        detail: {
-          revision: revision.number,
-          name: originalName,
+    const saved = await onePlanAtATime(() =>
+      ds.transaction(async (m) => {
+        await lockDraft(m, revision.id);
+        // One lift plan per revision: a new one replaces the one there is (under the lock, so
+        // the one there is is the last upload's).
+        let replaced: UploadedFile | null = null;
+        if (upload.kind === 'lift_plan') {
+          replaced = await m
+            .getRepository(UploadedFile)
+            .findOneBy({ revisionId: revision.id, kind: 'lift_plan' });
+          if (replaced) await m.getRepository(UploadedFile).delete(replaced.id);
+        }
+        const file = await m.getRepository(UploadedFile).save({
+          id,
+          revisionId: revision.id,
           kind: upload.kind,
+          originalName,
+          sha256: sha256(upload.bytes),
+          sizeBytes: String(upload.bytes.byteLength),
           pages,
-          replaced: replaced?.originalName ?? null,
-        },
-      });
-      return { file, replaced };
-    });
+          storageKey,
+          uploadedById: user.id,
+        });
+        await recordAudit(m, {
+          action: 'file.added',
+          actor: user,
+          packageId: pkg.id,
+          detail: {
+            revision: revision.number,
+            name: originalName,
+            kind: upload.kind,
+            pages,
+            replaced: replaced?.originalName ?? null,
+          },
+        });
+        return { file, replaced };
+      }),
+    );
     if (saved.replaced) await storage.delete(saved.replaced.storageKey).catch(() => undefined);
     return toFileSummary(saved.file);
   } catch (error) {

@@ -32,7 +32,7 @@ export async function attachDocument(
       `Version ${version.number} is in use by packages; make a new version to attach another document.`,
     );
   const name = checkFileName(upload.originalName);
-  const { pages } = await inspectPdf(upload.bytes, limits);
+  const { pages } = await inspectPdf(upload.bytes, limits, name);
   const storageKey = `library/${version.id}/document.pdf`;
   await storage.put(storageKey, upload.bytes);
   try {

@@ -221,7 +221,8 @@ export async function getRevision(dataSource: DataSource, user: Actor, id: strin
 
 async function decisionSummary(dataSource: DataSource, packageId: string) {
   const [row] = await dataSource.query(
-    `SELECT d.decision, d.conditions, u.name AS engineer, r.number AS revision, d.created_at AS at
+    `SELECT d.decision, d.conditions, u.name AS engineer, r.number AS revision, d.created_at AS at,
+            d.override_reason, d.overridden, d.inputs_sha256, d.results_sha256, d.engine_version
      FROM decisions d JOIN users u ON u.id = d.engineer_id JOIN revisions r ON r.id = d.revision_id
      WHERE d.package_id = $1 ORDER BY d.created_at DESC LIMIT 1`,
     [packageId],
@@ -233,5 +234,12 @@ async function decisionSummary(dataSource: DataSource, packageId: string) {
     engineer: row.engineer,
     revisionNumber: Number(row.revision),
     at: new Date(row.at).toISOString(),
+    overrideReason: row.override_reason as string | null,
+    overridden: (row.overridden ?? []) as string[],
+    madeOn: {
+      inputsSha256: row.inputs_sha256 as string | null,
+      resultsSha256: row.results_sha256 as string | null,
+      engineVersion: row.engine_version as string | null,
+    },
   };
 }

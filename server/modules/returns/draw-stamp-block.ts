@@ -1,7 +1,8 @@
 // The stamp block on the first page of the return: a compact white panel (230 × 150 pt) in
 // the top-right corner that reads over drawings — the decision in large type with its shape,
 // package reference, revision and title, engineer of record, reviewer, decision and issue
-// dates, the conditions (cut short with a pointer to the calculation sheet's page), the
+// dates, the conditions and any override reason (cut short with a pointer to the calculation
+// sheet's page; an override makes the block taller), the
 // verification code with a QR code of the verification address drawn as vector squares,
 // and the caution. Also the small "REF rev N — page n of m" footer every page carries.
 import { concatTransformationMatrix, popGraphicsState, pushGraphicsState, type PDFPage } from 'pdf-lib';
@@ -105,14 +106,19 @@ export function drawStampBlock(
   sheetPage: number,
 ): FrameBox {
   const W = STAMP_WIDTH;
-  const H = STAMP_HEIGHT;
+  const pad = 7;
+  const fullW = W - 2 * pad;
+  // An override of what stood against an acceptance prints under the conditions: the block
+  // grows by its lines (two at most here; in full on the calculation sheet).
+  const reason = s.overrideReason?.trim();
+  const overrideLines = reason ? conditionLines(`${reason}`, fonts, 6.3, fullW - 38, 2, sheetPage) : [];
+  const H = STAMP_HEIGHT + (overrideLines.length ? overrideLines.length * 7.4 + 3 : 0);
   const margin = Math.min(18, frame.width * 0.04, frame.height * 0.04);
   const k = Math.min(1, (frame.width - 2 * margin) / W, (frame.height - 2 * margin) / H);
   const ox = frame.width - margin - W * k;
   const oy = frame.height - margin - H * k;
   page.pushOperators(pushGraphicsState(), concatTransformationMatrix(k, 0, 0, k, ox, oy));
 
-  const pad = 7;
   const band = 15;
   page.drawRectangle({ x: 0, y: 0, width: W, height: H, color: WHITE, borderColor: INK, borderWidth: 1.4 });
   page.drawRectangle({ x: 0, y: H - band, width: W, height: band, color: GRAPHITE });
@@ -187,8 +193,7 @@ export function drawStampBlock(
     });
   }
 
-  // Full width: conditions, verification code, caution.
-  const fullW = W - 2 * pad;
+  // Full width: conditions, any override, verification code, caution.
   y = Math.min(y, qrTop - qrSide) - 6;
   page.drawLine({ start: { x: pad, y: y + 4 }, end: { x: W - pad, y: y + 4 }, thickness: 0.6, color: RULE });
   y -= 4;
@@ -199,6 +204,13 @@ export function drawStampBlock(
     drawText(page, line, { x: pad + 38, y: y - i * 7.4, size: 6.3, font: fonts.regular, color: INK }),
   );
   y -= condLines.length * 7.4 + 3;
+  if (overrideLines.length) {
+    drawText(page, 'Override', { x: pad, y, size: 6, font: fonts.bold, color: INK });
+    overrideLines.forEach((line, i) =>
+      drawText(page, line, { x: pad + 38, y: y - i * 7.4, size: 6.3, font: fonts.regular, color: INK }),
+    );
+    y -= overrideLines.length * 7.4 + 3;
+  }
   drawText(page, 'Verify', { x: pad, y, size: 6, font: fonts.bold, color: INK });
   drawText(page, fitText(s.verificationCode, fonts.black, 7.5, fullW - 38), {
     x: pad + 38,

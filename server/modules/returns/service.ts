@@ -262,6 +262,8 @@ export async function buildReturn(
           issuedAt: ret.createdAt.toISOString(),
           timeZone: site.timeZone,
           conditions: decision.conditions,
+          overrideReason: decision.overrideReason,
+          overridden: decision.overridden ?? [],
           verificationCode: ret.verificationCode,
           verificationUrl: `${appUrl}/verify/${ret.verificationCode}`,
         },

@@ -30,6 +30,9 @@ export interface StampInput {
     issuedAt: string;
     timeZone: string;
     conditions: string;
+    /** Why an acceptance stands although the items in `overridden` stood against it (none: absent). */
+    overrideReason?: string | null;
+    overridden?: string[];
     verificationCode: string;
     verificationUrl: string;
   };

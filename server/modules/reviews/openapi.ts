@@ -110,13 +110,19 @@ describeRoute({
 describeRoute({
   method: 'post',
   path: '/packages/:id/decision',
-  summary: 'Record the decision (assigned engineer); 409 when the package changed since baseVersion',
+  summary:
+    'Record the decision (assigned engineer), confirmed with the engineer’s password; Accepted and Accepted as noted need an override reason while a check fails, a Major finding is not closed or a disagreeing stated figure is not accepted',
   tags: ['review'],
   params: PackageIdParams,
   body: DecisionBody,
   response: PackageDetail,
   conflict:
     "The package changed since baseVersion (stale_review), its status allows no decision (review_closed), it was reassigned meanwhile (reassigned), or the revision's stamped return is requested (return_issued)",
+  answers: {
+    401: 'Not signed in, or the password did not confirm the decision (step_up_failed, one message for every cause)',
+    422: 'Accepted or Accepted as noted while items stand against it, without an override reason (override_required): the message lists the items, the field is overrideReason',
+    429: 'Too many wrong passwords for this person in the window (too_many_attempts)',
+  },
 });
 describeRoute({
   method: 'post',

@@ -121,6 +121,17 @@ export class DecisionRecord {
   engineerId: string;
   @VersionColumn({ type: 'int', default: 1 }) version: number;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
+  /** Why an acceptance stands despite the items in `overridden`; null when nothing stood against it. */
+  @Column({ type: 'text', name: 'override_reason', nullable: true }) overrideReason: string | null;
+  /** The items that stood against the acceptance when it was made, in words. */
+  @Column({ type: 'jsonb', default: [] }) overridden: string[];
+  /** sha-256 of the canonical JSON of the revision's inputs and results the decision was made on. */
+  @Column({ type: 'char', length: 64, name: 'inputs_sha256', nullable: true }) inputsSha256: string | null;
+  @Column({ type: 'char', length: 64, name: 'results_sha256', nullable: true }) resultsSha256: string | null;
+  @Column({ type: 'varchar', length: 40, name: 'engine_version', nullable: true })
+  engineVersion: string | null;
+  /** When the engineer's password confirmed the decision (null before the step-up existed). */
+  @Column({ type: 'timestamptz', name: 'confirmed_at', nullable: true }) confirmedAt: Date | null;
 }
 
 @Index('stamped_returns_issued_by_idx', ['issuedById'])

@@ -14,6 +14,7 @@ import { appUrl } from '../../config';
 import type { AppContext } from '../../context';
 import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
+import { stepUpLimit } from '../auth/rate-limits';
 import { PackageIdParams } from '../packages/routes';
 import { packageDetail } from '../packages/service';
 import { compareRevisions } from './compare';
@@ -37,6 +38,7 @@ export function reviewRoutes(ctx: AppContext): Router {
   const router = Router();
   const ds = ctx.dataSource;
   const auth = requireAuth(ctx.passport);
+  const stepUp = stepUpLimit(ctx);
 
   router.get('/engineers', auth, requireRole('reviewer', 'admin'), async (req, res) => {
     res.json(await listEngineers(ds, currentActor(req)));
@@ -140,6 +142,7 @@ export function reviewRoutes(ctx: AppContext): Router {
     '/packages/:id/decision',
     auth,
     requireRole('engineer'),
+    stepUp,
     validate({ params: PackageIdParams, body: DecisionBody }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);

@@ -19,7 +19,8 @@ import { requireState } from '../packages/state-guard';
 import { User } from '../users/user.entity';
 import { Assignment, DecisionRecord } from './review.entity';
 import { carryLibraryUses } from '../library/uses';
-import { lockPackage, underReview } from './review-scope';
+import { lockPackage, requireAssignedEngineer, underReview } from './review-scope';
+import { confirmPassword, madeOn, passGate } from './decision-gate';
 
 // ---- assignment -------------------------------------------------------------------------
 
@@ -143,10 +144,18 @@ export async function assignEngineer(
  * The assigned engineer's decision, under the package lock: a reassignment that got there
  * first answers 409 `reassigned`, a requested return 409 `return_issued`; a decision that got
  * there first makes the reassignment answer 409 (the status machine allows none after it).
+ * Deliberate: the engineer's password first (401, rate-limited by the route), then Accepted /
+ * Accepted as noted only with an override reason while something stands against them (422), and
+ * the record keeps what it overrode and the version of the inputs and results it was made on.
  */
 export async function recordDecision(ds: DataSource, user: Actor, packageId: string, body: DecisionBody) {
   const what = 'A decision can be recorded';
+  // Outside the lock: bcrypt takes a while, and a refused password changes nothing.
+  requireAssignedEngineer(user, await findScopedPackage(ds.manager, user, packageId));
+  await confirmPassword(ds, user, body.password);
+  const confirmedAt = new Date();
   await underReview(ds, user, packageId, 'record_decision', what, async (m, pkg, revision) => {
+    const gate = await passGate(m, pkg.id, revision, body.decision, body.overrideReason);
     // Optimistic lock: the version the engineer read must still be the current one.
     const result = await m
       .createQueryBuilder()
@@ -167,12 +176,22 @@ export async function recordDecision(ds: DataSource, user: Actor, packageId: str
       decision: body.decision,
       conditions: body.conditions,
       engineerId: user.id,
+      overrideReason: gate.overrideReason,
+      overridden: gate.overridden,
+      ...madeOn(revision),
+      confirmedAt,
     });
     await recordAudit(m, {
       action: 'decision.recorded',
       actor: user,
       packageId: pkg.id,
-      detail: { decision: body.decision, revision: revision.number },
+      detail: {
+        decision: body.decision,
+        revision: revision.number,
+        ...(gate.overrideReason
+          ? { overrideReason: gate.overrideReason, overridden: gate.overridden.length }
+          : {}),
+      },
     });
   });
 }

@@ -1,5 +1,5 @@
 // The public verification answer for a stamped return's code: the package title, revision,
-// decision, dates, the return's sha-256, the fingerprint of the certificate that signed it,
+// decision, dates, its conditions and any override reason, the return's sha-256, the fingerprint of the certificate that signed it,
 // and whether a later revision or return supersedes it. Null when no ready return has the code.
 import type { DataSource } from 'typeorm';
 import { DECISION_LABELS } from '@shared/schemas/common';
@@ -44,6 +44,8 @@ export async function verifyReturn(ds: DataSource, code: string): Promise<Verifi
     decisionLabel: DECISION_LABELS[decision.decision],
     decidedOn: decision.createdAt.toISOString(),
     issuedOn: (ret.readyAt ?? ret.createdAt).toISOString(),
+    conditions: decision.conditions,
+    overrideReason: decision.overrideReason,
     sha256: ret.sha256!,
     signingCertificateSha256: ret.signingCertificateSha256,
     current: !later && newerReturn === 0,

@@ -20,12 +20,26 @@ import {
 } from '../text-pdf';
 import { BOTTOM, LEFT, RIGHT, TOP, WIDTH, type Flow } from './layout';
 
+/** The labelled blocks under the decision: conditions, then any override and what it overrode. */
+function decisionBlocks(input: StampInput, flow: Flow): { label: string; lines: string[] }[] {
+  const { stamp } = input;
+  const wrap = (text: string) => wrapText(text, flow.fonts.regular, 8.5, WIDTH - 120);
+  const blocks = [{ label: 'Conditions', lines: wrap(stamp.conditions.trim() || 'None.') }];
+  const reason = stamp.overrideReason?.trim();
+  if (reason) {
+    blocks.push({ label: 'Override', lines: wrap(reason) });
+    const items = stamp.overridden ?? [];
+    if (items.length) blocks.push({ label: 'Overridden', lines: items.flatMap((item) => wrap(`• ${item}`)) });
+  }
+  return blocks;
+}
+
 export function decisionPanel(flow: Flow, input: StampInput) {
   const { stamp } = input;
   const { fonts } = flow;
-  const cond = stamp.conditions.trim() || 'None.';
-  const condLines = wrapText(cond, fonts.regular, 8.5, WIDTH - 120);
-  const h = 96 + condLines.length * 11.5;
+  const blocks = decisionBlocks(input, flow);
+  const lineCount = blocks.reduce((n, b) => n + b.lines.length, 0);
+  const h = 96 + lineCount * 11.5 + (blocks.length - 1) * 16;
   flow.need(Math.min(h, TOP - BOTTOM));
   const top = flow.y;
   const firstPart = Math.min(h, top - BOTTOM);
@@ -63,15 +77,19 @@ export function decisionPanel(flow: Flow, input: StampInput) {
     fonts.regular,
     INK_SOFT,
   );
-  flow.text('Conditions', x, top - 92, 8.5, fonts.black);
   flow.y = top - 92 + 11.5 - 2;
   const firstPage = flow.page;
-  for (const line of condLines) {
+  blocks.forEach((block, b) => {
+    if (b > 0) flow.y -= 16;
     if (flow.y - 11.5 < BOTTOM) flow.newPage();
-    flow.y -= 11.5;
-    flow.text(line, x + 72, flow.y + 2, 8.5, fonts.regular);
-  }
-  // Conditions that ran onto another page go on from their last line there.
+    flow.text(block.label, x, flow.y - 11.5 + 2, 8.5, fonts.black);
+    for (const line of block.lines) {
+      if (flow.y - 11.5 < BOTTOM) flow.newPage();
+      flow.y -= 11.5;
+      flow.text(line, x + 72, flow.y + 2, 8.5, fonts.regular);
+    }
+  });
+  // Text that ran onto another page goes on from its last line there.
   flow.y = flow.page === firstPage ? Math.min(flow.y - 12, top - h) : flow.y - 12;
 }
 

@@ -1,4 +1,5 @@
-// POST /api/packages/:id/decision with the package version the engineer read. A newer
+// POST /api/packages/:id/decision with the package version the engineer read, the engineer's
+// password and any override reason. A newer
 // version answers 409 stale_review: the caller shows it and refetches; nothing is retried
 // on the engineer's behalf.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
@@ -8,7 +9,15 @@ import { api, isApiError } from '@/lib/api-client';
 import { packageKeys } from '@/lib/query-keys';
 import { packagePath, refetchIfReviewClosed } from '@/lib/findings-client';
 
-export type DecisionInput = { decision: Decision; conditions: string; baseVersion: number };
+export type DecisionInput = {
+  decision: Decision;
+  conditions: string;
+  baseVersion: number;
+  /** Required while something stands against Accepted / Accepted as noted; '' otherwise. */
+  overrideReason: string;
+  /** The engineer's password: the step-up that confirms the decision. */
+  password: string;
+};
 
 export function recordDecision(packageId: string, body: DecisionInput): Promise<PackageDetail> {
   return api.post(`${packagePath(packageId)}/decision`, body, PackageDetail);

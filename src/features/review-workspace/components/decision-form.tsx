@@ -1,17 +1,24 @@
 // The engineer of record's decision: one of the four submittal decisions with conditions.
 // It is sent with the package version the engineer has seen; if someone changed the package
 // since, the server answers 409 and the form shows what the package says now and lets the
-// engineer decide again. Nothing is overwritten without the engineer seeing it.
+// engineer decide again. Nothing is overwritten without the engineer seeing it. Recording asks
+// for the engineer's password in a dialog, which also lists what stands against an acceptance
+// and asks for the override reason (decision-confirm-dialog.tsx).
 import { useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { DECISION_LABELS, DECISIONS, PACKAGE_STATUS_LABELS, type Decision } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
+import { isGatedDecision, type DecisionBlocker } from '@shared/rules/decision-gate';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { Button } from '@/components/ui/button';
 import { isApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format';
 import { packageKeys } from '@/lib/query-keys';
 import { isStaleReview, useRecordDecision } from '../api/record-decision';
+import { DecisionConfirmDialog, type Confirmation } from './decision-confirm-dialog';
+
+/** Answers the confirmation dialog shows itself: the password, the override, the wait. */
+const DIALOG_STATUSES = [401, 422, 429];
 
 const MEANINGS: Record<Decision, string> = {
   accepted: 'The lift may go ahead as planned.',
@@ -47,6 +54,7 @@ export function DecisionForm({
   onSeen,
   openFindings,
   openDiscrepancies,
+  blockers,
 }: {
   detail: PackageDetail;
   canDecide: boolean;
@@ -55,6 +63,8 @@ export function DecisionForm({
   onSeen: (version: number) => void;
   openFindings: number;
   openDiscrepancies: number;
+  /** What stands against Accepted / Accepted as noted now (shared/rules/decision-gate.ts). */
+  blockers: DecisionBlocker[];
 }) {
   const pkg = detail.package;
   const queryClient = useQueryClient();
@@ -64,6 +74,9 @@ export function DecisionForm({
   const [tried, setTried] = useState(false);
   const [stale, setStale] = useState<Newer | null>(null);
   const [saved, setSaved] = useState<Decision | null>(null);
+  const [confirming, setConfirming] = useState(false);
+  const [dialogError, setDialogError] = useState<string | null>(null);
+  const gated = decision !== null && isGatedDecision(decision) && blockers.length > 0;
 
   const needsConditions = decision === 'accepted_as_noted' && conditions.trim().length === 0;
   const changedUnderneath = !stale && pkg.version !== seenVersion;
@@ -72,16 +85,29 @@ export function DecisionForm({
     setTried(true);
     setSaved(null);
     if (!decision || needsConditions) return;
+    setDialogError(null);
+    setConfirming(true);
+  }
+
+  function confirm(confirmation: Confirmation) {
+    if (!decision) return;
+    setDialogError(null);
     record.mutate(
-      { decision, conditions: conditions.trim(), baseVersion: seenVersion },
+      { decision, conditions: conditions.trim(), baseVersion: seenVersion, ...confirmation },
       {
         onSuccess: (next) => {
+          setConfirming(false);
           setStale(null);
           setTried(false);
           setSaved(decision);
           onSeen(next.package.version);
         },
         onError: async (error) => {
+          if (isApiError(error) && DIALOG_STATUSES.includes(error.status)) {
+            setDialogError(error.message);
+            return;
+          }
+          setConfirming(false);
           if (!isStaleReview(error)) return;
           await queryClient.refetchQueries({ queryKey: packageKeys.detail(pkg.id), exact: true });
           const fresh = queryClient.getQueryData<PackageDetail>(packageKeys.detail(pkg.id));
@@ -202,7 +228,16 @@ export function DecisionForm({
           </p>
         )}
       </fieldset>
-      {record.isError && !isStaleReview(record.error) && (
+      {gated && canDecide && (
+        <p
+          data-testid="gate-note"
+          className="border border-l-4 border-fail-ink bg-fail-tint px-3 py-2 text-[13px]"
+        >
+          {blockers.length === 1 ? 'One item stands' : `${blockers.length} items stand`} against{' '}
+          {DECISION_LABELS[decision]}: recording it asks for your override reason in writing.
+        </p>
+      )}
+      {record.isError && !confirming && !isStaleReview(record.error) && (
         <p role="alert" className="text-[12.5px] font-bold text-fail-ink">
           {isApiError(record.error) ? record.error.message : 'The decision could not be recorded.'}
         </p>
@@ -221,6 +256,17 @@ export function DecisionForm({
               : 'Record the decision'}
         </Button>
       </div>
+      {confirming && decision && (
+        <DecisionConfirmDialog
+          decision={decision}
+          conditions={conditions.trim()}
+          blockers={isGatedDecision(decision) ? blockers : []}
+          pending={record.isPending}
+          error={dialogError}
+          onConfirm={confirm}
+          onClose={() => setConfirming(false)}
+        />
+      )}
     </form>
   );
 }

@@ -234,6 +234,7 @@ export function ReviewWorkspace({
             onSeen={setSeenVersion}
             openFindings={summary.openFindings}
             openDiscrepancies={summary.openDiscrepancies}
+            blockers={summary.blockers}
           />
         </TabPanel>
         {current.number > 1 && (

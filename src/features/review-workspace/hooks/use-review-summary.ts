@@ -1,10 +1,11 @@
 // What the workspace's panels and tab labels derive from the package, its findings and the
 // checks: labels for what a finding is tied to, findings per check, the order n / p steps
-// through, and the counts of what is still open.
+// through, the counts of what is still open and what stands against an acceptance.
 import { useMemo } from 'react';
 import type { LiftResult } from '@shared/engineering/types';
 import type { PackageDetail } from '@shared/schemas/packages';
 import type { Finding } from '@shared/schemas/reviews';
+import { decisionBlockers } from '@shared/rules/decision-gate';
 import { acceptedFigures, figureCheckId } from '../lib/accepted-figures';
 
 export function useReviewSummary(detail: PackageDetail, result: LiftResult | null, findings: Finding[]) {
@@ -37,5 +38,27 @@ export function useReviewSummary(detail: PackageDetail, result: LiftResult | nul
   const openDiscrepancies =
     result?.discrepancies.filter((d) => d.status === 'discrepancy' && !accepted.has(d.figure)).length ?? 0;
 
-  return { accepted, fileNames, checkLabels, findingsByCheck, ordered, openFindings, openDiscrepancies };
+  // What stands against an acceptance, as the server's gate finds it (the figures accepted on this
+  // revision from the revision itself and from its history).
+  const storedAccepted = detail.current.acceptedFigures;
+  const blockers = useMemo(
+    () =>
+      decisionBlockers({
+        result,
+        findings,
+        acceptedFigures: [...storedAccepted.map((a) => a.figure), ...accepted.keys()],
+      }),
+    [result, findings, storedAccepted, accepted],
+  );
+
+  return {
+    accepted,
+    fileNames,
+    checkLabels,
+    findingsByCheck,
+    ordered,
+    openFindings,
+    openDiscrepancies,
+    blockers,
+  };
 }

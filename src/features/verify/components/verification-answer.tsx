@@ -154,6 +154,26 @@ export function VerificationDetails({ v, code }: { v: Verification; code: string
       </Row>
       <Row label="Revision">{v.revision}</Row>
       <Row label="Decision">{v.decisionLabel}</Row>
+      <Row label="Conditions">
+        {v.conditions.trim() ? (
+          <span className="block whitespace-pre-wrap break-words text-[18px] font-normal">
+            {v.conditions}
+          </span>
+        ) : (
+          <span className="text-[17px] font-normal">None.</span>
+        )}
+      </Row>
+      {v.overrideReason && (
+        <Row label="Accepted over an open item — the engineer’s reason">
+          <span className="block whitespace-pre-wrap break-words text-[18px] font-normal">
+            {v.overrideReason}
+          </span>
+          <span className="mt-1 block text-[14px] font-normal text-ink-soft">
+            A check, finding or stated figure stood against this acceptance; the engineer of record accepted
+            it for the reason above, as the stamped return prints it.
+          </span>
+        </Row>
+      )}
       <Row label="Decided on">{formatDate(v.decidedOn)}</Row>
       <Row label="Stamped return issued on">{formatDate(v.issuedOn)}</Row>
       <Row label="SHA-256 of the stamped PDF">

@@ -52,6 +52,13 @@ function detailText(detail: Record<string, unknown>): string {
     const value = text(key);
     if (value) parts.push(value);
   }
+  // An acceptance over items that stood against it: how many, and the engineer's reason.
+  const overrideReason = text('overrideReason');
+  if (overrideReason) {
+    const n = typeof detail.overridden === 'number' ? detail.overridden : null;
+    const items = n === null ? '' : ` ${n} ${n === 1 ? 'item' : 'items'}`;
+    parts.push(`overrode${items}: ${overrideReason}`);
+  }
   return parts.join(' · ');
 }
 
