@@ -313,6 +313,17 @@ export const LibraryUseBody = z.object({
   detached: z.boolean().default(false),
 });
 
+/** A crane of a lift with several cranes removed from a draft: its library use goes, later ones move up */
+export const CraneRemovedBody = z.object({
+  /** 1 to 3: the removed crane's slot; null: the lift went back to one crane (every other crane removed) */
+  slot: z
+    .number({ error: 'slot must be 1 to 3, or null for back to one crane' })
+    .int({ error: 'slot must be 1 to 3, or null for back to one crane' })
+    .min(1, { error: 'slot must be 1 to 3: the lead crane (0) is not removed this way' })
+    .max(3, { error: 'slot must be 1 to 3, or null for back to one crane' })
+    .nullable(),
+});
+
 export const ChangedCell = z.object({
   boomLength: z.number(),
   radius: z.number(),
