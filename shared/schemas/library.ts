@@ -336,6 +336,8 @@ export const LibraryUse = z.object({
   version: z.object({
     id: z.uuid(),
     number: z.number().int(),
+    /** The configuration the version belongs to (its page, for the contractor who keeps it) */
+    configurationId: z.uuid(),
     configurationName: z.string(),
     crane: z.string(),
   }),

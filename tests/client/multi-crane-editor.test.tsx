@@ -180,6 +180,7 @@ describe('several cranes in the submission editor', () => {
       version: {
         id: VERSION_ID,
         number: 4,
+        configurationId: version.configurationId,
         configurationName: 'Main boom, 18 t',
         crane: 'BW-12 — Kestrel AT-60 east',
       },

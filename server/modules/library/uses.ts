@@ -62,6 +62,7 @@ export async function listUses(ds: DataSource, user: U, packageId: string): Prom
         version: {
           id: v.id,
           number: v.number,
+          configurationId: k.id,
           configurationName: k.name,
           crane: craneLabel({ crane: { ...v.craneSnapshot, id: k.craneId } }),
         },
