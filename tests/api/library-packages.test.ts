@@ -227,7 +227,7 @@ describe('packages built from the fleet library', () => {
     const a = await signedIn(t.app, w.plannerA.email);
     const version = await library(a);
     const inputs = pickedFromLibrary(fillFromVersion(version));
-    const rows = inputs.chart.rows!;
+    const rows: NonNullable<LibraryFill['chart']['rows']> = inputs.chart.rows;
     const at = (r: number) => rows.find((x) => x.radius?.value === r)!;
     at(12).capacity = { value: 19, unit: 't' };
     at(16).capacity = { value: 12, unit: 't' };
