@@ -125,6 +125,10 @@ describe('several cranes in the submission editor', () => {
     expect(labelOfAnyPath('multiCrane.others.0.chart.rows.2.radius')).toBe('Crane 2: chart row 3');
     expect(labelOfAnyPath('multiCrane.loadCg.x')).toBe('Centre of gravity x');
     expect(labelOfAnyPath('crane.boomLength')).toBe('Boom length');
+    // a section no single field names reads as words, not as the raw path
+    expect(labelOfAnyPath('crane')).toBe('Crane');
+    expect(labelOfAnyPath('load')).toBe('Load');
+    expect(labelOfAnyPath('hookBlock')).toBe('Hook block');
   });
 
   describe('with the fleet library', () => {

@@ -149,8 +149,8 @@ export function ChartImport({
           {p.errors.length > 0 && (
             <div role="alert" className="border border-l-4 border-fail-ink bg-fail-tint px-3 py-2">
               <h3 className="text-sm font-bold text-fail-ink">
-                ✕ {p.errors.length} error{p.errors.length === 1 ? '' : 's'}: fix them in the source and read
-                it again
+                ✕ {p.errors.length === 1 ? '1 error: fix it' : `${p.errors.length} errors: fix them`} in the
+                source and read it again
               </h3>
               <ul className="list-disc pl-5 text-[13px]">
                 {p.errors.map((e, k) => (
