@@ -64,6 +64,8 @@ describe('fleet library files', () => {
     expect(await errors.textContent()).toContain('A4: duplicate radius 8: A3 lists it already');
     expect(await page.locator('td[data-ref="A4"]').textContent()).toContain('✕ error');
     expect(await page.getByRole('button', { name: 'Use this chart' }).isDisabled()).toBe(true);
+    // beside the save button: no chart is accepted yet, and how to accept one
+    expect(await page.getByTestId('chart-not-accepted').textContent()).toContain('No chart accepted yet');
     await page.getByText('Units read:').evaluate((el) => el.scrollIntoView({ block: 'start' }));
     await screenshot(page, 'library-import-csv-error');
 
@@ -88,6 +90,7 @@ describe('fleet library files', () => {
     expect((await configurationsNamed(name))[0].n).toBe(0);
 
     await page.getByRole('button', { name: 'Use this chart' }).click();
+    expect(await page.getByTestId('chart-not-accepted').count()).toBe(0);
     await page.getByLabel(/Configuration name/).fill(name);
     await page.getByLabel('Document title').fill('Demo chart (invented)');
     expect((await configurationsNamed(name))[0].n).toBe(0);

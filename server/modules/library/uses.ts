@@ -3,7 +3,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import type { LibraryUse, LibraryUseBody } from '@shared/schemas/library';
-import { changedCells, craneLabel } from '@shared/library/to-lift-input';
+import { changedCells, craneLabel, type ChartRowLike } from '@shared/library/to-lift-input';
 import { AppError } from '../../lib/app-error';
 import { Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
@@ -15,7 +15,8 @@ import { cellsOf, gridOf, names, verificationsFor } from './version-summaries';
 
 type U = Express.User;
 
-type ChartRows = { rows?: unknown[] } | undefined;
+/** The stored draft is JSON: changedCells() reads each row's figures defensively. */
+type ChartRows = { rows?: ChartRowLike[] } | undefined;
 
 function chartRowsOf(inputs: Record<string, unknown>, slot: number) {
   if (slot === 0) return (inputs.chart as ChartRows)?.rows;
@@ -67,7 +68,7 @@ export async function listUses(ds: DataSource, user: U, packageId: string): Prom
           crane: craneLabel({ crane: { ...v.craneSnapshot, id: k.craneId } }),
         },
         detached: u.detached,
-        changedCells: changedCells(grid, chartRowsOf(revision.inputs, u.slot) as never),
+        changedCells: changedCells(grid, chartRowsOf(revision.inputs, u.slot)),
         units: v.chartUnits,
         verifications: verifications
           .filter((x) => x.versionId === v.id)

@@ -8,7 +8,8 @@ import { Button } from '@/components/ui/button';
 import { ErrorPanel } from '@/components/ui/panel-message';
 import { useChartPreview, type ChartPreview } from '../api/chart-import';
 
-const EXAMPLE = 'radius (m) / boom (m) / capacity (t)\t12.2\t18.3\n3\t40\t\n5\t30\t28';
+// Shown as the empty box's placeholder, said to be an example so it is not taken for content.
+const EXAMPLE = 'For example:\nradius (m) / boom (m) / capacity (t)\t12.2\t18.3\n3\t40\t\n5\t30\t28';
 
 function PreviewTable({ preview }: { preview: ChartPreview }) {
   return (

@@ -83,24 +83,25 @@ export function ConfigurationForm({
     </label>
   );
   const submit = () => {
-    const body: VersionDraft = {
+    // The draft as typed (units as strings); the schema below checks it and gives the typed body.
+    const draft = {
       details: {
         workingArea: d.workingArea,
         ...(d.outriggerSpread ? { outriggerSpread: d.outriggerSpread } : {}),
         ...(d.jib.trim() ? { jib: d.jib } : {}),
-        ...(q.bMin ? { boomLengthMin: q.bMin as never } : {}),
-        ...(q.bMax ? { boomLengthMax: q.bMax as never } : {}),
+        ...(q.bMin ? { boomLengthMin: q.bMin } : {}),
+        ...(q.bMax ? { boomLengthMax: q.bMax } : {}),
         ...(d.cwArrangement.trim() || q.cw
           ? {
               counterweight: {
                 arrangement: d.cwArrangement,
-                weight: q.cw as never,
-                cgBehindRotation: q.cwCg as never,
+                weight: q.cw,
+                cgBehindRotation: q.cwCg,
               },
             }
           : {}),
         ...(q.hook
-          ? { hookBlock: { ...(d.hookName.trim() ? { name: d.hookName } : {}), weight: q.hook as never } }
+          ? { hookBlock: { ...(d.hookName.trim() ? { name: d.hookName } : {}), weight: q.hook } }
           : {}),
       },
       notes: {
@@ -114,14 +115,14 @@ export function ConfigurationForm({
         ...(d.edition.trim() ? { edition: d.edition } : {}),
         ...(d.page.trim() ? { page: d.page } : {}),
       },
-      chart: chart as never,
+      chart,
       ...(d.changeNote.trim() ? { changeNote: d.changeNote } : {}),
     };
     const fieldsMissing = [];
     if (withName && !name.trim()) fieldsMissing.push({ path: 'name', message: 'name is required' });
     if (!chart)
       fieldsMissing.push({ path: 'chart', message: 'import the load chart and accept its preview' });
-    const parsed = VersionBody.safeParse(body);
+    const parsed = VersionBody.safeParse(draft);
     const found = [
       ...fieldsMissing,
       ...(parsed.success
@@ -129,7 +130,7 @@ export function ConfigurationForm({
         : zodFieldErrors(parsed.error).filter((e) => !(e.path.startsWith('chart') && !chart))),
     ];
     setErrors(found);
-    if (found.length === 0) onSubmit(body, name);
+    if (found.length === 0 && parsed.success) onSubmit(parsed.data, name);
   };
   return (
     <form
@@ -280,10 +281,16 @@ export function ConfigurationForm({
         )}
       </section>
       {from && tx('What changed (shown in the history)', 'changeNote', 'changeNote')}
-      <div>
+      <div className="flex flex-wrap items-center gap-3 border-t border-rule pt-3">
         <Button type="submit" variant="primary" disabled={busy}>
           {busy ? 'Saving…' : submitLabel}
         </Button>
+        {!chart && (
+          <p className="text-[13px] text-ink-soft" data-testid="chart-not-accepted">
+            No chart accepted yet: read the pasted cells or the file above, check the preview, then press “Use
+            this chart”.
+          </p>
+        )}
       </div>
     </form>
   );
