@@ -225,8 +225,6 @@ export const VersionSummary = z.object({
   verified: z.boolean(),
 });
 
-export const GridCellView = z.object({ boomLength: z.number(), radius: z.number(), capacity: z.number() });
-
 export const VersionDetail = VersionSummary.extend({
   configurationId: z.uuid(),
   configurationName: z.string(),
