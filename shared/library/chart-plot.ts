@@ -98,3 +98,23 @@ export function ticks(max: number, count = 6): number[] {
   for (let v = 0; v < max + step * 0.999; v += step) out.push(Math.round(v / step) * step);
   return out;
 }
+
+/** The height of a line at x (straight between its points), or null where the line does not reach. */
+export function lineAt(line: PlotLine, x: number): number | null {
+  const pts = [...line.points].sort((a, b) => a.x - b.x);
+  for (let i = 0; i < pts.length; i++) {
+    if (pts[i].x === x) return pts[i].y;
+    if (i > 0 && pts[i - 1].x < x && x < pts[i].x)
+      return pts[i - 1].y + ((pts[i].y - pts[i - 1].y) * (x - pts[i - 1].x)) / (pts[i].x - pts[i - 1].x);
+  }
+  return null;
+}
+
+/**
+ * Where a mark's label crosses no line: below the mark when every line reaching its x passes above
+ * it (a lift inside the chart), above otherwise (a lift over the chart, or lines on both sides).
+ */
+export function labelSide(lines: PlotLine[], x: number, y: number): 'below' | 'above' {
+  const heights = lines.map((l) => lineAt(l, x)).filter((h): h is number => h !== null);
+  return heights.length > 0 && heights.every((h) => h > y) ? 'below' : 'above';
+}

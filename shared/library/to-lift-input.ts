@@ -88,7 +88,8 @@ export interface CellChange {
   package: number | null;
 }
 
-type RowLike = {
+/** A chart row as stored in a draft: any figure may be missing. */
+export type ChartRowLike = {
   radius?: { value?: number; unit?: string };
   boomLength?: { value?: number; unit?: string };
   capacity?: { value?: number; unit?: string };
@@ -98,9 +99,9 @@ type RowLike = {
  * Cells where the package's chart rows differ from the version's grid: changed capacity, a row
  * added, a row removed. Compared in SI; reported in the chart's own units.
  */
-export function changedCells(grid: ChartGrid, rows: readonly RowLike[] | undefined): CellChange[] {
+export function changedCells(grid: ChartGrid, rows: readonly ChartRowLike[] | undefined): CellChange[] {
   const u = grid.units;
-  const toSI = (q: RowLike['radius']) =>
+  const toSI = (q: ChartRowLike['radius']) =>
     q && typeof q.value === 'number' && q.unit && q.unit in TO_SI
       ? q.value * TO_SI[q.unit as keyof typeof TO_SI]
       : NaN;

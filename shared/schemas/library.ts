@@ -226,8 +226,6 @@ export const VersionSummary = z.object({
   verified: z.boolean(),
 });
 
-export const GridCellView = z.object({ boomLength: z.number(), radius: z.number(), capacity: z.number() });
-
 export const VersionDetail = VersionSummary.extend({
   configurationId: z.uuid(),
   configurationName: z.string(),
@@ -314,6 +312,17 @@ export const LibraryUseBody = z.object({
   detached: z.boolean().default(false),
 });
 
+/** A crane of a lift with several cranes removed from a draft: its library use goes, later ones move up */
+export const CraneRemovedBody = z.object({
+  /** 1 to 3: the removed crane's slot; null: the lift went back to one crane (every other crane removed) */
+  slot: z
+    .number({ error: 'slot must be 1 to 3, or null for back to one crane' })
+    .int({ error: 'slot must be 1 to 3, or null for back to one crane' })
+    .min(1, { error: 'slot must be 1 to 3: the lead crane (0) is not removed this way' })
+    .max(3, { error: 'slot must be 1 to 3, or null for back to one crane' })
+    .nullable(),
+});
+
 export const ChangedCell = z.object({
   boomLength: z.number(),
   radius: z.number(),
@@ -326,6 +335,8 @@ export const LibraryUse = z.object({
   version: z.object({
     id: z.uuid(),
     number: z.number().int(),
+    /** The configuration the version belongs to (its page, for the contractor who keeps it) */
+    configurationId: z.uuid(),
     configurationName: z.string(),
     crane: z.string(),
   }),

@@ -464,6 +464,7 @@ describe('fleet library', () => {
       'post /api/library/versions/{id}/document',
       'post /api/library/versions/{id}/retire',
       'post /api/library/versions/{id}/verifications',
+      'post /api/packages/{id}/library-uses/crane-removed',
       'put /api/packages/{id}/library-uses',
     ]);
   });

@@ -22,6 +22,7 @@ function use(overrides: Partial<LibraryUse> = {}): LibraryUse {
     version: {
       id: '9d7a0e1c-3b4f-4e6a-8c2d-5f1a3b7c9e0d',
       number: 3,
+      configurationId: '3c1d2e4f-5a6b-4c7d-8e9f-0a1b2c3d4e5f',
       configurationName: 'Main boom, 18 t',
       crane: 'BW-07 — Kestrel AT-60',
     },
@@ -67,7 +68,11 @@ function versionDetail(id: string, verification: LibraryUse['verifications'][num
   };
 }
 
-function show(items: LibraryUse[], props: { canVerify?: boolean; showEmpty?: boolean } = {}, more?: Stub) {
+function show(
+  items: LibraryUse[],
+  props: { canVerify?: boolean; showEmpty?: boolean; ownFleet?: boolean } = {},
+  more?: Stub,
+) {
   const fetchMock = stubFetch(
     (url, init) =>
       more?.(url, init) ??
@@ -110,6 +115,14 @@ describe('library uses on a package', () => {
     expect(screen.queryByText(/Chart edited from library version/)).toBeNull();
   });
 
+  it('when the contractor who keeps the fleet reads it, then the crane links to its configuration opened from the package', async () => {
+    show([use()], { ownFleet: true });
+    const link = await screen.findByRole('link', { name: /BW-07 — Kestrel AT-60, Main boom, 18 t/ });
+    expect(link.getAttribute('href')).toBe(
+      `/library/configurations/3c1d2e4f-5a6b-4c7d-8e9f-0a1b2c3d4e5f?package=${PKG}`,
+    );
+  });
+
   it('when the package uses a detached, edited copy, then every changed cell is listed with both values', async () => {
     show([
       use({
@@ -145,6 +158,7 @@ describe('library uses on a package', () => {
         version: {
           id: east,
           number: 1,
+          configurationId: '4d2e3f5a-6b7c-4d8e-9f0a-1b2c3d4e5f6a',
           configurationName: 'Main boom, 18 t',
           crane: 'BW-14 — Kestrel AT-60',
         },

@@ -6,6 +6,7 @@ import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import passOutriggers from '@shared/engineering/examples/pass-outriggers.json';
 import twoCranes from '@shared/engineering/examples/caution-two-cranes.json';
+import threeCranes from '@shared/engineering/examples/caution-three-cranes.json';
 import { evaluateLift } from '@shared/engineering/evaluate';
 import { LiftInput } from '@shared/schemas/lift-input';
 import { labelOfAnyPath } from '@shared/catalogue/multi-crane-steps';
@@ -124,6 +125,10 @@ describe('several cranes in the submission editor', () => {
     expect(labelOfAnyPath('multiCrane.others.0.chart.rows.2.radius')).toBe('Crane 2: chart row 3');
     expect(labelOfAnyPath('multiCrane.loadCg.x')).toBe('Centre of gravity x');
     expect(labelOfAnyPath('crane.boomLength')).toBe('Boom length');
+    // a section no single field names reads as words, not as the raw path
+    expect(labelOfAnyPath('crane')).toBe('Crane');
+    expect(labelOfAnyPath('load')).toBe('Load');
+    expect(labelOfAnyPath('hookBlock')).toBe('Hook block');
   });
 
   describe('with the fleet library', () => {
@@ -179,6 +184,7 @@ describe('several cranes in the submission editor', () => {
       version: {
         id: VERSION_ID,
         number: 4,
+        configurationId: version.configurationId,
         configurationName: 'Main boom, 18 t',
         crane: 'BW-12 — Kestrel AT-60 east',
       },
@@ -320,6 +326,46 @@ describe('several cranes in the submission editor', () => {
       expect(other.hookBlock).toEqual({ weight: { value: 0.45, unit: 't' } });
       // crane 1 is left as it was
       expect(inputs.crane.name).toBe(passOutriggers.crane.name);
+    }, 60_000);
+
+    it('when crane 2 of three is removed, then one request asks the server to drop its use and move crane 3’s up', async () => {
+      const detail = makeDetail({ inputs: threeCranes as Record<string, unknown> });
+      let items: LibraryUse[] = [use(false), { ...use(true), slot: 2 }];
+      const fetchMock = openEditor(detail, 'cranes', (url, init) => {
+        if (url.pathname === `/api/packages/${detail.package.id}/library-uses/crane-removed`) {
+          items = [{ ...use(true), slot: 1 }];
+          return { status: 200, body: { items } };
+        }
+        if (
+          url.pathname === `/api/packages/${detail.package.id}/library-uses` &&
+          (init?.method ?? 'GET') === 'GET'
+        )
+          return { status: 200, body: { items } };
+      });
+      const user = userEvent.setup();
+      const crane3 = await screen.findByRole('region', { name: 'Crane 3' }, { timeout: 8000 });
+      await within(crane3).findByText('Detached copy of', { exact: false });
+      await user.click(screen.getByRole('button', { name: 'Remove crane 2' }));
+      await waitFor(() =>
+        expect(
+          fetchMock.mock.calls.filter(([i]) => String(i).includes('/library-uses/crane-removed')),
+        ).toHaveLength(1),
+      );
+      const call = fetchMock.mock.calls.find(([i]) => String(i).includes('/library-uses/crane-removed'))!;
+      expect(call[1]?.method).toBe('POST');
+      expect(JSON.parse(String(call[1]?.body))).toEqual({ slot: 1 });
+      // nothing is moved use by use from the browser
+      expect(
+        fetchMock.mock.calls.filter(
+          ([i, init]) =>
+            String(i).includes('/library-uses') && (init?.method === 'PUT' || init?.method === 'DELETE'),
+        ),
+      ).toEqual([]);
+      // the former crane 3 is now crane 2, still a detached copy (editable)
+      expect(screen.getAllByTestId('other-crane')).toHaveLength(1);
+      const crane2 = screen.getByRole('region', { name: 'Crane 2' });
+      await within(crane2).findByText('Detached copy of', { exact: false });
+      expect(within(crane2).getByLabelText('Crane type').matches(':disabled')).toBe(false);
     }, 60_000);
   });
 });

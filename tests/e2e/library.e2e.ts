@@ -130,6 +130,8 @@ describe('fleet library', () => {
     await errors.waitFor();
     expect(await errors.textContent()).toContain('B3: "abc" is not a number');
     expect(await page.locator('td[data-ref="B3"]').textContent()).toContain('✕ error');
+    // the preview from its units line down: the error list and the marked cell in one view
+    await page.getByText('Units read:').evaluate((el) => el.scrollIntoView({ block: 'start' }));
     await screenshot(page, 'library-import-preview');
     violations = await seriousViolations(page);
     expect(violations, describeViolations(violations)).toEqual([]);

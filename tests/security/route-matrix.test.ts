@@ -96,6 +96,7 @@ const ALLOWED: Record<string, Allowed> = {
   'POST /api/library/chart-import/text': C,
   'PUT /api/packages/:id/library-uses': C,
   'DELETE /api/packages/:id/library-uses/:slot': C,
+  'POST /api/packages/:id/library-uses/crane-removed': C,
   'POST /api/library/versions/:id/verifications': E,
   'GET /api/library/versions/:id': ALL,
   'GET /api/library/versions/:id/document': ALL,

@@ -8,7 +8,8 @@ export interface DemoPackage {
   title: string;
   example: string;
   loadDescription: string;
-  craneName: string;
+  /** The crane as the plan names it; a package built from the library takes the library's name */
+  craneName?: string;
   daysToLift: number;
   status: PackageStatus;
   engineer?: 'dev' | 'ines';
@@ -24,6 +25,22 @@ export interface DemoPackage {
   revisingAfter?: boolean;
   /** Breaks the inputs so the check run refuses them (shows the check_failed state). */
   breakInputs?: boolean;
+  /**
+   * Built from the contractor's fleet library (server/db/seed/library.ts): the crane, chart, hook
+   * block and deductions come from version 1 of that configuration; the planner's boom length and
+   * radius stay as given (or the example's).
+   */
+  library?: {
+    fleetNumber: string;
+    /** index of the configuration in the crane's list */
+    configuration: number;
+    boomLength?: { value: number; unit: 'm' | 'ft' };
+    radius?: { value: number; unit: 'm' | 'ft' };
+    /** A detached copy with one cell edited (chart units): the engineer sees it flagged */
+    editedCell?: { boomLength: number; radius: number; capacity: number };
+    /** The owner desk's engineer who verified that version's chart, on this package */
+    verifiedBy?: 'dev' | 'ines';
+  };
 }
 
 export function isoDay(offsetDays: number): string {
@@ -217,5 +234,52 @@ export const DEMO: DemoPackage[] = [
     craneName: 'S&H Titan 55 all-terrain',
     daysToLift: 20,
     status: 'draft',
+  },
+  // Packages built from the fleet library: no crane data typed, the chart picked, not pasted.
+  {
+    site: 'refinery',
+    contractor: 'brackwater',
+    title: 'Set air cooler fan deck, bay 4',
+    example: 'pass-outriggers',
+    loadDescription: 'Fan deck module AC-4',
+    daysToLift: 6,
+    status: 'with_engineer',
+    engineer: 'dev',
+    library: {
+      fleetNumber: 'BW-07',
+      configuration: 0,
+      verifiedBy: 'dev',
+    },
+  },
+  {
+    site: 'wharf',
+    contractor: 'brackwater',
+    title: 'Lift gangway landing platform, berth 2',
+    example: 'pass-outriggers',
+    loadDescription: 'Landing platform LP-2',
+    daysToLift: 11,
+    status: 'ready_for_review',
+    library: {
+      fleetNumber: 'BW-07',
+      configuration: 0,
+      radius: { value: 14, unit: 'm' },
+    },
+  },
+  {
+    site: 'refinery',
+    contractor: 'selsdon',
+    title: 'Replace compressor lube oil cooler',
+    example: 'pass-imperial-units',
+    loadDescription: 'Lube oil cooler K-101',
+    daysToLift: 9,
+    status: 'with_engineer',
+    engineer: 'ines',
+    library: {
+      fleetNumber: 'SH-9',
+      configuration: 0,
+      boomLength: { value: 100, unit: 'ft' },
+      radius: { value: 40, unit: 'ft' },
+      editedCell: { boomLength: 100, radius: 40, capacity: 68 },
+    },
   },
 ];

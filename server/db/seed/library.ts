@@ -4,7 +4,12 @@
 import type { EntityManager } from 'typeorm';
 import type { ChartGrid } from '@shared/library/chart-grid';
 import { gridCells } from '@shared/library/chart-grid';
-import type { ConfigurationDetails, CraneFixedData } from '@shared/schemas/library';
+import type {
+  ChartNotes,
+  ConfigurationDetails,
+  CraneFixedData,
+  VersionDetail,
+} from '@shared/schemas/library';
 import type { Organisation } from '../../modules/organisations/organisation.entity';
 import type { User } from '../../modules/users/user.entity';
 import {
@@ -237,10 +242,22 @@ const FLEETS: Record<string, DemoCrane[]> = {
   ],
 };
 
+const DEMO_NOTES: ChartNotes = {
+  deductions: [],
+  blockIncluded: false,
+  interpolationAllowed: false,
+  text: 'Demo chart, invented: not for use.',
+};
+
+/** Key of a seeded version: the crane's fleet number and the configuration's index in its list. */
+export const versionKey = (fleetNumber: string, configuration: number) => `${fleetNumber}#${configuration}`;
+
+/** Seeds the fleets; returns version 1 of every configuration as the API reads it, by versionKey. */
 export async function seedLibrary(
   tx: EntityManager,
   ctx: { orgs: Map<string, Organisation>; people: Map<string, User> },
-) {
+): Promise<Map<string, VersionDetail>> {
+  const seeded = new Map<string, VersionDetail>();
   for (const [orgName, cranes] of Object.entries(FLEETS)) {
     const org = ctx.orgs.get(orgName);
     const author = [...ctx.people.values()].find(
@@ -257,7 +274,7 @@ export async function seedLibrary(
         fixed: c.fixed,
         createdById: author.id,
       });
-      for (const k of c.configs) {
+      for (const [index, k] of c.configs.entries()) {
         const config = await tx
           .getRepository(LibraryConfiguration)
           .save({ craneId: crane.id, name: k.name, currentVersion: 1 });
@@ -272,12 +289,7 @@ export async function seedLibrary(
             fixed: c.fixed,
           },
           details: k.details,
-          notes: {
-            deductions: [],
-            blockIncluded: false,
-            interpolationAllowed: false,
-            text: 'Demo chart, invented: not for use.',
-          },
+          notes: DEMO_NOTES,
           document: {
             title: `${c.make} ${c.model} load chart — demo, invented`,
             edition: 'demo',
@@ -293,9 +305,36 @@ export async function seedLibrary(
           .into(LibraryChartCell)
           .values(gridCells(k.chart).map((cell) => ({ versionId: version.id, ...cell })))
           .execute();
+        seeded.set(versionKey(c.fleetNumber, index), {
+          id: version.id,
+          number: 1,
+          createdAt: version.createdAt.toISOString(),
+          createdBy: { id: author.id, name: author.name },
+          changeNote: null,
+          retiredAt: null,
+          usedBy: 0,
+          cellsChanged: null,
+          verified: false,
+          configurationId: config.id,
+          configurationName: k.name,
+          crane: {
+            id: crane.id,
+            fleetNumber: c.fleetNumber,
+            make: c.make,
+            model: c.model,
+            type: c.type,
+            fixed: c.fixed,
+          },
+          details: k.details,
+          notes: DEMO_NOTES,
+          document: { ...version.document, file: null },
+          chart: k.chart,
+          verifications: [],
+        });
       }
     }
   }
+  return seeded;
 }
 
 export const DEMO_FLEETS = FLEETS;

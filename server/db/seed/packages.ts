@@ -7,10 +7,15 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { DataSource, EntityManager } from 'typeorm';
+import { fillFromVersion } from '@shared/library/to-lift-input';
+import type { VersionDetail } from '@shared/schemas/library';
 import { LocalFolderStorage, sha256 } from '../../lib/storage';
+import { AuditEvent } from '../../modules/audit/audit-event.entity';
 import { recordAudit } from '../../modules/audit/service';
 import { InvalidLiftData, runCheckRun } from '../../modules/check-runs/service';
 import { UploadedFile } from '../../modules/files/file.entity';
+import { LibraryUseRow, LibraryVerification } from '../../modules/library/library.entity';
+import { carryLibraryUses } from '../../modules/library/uses';
 import type { Organisation } from '../../modules/organisations/organisation.entity';
 import { LiftPackage, Revision } from '../../modules/packages/package.entity';
 import { buildReturn, newVerificationCode } from '../../modules/returns/service';
@@ -20,6 +25,7 @@ import type { User } from '../../modules/users/user.entity';
 import { DEMO, isoDay, type DemoPackage } from './demo-packages';
 import { drawPlanPdf } from './plan-pdf';
 import { planSections, sketchOf } from './plan-content';
+import { versionKey } from './library';
 
 const EXAMPLES = path.resolve(
   path.dirname(fileURLToPath(import.meta.url)),
@@ -35,7 +41,13 @@ interface Seeded {
 export async function seedPackages(
   m: EntityManager,
   filesDir: string,
-  ctx: { orgs: Map<string, Organisation>; people: Map<string, User>; sites: { refinery: Site; wharf: Site } },
+  ctx: {
+    orgs: Map<string, Organisation>;
+    people: Map<string, User>;
+    sites: { refinery: Site; wharf: Site };
+    /** Version 1 of every demo configuration (seedLibrary), for the packages built from the library */
+    library: Map<string, VersionDetail>;
+  },
 ): Promise<Seeded[]> {
   const storage = new LocalFolderStorage(filesDir);
   const contractors = {
@@ -56,8 +68,14 @@ export async function seedPackages(
     const reference = `${site.code}-${String(++counters[spec.site]).padStart(4, '0')}`;
     const input = JSON.parse(fs.readFileSync(path.join(EXAMPLES, `${spec.example}.json`), 'utf8'));
     input.title = `${site.name} — ${spec.title}`;
-    input.crane.name = spec.craneName;
+    if (spec.craneName) input.crane.name = spec.craneName;
     input.load.description = spec.loadDescription;
+    const version = spec.library
+      ? ctx.library.get(versionKey(spec.library.fleetNumber, spec.library.configuration))
+      : undefined;
+    if (spec.library && !version)
+      throw new Error(`demo package "${spec.title}": no library configuration ${spec.library.fleetNumber}`);
+    if (spec.library && version) fromLibrary(input, version, spec.library);
     if (spec.breakInputs) delete input.chart;
     const pkg = await m.getRepository(LiftPackage).save({
       reference,
@@ -82,6 +100,23 @@ export async function seedPackages(
       state: 'draft',
       inputs: input,
     });
+    if (spec.library && version) {
+      await m.getRepository(LibraryUseRow).save({
+        revisionId: revision.id,
+        packageId: pkg.id,
+        slot: 0,
+        versionId: version.id,
+        detached: !!spec.library.editedCell,
+      });
+      // The library's own audit events (as library-audit.ts writes them), against the contractor.
+      await m.getRepository(AuditEvent).save({
+        packageId: pkg.id,
+        organisationId: org.id,
+        actorId: person.id,
+        action: spec.library.editedCell ? 'library.copy_detached' : 'library.version_picked',
+        detail: { revision: 1, slot: 0, configuration: version.configurationName, version: version.number },
+      });
+    }
     const pdf = await drawPlanPdf({
       contractor: org.name,
       reference,
@@ -124,6 +159,41 @@ export async function seedPackages(
     seeded.push({ spec, packageId: pkg.id, submittedRevisionId: submitted ? revision.id : null });
   }
   return seeded;
+}
+
+/**
+ * The planner's lift with the crane taken from a library version, as the editor's pick fills it:
+ * the crane, chart, hook block weight and deductions from the version; boom length, radius and
+ * slew are the planner's own (the spec's, or the example's), as is the hook block height.
+ */
+function fromLibrary(
+  input: Record<string, Record<string, unknown>>,
+  version: VersionDetail,
+  lib: NonNullable<DemoPackage['library']>,
+) {
+  const fill = fillFromVersion(version);
+  const planned = input.crane;
+  input.crane = {
+    ...fill.crane,
+    boomLength: lib.boomLength ?? planned.boomLength,
+    radius: lib.radius ?? planned.radius,
+    ...(planned.slewAngle ? { slewAngle: planned.slewAngle } : {}),
+  };
+  input.chart = fill.chart;
+  if (lib.editedCell) {
+    const e = lib.editedCell;
+    const row = fill.chart.rows?.find(
+      (r) => r.radius?.value === e.radius && r.boomLength?.value === e.boomLength,
+    );
+    if (!row)
+      throw new Error(
+        `demo edited cell ${e.boomLength} / ${e.radius} is not in ${version.configurationName}`,
+      );
+    row.capacity = { value: e.capacity, unit: version.chart.units.capacity };
+  }
+  if (fill.hookBlock) input.hookBlock = { ...input.hookBlock, ...fill.hookBlock };
+  if (fill.chartDeductions)
+    input.chartDeductions = fill.chartDeductions as unknown as Record<string, unknown>;
 }
 
 /** After the packages are committed: run their checks, then lay the review state on top. */
@@ -212,6 +282,28 @@ export async function finishSeededPackages(
           detail: { decision: spec.decision, revision: 1 },
         });
       }
+      if (spec.library?.verifiedBy && submittedRevisionId) {
+        // The desk's engineer checked this version's chart against the manufacturer's document once.
+        const by = engineers[spec.library.verifiedBy];
+        const [use] = await m
+          .getRepository(LibraryUseRow)
+          .findBy({ revisionId: submittedRevisionId, slot: 0 });
+        const note = 'Every cell against the demo chart document, edition "demo" (invented).';
+        await m.getRepository(LibraryVerification).save({
+          versionId: use.versionId,
+          ownerOrganisationId: by.organisationId,
+          engineerId: by.id,
+          packageId,
+          note,
+        });
+        await m.getRepository(AuditEvent).save({
+          packageId,
+          organisationId: by.organisationId,
+          actorId: by.id,
+          action: 'library.chart_verified',
+          detail: { version: use.versionId, number: 1, note },
+        });
+      }
       const returned = spec.status === 'returned' || spec.revisingAfter === true;
       if (returned) {
         await m.getRepository(LiftPackage).update(packageId, { status: 'decided' });
@@ -232,7 +324,10 @@ export async function finishSeededPackages(
     if (spec.revisingAfter) {
       await ds.transaction(async (m) => {
         const first = await m.getRepository(Revision).findOneByOrFail({ id: submittedRevisionId! });
-        await m.getRepository(Revision).save({ packageId, number: 2, state: 'draft', inputs: first.inputs });
+        const next = await m
+          .getRepository(Revision)
+          .save({ packageId, number: 2, state: 'draft', inputs: first.inputs });
+        await carryLibraryUses(m, first.id, next.id);
         await m
           .getRepository(LiftPackage)
           .update(packageId, { currentRevision: 2, status: 'draft', decision: null });

@@ -59,8 +59,8 @@ export async function seedScenario(
     const reviewer = people.get('rhea.okafor@tamsin-ridge.example')!;
     for (const site of [refinery, wharf])
       await m.getRepository(SiteMember).save({ siteId: site.id, userId: reviewer.id });
-    const seeded = await seedPackages(m, filesDir, { orgs, people, sites: { refinery, wharf } });
-    await seedLibrary(m, { orgs, people });
+    const library = await seedLibrary(m, { orgs, people });
+    const seeded = await seedPackages(m, filesDir, { orgs, people, sites: { refinery, wharf }, library });
     return { seeded, people, reviewer };
   });
   await finishSeededPackages(dataSource, seeded, people, reviewer, { filesDir, appUrl: opts.appUrl });

@@ -11,6 +11,7 @@ import {
   CraneList,
   CraneListQuery,
   CranePatch,
+  CraneRemovedBody,
   ExportQuery,
   LibraryUseBody,
   LibraryUseList,
@@ -202,4 +203,14 @@ describeRoute({
   tags,
   params: LibraryUseParams,
   status: 204,
+});
+describeRoute({
+  method: 'post',
+  path: '/packages/:id/library-uses/crane-removed',
+  summary:
+    'A crane of several was removed from a draft (contractor): its library use goes and the later cranes’ uses move up one slot, in one transaction',
+  tags,
+  params: LibraryIdParams,
+  body: CraneRemovedBody,
+  response: LibraryUseList,
 });

@@ -10,6 +10,7 @@ import {
   ChartTextBody,
   ConfigurationBody,
   CraneBody,
+  CraneRemovedBody,
   CraneListQuery,
   CranePatch,
   ExportQuery,
@@ -25,7 +26,7 @@ import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { chartCsv, chartXlsx, previewChartFile } from './chart-files';
 import { createCrane, getCrane, listCranes, patchCrane, retireCrane } from './cranes';
-import { listUses, removeUse, setUse } from './uses';
+import { craneRemoved, listUses, removeUse, setUse } from './uses';
 import { verifyVersion } from './verifications';
 import { attachDocument, readDocument } from './version-document';
 import {
@@ -252,6 +253,16 @@ export function libraryRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id } = valid(req, 'params', LibraryIdParams);
       res.json(await setUse(ds, currentActor(req), id, valid(req, 'body', LibraryUseBody)));
+    },
+  );
+  router.post(
+    '/packages/:id/library-uses/crane-removed',
+    contractor,
+    validate({ params: LibraryIdParams, body: CraneRemovedBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', LibraryIdParams);
+      const { slot } = valid(req, 'body', CraneRemovedBody);
+      res.json(await craneRemoved(ds, currentActor(req), id, slot));
     },
   );
   router.delete(

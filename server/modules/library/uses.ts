@@ -73,6 +73,7 @@ export async function listUses(ds: DataSource, user: U, packageId: string): Prom
         version: {
           id: v.id,
           number: v.number,
+          configurationId: k.id,
           configurationName: k.name,
           crane: craneLabel({ crane: { ...v.craneSnapshot, id: k.craneId } }),
         },
@@ -152,6 +153,48 @@ export async function removeUse(ds: DataSource, user: U, packageId: string, slot
     await m.getRepository(LibraryUseRow).delete(existing.id);
     await audit(m, user, 'library.use_removed', { revision: revision.number, slot }, pkg.id);
   });
+}
+
+/**
+ * A crane of a lift with several cranes was removed from the draft (`slot` 1 to 3), or the lift went
+ * back to one crane (`slot` null: every other crane). In one transaction, with the revision locked
+ * so two removals cannot interleave: the removed crane's use goes, and the uses of the cranes after
+ * it move up one slot with them (the lift input's `multiCrane.others` closes up the same way). The
+ * lead crane's use (slot 0) never changes here.
+ */
+export async function craneRemoved(ds: DataSource, user: U, packageId: string, slot: number | null) {
+  await ds.transaction(async (m) => {
+    const { pkg, revision } = await draftRevision(m, user, packageId);
+    await m
+      .getRepository(Revision)
+      .createQueryBuilder('r')
+      .setLock('pessimistic_write')
+      .where('r.id = :id', { id: revision.id })
+      .getOne();
+    const repo = m.getRepository(LibraryUseRow);
+    const others = await repo
+      .createQueryBuilder('u')
+      .where('u.revision_id = :id AND u.slot > 0', { id: revision.id })
+      .orderBy('u.slot', 'ASC')
+      .getMany();
+    const removed = others.filter((u) => slot === null || u.slot === slot);
+    if (removed.length) await repo.delete(removed.map((u) => u.id));
+    // Upwards in slot order: each row moves into a slot already emptied, so (revision, slot) stays unique.
+    const moved: { from: number; to: number }[] = [];
+    for (const u of others)
+      if (slot !== null && u.slot > slot) {
+        await repo.update(u.id, { slot: u.slot - 1 });
+        moved.push({ from: u.slot, to: u.slot - 1 });
+      }
+    await audit(
+      m,
+      user,
+      'library.crane_removed',
+      { revision: revision.number, slot, removed: removed.map((u) => u.slot), moved },
+      pkg.id,
+    );
+  });
+  return listUses(ds, user, packageId);
 }
 
 /** A new revision starts from the previous one's inputs: it keeps the library versions it used. */

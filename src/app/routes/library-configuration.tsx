@@ -1,14 +1,18 @@
-// /library/configurations/:id: a configuration's versions, chart and pictures (contractor).
-import { Link, useParams } from 'react-router-dom';
+// /library/configurations/:id[?package=…]: a configuration's versions, chart and pictures
+// (contractor). Opened from a package, the version it uses is shown with its lift point(s).
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useCurrentUser } from '@/lib/auth';
 import { PageHeader } from '@/components/layouts/page-header';
 import { useConfiguration } from '@/features/library/api/configurations';
 import { ConfigurationView } from '@/features/library/components/configuration-view';
+import { usePackageOnChart } from '../package-on-chart';
 
 export default function LibraryConfigurationRoute() {
   const { id = '' } = useParams();
+  const [search] = useSearchParams();
   const { data: user } = useCurrentUser();
   const config = useConfiguration(id);
+  const fromPackage = usePackageOnChart(search.get('package') ?? undefined);
   if (!user) return null;
   return (
     <>
@@ -25,7 +29,16 @@ export default function LibraryConfigurationRoute() {
           )
         }
       />
-      <ConfigurationView id={id} system={user.unitSystem} />
+      {fromPackage?.state === 'error' && (
+        <p className="mb-3 border border-rule bg-sheet px-3 py-2 text-[13px]" role="alert">
+          {fromPackage.message} Nothing of the package is drawn on the pictures.
+        </p>
+      )}
+      <ConfigurationView
+        id={id}
+        system={user.unitSystem}
+        fromPackage={fromPackage?.state === 'ready' ? fromPackage : undefined}
+      />
     </>
   );
 }

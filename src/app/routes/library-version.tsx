@@ -10,11 +10,7 @@ import { ErrorPanel } from '@/components/ui/panel-message';
 import { useVersion } from '@/features/library/api/versions';
 import { VersionPanel } from '@/features/library/components/version-panel';
 import { versionLabel } from '@shared/library/to-lift-input';
-import { craneLiftFigures } from '@shared/library/lift-points';
-import { readStoredResult } from '@shared/engineering/stored-result';
-import { useQuery } from '@tanstack/react-query';
-import { packageQueryOptions } from '@/features/packages/api/get-package';
-import { libraryUsesQueryOptions } from '@/features/library/api/library-uses';
+import { usePackageOnChart } from '../package-on-chart';
 
 export default function LibraryVersionRoute() {
   const { id = '' } = useParams();
@@ -22,20 +18,9 @@ export default function LibraryVersionRoute() {
   const packageId = search.get('package') ?? undefined;
   const { data: user } = useCurrentUser();
   const version = useVersion(id);
-  const pkg = useQuery({ ...packageQueryOptions(packageId ?? ''), enabled: !!packageId });
-  const uses = useQuery({ ...libraryUsesQueryOptions(packageId ?? ''), enabled: !!packageId });
+  const opened = usePackageOnChart(packageId);
   if (!user) return null;
-  // Opened from a package: the cranes of it that use this version, with their lift figures.
-  const slots = (uses.data?.items ?? []).filter((u) => u.version.id === id).map((u) => u.slot);
-  const fromPackage =
-    packageId && pkg.data && uses.data
-      ? {
-          reference: pkg.data.package.reference,
-          cranes: slots.map((slot) =>
-            craneLiftFigures(pkg.data.current.inputs, readStoredResult(pkg.data.current.results), slot),
-          ),
-        }
-      : undefined;
+  const fromPackage = opened?.state === 'ready' ? opened.onChart(id) : undefined;
   return (
     <>
       <PageHeader
@@ -49,7 +34,12 @@ export default function LibraryVersionRoute() {
           message={isApiError(version.error) ? version.error.message : 'Try again.'}
         />
       )}
-      {fromPackage && slots.length === 0 && (
+      {opened?.state === 'error' && (
+        <p className="mb-3 border border-rule bg-sheet px-3 py-2 text-[13px]" role="alert">
+          {opened.message} Nothing of the package is drawn on the chart.
+        </p>
+      )}
+      {fromPackage && fromPackage.cranes.length === 0 && (
         <p className="mb-3 border border-rule bg-sheet px-3 py-2 text-[13px]">
           {fromPackage.reference} does not use this version: nothing of it is drawn on the chart.
         </p>

@@ -130,7 +130,7 @@ export default function PackageDetailRoute() {
 
       <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="flex min-w-0 flex-col gap-4">
-          <LibraryUsesPanel packageId={id} />
+          <LibraryUsesPanel packageId={id} ownFleet={contractor} />
           {result ? (
             <PackageResults result={result} inputs={current.inputs} system={user.unitSystem} />
           ) : current.check.status === 'queued' || current.check.status === 'running' ? null : (

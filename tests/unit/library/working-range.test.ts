@@ -8,7 +8,7 @@ import twoCranes from '@shared/engineering/examples/caution-two-cranes.json';
 import { evaluateLift } from '@shared/engineering/evaluate';
 import { LiftInput } from '@shared/schemas/lift-input';
 import { previewText } from '@shared/library/chart-text';
-import { hookHeight, workingRange } from '@shared/library/chart-plot';
+import { hookHeight, labelSide, lineAt, workingRange } from '@shared/library/chart-plot';
 import { craneLiftFigures } from '@shared/library/lift-points';
 
 const bare = { pivotOffset: 0, pivotHeight: 0, allowance: 0 };
@@ -139,5 +139,32 @@ describe('a package on the chart', () => {
     const draft = craneLiftFigures({ crane: { type: 'mobile_outriggers' } }, result, 0);
     expect(draft.radius).toBe(result.figures.radius);
     expect(draft).toMatchObject({ blockHeight: null, neededHookHeight: null });
+  });
+});
+
+describe('where a mark on a plot is labelled', () => {
+  const line = (pts: [number, number][]) => ({
+    boomLength: 30,
+    points: pts.map(([x, y]) => ({ x, y, rated: true })),
+  });
+  const high = line([
+    [8, 28],
+    [12, 18],
+  ]);
+  const low = line([
+    [8, 10],
+    [12, 6],
+  ]);
+  it('when asked between two points, then the line is read straight between them: 28 − 10 × 2/4 = 23 at x = 10', () => {
+    expect(lineAt(high, 10)).toBe(23);
+    expect(lineAt(high, 12)).toBe(18);
+    expect(lineAt(high, 14)).toBeNull();
+  });
+  it('when every line passes above the mark, then the label goes below it; otherwise above', () => {
+    expect(labelSide([high], 10, 12)).toBe('below');
+    expect(labelSide([high, low], 10, 12)).toBe('above');
+    expect(labelSide([low], 10, 12)).toBe('above');
+    // no line reaches that far: above, where a lift beyond the chart is drawn
+    expect(labelSide([high], 20, 2)).toBe('above');
   });
 });

@@ -34,22 +34,14 @@ export function useRemoveLibraryUse(packageId: string) {
 /**
  * A crane of a lift with several cranes was removed from the editor (`slot` 1 to 3), or the lift
  * went back to one crane (`slot` null: every other crane). The cranes after it move up one place in
- * the lift input, so their library uses move up one slot with them; nothing else changes.
+ * the lift input, so the server moves their library uses up one slot with them, in one transaction.
  */
 export function useCraneRemoved(packageId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: async (slot: number | null) => {
-      const now = await api.get(base(packageId), LibraryUseList);
-      const others = now.items.filter((u) => u.slot > 0).sort((a, b) => a.slot - b.slot);
-      for (const u of others) {
-        if (slot === null || u.slot === slot) await api.delete(`${base(packageId)}/${u.slot}`);
-        else if (u.slot > slot) {
-          await api.put(base(packageId), { versionId: u.version.id, slot: u.slot - 1, detached: u.detached });
-          await api.delete(`${base(packageId)}/${u.slot}`);
-        }
-      }
-    },
-    onSettled: () => qc.invalidateQueries({ queryKey: libraryKeys.uses(packageId) }),
+    mutationFn: (slot: number | null) =>
+      api.post(`${base(packageId)}/crane-removed`, { slot }, LibraryUseList),
+    onSuccess: (data) => qc.setQueryData(libraryKeys.uses(packageId), data),
+    onError: () => qc.invalidateQueries({ queryKey: libraryKeys.uses(packageId) }),
   });
 }

@@ -8,7 +8,8 @@ import { Button } from '@/components/ui/button';
 import { ErrorPanel } from '@/components/ui/panel-message';
 import { useChartPreview, type ChartPreview } from '../api/chart-import';
 
-const EXAMPLE = 'radius (m) / boom (m) / capacity (t)\t12.2\t18.3\n3\t40\t\n5\t30\t28';
+// Shown as the empty box's placeholder, said to be an example so it is not taken for content.
+const EXAMPLE = 'For example:\nradius (m) / boom (m) / capacity (t)\t12.2\t18.3\n3\t40\t\n5\t30\t28';
 
 function PreviewTable({ preview }: { preview: ChartPreview }) {
   return (
@@ -149,8 +150,8 @@ export function ChartImport({
           {p.errors.length > 0 && (
             <div role="alert" className="border border-l-4 border-fail-ink bg-fail-tint px-3 py-2">
               <h3 className="text-sm font-bold text-fail-ink">
-                ✕ {p.errors.length} error{p.errors.length === 1 ? '' : 's'}: fix them in the source and read
-                it again
+                ✕ {p.errors.length === 1 ? '1 error: fix it' : `${p.errors.length} errors: fix them`} in the
+                source and read it again
               </h3>
               <ul className="list-disc pl-5 text-[13px]">
                 {p.errors.map((e, k) => (

@@ -5,13 +5,15 @@
 // well as colours tell the lines apart so the plot reads in greyscale print.
 import { useId, useState, type ReactNode } from 'react';
 import type { ChartGrid } from '@shared/library/chart-grid';
-import { capacityLines, ticks, workingRange, type PlotLine } from '@shared/library/chart-plot';
+import { capacityLines, labelSide, ticks, workingRange, type PlotLine } from '@shared/library/chart-plot';
 import type { CraneLiftFigures } from '@shared/library/lift-points';
 import { TO_SI } from '@shared/engineering/units';
 
-const W = 520;
-const H = 300;
-const PAD = { l: 52, r: 16, t: 14, b: 40 };
+// Near the width a plot is drawn at beside its neighbour on a desktop (about 420 px), so the
+// 11 to 12 px labels read at their size rather than scaled down.
+const W = 440;
+const H = 280;
+const PAD = { l: 50, r: 14, t: 14, b: 38 };
 const STROKES = ['#0f5f5b', '#a4461b', '#1a4c95', '#51368a', '#1c6434', '#7a4700', '#16191c'];
 const DASHES = ['', '6 3', '2 3', '10 3 2 3', '1 2', '8 2 2 2 2 2', '4 4'];
 const MARK = '#9b1c1c';
@@ -129,15 +131,18 @@ function Plot({
           </g>
         ))}
         {marks.map((p, k) => {
-          // labels to the left of a mark in the right half, so they stay on the plot
-          const right = sx(p.x) > W * 0.6;
+          // labels to the left of a mark when they would run off the plot to its right (about 6.6
+          // units a character in 12 px bold); below the mark when the lines all pass above it (room
+          // down to the axis permitting), so none crosses them
+          const right = sx(p.x) + 9 + p.label.length * 6.6 > W - 2;
+          const down = labelSide(lines, p.x, p.y) === 'below' && sy(p.y) + 22 + 13 * k < H - PAD.b - 4;
           return (
             <g key={p.label} data-testid="plot-mark">
               <Shape x={sx(p.x)} y={sy(p.y)} />
               <text
                 x={sx(p.x) + (right ? -9 : 9)}
-                y={sy(p.y) - 9 - 13 * k}
-                fontSize="11"
+                y={down ? sy(p.y) + 20 + 13 * k : sy(p.y) - 9 - 13 * k}
+                fontSize="12"
                 fontWeight="bold"
                 textAnchor={right ? 'end' : 'start'}
                 fill={MARK}

@@ -83,8 +83,8 @@ export function ConfigurationForm({
     </label>
   );
   const submit = () => {
-    // Built as typed; the schema checks the units and numbers and names what is wrong.
-    const body = {
+    // The draft as typed (units as strings); the schema below checks it and gives the typed body.
+    const draft = {
       details: {
         workingArea: d.workingArea,
         ...(d.outriggerSpread ? { outriggerSpread: d.outriggerSpread } : {}),
@@ -115,14 +115,14 @@ export function ConfigurationForm({
         ...(d.edition.trim() ? { edition: d.edition } : {}),
         ...(d.page.trim() ? { page: d.page } : {}),
       },
-      chart: chart ?? undefined,
+      chart,
       ...(d.changeNote.trim() ? { changeNote: d.changeNote } : {}),
     };
     const fieldsMissing = [];
     if (withName && !name.trim()) fieldsMissing.push({ path: 'name', message: 'name is required' });
     if (!chart)
       fieldsMissing.push({ path: 'chart', message: 'import the load chart and accept its preview' });
-    const parsed = VersionBody.safeParse(body);
+    const parsed = VersionBody.safeParse(draft);
     const found = [
       ...fieldsMissing,
       ...(parsed.success
@@ -281,10 +281,16 @@ export function ConfigurationForm({
         )}
       </section>
       {from && tx('What changed (shown in the history)', 'changeNote', 'changeNote')}
-      <div>
+      <div className="flex flex-wrap items-center gap-3 border-t border-rule pt-3">
         <Button type="submit" variant="primary" disabled={busy}>
           {busy ? 'Saving…' : submitLabel}
         </Button>
+        {!chart && (
+          <p className="text-[13px] text-ink-soft" data-testid="chart-not-accepted">
+            No chart accepted yet: read the pasted cells or the file above, check the preview, then press “Use
+            this chart”.
+          </p>
+        )}
       </div>
     </form>
   );

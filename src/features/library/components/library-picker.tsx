@@ -159,7 +159,3 @@ export function useLibraryLocks(packageId: string): readonly boolean[] {
     return !!use && !use.detached;
   });
 }
-
-export function useLibraryLock(packageId: string, slot = 0): boolean {
-  return useLibraryLocks(packageId)[slot] ?? false;
-}

@@ -47,8 +47,11 @@ export function LibraryUsesPanel({
   packageId,
   canVerify = false,
   showEmpty = false,
+  ownFleet = false,
 }: {
   packageId: string;
+  /** The contractor who keeps the fleet: a crane links to its configuration (history, edit) */
+  ownFleet?: boolean;
   /** An engineer of the owner desk: offer the verification of a chart the desk has not verified */
   canVerify?: boolean;
   /** Say so when no crane comes from the library (the review workspace), instead of showing nothing */
@@ -78,7 +81,11 @@ export function LibraryUsesPanel({
             <p>
               {several && <strong>Crane {u.slot + 1}: </strong>}
               <Link
-                to={`/library/versions/${u.version.id}?package=${packageId}`}
+                to={
+                  ownFleet
+                    ? `/library/configurations/${u.version.configurationId}?package=${packageId}`
+                    : `/library/versions/${u.version.id}?package=${packageId}`
+                }
                 className="font-bold text-verdigris underline underline-offset-2"
               >
                 {u.version.crane}, {u.version.configurationName}

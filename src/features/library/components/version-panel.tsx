@@ -70,12 +70,16 @@ export function VerificationBlock({
   version,
   canVerify,
   packageId,
+  place = 'form',
 }: {
   version: VersionDetail;
   canVerify: boolean;
   packageId?: string;
+  /** Above the chart a line says where to verify; the form itself sits below the chart, once read */
+  place?: 'notice' | 'form';
 }) {
   const v = version.verifications[0];
+  if (v && place === 'form') return null;
   if (v)
     return (
       <p
@@ -87,6 +91,13 @@ export function VerificationBlock({
       </p>
     );
   if (!canVerify) return null;
+  if (place === 'notice')
+    return (
+      <p className="border border-l-4 border-caution-ink bg-caution-tint px-3 py-2 text-sm" role="note">
+        <strong>Not yet verified by your desk.</strong> Compare the chart below with the manufacturer's
+        document, then mark it verified under the chart.
+      </p>
+    );
   return <VerifyForm versionId={version.id} packageId={packageId} />;
 }
 
@@ -197,7 +208,7 @@ export function VersionPanel({
           )}
         </dd>
       </dl>
-      <VerificationBlock version={version} canVerify={canVerify} packageId={packageId} />
+      <VerificationBlock version={version} canVerify={canVerify} packageId={packageId} place="notice" />
       <ChartPlots
         grid={version.chart}
         pivotOffset={si(version.crane.fixed.pivotOffset)}
@@ -205,6 +216,7 @@ export function VersionPanel({
         fromPackage={fromPackage}
       />
       <ChartGridTable grid={version.chart} caption={`Load chart, version ${version.number}`} />
+      <VerificationBlock version={version} canVerify={canVerify} packageId={packageId} />
       <div className="flex gap-2">
         <a className={buttonClasses('secondary', 'sm')} href={chartFileUrl(version.id, 'csv')}>
           Export CSV
