@@ -42,8 +42,20 @@ const CASES: Array<[string, z.ZodType, (bad: string) => unknown, string]> = [
   [
     'decision conditions',
     DecisionBody,
-    (t) => ({ decision: 'accepted_as_noted', conditions: t, baseVersion: 1 }),
+    (t) => ({ decision: 'accepted_as_noted', conditions: t, baseVersion: 1, password: 'pw' }),
     'conditions',
+  ],
+  [
+    'decision override reason',
+    DecisionBody,
+    (t) => ({
+      decision: 'accepted',
+      conditions: '',
+      overrideReason: `${t} — the failing check is answered by the trial lift`,
+      baseVersion: 1,
+      password: 'pw',
+    }),
+    'overrideReason',
   ],
   [
     'markup text',
