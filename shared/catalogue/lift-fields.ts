@@ -435,15 +435,5 @@ export function labelOfPath(path: string): string {
     return index === undefined ? 'Chart rows' : `Chart row ${Number(index) + 1}`;
   }
   if (clean === 'chart') return 'Load chart';
-  return inWords(clean);
-}
-
-/** A path no field names, said in words ("crane" → "Crane", "hookBlock.x" → "Hook block: x"). */
-function inWords(path: string): string {
-  const text = path
-    .split('.')
-    .filter((s) => !/^\d+$/.test(s))
-    .map((s) => s.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase())
-    .join(': ');
-  return text.charAt(0).toUpperCase() + text.slice(1);
+  return clean;
 }

@@ -10,6 +10,7 @@ import threeCranes from '@shared/engineering/examples/caution-three-cranes.json'
 import { evaluateLift } from '@shared/engineering/evaluate';
 import { LiftInput } from '@shared/schemas/lift-input';
 import { labelOfAnyPath } from '@shared/catalogue/multi-crane-steps';
+import { readableField } from '@shared/catalogue/readable-issue';
 import type { LibraryUse, VersionDetail } from '@shared/schemas/library';
 import { makeUser, renderApp, stubFetch } from './support';
 import { makeDetail } from './package-fixtures';
@@ -125,10 +126,12 @@ describe('several cranes in the submission editor', () => {
     expect(labelOfAnyPath('multiCrane.others.0.chart.rows.2.radius')).toBe('Crane 2: chart row 3');
     expect(labelOfAnyPath('multiCrane.loadCg.x')).toBe('Centre of gravity x');
     expect(labelOfAnyPath('crane.boomLength')).toBe('Boom length');
-    // a section no single field names reads as words, not as the raw path
-    expect(labelOfAnyPath('crane')).toBe('Crane');
-    expect(labelOfAnyPath('load')).toBe('Load');
-    expect(labelOfAnyPath('hookBlock')).toBe('Hook block');
+    // a section no single field names reads as words, not as the raw path (what the live check
+    // and the submit list show: readableField over the catalogue)
+    expect(readableField('crane')).toBe('Crane');
+    expect(readableField('load')).toBe('Load');
+    expect(readableField('hookBlock')).toBe('Hook block');
+    expect(readableField('query.pageSize')).toBe('Page size');
   });
 
   describe('with the fleet library', () => {

@@ -6,7 +6,7 @@ import { useNavigate } from 'react-router-dom';
 import type { PackageDetail } from '@shared/schemas/packages';
 import { isApiError, type FieldError } from '@/lib/api-client';
 import { stepOfPath, type StepId } from '@shared/catalogue/lift-fields';
-import { labelOfAnyPath as labelOfPath } from '@shared/catalogue/multi-crane-steps';
+import { readableField as labelOfPath } from '@shared/catalogue/readable-issue';
 import { useSubmitPackage } from '../api/submit-package';
 import { liftPath, type useLiftForm } from './use-lift-form';
 

@@ -9,7 +9,7 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { isApiError } from '@/lib/api-client';
 import { useCompare } from '../api/get-compare';
 import { FindingEntry } from '@/components/findings/finding-entry';
-import { labelOfAnyPath as labelOfPath } from '@shared/catalogue/multi-crane-steps';
+import { readableField as labelOfPath } from '@shared/catalogue/readable-issue';
 
 const STATUSES = ['pass', 'caution', 'fail', 'not_applicable'];
 

@@ -13,8 +13,7 @@ import { FixList, ResultCautions } from '@/components/lift/fixes-and-triggers';
 import { withoutLabel } from '@/components/lift/discrepancy-list';
 import { CraneShares } from '@/components/lift/crane-shares';
 import { prune } from '../../lib/prune';
-import { labelOfAnyPath } from '@shared/catalogue/multi-crane-steps';
-import { readableIssue } from '@shared/catalogue/readable-issue';
+import { readableField, readableIssue } from '@shared/catalogue/readable-issue';
 
 type Outcome =
   | { ok: true; result: LiftResult }
@@ -32,7 +31,7 @@ export function runLiveCheck(values: unknown, system: UnitSystem): Outcome {
       const path = issue.path.map(String).join('.');
       if (seen.has(path)) continue;
       seen.add(path);
-      missing.push({ path, label: labelOfAnyPath(path), message: readableIssue(path, issue.message) });
+      missing.push({ path, label: readableField(path), message: readableIssue(path, issue.message) });
     }
     return { ok: false, missing: missing.slice(0, SHOW_MISSING), total: missing.length };
   }

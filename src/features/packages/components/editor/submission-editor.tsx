@@ -8,7 +8,7 @@ import { useSearchParams } from 'react-router-dom';
 import type { UnitSystem } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
 import { STEPS, stepOfPath, type StepId } from '@shared/catalogue/lift-fields';
-import { labelOfAnyPath } from '@shared/catalogue/multi-crane-steps';
+import { readableField } from '@shared/catalogue/readable-issue';
 import { draftInputs } from '../../lib/prune';
 import { useDraftAutosave } from '../../hooks/use-draft-autosave';
 import { formValues, isTouched, useLiftForm, useLiftIssues, useLiftValues } from '../../hooks/use-lift-form';
@@ -176,7 +176,7 @@ export function SubmissionEditor({
                 }}
                 problems={problemPaths.map((path) => ({
                   step: stepOfPath(path),
-                  label: labelOfAnyPath(path),
+                  label: readableField(path),
                   message: '',
                 }))}
                 planMissing={submission.planMissing}
