@@ -69,4 +69,21 @@ describe('spreader and lifting beams', () => {
     expect(r.success).toBe(false);
     expect(JSON.stringify(r.error!.issues)).toContain('rigging.beam.slingsBelow.legs[].pickPoint');
   });
+
+  it('when a drop gives its length but neither its horizontal distance nor its angle, then the input is refused naming the field', () => {
+    const legs = [{ length: q(3, 'm'), pickPoint: drops.legs[0].pickPoint }, drops.legs[1]];
+    const r = LiftInput.safeParse(withBeam({ ...beam, slingsBelow: { ...drops, legs } }));
+    expect(r.success).toBe(false);
+    expect(r.error!.issues.map((i) => i.path.join('.'))).toContain(
+      'rigging.beam.slingsBelow.legs.0.horizontalDistance',
+    );
+  });
+
+  it('when a drop is given by length 5 m and horizontal distance 3 m, then its angle is acos(3/5) = 53.13° and T = V ÷ 0.8', () => {
+    const legs = [{ ...drops.legs[0], length: q(5, 'm'), horizontalDistance: q(3, 'm') }, drops.legs[1]];
+    const raw = withBeam({ ...beam, slingsBelow: { ...drops, legs } });
+    expect(item(raw, 'rigging.below.angle-1').value).toBeCloseTo((Math.acos(0.6) * 180) / Math.PI, 9);
+    // V1 = 6 t as before; sin θ = 4/5, so T1 = 6 ÷ 0.8 = 7.5 t
+    expect(tonnes(item(raw, 'rigging.below.leg-1').value!)).toBeCloseTo(7.5, 9);
+  });
 });

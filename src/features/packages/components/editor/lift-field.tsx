@@ -45,8 +45,10 @@ function FieldInput({
   errorId: string;
   invalid: boolean;
   label: string;
+  /** A list cell: narrower, and with no <label> of its own it is named by its list, row and column. */
   compact?: boolean;
 }) {
+  const named = compact ? label : undefined;
   const { control } = useLiftFormContext();
   const describedBy = invalid ? errorId : undefined;
   return (
@@ -68,6 +70,7 @@ function FieldInput({
                 invalid={invalid}
                 describedBy={describedBy}
                 compact={compact}
+                ariaLabel={named}
               />
             );
           case 'number':
@@ -80,6 +83,7 @@ function FieldInput({
                   onBlur={field.onBlur}
                   aria-invalid={invalid ? true : undefined}
                   aria-describedby={describedBy}
+                  aria-label={named}
                   className={compact ? 'w-20' : 'w-28'}
                 />
                 {def.suffix && <span className="text-[13px] text-ink-soft">{def.suffix}</span>}
@@ -94,6 +98,7 @@ function FieldInput({
                 onBlur={field.onBlur}
                 aria-invalid={invalid ? true : undefined}
                 aria-describedby={describedBy}
+                aria-label={named}
                 className={`${textInput} px-1`}
               >
                 <option value="">Not given</option>
@@ -115,6 +120,7 @@ function FieldInput({
                 onBlur={field.onBlur}
                 aria-invalid={invalid ? true : undefined}
                 aria-describedby={describedBy}
+                aria-label={named}
                 className={textInput}
               />
             );
