@@ -48,6 +48,9 @@ export const SOURCES = {
     text: 'Equalised four-leg bridle: the balanced shares nearest to equal (common practice, no source)',
   } as Source,
   verticalShare: std('Statics: the vertical share of a leg = its tension × sin(angle from horizontal)'),
+  beamDrops: std(
+    'Statics of a beam on two drops (lever rule): each drop carries W × the other drop’s distance from the centre of gravity ÷ the drop spacing',
+  ),
   trackMats: {
     kind: 'common_practice',
     text: 'Rigid mats under a crawler track spread its pressure across the mat length (common practice, no source)',
