@@ -183,7 +183,7 @@ function ListField({ def, system }: { def: Extract<FieldDef, { kind: 'list' }>; 
   const schemaError = useFieldError(def.path);
   const listError = node?.message ?? node?.root?.message ?? (fields.length === 0 ? schemaError : undefined);
   return (
-    <fieldset className="col-span-full flex flex-col gap-1.5">
+    <fieldset className="col-span-full flex min-w-0 flex-col gap-1.5">
       <legend className="mb-1 text-[13px] font-bold">{def.label}</legend>
       {def.hint && <p className="text-[12.5px] text-ink-soft">{def.hint}</p>}
       {fields.length > 0 && (
