@@ -86,6 +86,10 @@ export const SOURCES = {
     text: 'Eccentric footing: trapezoidal pressure when e ≤ L/6, triangular when e > L/6 (statics)',
   } as Source,
   statics: { kind: 'computed', text: 'Statics (moment = force × lever arm)' } as Source,
+  gantryBackward: {
+    kind: 'common_practice',
+    text: 'A backstay carries tension only: unloaded, the frame must still lean on it (statics; common practice, no source)',
+  } as Source,
   input: { kind: 'input', text: 'as entered' } as Source,
   manufacturerChart: { kind: 'input', text: "Manufacturer's load chart rows as entered" } as Source,
   policy: (what: string): Source => ({ kind: 'site_policy', text: `site policy: ${what}` }),
