@@ -56,6 +56,25 @@ describe('two cranes', () => {
     expect(findItem(r, 'tandem.sensitivity-1').formulaText).toMatch(/0\.500 m/);
     expect(r.critical.triggers.map((x) => x.id)).toContain('tandem');
   });
+  it('when each crane has its own reeving, then its supports and its line pull carry its share, not the whole load', () => {
+    // Each crane weighs 20 + 15 + 30 + 4 = 69 t; its supports carry that and its gross share:
+    // A 69 + 12.5 = 81.5 t, B 69 + 8.3 = 77.3 t (with the whole 20 t it would be 89.5 t).
+    // Line pull: 4 parts over 3 roller sheaves, K = 1.04: F = W·K^S(K − 1)/(K^N − 1).
+    const l = twoCranes();
+    const reeving = { partsOfLine: 4, sheavesPassed: 3, bearing: 'roller' } as const;
+    l.reeving = reeving;
+    l.multiCrane!.others[0].reeving = reeving;
+    const r = run(l);
+    const K = 1.04;
+    const factor = (K ** 3 * (K - 1)) / (K ** 4 - 1);
+    const sum = (c: { figures: { supportReactions: { reaction: number }[] } | null }) =>
+      c.figures!.supportReactions.reduce((a, s) => a + s.reaction, 0);
+    expect(sum(r.cranes![0])).toBeCloseTo(t(81.5), 4);
+    expect(sum(r.cranes![1])).toBeCloseTo(t(77.3), 4);
+    expect(r.cranes![0].figures!.linePull).toBeCloseTo(t(12.5) * factor, 6);
+    expect(r.cranes![1].figures!.linePull).toBeCloseTo(t(8.3) * factor, 6);
+    expect(findItem(r, 'crane-2.reeving.line-pull').value).toBeCloseTo(t(8.3) * factor, 6);
+  });
   it('when the CG lies outside the picks, then the shares fail (a crane would push the load up)', () => {
     const l = twoCranes();
     l.multiCrane!.loadCg = at(7, 0);
