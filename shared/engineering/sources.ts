@@ -83,7 +83,7 @@ export const SOURCES = {
   } as Source,
   eccentricFooting: {
     kind: 'common_practice',
-    text: 'Eccentric footing: trapezoidal pressure when e ≤ L/6, triangular when e > L/6 (statics)',
+    text: 'Eccentric footing, the track taken as rigid: trapezoidal pressure when e ≤ L/6, triangular when e > L/6 (statics; common practice, no source)',
   } as Source,
   statics: { kind: 'computed', text: 'Statics (moment = force × lever arm)' } as Source,
   gantryBackward: {
