@@ -75,6 +75,38 @@ describe('two cranes', () => {
     expect(r.cranes![1].figures!.linePull).toBeCloseTo(t(8.3) * factor, 6);
     expect(findItem(r, 'crane-2.reeving.line-pull').value).toBeCloseTo(t(8.3) * factor, 6);
   });
+  it('when crane 2 has its own slings, then they carry its share: 8 t on two legs at 60° is 4.619 t a leg', () => {
+    const l = twoCranes();
+    l.multiCrane!.others[0].rigging = {
+      slings: {
+        material: 'wire',
+        hitch: 'vertical',
+        ratedLoadVertical: q(5, 't'),
+        legs: [{ angle: q(60, 'deg') }, { angle: q(60, 'deg') }],
+      },
+    };
+    const r = run(l);
+    // T = 8 t ÷ (2 sin 60°) = 4.6188 t, under its 5 t rating; with the whole 20 t it would be 11.5 t
+    expect(findItem(r, 'crane-2.rigging.leg-1').value).toBeCloseTo(t(8 / (2 * Math.sin(Math.PI / 3))), 6);
+    expect(findItem(r, 'crane-2.rigging.leg-1').status).not.toBe('fail');
+    // crane 1 has no slings of its own: nothing is checked in its name
+    expect(findItem(r, 'rigging.leg-1').status).toBe('not_applicable');
+  });
+  it('when the site sets a 25% two-crane margin, then crane 1 may carry 24 ÷ 1.25 = 19.2 t', () => {
+    const r = run(twoCranes(), { tandemMarginPct: { twoCranes: 25, threeCranes: 33, fourOrMore: 50 } });
+    expect(r.multiCrane!.marginPct).toBe(25);
+    expect(findItem(r, 'tandem.crane-1').limit).toBeCloseTo(t(19.2), 6);
+  });
+  it('when the planner states a CG uncertainty of 10% of the pick spacing, then crane 1’s share ranges 10 t to 14 t', () => {
+    // CG moved 0.1 × 10 m = 1 m: A = 20 × (6 ∓ 1) ÷ 10
+    const l = twoCranes();
+    l.multiCrane!.cgOffsetFraction = 0.1;
+    const r = run(l);
+    expect(r.cranes![0].shareRange!.min).toBeCloseTo(t(10), 6);
+    expect(r.cranes![0].shareRange!.max).toBeCloseTo(t(14), 6);
+    expect(r.cranes![1].shareRange!.min).toBeCloseTo(t(6), 6);
+    expect(r.cranes![1].shareRange!.max).toBeCloseTo(t(10), 6);
+  });
   it('when the CG lies outside the picks, then the shares fail (a crane would push the load up)', () => {
     const l = twoCranes();
     l.multiCrane!.loadCg = at(7, 0);
