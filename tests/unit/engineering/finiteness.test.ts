@@ -156,4 +156,50 @@ describe('finite results for every accepted input', () => {
       { numRuns: 300 },
     );
   });
+
+  it('when a lift of 2 to 4 cranes takes any load, centre of gravity, pick points and stated shares up to their bounds, then every number is finite and nothing passes without a value', () => {
+    const W = QUANTITY_MAX_SI.weight;
+    const L = QUANTITY_MAX_SI.length;
+    const signed = magnitude(L).chain((x) => fc.constantFrom(x, -x));
+    const pick = fc.record({ x: signed, y: signed });
+    fc.assert(
+      fc.property(
+        fc.record({
+          load: magnitude(W),
+          cg: pick,
+          picks: fc.array(pick, { minLength: 2, maxLength: 4 }),
+          shares: fc.array(magnitude(W), { minLength: 4, maxLength: 4 }),
+          stated: fc.boolean(),
+          fraction: fc.double({ min: 0, max: 0.5, noNaN: true }),
+        }),
+        (v) => {
+          const t = (si: number) => q(si / TO_SI.t, 't');
+          const at = (p: { x: number; y: number }) => ({ x: q(p.x, 'm'), y: q(p.y, 'm') });
+          const lift = outriggerLift();
+          lift.load = { weight: t(v.load) };
+          const base = outriggerLift();
+          lift.multiCrane = {
+            loadCg: at(v.cg),
+            cgOffsetFraction: v.fraction,
+            lead: { pickPoint: at(v.picks[0]), ...(v.stated ? { statedShare: t(v.shares[0]) } : {}) },
+            others: v.picks.slice(1).map((p, i) => ({
+              crane: base.crane,
+              chart: base.chart,
+              hookBlock: { weight: q(0.3, 't') },
+              pickPoint: at(p),
+              ...(v.stated ? { statedShare: t(v.shares[i + 1]) } : {}),
+            })),
+          };
+          const out = checkLift(lift);
+          fc.pre(out.ok);
+          if (!out.ok) return;
+          expect(badNumbers(out.result)).toEqual([]);
+          expect(passesWithoutValue(out.result)).toEqual([]);
+          for (const c of out.result.cranes ?? [])
+            expect(passesWithoutValue({ ...out.result, checks: c.checks })).toEqual([]);
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
 });
