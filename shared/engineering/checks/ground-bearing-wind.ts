@@ -1,12 +1,12 @@
 // The wind cases of the ground-bearing check: for each slew the wind is tried from the directions
-// that load each corner most, along the axes and straight out along the eccentricity; the largest
-// reaction or pressure governs. Under crawler tracks the peak pressure is not linear in the wind's
-// direction (the triangular block shortens as the eccentricity grows), so the least favourable
-// direction lies between those: worstWind() searches the whole circle for it.
+// that load each corner most, along each edge's normal and straight out along the eccentricity; the
+// largest reaction or pressure governs. Where the result is not linear in the wind's direction (the
+// triangular block under a crawler track shortens as the eccentricity grows; three outriggers once
+// one lifts off) the least favourable direction lies between those: worstWind() searches the whole
+// circle for it.
 import { DEG } from '../units';
 
 export const NO_WIND = [0, 0] as const;
-export const CALM = [undefined];
 
 /** The calm resultant moved by a wind moment M blowing along the plan direction dir. */
 export function withWind(

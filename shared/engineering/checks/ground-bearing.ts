@@ -12,7 +12,7 @@
 import { planModel, resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { check, f, item, term, type Ctx } from '../context';
 import { pressureItem } from './ground-bearing-pressure';
-import { CALM, NO_WIND, withWind } from './ground-bearing-wind';
+import { NO_WIND, withWind, worstWind } from './ground-bearing-wind';
 import { gantryStatics } from './stability-gantry';
 import { fourSupportReactions, supportReactions } from './support-reactions';
 import { crawler } from './ground-bearing-tracks';
@@ -20,40 +20,72 @@ import { SOURCES } from '../sources';
 import { si } from '../units';
 import type { CheckItem, CheckResult, Fix, LiftFigures } from '../types';
 
+const EDGE_NORMALS = [
+  [1, 0],
+  [-1, 0],
+  [0, 1],
+  [0, -1],
+] as const;
+
 function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckItem[], fixes?: Fix[]) {
   const entered = ctx.input.crane.slewAngle;
   const slews = entered ? [entered.value] : SLEW_SWEEP;
   let worst = { max: -Infinity, R: [0, 0, 0, 0], slew: 0, liftOff: -1, V: 0, ex: 0, ey: 0 };
   let tips: { slew: number; edge: string; ex: number; ey: number; V: number } | null = null;
+  type Case = {
+    p: number;
+    R: number[] | null;
+    liftOff: number;
+    V: number;
+    ex: number;
+    ey: number;
+  };
+  const at = (r: { V: number; ex: number; ey: number }): Case => {
+    const ex = r.ex - m.x0;
+    const R = supportReactions(r.V, ex, r.ey, m.a, m.b);
+    if (!R) return { p: Infinity, R: null, liftOff: -1, V: r.V, ex, ey: r.ey };
+    const four = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
+    let liftOff = -1;
+    for (let i = 0; i < 4; i++) if (four[i] < 0 && (liftOff < 0 || four[i] < four[liftOff])) liftOff = i;
+    return { p: Math.max(R[0], R[1], R[2], R[3]), R, liftOff, V: r.V, ex, ey: r.ey };
+  };
   for (const t of slews) {
     const calm = resultant(m, t, NO_WIND);
-    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : CALM;
-    for (const dir of dirs) {
-      const r = dir ? withWind(calm, m.windMoment, dir) : calm;
-      const ex = r.ex - m.x0;
-      const R = supportReactions(r.V, ex, r.ey, m.a, m.b);
-      if (!R) {
-        // no compressive reactions balance the crane: it tips about the line the resultant is beyond
-        if (!tips) {
-          let e = 0;
-          let beyond = -Infinity;
-          m.edges.forEach((E, i) => {
-            const over = E.nx * r.ex + E.ny * r.ey - E.d;
-            if (over > beyond) {
-              beyond = over;
-              e = i;
-            }
-          });
-          tips = { slew: t, edge: m.edges[e].label, ex, ey: r.ey, V: r.V };
-        }
-        continue;
+    const M = m.windMoment;
+    // the corner and the eccentricity directions load a corner most while all four supports bear
+    // (the reactions are linear in the wind there); along each edge's normal the wind takes the
+    // resultant furthest past that edge, so those four decide whether any wind tips the crane
+    const dirs: (readonly [number, number])[] =
+      M > 0 ? [...windDirections(m.a, m.b, calm.ex - m.x0, calm.ey), ...EDGE_NORMALS] : [];
+    const cases = [calm, ...dirs.map((d) => withWind(calm, M, d))].map(at);
+    const tipped = cases.find((c) => c.R === null);
+    if (tipped) {
+      // no compressive reactions balance the crane: it tips about the line the resultant is beyond
+      if (!tips) {
+        const r = { ex: tipped.ex + m.x0, ey: tipped.ey };
+        let e = 0;
+        let beyond = -Infinity;
+        m.edges.forEach((E, k) => {
+          const over = E.nx * r.ex + E.ny * r.ey - E.d;
+          if (over > beyond) {
+            beyond = over;
+            e = k;
+          }
+        });
+        tips = { slew: t, edge: m.edges[e].label, ex: tipped.ex, ey: tipped.ey, V: tipped.V };
       }
-      const four = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
-      let liftOff = -1;
-      for (let i = 0; i < 4; i++) if (four[i] < 0 && (liftOff < 0 || four[i] < four[liftOff])) liftOff = i;
-      const mx = Math.max(R[0], R[1], R[2], R[3]);
-      if (mx > worst.max * (1 + 1e-9)) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
+      continue;
     }
+    let c = cases[0];
+    for (const k of cases) if (k.p > c.p * (1 + 1e-9)) c = k;
+    // once a support lifts off, the three-support reactions are no longer linear in the wind:
+    // search the wind's direction over the whole circle
+    if (M > 0 && cases.some((k) => k.liftOff >= 0)) {
+      const k = worstWind((d) => at(withWind(calm, M, d)), dirs);
+      if (k.R && k.p > c.p * (1 + 1e-9)) c = k;
+    }
+    if (c.p > worst.max * (1 + 1e-9))
+      worst = { max: c.p, R: c.R!, slew: t, liftOff: c.liftOff, V: c.V, ex: c.ex, ey: c.ey };
   }
   if (tips) {
     figures.supportReactions = [];
