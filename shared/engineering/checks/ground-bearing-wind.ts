@@ -17,13 +17,13 @@ export function withWind(
   return r.V > 0 ? { V: r.V, ex: r.ex + (M * dir[0]) / r.V, ey: r.ey + (M * dir[1]) / r.V } : r;
 }
 
-const SWEEP_STEP = 15;
+const SWEEP_STEP = 45;
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
 
 /**
- * The case of the least favourable wind direction: the seed directions and every 15° are tried,
- * then a golden-section search within 15° either side of the worst of them (40 steps: well under
- * a millionth of a degree). `peak` gives the case for a unit plan direction; its `p` is maximised.
+ * The case of the least favourable wind direction: the seed directions and every 45° are tried,
+ * then a golden-section search within 45° either side of the worst of them (24 steps: under a
+ * thousandth of a degree). `peak` gives the case for a unit plan direction; its `p` is maximised.
  */
 export function worstWind<T extends { p: number }>(
   peak: (dir: readonly [number, number]) => T,
@@ -47,7 +47,7 @@ export function worstWind<T extends { p: number }>(
   let x2 = lo + GOLDEN * (hi - lo);
   let c1 = at(x1);
   let c2 = at(x2);
-  for (let i = 0; i < 40; i++) {
+  for (let i = 0; i < 24; i++) {
     if (c1.p >= c2.p) {
       hi = x2;
       x2 = x1;

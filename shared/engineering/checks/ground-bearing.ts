@@ -9,6 +9,7 @@
 //   largest reaction or pressure governs. Crawler tracks as eccentric footings, on mats or not:
 //   ground-bearing-tracks.ts. Pressure under the mats against the allowable bearing (as entered,
 //   else IBC Table 1806.2 for the soil class): ground-bearing-pressure.ts.
+import { exceeds } from '../compare';
 import { planModel, resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { check, f, item, term, type Ctx } from '../context';
 import { pressureItem } from './ground-bearing-pressure';
@@ -20,12 +21,15 @@ import { SOURCES } from '../sources';
 import { si } from '../units';
 import type { CheckItem, CheckResult, Fix, LiftFigures } from '../types';
 
-const EDGE_NORMALS = [
-  [1, 0],
-  [-1, 0],
-  [0, 1],
-  [0, -1],
-] as const;
+type Dir = readonly [number, number];
+
+/** The widest angle (radians) between neighbouring plan directions. */
+function widestGap(dirs: readonly Dir[]): number {
+  const angles = dirs.map(([x, y]) => Math.atan2(y, x)).sort((x, y) => x - y);
+  let gap = 2 * Math.PI + angles[0] - angles[angles.length - 1];
+  for (let i = 1; i < angles.length; i++) gap = Math.max(gap, angles[i] - angles[i - 1]);
+  return gap;
+}
 
 function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckItem[], fixes?: Fix[]) {
   const entered = ctx.input.crane.slewAngle;
@@ -49,16 +53,28 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
     for (let i = 0; i < 4; i++) if (four[i] < 0 && (liftOff < 0 || four[i] < four[liftOff])) liftOff = i;
     return { p: Math.max(R[0], R[1], R[2], R[3]), R, liftOff, V: r.V, ex, ey: r.ey };
   };
+  const M = m.windMoment;
+  const lipschitz = Math.hypot(1 / m.a, 1 / m.b) / 2;
+  const refine: { t: number; calm: ReturnType<typeof resultant>; dirs: Dir[]; bound: number }[] = [];
   for (const t of slews) {
     const calm = resultant(m, t, NO_WIND);
-    const M = m.windMoment;
     // the corner and the eccentricity directions load a corner most while all four supports bear
-    // (the reactions are linear in the wind there); along each edge's normal the wind takes the
-    // resultant furthest past that edge, so those four decide whether any wind tips the crane
-    const dirs: (readonly [number, number])[] =
-      M > 0 ? [...windDirections(m.a, m.b, calm.ex - m.x0, calm.ey), ...EDGE_NORMALS] : [];
-    const cases = [calm, ...dirs.map((d) => withWind(calm, M, d))].map(at);
-    const tipped = cases.find((c) => c.R === null);
+    // (the reactions are linear in the wind there)
+    const dirs: Dir[] = M > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : [];
+    const cases = M > 0 ? dirs.map((d) => at(withWind(calm, M, d))) : [at(calm)];
+    // a wind square to the line the resultant is nearest takes it furthest past that line: it
+    // alone decides whether any wind tips the crane
+    let tipped = cases.find((c) => c.R === null);
+    if (!tipped && M > 0) {
+      let n = m.edges[0];
+      for (const E of m.edges)
+        if (E.nx * calm.ex + E.ny * calm.ey - E.d > n.nx * calm.ex + n.ny * calm.ey - n.d) n = E;
+      const r = withWind(calm, M, [n.nx, n.ny]);
+      if (exceeds(n.nx * r.ex + n.ny * r.ey, n.d)) {
+        const k = at(r);
+        if (k.R === null) tipped = k;
+      }
+    }
     if (tipped) {
       // no compressive reactions balance the crane: it tips about the line the resultant is beyond
       if (!tips) {
@@ -78,15 +94,31 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
     }
     let c = cases[0];
     for (const k of cases) if (k.p > c.p * (1 + 1e-9)) c = k;
-    // once a support lifts off, the three-support reactions are no longer linear in the wind:
-    // search the wind's direction over the whole circle
-    if (M > 0 && cases.some((k) => k.liftOff >= 0)) {
-      const k = worstWind((d) => at(withWind(calm, M, d)), dirs);
-      if (k.R && k.p > c.p * (1 + 1e-9)) c = k;
-    }
     if (c.p > worst.max * (1 + 1e-9))
       worst = { max: c.p, R: c.R!, slew: t, liftOff: c.liftOff, V: c.V, ex: c.ex, ey: c.ey };
+    if (M > 0) {
+      // While all four supports bear, a reaction changes by V·√(1/a² + 1/b²)/4 per metre the
+      // resultant moves, and the wind moves it M/V at most: when no support can reach lift-off
+      // the reactions stay linear in the wind and the corner direction above is the worst.
+      const four = fourSupportReactions(calm.V, calm.ex - m.x0, calm.ey, m.a, m.b);
+      if (Math.min(...four) - (lipschitz * M) / 2 < 0) {
+        // three supports: twice that; between the seed directions (half the widest gap at most
+        // away, in radians) the largest reaction cannot pass this bound
+        const still = at(calm).p + lipschitz * M;
+        refine.push({ t, calm, dirs, bound: Math.min(still, c.p + (lipschitz * M * widestGap(dirs)) / 2) });
+      }
+    }
   }
+  // Once a support can lift off, the three-support reactions are no longer linear in the wind: the
+  // wind's direction is searched over the whole circle for each slew whose bound could still beat
+  // the worst found.
+  if (!tips)
+    for (const k of refine.sort((x, y) => (y.bound > x.bound ? 1 : y.bound < x.bound ? -1 : 0))) {
+      if (!(k.bound > worst.max * (1 + 1e-9))) break;
+      const c = worstWind((d) => at(withWind(k.calm, M, d)), k.dirs);
+      if (c.R && c.p > worst.max * (1 + 1e-9))
+        worst = { max: c.p, R: c.R, slew: k.t, liftOff: c.liftOff, V: c.V, ex: c.ex, ey: c.ey };
+    }
   if (tips) {
     figures.supportReactions = [];
     figures.maxSupportReaction = null;
