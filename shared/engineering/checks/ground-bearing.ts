@@ -23,11 +23,15 @@ import type { CheckItem, CheckResult, Fix, LiftFigures } from '../types';
 
 type Dir = readonly [number, number];
 
-/** The widest angle (radians) between neighbouring plan directions. */
+/** The widest angle (radians) between neighbouring plan directions (one or two here). */
 function widestGap(dirs: readonly Dir[]): number {
+  if (dirs.length < 2) return 2 * Math.PI;
+  let gap = 0;
   const angles = dirs.map(([x, y]) => Math.atan2(y, x)).sort((x, y) => x - y);
-  let gap = 2 * Math.PI + angles[0] - angles[angles.length - 1];
-  for (let i = 1; i < angles.length; i++) gap = Math.max(gap, angles[i] - angles[i - 1]);
+  for (let i = 0; i < angles.length; i++) {
+    const next = i + 1 < angles.length ? angles[i + 1] : angles[0] + 2 * Math.PI;
+    gap = Math.max(gap, next - angles[i]);
+  }
   return gap;
 }
 
@@ -40,6 +44,8 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
     p: number;
     R: number[] | null;
     liftOff: number;
+    /** the smallest of the four-support reactions (negative once a support lifts off) */
+    low: number;
     V: number;
     ex: number;
     ey: number;
@@ -47,11 +53,12 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
   const at = (r: { V: number; ex: number; ey: number }): Case => {
     const ex = r.ex - m.x0;
     const R = supportReactions(r.V, ex, r.ey, m.a, m.b);
-    if (!R) return { p: Infinity, R: null, liftOff: -1, V: r.V, ex, ey: r.ey };
+    if (!R) return { p: Infinity, R: null, liftOff: -1, low: -Infinity, V: r.V, ex, ey: r.ey };
     const four = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
     let liftOff = -1;
     for (let i = 0; i < 4; i++) if (four[i] < 0 && (liftOff < 0 || four[i] < four[liftOff])) liftOff = i;
-    return { p: Math.max(R[0], R[1], R[2], R[3]), R, liftOff, V: r.V, ex, ey: r.ey };
+    const low = Math.min(four[0], four[1], four[2], four[3]);
+    return { p: Math.max(R[0], R[1], R[2], R[3]), R, liftOff, low, V: r.V, ex, ey: r.ey };
   };
   const M = m.windMoment;
   const lipschitz = Math.hypot(1 / m.a, 1 / m.b) / 2;
@@ -98,14 +105,14 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
       worst = { max: c.p, R: c.R!, slew: t, liftOff: c.liftOff, V: c.V, ex: c.ex, ey: c.ey };
     if (M > 0) {
       // While all four supports bear, a reaction changes by V·√(1/a² + 1/b²)/4 per metre the
-      // resultant moves, and the wind moves it M/V at most: when no support can reach lift-off
-      // the reactions stay linear in the wind and the corner direction above is the worst.
-      const four = fourSupportReactions(calm.V, calm.ex - m.x0, calm.ey, m.a, m.b);
-      if (Math.min(...four) - (lipschitz * M) / 2 < 0) {
-        // three supports: twice that; between the seed directions (half the widest gap at most
-        // away, in radians) the largest reaction cannot pass this bound
-        const still = at(calm).p + lipschitz * M;
-        refine.push({ t, calm, dirs, bound: Math.min(still, c.p + (lipschitz * M * widestGap(dirs)) / 2) });
+      // resultant moves, and every wind's resultant lies within 2M/V of a seed's: when no support
+      // can reach lift-off the reactions stay linear in the wind and the corner direction is the worst.
+      let low = Infinity;
+      for (const k of cases) low = Math.min(low, k.low);
+      if (low - lipschitz * M < 0) {
+        // three supports: twice that, per radian of the wind's direction lipschitz · M; between the
+        // seed directions (half the widest gap at most away) the largest reaction cannot pass this
+        refine.push({ t, calm, dirs, bound: c.p + (lipschitz * M * widestGap(dirs)) / 2 });
       }
     }
   }
