@@ -2,7 +2,7 @@
 // the hook block and what hangs below it, the slings, a spreader or lifting beam with its drops,
 // and the hardware. Every other crane of a several-crane lift repeats these groups
 // (multi-crane-steps.ts), so each crane's own rigging and beam are entered the same way.
-import { HITCHES, SLING_MATERIALS } from '@shared/schemas/lift-rigging';
+import { HITCHES, SLING_MATERIALS } from '@shared/schemas/lift-input';
 import { q, type FieldDef, type FieldGroup } from './field-types';
 
 const MATERIALS = SLING_MATERIALS.map(
