@@ -62,24 +62,36 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
   };
   const M = m.windMoment;
   const lipschitz = Math.hypot(1 / m.a, 1 / m.b) / 2;
-  const refine: { t: number; calm: ReturnType<typeof resultant>; dirs: Dir[]; bound: number }[] = [];
+  const refine: { t: number; calm: ReturnType<typeof resultant>; dirs: Dir[]; seed: number }[] = [];
   for (const t of slews) {
     const calm = resultant(m, t, NO_WIND);
     // the corner and the eccentricity directions load a corner most while all four supports bear
     // (the reactions are linear in the wind there)
     const dirs: Dir[] = M > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : [];
-    const cases = M > 0 ? dirs.map((d) => at(withWind(calm, M, d))) : [at(calm)];
+    const cases: Case[] = [];
+    if (M > 0) for (const d of dirs) cases.push(at(withWind(calm, M, d)));
+    else cases.push(at(calm));
     // a wind square to the line the resultant is nearest takes it furthest past that line: it
     // alone decides whether any wind tips the crane
-    let tipped = cases.find((c) => c.R === null);
-    if (!tipped && M > 0) {
+    let tipped: Case | undefined;
+    for (const k of cases) if (k.R === null) tipped = tipped ?? k;
+    if (!tipped && M > 0 && calm.V > 0) {
       let n = m.edges[0];
-      for (const E of m.edges)
-        if (E.nx * calm.ex + E.ny * calm.ey - E.d > n.nx * calm.ex + n.ny * calm.ey - n.d) n = E;
-      const r = withWind(calm, M, [n.nx, n.ny]);
-      if (exceeds(n.nx * r.ex + n.ny * r.ey, n.d)) {
-        const k = at(r);
-        if (k.R === null) tipped = k;
+      let past = -Infinity;
+      for (const E of m.edges) {
+        const o = E.nx * calm.ex + E.ny * calm.ey - E.d;
+        if (o > past) {
+          past = o;
+          n = E;
+        }
+      }
+      // only a resultant within M/V of a line can be blown past it
+      if (past + M / calm.V > -1e-9 * n.d) {
+        const r = withWind(calm, M, [n.nx, n.ny]);
+        if (exceeds(n.nx * r.ex + n.ny * r.ey, n.d)) {
+          const k = at(r);
+          if (k.R === null) tipped = k;
+        }
       }
     }
     if (tipped) {
@@ -109,23 +121,25 @@ function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckIt
       // can reach lift-off the reactions stay linear in the wind and the corner direction is the worst.
       let low = Infinity;
       for (const k of cases) low = Math.min(low, k.low);
-      if (low - lipschitz * M < 0) {
-        // three supports: twice that, per radian of the wind's direction lipschitz · M; between the
-        // seed directions (half the widest gap at most away) the largest reaction cannot pass this
-        refine.push({ t, calm, dirs, bound: c.p + (lipschitz * M * widestGap(dirs)) / 2 });
-      }
+      if (low - lipschitz * M < 0) refine.push({ t, calm, dirs, seed: c.p });
     }
   }
   // Once a support can lift off, the three-support reactions are no longer linear in the wind: the
   // wind's direction is searched over the whole circle for each slew whose bound could still beat
-  // the worst found.
-  if (!tips)
-    for (const k of refine.sort((x, y) => (y.bound > x.bound ? 1 : y.bound < x.bound ? -1 : 0))) {
-      if (!(k.bound > worst.max * (1 + 1e-9))) break;
+  // the worst found. Three supports: a reaction moves twice as fast as on four, so no wind takes
+  // the largest more than lipschitz · M past the calm one, nor (lipschitz · M per radian of the
+  // wind's direction) more than half the widest gap between the seed directions (π at most) past
+  // the seeds' largest.
+  const open = tips ? [] : refine.filter((k) => k.seed + lipschitz * M * Math.PI > worst.max * (1 + 1e-9));
+  open.sort((x, y) => (y.seed > x.seed ? 1 : y.seed < x.seed ? -1 : 0));
+  for (const k of open) {
+    const bound = Math.min(at(k.calm).p + lipschitz * M, k.seed + (lipschitz * M * widestGap(k.dirs)) / 2);
+    if (bound > worst.max * (1 + 1e-9)) {
       const c = worstWind((d) => at(withWind(k.calm, M, d)), k.dirs);
       if (c.R && c.p > worst.max * (1 + 1e-9))
         worst = { max: c.p, R: c.R, slew: k.t, liftOff: c.liftOff, V: c.V, ex: c.ex, ey: c.ey };
     }
+  }
   if (tips) {
     figures.supportReactions = [];
     figures.maxSupportReaction = null;
