@@ -1,5 +1,5 @@
 // The shapes of the field catalogue (lift-fields.ts): a field, a group of fields shown together,
-// and a step of the submission editor.
+// and a step of the submission editor; q() writes a quantity field.
 import type { QuantityKind } from '@shared/vocabulary/units';
 
 export type FieldDef =
@@ -37,3 +37,12 @@ export type StepId =
   | 'review';
 
 export type Step = { id: StepId; title: string; groups: FieldGroup[] };
+
+/** A quantity field (a number with its unit of the given kind). */
+export const q = (path: string, label: string, kind: QuantityKind, hint?: string): FieldDef => ({
+  kind: 'quantity',
+  path,
+  label,
+  q: kind,
+  hint,
+});

@@ -2,25 +2,17 @@
 // each, described once so the form, the step list's error marks and the mapping of server field
 // errors agree. Lives in shared/ so the server can read it too; the calculation sheet's inputs
 // section does not yet print from it (it shares the crane-type and stated-figure words).
-import { CRANE_TYPES, HITCHES, ROPE_TYPES, SLING_MATERIALS, SOIL_CLASSES } from '@shared/schemas/lift-input';
+import { CRANE_TYPES, ROPE_TYPES, SOIL_CLASSES } from '@shared/schemas/lift-input';
 import { CRANE_TYPE_LABELS } from '@shared/vocabulary/crane-types';
 import { STATED_FIGURE_LABELS } from '@shared/vocabulary/stated-figures';
 import { SOIL_LABELS } from '@shared/vocabulary/soil-classes';
-import type { QuantityKind } from '@shared/vocabulary/units';
-import type { FieldDef, Step, StepId } from './field-types';
+import { q, type Step, type StepId } from './field-types';
+import { RIGGING_GROUPS } from './lift-fields-rigging';
 
 export type { FieldDef, FieldGroup, Step, StepId } from './field-types';
 
 const craneType = (values: Record<string, unknown>) =>
   (values.crane as { type?: string } | undefined)?.type ?? '';
-
-const q = (path: string, label: string, kind: QuantityKind, hint?: string): FieldDef => ({
-  kind: 'quantity',
-  path,
-  label,
-  q: kind,
-  hint,
-});
 
 export const STEPS: Step[] = [
   {
@@ -135,97 +127,7 @@ export const STEPS: Step[] = [
           { kind: 'number', path: 'load.dragCoefficient', label: 'Drag coefficient' },
         ],
       },
-      {
-        title: 'Below and at the hook',
-        fields: [
-          q('hookBlock.weight', 'Hook block weight', 'weight'),
-          q('hookBlock.height', 'Hook block height', 'length'),
-          q('loadLineAllowance', 'Load line allowance', 'weight'),
-          q('rigging.height', 'Rigging height (hook to load)', 'length'),
-          {
-            kind: 'list',
-            path: 'rigging.items',
-            label: 'Rigging items (spreaders, beams)',
-            addLabel: 'Add a rigging item',
-            columns: [{ kind: 'text', path: 'name', label: 'Item' }, q('weight', 'Weight', 'weight')],
-          },
-          {
-            kind: 'list',
-            path: 'chartDeductions',
-            label: 'Chart deductions (jib stowed, auxiliary head…)',
-            addLabel: 'Add a deduction',
-            columns: [{ kind: 'text', path: 'name', label: 'Deduction' }, q('weight', 'Weight', 'weight')],
-          },
-        ],
-      },
-      {
-        title: 'Slings',
-        fields: [
-          { kind: 'text', path: 'rigging.slings.name', label: 'Sling set' },
-          {
-            kind: 'select',
-            path: 'rigging.slings.material',
-            label: 'Material',
-            options: SLING_MATERIALS.map(
-              (m) => [m, m === 'wire' ? 'Wire rope' : m === 'chain' ? 'Chain' : 'Synthetic'] as const,
-            ),
-          },
-          {
-            kind: 'select',
-            path: 'rigging.slings.hitch',
-            label: 'Hitch',
-            options: HITCHES.map((h) => [h, h[0].toUpperCase() + h.slice(1)] as const),
-          },
-          q('rigging.slings.ratedLoadVertical', 'Rated load per leg (vertical)', 'weight'),
-          q('rigging.slings.chokeAngle', 'Angle of choke (choker hitch)', 'angle'),
-          q('rigging.slings.weight', 'Sling weight', 'weight'),
-          q('rigging.slings.hookHeight', 'Hook height above the picks (3 or 4 legs)', 'length'),
-          {
-            kind: 'checkbox',
-            path: 'rigging.slings.equalised',
-            label: 'Four legs with an equalising arrangement (else rated on two legs)',
-          },
-          {
-            kind: 'list',
-            path: 'rigging.slings.legs',
-            label: 'Legs (1 to 4)',
-            addLabel: 'Add a leg',
-            hint: 'One or two legs: each leg’s angle, or its length and horizontal distance from the hook. Three or four legs, listed round the load: each pick point in plan from the centre of gravity.',
-            columns: [
-              q('angle', 'Angle from horizontal', 'angle'),
-              q('length', 'Length', 'length'),
-              q('horizontalDistance', 'Horizontal distance', 'length'),
-              q('pickPoint.x', 'Pick point x', 'length'),
-              q('pickPoint.y', 'Pick point y', 'length'),
-            ],
-          },
-        ],
-      },
-      {
-        title: 'Hardware',
-        fields: [
-          {
-            kind: 'list',
-            path: 'rigging.hardware',
-            label: 'Shackles, links, hooks',
-            addLabel: 'Add hardware',
-            columns: [
-              { kind: 'text', path: 'name', label: 'Item' },
-              q('wll', 'Working load limit', 'weight'),
-              q('weight', 'Weight', 'weight'),
-              {
-                kind: 'select',
-                path: 'carries',
-                label: 'Carries',
-                options: [
-                  ['total', 'The whole load'],
-                  ['leg', 'One leg'],
-                ],
-              },
-            ],
-          },
-        ],
-      },
+      ...RIGGING_GROUPS,
     ],
   },
   {
@@ -246,6 +148,13 @@ export const STEPS: Step[] = [
               ['plain', 'Plain (bronze bushed)'],
             ],
           },
+          {
+            kind: 'number',
+            path: 'reeving.sheaveEfficiency',
+            label: 'Sheave efficiency (replaces the bearing constant)',
+            hint: 'From your own data, 0.8 to 1; give its source below.',
+          },
+          { kind: 'text', path: 'reeving.sheaveEfficiencySource', label: 'Source of the sheave efficiency' },
           q('reeving.hoistLinePull', 'Hoist line pull', 'weight'),
           q('reeving.ropeRatedLoad', 'Rope rated load', 'weight'),
           q('reeving.ropeBreakingStrength', 'Rope breaking strength', 'weight'),

@@ -48,6 +48,9 @@ export const SOURCES = {
     text: 'Equalised four-leg bridle: the balanced shares nearest to equal (common practice, no source)',
   } as Source,
   verticalShare: std('Statics: the vertical share of a leg = its tension × sin(angle from horizontal)'),
+  beamDrops: std(
+    'Statics of a beam on two drops (lever rule): each drop carries W × the other drop’s distance from the centre of gravity ÷ the drop spacing',
+  ),
   trackMats: {
     kind: 'common_practice',
     text: 'Rigid mats under a crawler track spread its pressure across the mat length (common practice, no source)',
@@ -80,9 +83,13 @@ export const SOURCES = {
   } as Source,
   eccentricFooting: {
     kind: 'common_practice',
-    text: 'Eccentric footing: trapezoidal pressure when e ≤ L/6, triangular when e > L/6 (statics)',
+    text: 'Eccentric footing, the track taken as rigid: trapezoidal pressure when e ≤ L/6, triangular when e > L/6 (statics; common practice, no source)',
   } as Source,
   statics: { kind: 'computed', text: 'Statics (moment = force × lever arm)' } as Source,
+  gantryBackward: {
+    kind: 'common_practice',
+    text: 'A backstay carries tension only: unloaded, the frame must still lean on it (statics; common practice, no source)',
+  } as Source,
   input: { kind: 'input', text: 'as entered' } as Source,
   manufacturerChart: { kind: 'input', text: "Manufacturer's load chart rows as entered" } as Source,
   policy: (what: string): Source => ({ kind: 'site_policy', text: `site policy: ${what}` }),

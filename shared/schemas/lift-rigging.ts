@@ -99,6 +99,17 @@ export const BeamDrops = SlingSetBase.omit({ hookHeight: true, equalised: true }
       .max(2, { error: 'rigging.beam.slingsBelow.legs must list 1 or 2 legs' }),
   })
   .superRefine((s, ctx) => {
+    // a drop's angle comes from its angle, or its length with its horizontal distance; with
+    // neither it hangs vertically, but a length alone leaves the angle unknown
+    s.legs.forEach((l, i) => {
+      if (!l.angle && !l.horizontalDistance && l.length)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['legs', i, 'horizontalDistance'],
+          message:
+            'rigging.beam.slingsBelow.legs[].horizontalDistance: give the horizontal distance with the drop’s length, or its angle',
+        });
+    });
     if (s.legs.length === 2)
       requirePickPoints(
         s.legs,

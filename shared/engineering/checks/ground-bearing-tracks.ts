@@ -2,12 +2,12 @@
 //   p_max = V_t/(b·L)·(1 + 6e/L) when e ≤ L/6, 2·V_t/(3·b·(L/2 − e)) when e > L/6 (triangular).
 // Crawler tracks on mats (mat length across the track, mats per support laid along it covering the
 // length in contact): the track pressure × shoe width ÷ mat length (rigid mats; common practice, no
-// source).
+// source). The wind blows from its least favourable direction for the peak (worstWind).
 import { atLeast, exceeds } from '../compare';
 import { resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { f, item, statusMax, term, type Ctx } from '../context';
 import { allowable } from './ground-bearing-pressure';
-import { CALM, NO_WIND, withWind } from './ground-bearing-wind';
+import { NO_WIND, withWind, worstWind } from './ground-bearing-wind';
 import { SOURCES } from '../sources';
 import { si } from '../units';
 import type { CheckItem, Fix, LiftFigures } from '../types';
@@ -48,30 +48,59 @@ export function crawler(ctx: Ctx, m: PlanModel, items: CheckItem[], figures: Lif
   const w = si(tr.shoeWidth)!;
   const entered = ctx.input.crane.slewAngle;
   const slews = entered ? [entered.value] : SLEW_SWEEP;
-  let worst = { p: -Infinity, Vt: 0, e: 0, slew: 0, shape: 'uniform' as string, pMin: 0, contact: 0 };
-  for (const t of slews) {
-    const calm = resultant(m, t, NO_WIND);
-    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : CALM;
-    for (const dir of dirs) {
-      const r = dir ? withWind(calm, m.windMoment, dir) : calm;
-      const e = r.ex - m.x0;
-      const VL = (r.V * (m.b + r.ey)) / (2 * m.b);
-      const VR = (r.V * (m.b - r.ey)) / (2 * m.b);
-      for (const Vt of [VL, VR]) {
-        const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
-        if (tp.p > worst.p * (1 + 1e-9) || worst.p === -Infinity)
-          worst = {
-            p: tp.p,
-            Vt: Math.min(Math.max(Vt, 0), r.V),
-            e,
-            slew: t,
-            shape: tp.shape,
-            pMin: tp.pMin,
-            contact: tp.contact,
-          };
-      }
+  type Case = { p: number; Vt: number; e: number; shape: string; pMin: number; contact: number };
+  /** The more loaded track's case for a resultant. */
+  const peak = (r: { V: number; ex: number; ey: number }): Case => {
+    const e = r.ex - m.x0;
+    let out: Case | null = null;
+    for (const Vt of [(r.V * (m.b + r.ey)) / (2 * m.b), (r.V * (m.b - r.ey)) / (2 * m.b)]) {
+      const tp = Vt > r.V ? trackPeakPressure(r.V, e, L, w) : trackPeakPressure(Math.max(Vt, 0), e, L, w);
+      if (!out || tp.p > out.p * (1 + 1e-9))
+        out = {
+          p: tp.p,
+          Vt: Math.min(Math.max(Vt, 0), r.V),
+          e,
+          shape: tp.shape,
+          pMin: tp.pMin,
+          contact: tp.contact,
+        };
     }
-  }
+    return out!;
+  };
+  let worst: Case & { slew: number } = {
+    p: -Infinity,
+    Vt: 0,
+    e: 0,
+    slew: 0,
+    shape: 'uniform',
+    pMin: 0,
+    contact: 0,
+  };
+  // Each slew with the wind from the seed directions first; then the full search of the wind's
+  // direction, only for the slews whose bound (the largest track load and eccentricity any wind
+  // could give, together) could still beat the worst case found.
+  const M = m.windMoment;
+  const trials = slews.map((t) => {
+    const calm = resultant(m, t, NO_WIND);
+    const seeds = M > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : [];
+    let c = peak(calm);
+    for (const dir of seeds) {
+      const k = peak(withWind(calm, M, dir));
+      if (k.p > c.p * (1 + 1e-9)) c = k;
+    }
+    const shift = calm.V > 0 ? M / calm.V : 0;
+    const Vmax = Math.min(calm.V, (calm.V * (m.b + Math.abs(calm.ey) + shift)) / (2 * m.b));
+    const bound = M > 0 ? trackPeakPressure(Vmax, Math.abs(calm.ex - m.x0) + shift, L, w).p : c.p;
+    return { t, calm, seeds, c, bound };
+  });
+  for (const k of trials)
+    if (k.c.p > worst.p * (1 + 1e-9) || worst.p === -Infinity) worst = { ...k.c, slew: k.t };
+  if (M > 0)
+    for (const k of [...trials].sort((x, y) => (y.bound > x.bound ? 1 : y.bound < x.bound ? -1 : 0))) {
+      if (!(k.bound > worst.p * (1 + 1e-9))) break;
+      const c = worstWind((dir) => peak(withWind(k.calm, M, dir)), k.seeds);
+      if (c.p > worst.p * (1 + 1e-9)) worst = { ...c, slew: k.t };
+    }
   const area = w * L;
   const tipping = !Number.isFinite(worst.p);
   // Mats under the tracks (rigid mats, as under outriggers; common practice, no source): mats of

@@ -9,10 +9,11 @@
 //   largest reaction or pressure governs. Crawler tracks as eccentric footings, on mats or not:
 //   ground-bearing-tracks.ts. Pressure under the mats against the allowable bearing (as entered,
 //   else IBC Table 1806.2 for the soil class): ground-bearing-pressure.ts.
+import { exceeds } from '../compare';
 import { planModel, resultant, SLEW_SWEEP, windDirections, type PlanModel } from '../crane-model';
 import { check, f, item, term, type Ctx } from '../context';
 import { pressureItem } from './ground-bearing-pressure';
-import { CALM, NO_WIND, withWind } from './ground-bearing-wind';
+import { NO_WIND, withWind, worstWind } from './ground-bearing-wind';
 import { gantryStatics } from './stability-gantry';
 import { fourSupportReactions, supportReactions } from './support-reactions';
 import { crawler } from './ground-bearing-tracks';
@@ -20,39 +21,123 @@ import { SOURCES } from '../sources';
 import { si } from '../units';
 import type { CheckItem, CheckResult, Fix, LiftFigures } from '../types';
 
+type Dir = readonly [number, number];
+
+/** The widest angle (radians) between neighbouring plan directions (one or two here). */
+function widestGap(dirs: readonly Dir[]): number {
+  if (dirs.length < 2) return 2 * Math.PI;
+  let gap = 0;
+  const angles = dirs.map(([x, y]) => Math.atan2(y, x)).sort((x, y) => x - y);
+  for (let i = 0; i < angles.length; i++) {
+    const next = i + 1 < angles.length ? angles[i + 1] : angles[0] + 2 * Math.PI;
+    gap = Math.max(gap, next - angles[i]);
+  }
+  return gap;
+}
+
 function outriggers(ctx: Ctx, m: PlanModel, figures: LiftFigures, items: CheckItem[], fixes?: Fix[]) {
   const entered = ctx.input.crane.slewAngle;
   const slews = entered ? [entered.value] : SLEW_SWEEP;
   let worst = { max: -Infinity, R: [0, 0, 0, 0], slew: 0, liftOff: -1, V: 0, ex: 0, ey: 0 };
   let tips: { slew: number; edge: string; ex: number; ey: number; V: number } | null = null;
+  type Case = {
+    p: number;
+    R: number[] | null;
+    liftOff: number;
+    /** the smallest of the four-support reactions (negative once a support lifts off) */
+    low: number;
+    V: number;
+    ex: number;
+    ey: number;
+  };
+  const at = (r: { V: number; ex: number; ey: number }): Case => {
+    const ex = r.ex - m.x0;
+    const R = supportReactions(r.V, ex, r.ey, m.a, m.b);
+    if (!R) return { p: Infinity, R: null, liftOff: -1, low: -Infinity, V: r.V, ex, ey: r.ey };
+    const four = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
+    let liftOff = -1;
+    for (let i = 0; i < 4; i++) if (four[i] < 0 && (liftOff < 0 || four[i] < four[liftOff])) liftOff = i;
+    const low = Math.min(four[0], four[1], four[2], four[3]);
+    return { p: Math.max(R[0], R[1], R[2], R[3]), R, liftOff, low, V: r.V, ex, ey: r.ey };
+  };
+  const M = m.windMoment;
+  const lipschitz = Math.hypot(1 / m.a, 1 / m.b) / 2;
+  const refine: { t: number; calm: ReturnType<typeof resultant>; dirs: Dir[]; seed: number }[] = [];
   for (const t of slews) {
     const calm = resultant(m, t, NO_WIND);
-    const dirs = m.windMoment > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : CALM;
-    for (const dir of dirs) {
-      const r = dir ? withWind(calm, m.windMoment, dir) : calm;
-      const ex = r.ex - m.x0;
-      const R = supportReactions(r.V, ex, r.ey, m.a, m.b);
-      if (!R) {
-        // no compressive reactions balance the crane: it tips about the line the resultant is beyond
-        if (!tips) {
-          let e = 0;
-          let beyond = -Infinity;
-          m.edges.forEach((E, i) => {
-            const over = E.nx * r.ex + E.ny * r.ey - E.d;
-            if (over > beyond) {
-              beyond = over;
-              e = i;
-            }
-          });
-          tips = { slew: t, edge: m.edges[e].label, ex, ey: r.ey, V: r.V };
+    // the corner and the eccentricity directions load a corner most while all four supports bear
+    // (the reactions are linear in the wind there)
+    const dirs: Dir[] = M > 0 ? windDirections(m.a, m.b, calm.ex - m.x0, calm.ey) : [];
+    const cases: Case[] = [];
+    if (M > 0) for (const d of dirs) cases.push(at(withWind(calm, M, d)));
+    else cases.push(at(calm));
+    // a wind square to the line the resultant is nearest takes it furthest past that line: it
+    // alone decides whether any wind tips the crane
+    let tipped: Case | undefined;
+    for (const k of cases) if (k.R === null) tipped = tipped ?? k;
+    if (!tipped && M > 0 && calm.V > 0) {
+      let n = m.edges[0];
+      let past = -Infinity;
+      for (const E of m.edges) {
+        const o = E.nx * calm.ex + E.ny * calm.ey - E.d;
+        if (o > past) {
+          past = o;
+          n = E;
         }
-        continue;
       }
-      const four = fourSupportReactions(r.V, ex, r.ey, m.a, m.b);
-      let liftOff = -1;
-      for (let i = 0; i < 4; i++) if (four[i] < 0 && (liftOff < 0 || four[i] < four[liftOff])) liftOff = i;
-      const mx = Math.max(R[0], R[1], R[2], R[3]);
-      if (mx > worst.max * (1 + 1e-9)) worst = { max: mx, R, slew: t, liftOff, V: r.V, ex, ey: r.ey };
+      // only a resultant within M/V of a line can be blown past it
+      if (past + M / calm.V > -1e-9 * n.d) {
+        const r = withWind(calm, M, [n.nx, n.ny]);
+        if (exceeds(n.nx * r.ex + n.ny * r.ey, n.d)) {
+          const k = at(r);
+          if (k.R === null) tipped = k;
+        }
+      }
+    }
+    if (tipped) {
+      // no compressive reactions balance the crane: it tips about the line the resultant is beyond
+      if (!tips) {
+        const r = { ex: tipped.ex + m.x0, ey: tipped.ey };
+        let e = 0;
+        let beyond = -Infinity;
+        m.edges.forEach((E, k) => {
+          const over = E.nx * r.ex + E.ny * r.ey - E.d;
+          if (over > beyond) {
+            beyond = over;
+            e = k;
+          }
+        });
+        tips = { slew: t, edge: m.edges[e].label, ex: tipped.ex, ey: tipped.ey, V: tipped.V };
+      }
+      continue;
+    }
+    let c = cases[0];
+    for (const k of cases) if (k.p > c.p * (1 + 1e-9)) c = k;
+    if (c.p > worst.max * (1 + 1e-9))
+      worst = { max: c.p, R: c.R!, slew: t, liftOff: c.liftOff, V: c.V, ex: c.ex, ey: c.ey };
+    if (M > 0) {
+      // While all four supports bear, a reaction changes by V·√(1/a² + 1/b²)/4 per metre the
+      // resultant moves, and every wind's resultant lies within 2M/V of a seed's: when no support
+      // can reach lift-off the reactions stay linear in the wind and the corner direction is the worst.
+      let low = Infinity;
+      for (const k of cases) low = Math.min(low, k.low);
+      if (low - lipschitz * M < 0) refine.push({ t, calm, dirs, seed: c.p });
+    }
+  }
+  // Once a support can lift off, the three-support reactions are no longer linear in the wind: the
+  // wind's direction is searched over the whole circle for each slew whose bound could still beat
+  // the worst found. Three supports: a reaction moves twice as fast as on four, so no wind takes
+  // the largest more than lipschitz · M past the calm one, nor (lipschitz · M per radian of the
+  // wind's direction) more than half the widest gap between the seed directions (π at most) past
+  // the seeds' largest.
+  const open = tips ? [] : refine.filter((k) => k.seed + lipschitz * M * Math.PI > worst.max * (1 + 1e-9));
+  open.sort((x, y) => (y.seed > x.seed ? 1 : y.seed < x.seed ? -1 : 0));
+  for (const k of open) {
+    const bound = Math.min(at(k.calm).p + lipschitz * M, k.seed + (lipschitz * M * widestGap(k.dirs)) / 2);
+    if (bound > worst.max * (1 + 1e-9)) {
+      const c = worstWind((d) => at(withWind(k.calm, M, d)), k.dirs);
+      if (c.R && c.p > worst.max * (1 + 1e-9))
+        worst = { max: c.p, R: c.R, slew: k.t, liftOff: c.liftOff, V: c.V, ex: c.ex, ey: c.ey };
     }
   }
   if (tips) {

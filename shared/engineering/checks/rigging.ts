@@ -76,7 +76,6 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
   /** Every leg of one set of slings carrying W; `below`: the drops under a beam. */
   const slingSet = (sl: SlingSetT, W: number, below: boolean) => {
     const idp = below ? 'rigging.below.' : 'rigging.';
-    const where = below ? 'below the beam, ' : '';
     let angles =
       sl.legs.length >= 3 ? [] : sl.legs.map((l) => (below && !l.angle && !l.length ? 90 : legAngleDeg(l)));
     let tensions: number[];
@@ -97,7 +96,7 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
           V: Vp,
           formula: (i) =>
             f`two drops: V = W ${term(W, 'weight')} × distance of the other drop from the centre of gravity ÷ drop spacing = ${term(Vp[i], 'weight')}`,
-          source: SOURCES.bridleStatics,
+          source: SOURCES.beamDrops,
         };
       }
       formulaBase = (i: number) =>
@@ -175,7 +174,8 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
     for (let i = 0; i < tensions.length; i++) {
       const T = tensions[i];
       if (T > maxLeg) maxLeg = T;
-      const legName = where + (sl.legs[i].name ?? `leg ${i + 1}`);
+      const own = sl.legs[i].name ?? (below ? `drop ${i + 1}` : `leg ${i + 1}`);
+      const legName = below ? `below the beam, ${own}` : own;
       items.push(
         item(ctx, {
           id: `${idp}leg-${i + 1}`,
@@ -207,7 +207,7 @@ export function riggingCheck(ctx: Ctx, figures: LiftFigures): CheckResult {
       items.push(
         item(ctx, {
           id: `${idp}vertical-${i + 1}`,
-          label: `Vertical share at the pick point of ${legName}`,
+          label: `Vertical share at the pick point of ${own}${below ? ' (below the beam)' : ''}`,
           status: 'pass',
           value: V,
           limit: null,

@@ -1,10 +1,12 @@
 // Check 4, backward stability: the unloaded crane at the shortest radius of the plan, against the
-// backward tipping criteria and the site's minimum stability ratio.
+// backward tipping criteria and the site's minimum stability ratio; a gantry or A-frame unloaded
+// must still lean on its backstay (common practice, no source).
 import { exceeds, fallsShort } from '../compare';
 import { governing, planModel, SLEW_SWEEP } from '../crane-model';
 import { columns, same as sameRow } from '../chart';
 import { f, item, statusMax, statusMin, term, type Ctx } from '../context';
 import { supportReactions } from './support-reactions';
+import { gantryStatics } from './stability-gantry';
 import { SOURCES } from '../sources';
 import { DEG, siOr } from '../units';
 import type { CheckItem } from '../types';
@@ -28,19 +30,7 @@ const EDGE_SUPPORTS: readonly (readonly [number, number])[] = [
  */
 export function backwardStability(ctx: Ctx): CheckItem[] {
   const c = ctx.input.crane;
-  if (c.type === 'gantry_a_frame')
-    return [
-      item(ctx, {
-        id: 'stability.backward',
-        label: 'Backward stability (unloaded)',
-        status: 'not_applicable',
-        value: null,
-        unit: 'percent',
-        source: SOURCES.statics,
-        message:
-          'A frame held by a backstay to ballast on the ground has no backward tipping case: the backstay cannot push.',
-      }),
-    ];
+  if (c.type === 'gantry_a_frame') return gantryBackward(ctx);
   const rPlan = ctx.geometry.radius;
   if (rPlan === null) return [];
   const used = ctx.chart.boomLengthUsed ?? ctx.geometry.boomLength;
@@ -176,4 +166,34 @@ export function backwardStability(ctx: Ctx): CheckItem[] {
     );
   }
   return items;
+}
+
+/**
+ * A gantry or A-frame unloaded (hook block only, no load to catch the wind): its backstay can only
+ * pull, so the frame (half its weight and the block at the apex) must still lean on it. The
+ * backstay tension from the apex equilibrium, T = W' · tan β · backstay length ÷ anchor distance,
+ * is zero for legs standing vertical: nothing then holds the frame from falling backward.
+ */
+function gantryBackward(ctx: Ctx): CheckItem[] {
+  const block = siOr(ctx.input.hookBlock?.weight, 0);
+  const gs = gantryStatics({ ...ctx, wind: null }, block);
+  if (!gs) return [];
+  const T = gs.backstayTension;
+  const leans = exceeds(T, 0);
+  return [
+    item(ctx, {
+      id: 'stability.backward',
+      label: 'Backward stability (unloaded): the frame still leans on its backstay',
+      status: leans ? 'pass' : 'fail',
+      value: T,
+      limit: 0,
+      limitType: 'min',
+      unit: 'force',
+      formula: f`unloaded, hook block ${term(block, 'weight')} at the apex ${term(gs.outreach, 'length')} ahead of the leg feet: backstay tension ${term(T, 'force')}, more than 0`,
+      source: SOURCES.gantryBackward,
+      message: leans
+        ? 'Unloaded, the frame still leans forward on its backstay.'
+        : 'Unloaded, the apex is not ahead of the leg feet: nothing holds the frame from falling backward (a backstay cannot push). Incline the legs toward the load or guy the frame forward.',
+    }),
+  ];
 }

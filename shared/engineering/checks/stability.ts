@@ -50,7 +50,7 @@ export function stabilityCheck(ctx: Ctx, fixes: Fix[], figures: LiftFigures): Ch
     const gantry = gantryStabilityItems(ctx, fixes, figures, src);
     if (!gantry)
       return check('stability', 'Stability', [na(ctx, 'Enter the gantry legs, backstay and ballast.')]);
-    return check('stability', 'Stability', gantry, 'stability.ratio');
+    return check('stability', 'Stability', [...gantry, ...backwardStability(ctx)], 'stability.ratio');
   }
 
   if (geometry.radius === null) return check('stability', 'Stability', [na(ctx, 'No radius entered.')]);

@@ -81,6 +81,7 @@ describe('example inputs', () => {
     'pass-imperial-units.json': { overall: 'pass' },
     'pass-crawler.json': { overall: 'pass' },
     'pass-gantry-a-frame.json': { overall: 'pass' },
+    'pass-spreader-beam.json': { overall: 'pass', check: ['rigging', 'pass'] },
     'caution-capacity-critical.json': { overall: 'caution', check: ['capacity', 'caution'] },
     'caution-discrepancies.json': { overall: 'caution' },
     'caution-tandem.json': { overall: 'caution', check: ['critical-triggers', 'caution'] },

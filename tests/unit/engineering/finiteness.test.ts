@@ -88,4 +88,118 @@ describe('finite results for every accepted input', () => {
       { numRuns: 400 },
     );
   });
+
+  it('when the rigging (slings, a 3- or 4-leg bridle, a beam and its drops) takes any value up to its bounds, then every number is finite and nothing passes without a value', () => {
+    const W = QUANTITY_MAX_SI.weight;
+    const L = QUANTITY_MAX_SI.length;
+    const signed = magnitude(L).chain((x) => fc.constantFrom(x, -x));
+    const pick = fc.record({ x: signed, y: signed });
+    fc.assert(
+      fc.property(
+        fc.record({
+          load: magnitude(W),
+          rating: magnitude(W).map((x) => Math.max(x, 1)),
+          beamWeight: magnitude(W),
+          beamRating: magnitude(W).map((x) => Math.max(x, 1)),
+          hook: magnitude(L).map((x) => Math.max(x, 1e-3)),
+          legs: fc.array(pick, { minLength: 3, maxLength: 4 }),
+          drops: fc.array(pick, { minLength: 2, maxLength: 2 }),
+          angle: fc.double({ min: 0.001, max: 90, noNaN: true }),
+          choke: fc.double({ min: 0, max: 180, noNaN: true }),
+          hitch: fc.constantFrom('vertical', 'choker', 'basket'),
+          equalised: fc.boolean(),
+          beam: fc.boolean(),
+        }),
+        (v) => {
+          const t = (si: number) => q(si / TO_SI.t, 't');
+          const m = (si: number) => q(si, 'm');
+          const lift = outriggerLift();
+          lift.load = { weight: t(v.load) };
+          const bridle = {
+            material: 'wire' as const,
+            hitch: v.hitch,
+            chokeAngle: q(v.choke, 'deg'),
+            ratedLoadVertical: t(v.rating),
+            hookHeight: m(v.hook),
+            equalised: v.equalised,
+            legs: v.legs.map((p) => ({ pickPoint: { x: m(p.x), y: m(p.y) } })),
+          };
+          const drops = {
+            material: 'chain' as const,
+            hitch: v.hitch,
+            ratedLoadVertical: t(v.rating),
+            legs: v.drops.map((p) => ({ angle: q(v.angle, 'deg'), pickPoint: { x: m(p.x), y: m(p.y) } })),
+          };
+          const twoLegs = {
+            ...bridle,
+            legs: [{ angle: q(v.angle, 'deg') }, { angle: q(90 - v.angle / 2, 'deg') }],
+          };
+          lift.rigging = v.beam
+            ? {
+                slings: twoLegs,
+                beam: {
+                  kind: 'lifting',
+                  weight: t(v.beamWeight),
+                  ratedLoad: t(v.beamRating),
+                  slingsBelow: drops,
+                },
+                hardware: [{ wll: t(v.rating), carries: 'leg' }],
+              }
+            : { slings: bridle, hardware: [{ wll: t(v.rating) }] };
+          const out = checkLift(lift);
+          fc.pre(out.ok);
+          if (!out.ok) return;
+          expect(badNumbers(out.result)).toEqual([]);
+          expect(passesWithoutValue(out.result)).toEqual([]);
+        },
+      ),
+      { numRuns: 300 },
+    );
+  });
+
+  it('when a lift of 2 to 4 cranes takes any load, centre of gravity, pick points and stated shares up to their bounds, then every number is finite and nothing passes without a value', () => {
+    const W = QUANTITY_MAX_SI.weight;
+    const L = QUANTITY_MAX_SI.length;
+    const signed = magnitude(L).chain((x) => fc.constantFrom(x, -x));
+    const pick = fc.record({ x: signed, y: signed });
+    fc.assert(
+      fc.property(
+        fc.record({
+          load: magnitude(W),
+          cg: pick,
+          picks: fc.array(pick, { minLength: 2, maxLength: 4 }),
+          shares: fc.array(magnitude(W), { minLength: 4, maxLength: 4 }),
+          stated: fc.boolean(),
+          fraction: fc.double({ min: 0, max: 0.5, noNaN: true }),
+        }),
+        (v) => {
+          const t = (si: number) => q(si / TO_SI.t, 't');
+          const at = (p: { x: number; y: number }) => ({ x: q(p.x, 'm'), y: q(p.y, 'm') });
+          const lift = outriggerLift();
+          lift.load = { weight: t(v.load) };
+          const base = outriggerLift();
+          lift.multiCrane = {
+            loadCg: at(v.cg),
+            cgOffsetFraction: v.fraction,
+            lead: { pickPoint: at(v.picks[0]), ...(v.stated ? { statedShare: t(v.shares[0]) } : {}) },
+            others: v.picks.slice(1).map((p, i) => ({
+              crane: base.crane,
+              chart: base.chart,
+              hookBlock: { weight: q(0.3, 't') },
+              pickPoint: at(p),
+              ...(v.stated ? { statedShare: t(v.shares[i + 1]) } : {}),
+            })),
+          };
+          const out = checkLift(lift);
+          fc.pre(out.ok);
+          if (!out.ok) return;
+          expect(badNumbers(out.result)).toEqual([]);
+          expect(passesWithoutValue(out.result)).toEqual([]);
+          for (const c of out.result.cranes ?? [])
+            expect(passesWithoutValue({ ...out.result, checks: c.checks })).toEqual([]);
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
 });

@@ -56,6 +56,57 @@ describe('two cranes', () => {
     expect(findItem(r, 'tandem.sensitivity-1').formulaText).toMatch(/0\.500 m/);
     expect(r.critical.triggers.map((x) => x.id)).toContain('tandem');
   });
+  it('when each crane has its own reeving, then its supports and its line pull carry its share, not the whole load', () => {
+    // Each crane weighs 20 + 15 + 30 + 4 = 69 t; its supports carry that and its gross share:
+    // A 69 + 12.5 = 81.5 t, B 69 + 8.3 = 77.3 t (with the whole 20 t it would be 89.5 t).
+    // Line pull: 4 parts over 3 roller sheaves, K = 1.04: F = W·K^S(K − 1)/(K^N − 1).
+    const l = twoCranes();
+    const reeving = { partsOfLine: 4, sheavesPassed: 3, bearing: 'roller' } as const;
+    l.reeving = reeving;
+    l.multiCrane!.others[0].reeving = reeving;
+    const r = run(l);
+    const K = 1.04;
+    const factor = (K ** 3 * (K - 1)) / (K ** 4 - 1);
+    const sum = (c: { figures: { supportReactions: { reaction: number }[] } | null }) =>
+      c.figures!.supportReactions.reduce((a, s) => a + s.reaction, 0);
+    expect(sum(r.cranes![0])).toBeCloseTo(t(81.5), 4);
+    expect(sum(r.cranes![1])).toBeCloseTo(t(77.3), 4);
+    expect(r.cranes![0].figures!.linePull).toBeCloseTo(t(12.5) * factor, 6);
+    expect(r.cranes![1].figures!.linePull).toBeCloseTo(t(8.3) * factor, 6);
+    expect(findItem(r, 'crane-2.reeving.line-pull').value).toBeCloseTo(t(8.3) * factor, 6);
+  });
+  it('when crane 2 has its own slings, then they carry its share: 8 t on two legs at 60° is 4.619 t a leg', () => {
+    const l = twoCranes();
+    l.multiCrane!.others[0].rigging = {
+      slings: {
+        material: 'wire',
+        hitch: 'vertical',
+        ratedLoadVertical: q(5, 't'),
+        legs: [{ angle: q(60, 'deg') }, { angle: q(60, 'deg') }],
+      },
+    };
+    const r = run(l);
+    // T = 8 t ÷ (2 sin 60°) = 4.6188 t, under its 5 t rating; with the whole 20 t it would be 11.5 t
+    expect(findItem(r, 'crane-2.rigging.leg-1').value).toBeCloseTo(t(8 / (2 * Math.sin(Math.PI / 3))), 6);
+    expect(findItem(r, 'crane-2.rigging.leg-1').status).not.toBe('fail');
+    // crane 1 has no slings of its own: nothing is checked in its name
+    expect(findItem(r, 'rigging.leg-1').status).toBe('not_applicable');
+  });
+  it('when the site sets a 25% two-crane margin, then crane 1 may carry 24 ÷ 1.25 = 19.2 t', () => {
+    const r = run(twoCranes(), { tandemMarginPct: { twoCranes: 25, threeCranes: 33, fourOrMore: 50 } });
+    expect(r.multiCrane!.marginPct).toBe(25);
+    expect(findItem(r, 'tandem.crane-1').limit).toBeCloseTo(t(19.2), 6);
+  });
+  it('when the planner states a CG uncertainty of 10% of the pick spacing, then crane 1’s share ranges 10 t to 14 t', () => {
+    // CG moved 0.1 × 10 m = 1 m: A = 20 × (6 ∓ 1) ÷ 10
+    const l = twoCranes();
+    l.multiCrane!.cgOffsetFraction = 0.1;
+    const r = run(l);
+    expect(r.cranes![0].shareRange!.min).toBeCloseTo(t(10), 6);
+    expect(r.cranes![0].shareRange!.max).toBeCloseTo(t(14), 6);
+    expect(r.cranes![1].shareRange!.min).toBeCloseTo(t(6), 6);
+    expect(r.cranes![1].shareRange!.max).toBeCloseTo(t(10), 6);
+  });
   it('when the CG lies outside the picks, then the shares fail (a crane would push the load up)', () => {
     const l = twoCranes();
     l.multiCrane!.loadCg = at(7, 0);

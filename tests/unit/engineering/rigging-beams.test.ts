@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { LiftInput, type LiftInputRaw } from '@shared/schemas/lift-input';
 import { evaluateLift } from '@shared/engineering/evaluate';
-import { G, outriggerLift, q } from './support';
+import { example, G, outriggerLift, q } from './support';
 
 const above = {
   material: 'wire',
@@ -68,5 +68,36 @@ describe('spreader and lifting beams', () => {
     );
     expect(r.success).toBe(false);
     expect(JSON.stringify(r.error!.issues)).toContain('rigging.beam.slingsBelow.legs[].pickPoint');
+  });
+
+  it('when a drop gives its length but neither its horizontal distance nor its angle, then the input is refused naming the field', () => {
+    const legs = [{ length: q(3, 'm'), pickPoint: drops.legs[0].pickPoint }, drops.legs[1]];
+    const r = LiftInput.safeParse(withBeam({ ...beam, slingsBelow: { ...drops, legs } }));
+    expect(r.success).toBe(false);
+    expect(r.error!.issues.map((i) => i.path.join('.'))).toContain(
+      'rigging.beam.slingsBelow.legs.0.horizontalDistance',
+    );
+  });
+
+  it('when a drop is given by length 5 m and horizontal distance 3 m, then its angle is acos(3/5) = 53.13° and T = V ÷ 0.8', () => {
+    const legs = [{ ...drops.legs[0], length: q(5, 'm'), horizontalDistance: q(3, 'm') }, drops.legs[1]];
+    const raw = withBeam({ ...beam, slingsBelow: { ...drops, legs } });
+    expect(item(raw, 'rigging.below.angle-1').value).toBeCloseTo((Math.acos(0.6) * 180) / Math.PI, 9);
+    // V1 = 6 t as before; sin θ = 4/5, so T1 = 6 ÷ 0.8 = 7.5 t
+    expect(tonnes(item(raw, 'rigging.below.leg-1').value!)).toBeCloseTo(7.5, 9);
+  });
+
+  it('when the spreader-beam example is checked, then its drops share 9.5 t by the lever rule: 5.067 t and 4.433 t', () => {
+    // drops 1.4 m and 1.6 m either side of the centre of gravity, 3.0 m apart, vertical:
+    // V_north = 9.5 × 1.6 / 3.0 = 5.0667 t, V_south = 9.5 × 1.4 / 3.0 = 4.4333 t; the beam carries
+    // 9.5 + 0.04 = 9.54 t; the slings above 9.54 + 0.4 = 9.94 t on two legs at 60°: 5.738 t each
+    const raw = example('pass-spreader-beam.json');
+    expect(tonnes(item(raw, 'rigging.below.leg-1').value!)).toBeCloseTo(9.5 * (1.6 / 3), 9);
+    expect(tonnes(item(raw, 'rigging.below.leg-2').value!)).toBeCloseTo(9.5 * (1.4 / 3), 9);
+    expect(item(raw, 'rigging.below.vertical-1').label).toBe(
+      'Vertical share at the pick point of north drop (below the beam)',
+    );
+    expect(tonnes(item(raw, 'rigging.beam').value!)).toBeCloseTo(9.54, 9);
+    expect(tonnes(item(raw, 'rigging.leg-1').value!)).toBeCloseTo(9.94 / (2 * Math.sin(Math.PI / 3)), 9);
   });
 });

@@ -12,6 +12,7 @@ const CASES: Array<[string, 'metric' | 'imperial']> = [
   ['caution-discrepancies', 'metric'],
   ['pass-imperial-units', 'imperial'],
   ['pass-crawler', 'metric'],
+  ['pass-spreader-beam', 'metric'],
   ['pass-gantry-a-frame', 'imperial'],
   ['fail-tandem', 'metric'],
   ['caution-two-cranes', 'metric'],

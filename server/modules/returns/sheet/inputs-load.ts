@@ -64,22 +64,24 @@ export function riggingInputs(flow: Flow, inputs: Obj) {
       add(
         r,
         str(beam.name) ?? (beam.kind === 'lifting' ? 'Lifting beam' : 'Spreader beam'),
-        `weighs ${asEntered(beam.weight) ?? '—'}, rated load ${asEntered(beam.ratedLoad) ?? '—'} (slings above it: the slings listed)`,
+        `${beam.kind === 'lifting' ? 'lifting' : 'spreader'} beam, weighs ${asEntered(beam.weight) ?? '—'}, rated load ${asEntered(beam.ratedLoad) ?? '—'} (slings above it: the slings listed)`,
       );
       const d = obj(beam.slingsBelow);
       if (d) {
         add(
           r,
           'Drops below the beam',
-          `${String(d.material ?? '')}, ${String(d.hitch ?? '')} hitch, rated ${asEntered(d.ratedLoadVertical) ?? '—'} per leg${asEntered(d.weight) ? `, weigh ${asEntered(d.weight)}` : ''}`,
+          `${str(d.name) ? `${str(d.name)}: ` : ''}${String(d.material ?? '')}, ${String(d.hitch ?? '')} hitch${asEntered(d.chokeAngle) ? ` choked at ${asEntered(d.chokeAngle)}` : ''}, rated ${asEntered(d.ratedLoadVertical) ?? '—'} per drop${asEntered(d.weight) ? `, weigh ${asEntered(d.weight)}` : ''}`,
         );
         arr(d.legs).forEach((leg, i) => {
           const p = obj(obj(leg)?.pickPoint);
           add(
             r,
-            `Drop ${i + 1}`,
+            str(obj(leg)?.name) ?? `Drop ${i + 1}`,
             [
               asEntered(obj(leg)?.angle) && `${asEntered(obj(leg)?.angle)} from horizontal`,
+              asEntered(obj(leg)?.length) &&
+                `length ${asEntered(obj(leg)?.length)}, ${asEntered(obj(leg)?.horizontalDistance) ?? '—'} across`,
               p && `pick point x ${asEntered(p.x)}, y ${asEntered(p.y)} from the centre of gravity`,
             ]
               .filter(Boolean)

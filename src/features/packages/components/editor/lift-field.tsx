@@ -45,8 +45,10 @@ function FieldInput({
   errorId: string;
   invalid: boolean;
   label: string;
+  /** A list cell: narrower, and with no <label> of its own it is named by its list, row and column. */
   compact?: boolean;
 }) {
+  const named = compact ? label : undefined;
   const { control } = useLiftFormContext();
   const describedBy = invalid ? errorId : undefined;
   return (
@@ -68,6 +70,7 @@ function FieldInput({
                 invalid={invalid}
                 describedBy={describedBy}
                 compact={compact}
+                ariaLabel={named}
               />
             );
           case 'number':
@@ -80,6 +83,7 @@ function FieldInput({
                   onBlur={field.onBlur}
                   aria-invalid={invalid ? true : undefined}
                   aria-describedby={describedBy}
+                  aria-label={named}
                   className={compact ? 'w-20' : 'w-28'}
                 />
                 {def.suffix && <span className="text-[13px] text-ink-soft">{def.suffix}</span>}
@@ -94,6 +98,7 @@ function FieldInput({
                 onBlur={field.onBlur}
                 aria-invalid={invalid ? true : undefined}
                 aria-describedby={describedBy}
+                aria-label={named}
                 className={`${textInput} px-1`}
               >
                 <option value="">Not given</option>
@@ -115,6 +120,7 @@ function FieldInput({
                 onBlur={field.onBlur}
                 aria-invalid={invalid ? true : undefined}
                 aria-describedby={describedBy}
+                aria-label={named}
                 className={textInput}
               />
             );
@@ -177,7 +183,7 @@ function ListField({ def, system }: { def: Extract<FieldDef, { kind: 'list' }>; 
   const schemaError = useFieldError(def.path);
   const listError = node?.message ?? node?.root?.message ?? (fields.length === 0 ? schemaError : undefined);
   return (
-    <fieldset className="col-span-full flex flex-col gap-1.5">
+    <fieldset className="col-span-full flex min-w-0 flex-col gap-1.5">
       <legend className="mb-1 text-[13px] font-bold">{def.label}</legend>
       {def.hint && <p className="text-[12.5px] text-ink-soft">{def.hint}</p>}
       {fields.length > 0 && (

@@ -32,7 +32,7 @@ export function FieldGroups({
       {groups
         .filter((group) => !group.when || group.when(values))
         .map((group) => (
-          <fieldset key={group.title} className="mb-4 border-t border-rule pt-2">
+          <fieldset key={group.title} className="mb-4 min-w-0 border-t border-rule pt-2">
             <legend className="pr-2 text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft">
               {group.title}
             </legend>

@@ -19,6 +19,7 @@ export function QuantityInput({
   invalid,
   describedBy,
   compact = false,
+  ariaLabel,
 }: {
   id: string;
   value: QuantityValue;
@@ -31,6 +32,8 @@ export function QuantityInput({
   invalid?: boolean;
   describedBy?: string;
   compact?: boolean;
+  /** The number's accessible name where no <label> points at it (a cell of a list). */
+  ariaLabel?: string;
 }) {
   const [chosenUnit, setChosenUnit] = useState(() => value?.unit ?? defaultUnit(kind, system));
   const unit = value?.unit ?? chosenUnit;
@@ -44,6 +47,7 @@ export function QuantityInput({
         onBlur={onBlur}
         aria-invalid={invalid ? true : undefined}
         aria-describedby={describedBy}
+        aria-label={ariaLabel}
         className={`${compact ? 'w-[5.5rem]' : 'w-28'} rounded-r-none`}
       />
       {units.length === 1 ? (
