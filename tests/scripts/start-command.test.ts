@@ -17,7 +17,8 @@ let running: ChildProcess | null = null;
 
 afterAll(() => {
   running?.kill('SIGKILL');
-  fs.rmSync(dataDir, { recursive: true, force: true });
+  // A server that has let go of its port may still be closing its last files: retry the removal.
+  fs.rmSync(dataDir, { recursive: true, force: true, maxRetries: 10, retryDelay: 300 });
 });
 
 interface Started {
