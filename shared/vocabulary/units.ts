@@ -79,3 +79,9 @@ const DEFAULTS: Record<UnitSystem, Record<QuantityKind, string>> = {
 export function defaultUnit(kind: QuantityKind, system: UnitSystem): string {
   return DEFAULTS[system][kind];
 }
+
+/** A unit system in words, as the documents and the package page name it. */
+export const UNIT_SYSTEM_WORDS: Record<UnitSystem, string> = {
+  metric: 'metric (m, t, kN, kPa)',
+  imperial: 'US customary (ft, lb, kip, psf)',
+};

@@ -12,7 +12,7 @@ import path from 'node:path';
 import { UnrecoverableError } from 'bullmq';
 import type { DataSource } from 'typeorm';
 import { DECISION_LABELS, type Decision } from '@shared/schemas/common';
-import { readStoredResult } from '@shared/engineering/stored-result';
+import { documentUnits } from '@shared/rules/document-units';
 import { AppError } from '../../lib/app-error';
 import type { Queues } from '../../lib/queues';
 import type { Signer } from '../../lib/pdf-tools/signer';
@@ -31,6 +31,7 @@ import { lockPackage } from '../reviews/review-scope';
 import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
+import { resultInUnits } from './result-in-units';
 import { buildStampedReturnFile, StampInputError } from './stamp-pdf';
 
 const BASE32 = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ234567';
@@ -64,6 +65,7 @@ function toReturn(r: StampedReturn) {
     sha256: r.sha256,
     pages: r.pages,
     verificationCode: r.verificationCode,
+    unitSystem: r.unitSystem,
     createdAt: r.createdAt.toISOString(),
     readyAt: r.readyAt?.toISOString() ?? null,
   };
@@ -100,10 +102,14 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Actor, p
       }
       const existing = await m.getRepository(StampedReturn).findOneBy({ decisionId: decision.id });
       if (existing) return existing;
+      // The document's unit system is fixed here: the site's or the package's, never the
+      // engineer's or the reviewer's own setting.
+      const site = await m.getRepository(Site).findOneByOrFail({ id: locked.siteId });
+      const units = documentUnits(locked, site).system;
       await m.query(
-        `INSERT INTO stamped_returns (decision_id, package_id, revision_id, verification_code, issued_by_id)
-         VALUES ($1, $2, $3, $4, $5)`,
-        [decision.id, pkg.id, decision.revisionId, newVerificationCode(), user.id],
+        `INSERT INTO stamped_returns (decision_id, package_id, revision_id, verification_code, issued_by_id, unit_system)
+         VALUES ($1, $2, $3, $4, $5, $6)`,
+        [decision.id, pkg.id, decision.revisionId, newVerificationCode(), user.id, units],
       );
       await recordAudit(m, {
         action: 'return.requested',
@@ -269,8 +275,8 @@ export async function buildReturn(
         },
         calculation: {
           inputs: revision.inputs,
-          result: readStoredResult(revision.results),
-          units: engineer.unitSystem,
+          result: resultInUnits(revision, ret.unitSystem),
+          units: ret.unitSystem,
           findings: findings.map((f) => ({
             text: f.text,
             severity: f.severity,
