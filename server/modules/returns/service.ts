@@ -31,6 +31,7 @@ import { lockPackage } from '../reviews/review-scope';
 import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
+import { findingLabel, findingsByMarkup, markupPlace } from './finding-marks';
 import { resultInUnits } from './result-in-units';
 import { buildStampedReturnFile, StampInputError } from './stamp-pdf';
 
@@ -226,6 +227,7 @@ export async function buildReturn(
   const findings = await ds
     .getRepository(Finding)
     .find({ where: { packageId: pkg.id }, order: { createdAt: 'ASC' } });
+  const tags = findingsByMarkup(findings);
   await step(20, 'reading the original pages');
   const workRoot = options.workDir ?? tmpdir();
   await mkdir(workRoot, { recursive: true });
@@ -254,6 +256,7 @@ export async function buildReturn(
           colour: mk.colour as 'rust',
           text: mk.text,
           number: mk.number,
+          findings: tags.get(mk.id) ?? [],
         })),
         stamp: {
           decision: decision.decision,
@@ -277,7 +280,9 @@ export async function buildReturn(
           inputs: revision.inputs,
           result: resultInUnits(revision, ret.unitSystem),
           units: ret.unitSystem,
-          findings: findings.map((f) => ({
+          findings: findings.map((f, i) => ({
+            label: findingLabel(i),
+            markup: markupPlace(files, markups, f.markupId, findingLabel(i)),
             text: f.text,
             severity: f.severity,
             state: f.state,
