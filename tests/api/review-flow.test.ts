@@ -301,12 +301,14 @@ describe('the stamped return, verification and resubmission', () => {
     const v1 = await supertest(t.app).get(`/api/verify/${ret.verificationCode}`);
     expect(v1.status).toBe(200);
     expect(Object.keys(v1.body).sort()).toEqual([
+      'conditions',
       'current',
       'decidedOn',
       'decision',
       'decisionLabel',
       'found',
       'issuedOn',
+      'overrideReason',
       'reference',
       'revision',
       'sha256',
