@@ -123,7 +123,9 @@ export const PasswordChangeBody = z.object({
 export const MAIL_EVENTS = [
   'submitted',
   'assigned',
+  'decided',
   'returned',
+  'answered',
   'resubmitted',
   'reminder',
   'invite',
