@@ -21,18 +21,15 @@ import { recordAudit } from '../audit/service';
 import { handOff, latestIntent, nextRound, recordIntent, type Intent } from '../jobs/intents';
 import { stageMail } from '../mail/service';
 import { templates } from '../mail/templates';
-import { UploadedFile } from '../files/file.entity';
-import { Organisation } from '../organisations/organisation.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { requireState } from '../packages/state-guard';
-import { DecisionRecord, Finding, Markup, StampedReturn } from '../reviews/review.entity';
+import { DecisionRecord, StampedReturn } from '../reviews/review.entity';
 import { lockPackage } from '../reviews/review-scope';
 import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
-import { findingLabel, findingsByMarkup, markupPlace } from './finding-marks';
-import { resultInUnits } from './result-in-units';
+import { readReturnInput } from './return-input';
 import { buildStampedReturnFile, StampInputError } from './stamp-pdf';
 
 const BASE32 = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ234567';
@@ -207,27 +204,19 @@ export async function buildReturn(
     await progress(percent, name);
   };
   await step(5, 'reading the review');
-  const pkg = await ds.getRepository(LiftPackage).findOneByOrFail({ id: ret.packageId });
-  const revision = await ds.getRepository(Revision).findOneByOrFail({ id: ret.revisionId });
-  // The decision the return was issued for, never a later one: the stamp, /verify and the
-  // package page say the same.
-  const decision = await ds.getRepository(DecisionRecord).findOneByOrFail({ id: ret.decisionId });
-  const site = await ds.getRepository(Site).findOneByOrFail({ id: pkg.siteId });
-  const contractor = await ds
-    .getRepository(Organisation)
-    .findOneByOrFail({ id: pkg.contractorOrganisationId });
-  const engineer = await ds.getRepository(User).findOneByOrFail({ id: decision.engineerId });
-  const reviewer = await ds.getRepository(User).findOneByOrFail({ id: ret.issuedById });
-  const files = await ds
-    .getRepository(UploadedFile)
-    .find({ where: { revisionId: revision.id }, order: { kind: 'ASC', createdAt: 'ASC' } });
-  const markups = await ds
-    .getRepository(Markup)
-    .find({ where: { revisionId: revision.id }, order: { createdAt: 'ASC' } });
-  const findings = await ds
-    .getRepository(Finding)
-    .find({ where: { packageId: pkg.id }, order: { createdAt: 'ASC' } });
-  const tags = findingsByMarkup(findings);
+  const { input, files, pkg, revision, decision, site } = await readReturnInput(
+    ds,
+    {
+      packageId: ret.packageId,
+      revisionId: ret.revisionId,
+      decisionId: ret.decisionId,
+      issuedById: ret.issuedById,
+      unitSystem: ret.unitSystem,
+      issuedAt: ret.createdAt,
+      verificationCode: ret.verificationCode,
+    },
+    appUrl,
+  );
   await step(20, 'reading the original pages');
   const workRoot = options.workDir ?? tmpdir();
   await mkdir(workRoot, { recursive: true });
@@ -245,61 +234,10 @@ export async function buildReturn(
     }
     await step(40, 'burning in markups and the stamp');
     const out = path.join(work, 'return.pdf');
-    const built = await buildStampedReturnFile(
-      {
-        documents,
-        markups: markups.map((mk) => ({
-          fileId: mk.fileId,
-          pageNumber: mk.pageNumber,
-          kind: mk.kind,
-          geometry: mk.geometry as Record<string, number>,
-          colour: mk.colour as 'rust',
-          text: mk.text,
-          number: mk.number,
-          findings: tags.get(mk.id) ?? [],
-        })),
-        stamp: {
-          decision: decision.decision,
-          reference: pkg.reference,
-          title: pkg.title,
-          revision: revision.number,
-          site: site.name,
-          contractor: contractor.name,
-          engineer: engineer.name,
-          reviewer: reviewer.name,
-          decidedAt: decision.createdAt.toISOString(),
-          issuedAt: ret.createdAt.toISOString(),
-          timeZone: site.timeZone,
-          conditions: decision.conditions,
-          overrideReason: decision.overrideReason,
-          overridden: decision.overridden ?? [],
-          verificationCode: ret.verificationCode,
-          verificationUrl: `${appUrl}/verify/${ret.verificationCode}`,
-        },
-        calculation: {
-          inputs: revision.inputs,
-          result: resultInUnits(revision, ret.unitSystem),
-          units: ret.unitSystem,
-          findings: findings.map((f, i) => ({
-            label: findingLabel(i),
-            markup: markupPlace(files, markups, f.markupId, findingLabel(i)),
-            text: f.text,
-            severity: f.severity,
-            state: f.state,
-            response: f.response,
-            checkId: f.checkId,
-            pageNumber: f.pageNumber,
-          })),
-          acceptedFigures: (revision.acceptedFigures ?? []).map((a) => ({
-            figure: a.figure,
-            reason: a.reason,
-            engineer: a.engineer,
-          })),
-        },
-      },
-      out,
-      { signer: options.signer, workDir: work },
-    );
+    const built = await buildStampedReturnFile({ ...input, documents }, out, {
+      signer: options.signer,
+      workDir: work,
+    });
     pages = built.pages;
     signingCertificateSha256 = built.signingCertificateSha256;
     await step(85, 'storing the return');
