@@ -37,7 +37,7 @@ import type {
 } from './types';
 
 export const RESULT_VERSION = 2 as const;
-export const ENGINE_VERSION = '2.2.0';
+export const ENGINE_VERSION = '2.2.1';
 
 export const CAUTIONS: readonly string[] = [
   "This check recomputes the arithmetic and consistency of the lift plan. It does not replace the crane manufacturer's load chart and operating instructions.",

@@ -1,18 +1,37 @@
 // Where each limit comes from, in one place so the text is the same in every check, the admin page
 // and the calculation sheet. Kinds: a named standard (read in a public copy), the site policy,
 // common practice with no source, or "from memory" (not checked against the source).
-import type { Source } from './types';
+import type { Source, UnitSystem } from './types';
 
 const std = (text: string): Source => ({ kind: 'standard', text });
 
+/** A source whose text names quantities: the text in each unit system (`text` keeps both). */
+const inUnits = (source: Source, metric: string, imperial: string): Source => ({
+  ...source,
+  textIn: { metric, imperial },
+});
+
+/** A source's text as a document in `system` prints it. */
+export function sourceText(source: Source, system: UnitSystem): string {
+  return source.textIn?.[system] ?? source.text;
+}
+
 export const SOURCES = {
   oshaTableA: std('OSHA 29 CFR 1926.1408, Table A (minimum clearance distances)'),
-  oshaNearLines: {
-    kind: 'from_memory',
-    text: 'OSHA 29 CFR 1926.1408(a) and 1926.1409: work zone within 20 ft (up to 350 kV) or 50 ft (over 350 kV) of a line (from memory)',
-  } as Source,
+  oshaNearLines: inUnits(
+    {
+      kind: 'from_memory',
+      text: 'OSHA 29 CFR 1926.1408(a) and 1926.1409: work zone within 20 ft (up to 350 kV) or 50 ft (over 350 kV) of a line (from memory)',
+    },
+    'OSHA 29 CFR 1926.1408(a) and 1926.1409: work zone within 6.10 m (up to 350 kV) or 15.2 m (over 350 kV) of a line (from memory)',
+    'OSHA 29 CFR 1926.1408(a) and 1926.1409: work zone within 20 ft (up to 350 kV) or 50 ft (over 350 kV) of a line (from memory)',
+  ),
   oshaPersonnel: std('OSHA 29 CFR 1926.1431 (hoisting personnel: 50% of rated capacity)'),
-  oshaPersonnelWind: std('OSHA 29 CFR 1926.1431 (above 20 mph a qualified person decides whether to lift)'),
+  oshaPersonnelWind: inUnits(
+    std('OSHA 29 CFR 1926.1431 (above 20 mph a qualified person decides whether to lift)'),
+    'OSHA 29 CFR 1926.1431 (above 8.94 m/s a qualified person decides whether to lift)',
+    'OSHA 29 CFR 1926.1431 (above 20 mph a qualified person decides whether to lift)',
+  ),
   asmeTipping: std(
     'ASME B30.5 §5-1.1.1 / SAE J765: rated load ≤ 85% of tipping load on outriggers, 75% on crawlers',
   ),
@@ -68,7 +87,11 @@ export const SOURCES = {
   ropeRotationResistant: std(
     'ASME B30.6 / B30.22 (B30.5 from memory): design factor 5 for rotation-resistant rope',
   ),
-  windPressure: std('Dynamic pressure q = ½ρv², ρ = 1.225 kg/m³ (q = 0.613 v² Pa; 0.00256 V² psf)'),
+  windPressure: inUnits(
+    std('Dynamic pressure q = ½ρv², ρ = 1.225 kg/m³ (q = 0.613 v² Pa; 0.00256 V² psf)'),
+    'Dynamic pressure q = ½ρv², ρ = 1.225 kg/m³ (q = 0.613 v² Pa, v in m/s)',
+    'Dynamic pressure q = ½ρv² (q = 0.00256 V² psf, V in mph; air at sea level)',
+  ),
   queenslandTandem: std('Queensland Mobile Crane Code of Practice 2006 §14.3.2 (tandem margins 20/33/50%)'),
   tandemShare: std('Load sharing, hoist lines plumb: share A = W · d_B / (d_A + d_B)'),
   usaceCritical: std('USACE EM 385-1-1 §16.H (critical lift criteria)'),
@@ -92,5 +115,11 @@ export const SOURCES = {
   } as Source,
   input: { kind: 'input', text: 'as entered' } as Source,
   manufacturerChart: { kind: 'input', text: "Manufacturer's load chart rows as entered" } as Source,
-  policy: (what: string): Source => ({ kind: 'site_policy', text: `site policy: ${what}` }),
+  policy: (what: string, inSystems?: Record<UnitSystem, string>): Source => ({
+    kind: 'site_policy',
+    text: `site policy: ${what}`,
+    ...(inSystems && {
+      textIn: { metric: `site policy: ${inSystems.metric}`, imperial: `site policy: ${inSystems.imperial}` },
+    }),
+  }),
 };

@@ -26,6 +26,11 @@ export interface Source {
   kind: SourceKind;
   /** e.g. "OSHA 29 CFR 1926.1408, Table A" or "site policy: maximum chart use". */
   text: string;
+  /**
+   * The same text with its quantities in one unit system, where it names quantities (a document
+   * prints the one of its own system: sourceText() in sources.ts); absent when it names none.
+   */
+  textIn?: Record<UnitSystem, string>;
 }
 
 /** A term of a formula: a number with its unit kind, rendered in the caller's unit system. */

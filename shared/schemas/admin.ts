@@ -13,7 +13,7 @@ const name = (field: string) =>
 export const OrganisationBody = z.object({ name: name('name'), kind: OrganisationKind });
 export const OrganisationPatch = z.object({ name: name('name') });
 
-export const SiteBody = z.object({
+const siteFields = {
   name: name('name'),
   code: z
     .string()
@@ -22,7 +22,7 @@ export const SiteBody = z.object({
       /^[A-Z0-9]{2,8}$/,
       'code must be 2 to 8 capital letters or digits (it starts every package reference)',
     ),
-  address: safeText('address').trim().max(300, 'address must be at most 300 characters').default(''),
+  address: safeText('address').trim().max(300, 'address must be at most 300 characters'),
   timeZone: z
     .string()
     .max(60)
@@ -33,10 +33,21 @@ export const SiteBody = z.object({
       } catch {
         return false;
       }
-    }, 'timeZone must be an IANA time zone such as Europe/London')
-    .default('UTC'),
+    }, 'timeZone must be an IANA time zone such as Europe/London'),
+  /** The unit system of every document of the site's packages; null: each package's own. */
+  unitSystem: z
+    .enum(['metric', 'imperial'], { message: "unitSystem must be 'metric', 'imperial' or null" })
+    .nullable(),
+};
+
+export const SiteBody = z.object({
+  ...siteFields,
+  address: siteFields.address.default(''),
+  timeZone: siteFields.timeZone.default('UTC'),
+  unitSystem: siteFields.unitSystem.default(null),
 });
-export const SitePatch = SiteBody.partial();
+/** A change of some of a site's settings: what is left out stays as it is (no defaults). */
+export const SitePatch = z.object(siteFields).partial();
 export const SiteReviewersBody = z.object({
   userIds: z.array(z.uuid()).max(50, 'userIds must list at most 50 people'),
 });
@@ -47,6 +58,7 @@ export const AdminSite = z.object({
   code: z.string(),
   address: z.string(),
   timeZone: z.string(),
+  unitSystem: UnitSystem.nullable(),
   policyVersion: z.number().int(),
   reviewers: z.array(z.object({ id: z.uuid(), name: z.string(), email: z.string() })),
 });
@@ -137,7 +149,9 @@ export const PasswordChangeBody = z.object({
 export const MAIL_EVENTS = [
   'submitted',
   'assigned',
+  'decided',
   'returned',
+  'answered',
   'resubmitted',
   'reminder',
   'invite',

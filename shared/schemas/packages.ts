@@ -1,7 +1,7 @@
 // Lift package payloads: the list the queue and the contractor's desk show, and one package.
 import { z } from 'zod';
 import { safeText } from './safe-text';
-import { Decision, PackageStatus, PACKAGE_STATUSES } from './common';
+import { Decision, PackageStatus, PACKAGE_STATUSES, UnitSystem } from './common';
 
 export const CheckStatus = z.enum(['pass', 'caution', 'fail', 'not_applicable']);
 export type CheckStatus = z.infer<typeof CheckStatus>;
@@ -201,6 +201,13 @@ export const PackageDetail = z.object({
         .default({ inputsSha256: null, resultsSha256: null, engineVersion: null }),
     })
     .nullable(),
+  /**
+   * The unit system of the package's documents (the stamped return and its calculation sheet): the
+   * site's when its admin set one, else the package's own (its contractor's when it was created).
+   */
+  documentUnits: z
+    .object({ system: UnitSystem, source: z.enum(['package', 'site']) })
+    .default({ system: 'metric', source: 'package' }),
   /** The site's review policy as the check run applies it (defaults with the site's overrides). */
   sitePolicy: z.record(z.string(), z.unknown()),
   events: z.array(

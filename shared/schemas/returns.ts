@@ -1,5 +1,6 @@
 // Stamped returns of a package, as GET/POST /api/packages/:id/returns answer them.
 import { z } from 'zod';
+import { UnitSystem } from './common';
 
 export const StampedReturn = z.object({
   id: z.uuid(),
@@ -10,6 +11,8 @@ export const StampedReturn = z.object({
   sha256: z.string().nullable(),
   pages: z.number().int().nullable(),
   verificationCode: z.string(),
+  /** The unit system of the whole document, fixed when it was issued. */
+  unitSystem: UnitSystem,
   createdAt: z.string(),
   readyAt: z.string().nullable(),
 });

@@ -84,3 +84,9 @@ export function defaultUnit(kind: QuantityKind, system: UnitSystem): string {
 export function limitFigure(x: number): string {
   return x.toLocaleString('en-US', { maximumFractionDigits: x >= 100 ? 0 : 3 });
 }
+
+/** A unit system in words, as the documents and the package page name it. */
+export const UNIT_SYSTEM_WORDS: Record<UnitSystem, string> = {
+  metric: 'metric (m, t, kN, kPa)',
+  imperial: 'US customary (ft, lb, kip, psf)',
+};

@@ -44,6 +44,7 @@ export const adminSite = {
   code: 'NYD',
   address: '1 Quay Road',
   timeZone: 'Europe/London',
+  unitSystem: null,
   policyVersion: 3,
   reviewers: [],
 };

@@ -120,4 +120,45 @@ describe('package page', () => {
     );
     expect(screen.getAllByText(/does not replace the crane manufacturer/).length).toBeGreaterThan(0);
   });
+
+  it("when the site sets US customary units, then the package page names them as the return's units, whatever the reader's own", async () => {
+    const detail = {
+      ...makeDetail({ pkg: { status: 'with_engineer' } }),
+      documentUnits: { system: 'imperial' as const, source: 'site' as const },
+    };
+    stubFetch((url) => {
+      if (url.pathname === '/api/me')
+        return { status: 200, body: { user: makeUser('reviewer', { unitSystem: 'metric' }) } };
+      if (url.pathname === `/api/packages/${detail.package.id}`) return { status: 200, body: detail };
+    });
+    renderApp(`/packages/${detail.package.id}`);
+
+    const panel = await screen.findByRole(
+      'region',
+      { name: 'Units of the stamped return' },
+      { timeout: 8000 },
+    );
+    expect(panel.textContent).toContain(
+      'US customary (ft, lb, kip, psf), set for every package of this site.',
+    );
+  });
+
+  it("when the package keeps its contractor's units, then the page says so", async () => {
+    const detail = makeDetail({ pkg: { status: 'with_engineer' } });
+    stubFetch((url) => {
+      if (url.pathname === '/api/me')
+        return { status: 200, body: { user: makeUser('engineer', { unitSystem: 'imperial' }) } };
+      if (url.pathname === `/api/packages/${detail.package.id}`) return { status: 200, body: detail };
+    });
+    renderApp(`/packages/${detail.package.id}`);
+
+    const panel = await screen.findByRole(
+      'region',
+      { name: 'Units of the stamped return' },
+      { timeout: 8000 },
+    );
+    expect(panel.textContent).toContain(
+      "Metric (m, t, kN, kPa), the contractor's when the package was created.",
+    );
+  });
 });

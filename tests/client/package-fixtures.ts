@@ -42,6 +42,7 @@ export function makeDetail(
   return {
     package: pkg,
     sitePolicy: {},
+    documentUnits: { system: 'metric', source: 'package' },
     decision: null,
     revisions: [
       {

@@ -45,6 +45,7 @@ const ALLOWED: Record<string, Allowed> = {
   'GET /api/packages/:id/compare': ALL,
   'GET /api/packages/:id/returns': ALL,
   'GET /api/packages/:id/returns/:returnId/file': ALL,
+  'GET /api/packages/:id/returns/preview': R,
   'POST /api/calculations': ALL,
   'GET /api/calculations/schema': ALL,
   'POST /api/packages': C,

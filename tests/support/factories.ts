@@ -65,6 +65,7 @@ export async function makePackage(
     contractorOrganisationId: opts.contractor.id,
     siteId: opts.site.id,
     createdById: opts.createdBy.id,
+    unitSystem: opts.createdBy.unitSystem ?? 'metric',
     status: opts.status ?? 'ready_for_review',
     plannedLiftDate: opts.plannedLiftDate ?? '2027-03-14',
     assignedEngineerId: opts.engineer?.id ?? null,

@@ -18,6 +18,7 @@ import { startMailWorker } from '../../worker/tasks/mail-task';
 import { startTestApp, signedIn, TEST_PASSWORD, type TestApp } from '../support/app';
 import { makePackage, makeUser, makeWorld } from '../support/factories';
 import { makePdf } from '../support/pdfs';
+import { internalWords } from '../support/internal-words';
 import { until } from '../support/until';
 
 const example = JSON.parse(fs.readFileSync('shared/engineering/examples/pass-outriggers.json', 'utf8'));
@@ -99,6 +100,104 @@ describe('hand-off mail', () => {
 
     for (const outsider of [w.plannerB, other.reviewer, other.engineer, other.plannerA]) {
       expect(await caughtFor(outsider.email)).toEqual([]);
+    }
+  }, 60_000);
+});
+
+describe('mail inside the review', () => {
+  it('when the engineer records a decision, then every coordinator of the site is told they issue next; when the contractor answers a finding, then the assigned engineer is told, once per answer', async () => {
+    const w = await makeWorld(t.ctx.dataSource);
+    const other = await makeWorld(t.ctx.dataSource);
+    const second = await makeUser(t.ctx.dataSource, w.owner, 'reviewer');
+    await t.ctx.dataSource.query(`INSERT INTO site_members (site_id, user_id) VALUES ($1, $2)`, [
+      w.site.id,
+      second.id,
+    ]);
+    const contractor = await signedIn(t.app, w.plannerA.email);
+    const reviewer = await signedIn(t.app, w.reviewer.email);
+    const engineer = await signedIn(t.app, w.engineer.email);
+    const created = await contractor
+      .post('/api/packages')
+      .send({ title: 'Lift the filter press', siteId: w.site.id });
+    const id = created.body.package.id;
+    const reference = created.body.package.reference;
+    await contractor.put(`/api/packages/${id}/draft`).send({ inputs: example });
+    await contractor
+      .post(`/api/packages/${id}/files`)
+      .field('kind', 'lift_plan')
+      .attach('file', Buffer.from(await makePdf()), 'plan.pdf');
+    const sub = await contractor.post(`/api/packages/${id}/submit`);
+    await runCheckRun(t.ctx.dataSource, sub.body.current.id);
+    await reviewer.post('/api/assignments').send({ packageIds: [id], engineerId: w.engineer.id });
+    await engineer
+      .post(`/api/packages/${id}/findings`)
+      .send({ text: 'The rigging drawing is missing.', severity: 'minor' });
+    const added = await engineer
+      .post(`/api/packages/${id}/findings`)
+      .send({ text: 'Show the mats under each outrigger on the plan.', severity: 'major' });
+    expect(added.status).toBe(201);
+    const finding = added.body.items.find((f: { text: string }) => f.text.startsWith('Show the mats')) as {
+      id: string;
+    };
+
+    const version = (await engineer.get(`/api/packages/${id}`)).body.package.version;
+    const decided = await engineer.post(`/api/packages/${id}/decision`).send({
+      password: TEST_PASSWORD,
+      decision: 'revise_and_resubmit',
+      conditions: 'Add the mat layout.',
+      baseVersion: version,
+    });
+    expect(decided.status).toBe(200);
+    for (const coordinator of [w.reviewer, second]) {
+      const mail = await until(async () =>
+        (await caughtFor(coordinator.email)).find((m) => m.subject.includes('ready to issue')),
+      );
+      expect(mail.subject).toBe(
+        `${reference} rev 1: Revise and resubmit, ready to issue — Lift the filter press`,
+      );
+      expect(mail.text_body).toContain(`${w.engineer.name} recorded the decision on ${reference}`);
+      expect(mail.text_body).toContain('Conditions: Add the mat layout.');
+      expect(mail.text_body).toContain('The stamped return is yours to issue next');
+      expect(mail.text_body).toContain(`${appUrl(t.ctx.config)}/packages/${id}`);
+      expect(internalWords(mail.text_body.replace(/https?:\/\/\S+/g, ''))).toEqual([]);
+    }
+    // Only the coordinators: not the engineer, the contractor, or another desk.
+    for (const outsider of [w.engineer, w.plannerA, other.reviewer]) {
+      expect((await caughtFor(outsider.email)).filter((m) => m.subject.includes('ready to issue'))).toEqual(
+        [],
+      );
+    }
+
+    const issued = await reviewer.post(`/api/packages/${id}/returns`);
+    await buildReturn(t.ctx.dataSource, t.ctx.storage, issued.body.id, appUrl(t.ctx.config));
+    const answer = 'Mat layout added on sheet 3: 1.5 m mats, two per outrigger.';
+    const answered = await contractor
+      .patch(`/api/packages/${id}/findings/${finding.id}`)
+      .send({ response: answer });
+    expect(answered.status).toBe(200);
+    const mail = await until(async () =>
+      (await caughtFor(w.engineer.email)).find((m) => m.subject.includes('answered')),
+    );
+    expect(mail.subject).toBe(`${reference}: finding 2 answered — Lift the filter press`);
+    expect(mail.text_body).toContain(`${w.plannerA.name} answered finding 2 on ${reference}`);
+    expect(mail.text_body).toContain('Finding: Show the mats under each outrigger on the plan.');
+    expect(mail.text_body).toContain(`Answer: ${answer}`);
+    expect(internalWords(mail.text_body.replace(/https?:\/\/\S+/g, ''))).toEqual([]);
+    expect(mail.text_body).not.toContain(finding.id);
+    // The same answer sent again is not a second message; a changed answer is.
+    await contractor.patch(`/api/packages/${id}/findings/${finding.id}`).send({ response: answer });
+    await contractor
+      .patch(`/api/packages/${id}/findings/${finding.id}`)
+      .send({ response: `${answer} Bearing checked.` });
+    await until(
+      async () =>
+        (await caughtFor(w.engineer.email)).filter((m) => m.subject.includes('answered')).length === 2 ||
+        null,
+    );
+    await new Promise((r) => setTimeout(r, 300));
+    expect((await caughtFor(w.engineer.email)).filter((m) => m.subject.includes('answered'))).toHaveLength(2);
+    for (const outsider of [w.reviewer, second, other.engineer]) {
+      expect((await caughtFor(outsider.email)).filter((m) => m.subject.includes('answered'))).toEqual([]);
     }
   }, 60_000);
 });

@@ -11,6 +11,7 @@ import { FleetLibrary1764717000000 } from './1764717000000-fleet-library';
 import { ForeignKeyIndexes1764718000000 } from './1764718000000-foreign-key-indexes';
 import { DeliberateDecision1764720100000 } from './1764720100000-deliberate-decision';
 import { OneLiftPlan1764720200000 } from './1764720200000-one-lift-plan';
+import { DocumentUnits1764720300000 } from './1764720300000-document-units';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
@@ -25,4 +26,5 @@ export const MIGRATIONS = [
   ForeignKeyIndexes1764718000000,
   DeliberateDecision1764720100000,
   OneLiftPlan1764720200000,
+  DocumentUnits1764720300000,
 ];

@@ -83,6 +83,7 @@ export async function seedPackages(
       contractorOrganisationId: org.id,
       siteId: site.id,
       createdById: person.id,
+      unitSystem: person.unitSystem,
       status: spec.status === 'draft' && !spec.revisingAfter ? 'draft' : 'checking',
       plannedLiftDate: isoDay(spec.daysToLift),
       currentRevision: 1,

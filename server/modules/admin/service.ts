@@ -5,6 +5,7 @@
 import type { Actor } from '@shared/rules/actor';
 import type { DataSource } from 'typeorm';
 import { In } from 'typeorm';
+import type { UnitSystem } from '@shared/schemas/common';
 import { POLICY_DEFAULTS, SitePolicy } from '@shared/schemas/site-policy';
 import { AppError, zodFields } from '../../lib/app-error';
 import { recordAudit } from '../audit/service';
@@ -98,6 +99,7 @@ export async function adminSite(ds: DataSource, site: Site) {
     code: site.code,
     address: site.address,
     timeZone: site.timeZone,
+    unitSystem: site.unitSystem,
     policyVersion: site.policyVersion,
     reviewers: rows,
   };
@@ -117,7 +119,7 @@ function codeTaken(error: unknown) {
 export async function createSite(
   ds: DataSource,
   admin: Actor,
-  body: { name: string; code: string; address: string; timeZone: string },
+  body: { name: string; code: string; address: string; timeZone: string; unitSystem: UnitSystem | null },
 ) {
   try {
     const site = await ds.transaction(async (m) => {
@@ -146,7 +148,13 @@ export async function updateSite(
   ds: DataSource,
   admin: Actor,
   id: string,
-  body: Partial<{ name: string; code: string; address: string; timeZone: string }>,
+  body: Partial<{
+    name: string;
+    code: string;
+    address: string;
+    timeZone: string;
+    unitSystem: UnitSystem | null;
+  }>,
 ) {
   const site = await ownSite(ds, admin, id);
   try {

@@ -13,7 +13,8 @@ import {
 import { LiftPackage } from '../packages/package.entity';
 import { User } from '../users/user.entity';
 
-export type MailEvent = 'submitted' | 'assigned' | 'returned' | 'resubmitted' | 'reminder' | 'invite';
+export type MailEvent =
+  'submitted' | 'assigned' | 'decided' | 'returned' | 'answered' | 'resubmitted' | 'reminder' | 'invite';
 
 @Index('mail_messages_package_idx', ['packageId'])
 @Index('mail_messages_recipient_idx', ['recipientId'])

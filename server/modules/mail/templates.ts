@@ -44,6 +44,12 @@ ${lines.map((l) => `<p>${escape(l)}</p>`).join('\n')}
   return { subject, text, html };
 }
 
+/** A person's text in a message: whole up to 600 characters, else cut at a word with an ellipsis. */
+const clip = (text: string) => {
+  const t = text.trim().replace(/\s+/g, ' ');
+  return t.length <= 600 ? t : `${t.slice(0, 600).replace(/\s+\S*$/, '')}…`;
+};
+
 const when = (p: PackageRef) =>
   p.plannedLiftDate ? `planned lift date ${p.plannedLiftDate}` : 'no lift date set';
 
@@ -73,6 +79,41 @@ export const templates = {
       `${p.reference} assigned to you for review — ${p.title}`,
       `Hello ${to},`,
       [`${by} assigned ${p.reference} "${p.title}" at ${p.site} to you as engineer of record (${when(p)}).`],
+      { url: p.url, label: 'Open the package' },
+    ),
+  decided: (
+    to: string,
+    p: PackageRef,
+    revision: number,
+    decision: Decision,
+    engineer: string,
+    conditions: string,
+  ): Rendered =>
+    render(
+      `${p.reference} rev ${revision}: ${DECISION_LABELS[decision]}, ready to issue — ${p.title}`,
+      `Hello ${to},`,
+      [
+        `${engineer} recorded the decision on ${p.reference} "${p.title}" revision ${revision} at ${p.site}: ${DECISION_LABELS[decision]} (${when(p)}).`,
+        ...(conditions ? [`Conditions: ${conditions}`] : []),
+        'The stamped return is yours to issue next: check the stamp and the first page, then issue it from the package page.',
+      ],
+      { url: p.url, label: 'Open the package' },
+    ),
+  answered: (
+    to: string,
+    p: PackageRef,
+    by: string,
+    finding: { number: number; text: string; response: string },
+  ): Rendered =>
+    render(
+      `${p.reference}: finding ${finding.number} answered — ${p.title}`,
+      `Hello ${to},`,
+      [
+        `${by} answered finding ${finding.number} on ${p.reference} "${p.title}" at ${p.site}.`,
+        `Finding: ${clip(finding.text)}`,
+        `Answer: ${clip(finding.response)}`,
+        'Close the finding or reopen it from the review workspace once the next revision is submitted.',
+      ],
       { url: p.url, label: 'Open the package' },
     ),
   returned: (

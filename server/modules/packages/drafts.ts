@@ -60,12 +60,16 @@ export async function createPackage(
   requireContractor(user);
   return ds.transaction(async (m) => {
     const site = await siteOr400(m, body.siteId, user);
+    // The package keeps its creator's unit system as it is now; a later change of their
+    // setting does not move the package's documents.
+    const creator = await m.getRepository(User).findOneByOrFail({ id: user.id });
     const pkg = await m.getRepository(LiftPackage).save({
       reference: await nextReference(m, site),
       title: body.title,
       contractorOrganisationId: user.organisationId,
       siteId: site.id,
       createdById: user.id,
+      unitSystem: creator.unitSystem,
       status: 'draft',
       plannedLiftDate: body.plannedLiftDate ?? null,
       currentRevision: 1,

@@ -17,7 +17,7 @@ import {
 import type { LiftResult } from '@shared/engineering/types';
 import type { CheckStatus } from '@shared/schemas/packages';
 import type { SitePolicy } from '@shared/schemas/site-policy';
-import type { Decision, PackageStatus } from '@shared/schemas/common';
+import type { Decision, PackageStatus, UnitSystem } from '@shared/schemas/common';
 import { Organisation } from '../organisations/organisation.entity';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
@@ -28,6 +28,7 @@ import { User } from '../users/user.entity';
 @Index('lift_packages_engineer_idx', ['assignedEngineerId'])
 @Index('lift_packages_site_status_idx', ['siteId', 'status', 'plannedLiftDate'])
 @Unique('lift_packages_reference_key', ['reference'])
+@Check('lift_packages_unit_system_check', `unit_system IN ('metric', 'imperial')`)
 export class LiftPackage {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ type: 'varchar', length: 30 }) reference: string;
@@ -61,6 +62,8 @@ export class LiftPackage {
   worstStatus: CheckStatus | null;
   @Column({ type: 'int', name: 'open_discrepancies', default: 0 }) openDiscrepancies: number;
   @Column({ type: 'varchar', length: 30, nullable: true }) decision: Decision | null;
+  /** The contractor's unit system when the package was created; a site's own setting overrides it. */
+  @Column({ type: 'varchar', length: 10, name: 'unit_system', default: 'metric' }) unitSystem: UnitSystem;
   @VersionColumn({ type: 'int', default: 1 }) version: number;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' }) updatedAt: Date;

@@ -15,6 +15,7 @@ import { UploadedFile } from '../files/file.entity';
 import { toFileSummary } from '../files/service';
 import { User } from '../users/user.entity';
 import { sitePolicy } from '../sites/site-policy';
+import { documentUnits } from '@shared/rules/document-units';
 import { LiftPackage, Revision } from './package.entity';
 import { findScopedPackage, scopedPackages } from './package-scope';
 
@@ -198,6 +199,7 @@ export async function packageDetail(
       checkStatus: r.checkStatus as RevisionDetail['check']['status'],
     })),
     current: await revisionDetail(dataSource, current),
+    documentUnits: documentUnits(full, full.site!),
     sitePolicy: sitePolicy(full.site!),
     decision: await decisionSummary(dataSource, full.id),
     events: events

@@ -1,12 +1,14 @@
 // Burns the engineer's markups into a page of the return as vector drawing, in their colour,
 // at their stored coordinates: outlines for rectangles, ellipses and clouds (a scalloped
 // outline of arcs), an arrow with a filled head, free text, and numbered pins (a filled disc
-// with the number in white). Called inside the page's display frame (page-frame-pdf.ts).
+// with the number in white). A markup a finding is tied to carries the finding's number ("F3")
+// in its label. Text wraps inside its box (the stored width, or up to the page's right margin)
+// and the box is kept on the page. Called inside the page's display frame (page-frame-pdf.ts).
 import type { PDFPage } from 'pdf-lib';
 import { MARKUP_COLOURS, type MarkupColour } from '@shared/schemas/reviews';
 import type { MarkupKind } from '@shared/vocabulary/markups';
 import { markupToDisplay, type PageFrame } from './page-frame-pdf';
-import { drawText, fitText, hexColour, safeText, WHITE, widthOf, wrapText, type Fonts } from './text-pdf';
+import { drawText, fitText, hexColour, WHITE, widthOf, wrapText, type Fonts } from './text-pdf';
 import { cloudPath } from '@shared/drawing/cloud-path';
 
 export interface MarkupToDraw {
@@ -15,6 +17,8 @@ export interface MarkupToDraw {
   colour: MarkupColour;
   text: string | null;
   number: number | null;
+  /** The numbers of the findings tied to this markup, as the calculation sheet lists them ("F3"). */
+  findings?: string[];
 }
 
 const STROKE = 1.6;
@@ -23,6 +27,9 @@ const HEAD_LENGTH = 11;
 const HEAD_HALF_WIDTH = 4.5;
 const LABEL_SIZE = 8;
 const LABEL_WIDTH = 180;
+/** A text markup's box when none was stored, and the margin it keeps from the page's edges. */
+const TEXT_BOX_WIDTH = 220;
+const PAGE_MARGIN = 6;
 
 const num = (g: Record<string, number>, k: string, dflt = 0) =>
   typeof g[k] === 'number' && Number.isFinite(g[k]) ? g[k] : dflt;
@@ -70,12 +77,50 @@ function drawLabel(
   );
 }
 
+const clampX = (f: PageFrame, x: number, w: number) =>
+  Math.max(PAGE_MARGIN, Math.min(x, f.width - PAGE_MARGIN - w));
+
+/**
+ * A text markup: wrapped to its box (the stored width, else up to TEXT_BOX_WIDTH, never past the
+ * page's right margin), the box moved left or up so that it stays on the page, and the type made
+ * smaller only when the whole page cannot hold it.
+ */
+function drawTextBox(
+  page: PDFPage,
+  f: PageFrame,
+  fonts: Fonts,
+  m: MarkupToDraw,
+  colour: ReturnType<typeof hexColour>,
+) {
+  const g = m.geometry;
+  let size = Math.min(72, Math.max(4, num(g, 'fontSize', 11)));
+  const [x0, y0] = markupToDisplay(f, num(g, 'x'), num(g, 'y'));
+  const room = Math.max(20, f.width - 2 * PAGE_MARGIN);
+  const width = Math.min(num(g, 'width', TEXT_BOX_WIDTH), room);
+  let lines = wrapText(m.text ?? '', fonts.bold, size, width);
+  while (size > 4 && lines.length * size * 1.2 > f.height - 2 * PAGE_MARGIN) {
+    size = Math.max(4, size - 1);
+    lines = wrapText(m.text ?? '', fonts.bold, size, width);
+  }
+  const used = Math.max(0, ...lines.map((l) => widthOf(l, fonts.bold, size)));
+  const x = clampX(f, x0, used);
+  const lh = size * 1.2;
+  // The first baseline sits at the stored point; the last line's descent stays above the margin.
+  const top = Math.min(y0, f.height - PAGE_MARGIN - size);
+  const y = Math.max(top, PAGE_MARGIN + size * 0.25 + (lines.length - 1) * lh);
+  lines.forEach((line, i) =>
+    drawText(page, line, { x, y: y - i * lh, size, font: fonts.bold, color: colour }),
+  );
+}
+
 /** Draw one page's markups. Must run inside inDisplayFrame for that page. */
 export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDraw[], fonts: Fonts) {
   for (const m of markups) {
     const colour = hexColour(MARKUP_COLOURS[m.colour] ?? MARKUP_COLOURS.rust);
     const g = m.geometry;
-    const note = m.text && m.text.trim() ? m.text.trim() : null;
+    const tag = m.findings?.length ? m.findings.join(' ') : null;
+    const typed = m.kind !== 'text' && m.text && m.text.trim() ? m.text.trim() : null;
+    const note = tag && typed ? `${tag} · ${typed}` : (tag ?? typed);
     switch (m.kind) {
       case 'rectangle': {
         const b = boxInFrame(frame, g);
@@ -135,12 +180,19 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
         break;
       }
       case 'text': {
-        const size = Math.min(72, Math.max(4, num(g, 'fontSize', 11)));
-        const [x, y] = markupToDisplay(frame, num(g, 'x'), num(g, 'y'));
-        const lines = safeText(m.text ?? '', fonts.bold, true).split('\n');
-        lines.forEach((line, i) =>
-          drawText(page, line, { x, y: y - i * size * 1.2, size, font: fonts.bold, color: colour }),
-        );
+        drawTextBox(page, frame, fonts, m, colour);
+        if (tag) {
+          const [x, y] = markupToDisplay(frame, num(g, 'x'), num(g, 'y'));
+          const size = Math.min(72, Math.max(4, num(g, 'fontSize', 11)));
+          drawLabel(
+            page,
+            fonts,
+            tag,
+            clampX(frame, x, widthOf(tag, fonts.bold, LABEL_SIZE)),
+            y + size + 2,
+            colour,
+          );
+        }
         break;
       }
       case 'pin': {

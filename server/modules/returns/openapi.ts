@@ -33,3 +33,14 @@ describeRoute({
   responseContentType: 'application/pdf',
   response: z.string(),
 });
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/returns/preview',
+  summary:
+    'Page 1 of the stamped return as it will print for the decision on record (reviewer): not stored, not signed',
+  tags: ['returns'],
+  params: PackageIdParams,
+  responseContentType: 'application/pdf',
+  response: z.string(),
+  conflict: 'No decision recorded yet (no_decision)',
+});

@@ -7,7 +7,9 @@ import { sendStored } from '../../lib/send-stored';
 import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { PackageIdParams } from '../packages/routes';
+import { previewReturn } from './preview';
 import { issueReturn, listReturns, readReturn } from './service';
+import { appUrl } from '../../config';
 
 export const ReturnParams = PackageIdParams.extend({
   returnId: z.uuid({ message: 'returnId must be a UUID' }),
@@ -27,6 +29,26 @@ export function returnRoutes(ctx: AppContext): Router {
       res
         .status(202)
         .json(await issueReturn(ds, ctx.queues, currentActor(req), valid(req, 'params', PackageIdParams).id));
+    },
+  );
+
+  // Page 1 as it will print, for the coordinator to confirm before issuing: built, never stored.
+  router.get(
+    '/packages/:id/returns/preview',
+    auth,
+    requireRole('reviewer'),
+    validate({ params: PackageIdParams }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      const pdf = await previewReturn(ds, ctx.storage, currentActor(req), id, appUrl(ctx.config));
+      res
+        .status(200)
+        .set({
+          'Content-Type': 'application/pdf',
+          'Content-Disposition': 'inline; filename="stamped-return-preview.pdf"',
+          'Cache-Control': 'no-store',
+        })
+        .send(pdf);
     },
   );
 

@@ -12,7 +12,7 @@ import path from 'node:path';
 import { UnrecoverableError } from 'bullmq';
 import type { DataSource } from 'typeorm';
 import { DECISION_LABELS, type Decision } from '@shared/schemas/common';
-import { readStoredResult } from '@shared/engineering/stored-result';
+import { documentUnits } from '@shared/rules/document-units';
 import { AppError } from '../../lib/app-error';
 import type { Queues } from '../../lib/queues';
 import type { Signer } from '../../lib/pdf-tools/signer';
@@ -21,16 +21,15 @@ import { recordAudit } from '../audit/service';
 import { handOff, latestIntent, nextRound, recordIntent, type Intent } from '../jobs/intents';
 import { stageMail } from '../mail/service';
 import { templates } from '../mail/templates';
-import { UploadedFile } from '../files/file.entity';
-import { Organisation } from '../organisations/organisation.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { requireState } from '../packages/state-guard';
-import { DecisionRecord, Finding, Markup, StampedReturn } from '../reviews/review.entity';
+import { DecisionRecord, StampedReturn } from '../reviews/review.entity';
 import { lockPackage } from '../reviews/review-scope';
 import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
+import { readReturnInput } from './return-input';
 import { buildStampedReturnFile, StampInputError } from './stamp-pdf';
 
 const BASE32 = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ234567';
@@ -64,6 +63,7 @@ function toReturn(r: StampedReturn) {
     sha256: r.sha256,
     pages: r.pages,
     verificationCode: r.verificationCode,
+    unitSystem: r.unitSystem,
     createdAt: r.createdAt.toISOString(),
     readyAt: r.readyAt?.toISOString() ?? null,
   };
@@ -100,10 +100,14 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Actor, p
       }
       const existing = await m.getRepository(StampedReturn).findOneBy({ decisionId: decision.id });
       if (existing) return existing;
+      // The document's unit system is fixed here: the site's or the package's, never the
+      // engineer's or the reviewer's own setting.
+      const site = await m.getRepository(Site).findOneByOrFail({ id: locked.siteId });
+      const units = documentUnits(locked, site).system;
       await m.query(
-        `INSERT INTO stamped_returns (decision_id, package_id, revision_id, verification_code, issued_by_id)
-         VALUES ($1, $2, $3, $4, $5)`,
-        [decision.id, pkg.id, decision.revisionId, newVerificationCode(), user.id],
+        `INSERT INTO stamped_returns (decision_id, package_id, revision_id, verification_code, issued_by_id, unit_system)
+         VALUES ($1, $2, $3, $4, $5, $6)`,
+        [decision.id, pkg.id, decision.revisionId, newVerificationCode(), user.id, units],
       );
       await recordAudit(m, {
         action: 'return.requested',
@@ -200,26 +204,19 @@ export async function buildReturn(
     await progress(percent, name);
   };
   await step(5, 'reading the review');
-  const pkg = await ds.getRepository(LiftPackage).findOneByOrFail({ id: ret.packageId });
-  const revision = await ds.getRepository(Revision).findOneByOrFail({ id: ret.revisionId });
-  // The decision the return was issued for, never a later one: the stamp, /verify and the
-  // package page say the same.
-  const decision = await ds.getRepository(DecisionRecord).findOneByOrFail({ id: ret.decisionId });
-  const site = await ds.getRepository(Site).findOneByOrFail({ id: pkg.siteId });
-  const contractor = await ds
-    .getRepository(Organisation)
-    .findOneByOrFail({ id: pkg.contractorOrganisationId });
-  const engineer = await ds.getRepository(User).findOneByOrFail({ id: decision.engineerId });
-  const reviewer = await ds.getRepository(User).findOneByOrFail({ id: ret.issuedById });
-  const files = await ds
-    .getRepository(UploadedFile)
-    .find({ where: { revisionId: revision.id }, order: { kind: 'ASC', createdAt: 'ASC' } });
-  const markups = await ds
-    .getRepository(Markup)
-    .find({ where: { revisionId: revision.id }, order: { createdAt: 'ASC' } });
-  const findings = await ds
-    .getRepository(Finding)
-    .find({ where: { packageId: pkg.id }, order: { createdAt: 'ASC' } });
+  const { input, files, pkg, revision, decision, site } = await readReturnInput(
+    ds,
+    {
+      packageId: ret.packageId,
+      revisionId: ret.revisionId,
+      decisionId: ret.decisionId,
+      issuedById: ret.issuedById,
+      unitSystem: ret.unitSystem,
+      issuedAt: ret.createdAt,
+      verificationCode: ret.verificationCode,
+    },
+    appUrl,
+  );
   await step(20, 'reading the original pages');
   const workRoot = options.workDir ?? tmpdir();
   await mkdir(workRoot, { recursive: true });
@@ -237,58 +234,10 @@ export async function buildReturn(
     }
     await step(40, 'burning in markups and the stamp');
     const out = path.join(work, 'return.pdf');
-    const built = await buildStampedReturnFile(
-      {
-        documents,
-        markups: markups.map((mk) => ({
-          fileId: mk.fileId,
-          pageNumber: mk.pageNumber,
-          kind: mk.kind,
-          geometry: mk.geometry as Record<string, number>,
-          colour: mk.colour as 'rust',
-          text: mk.text,
-          number: mk.number,
-        })),
-        stamp: {
-          decision: decision.decision,
-          reference: pkg.reference,
-          title: pkg.title,
-          revision: revision.number,
-          site: site.name,
-          contractor: contractor.name,
-          engineer: engineer.name,
-          reviewer: reviewer.name,
-          decidedAt: decision.createdAt.toISOString(),
-          issuedAt: ret.createdAt.toISOString(),
-          timeZone: site.timeZone,
-          conditions: decision.conditions,
-          overrideReason: decision.overrideReason,
-          overridden: decision.overridden ?? [],
-          verificationCode: ret.verificationCode,
-          verificationUrl: `${appUrl}/verify/${ret.verificationCode}`,
-        },
-        calculation: {
-          inputs: revision.inputs,
-          result: readStoredResult(revision.results),
-          units: engineer.unitSystem,
-          findings: findings.map((f) => ({
-            text: f.text,
-            severity: f.severity,
-            state: f.state,
-            response: f.response,
-            checkId: f.checkId,
-            pageNumber: f.pageNumber,
-          })),
-          acceptedFigures: (revision.acceptedFigures ?? []).map((a) => ({
-            figure: a.figure,
-            reason: a.reason,
-            engineer: a.engineer,
-          })),
-        },
-      },
-      out,
-      { signer: options.signer, workDir: work },
-    );
+    const built = await buildStampedReturnFile({ ...input, documents }, out, {
+      signer: options.signer,
+      workDir: work,
+    });
     pages = built.pages;
     signingCertificateSha256 = built.signingCertificateSha256;
     await step(85, 'storing the return');

@@ -15,6 +15,8 @@ export interface StampInput {
     colour: 'rust' | 'cobalt' | 'verdigris' | 'graphite';
     text: string | null;
     number: number | null;
+    /** The findings tied to this markup, numbered as the calculation sheet lists them ("F3"). */
+    findings?: string[];
   }>;
   stamp: {
     decision: 'accepted' | 'accepted_as_noted' | 'revise_and_resubmit' | 'rejected';
@@ -42,6 +44,10 @@ export interface StampInput {
     result: LiftResult | null;
     units: 'metric' | 'imperial';
     findings: Array<{
+      /** "F3": the finding's number, also drawn by its markup. */
+      label?: string;
+      /** Where its markup is, in words ("Page 3 of the return (plan.pdf, page 1), cloud marked F3"). */
+      markup?: string | null;
       text: string;
       severity: string;
       state: string;

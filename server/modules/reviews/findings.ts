@@ -13,6 +13,9 @@ import { findScopedPackage } from '../packages/package-scope';
 import { Finding, Markup } from './review.entity';
 import { requireAssignedEngineer, underReview } from './review-scope';
 import { names } from './markups';
+import { stageAnswerMail } from './hand-off-mail';
+import { dispatchMail } from '../mail/service';
+import type { Queues } from '../../lib/queues';
 
 export async function listFindings(
   ds: DataSource,
@@ -105,6 +108,7 @@ export async function updateFinding(
   packageId: string,
   findingId: string,
   body: { state?: 'open' | 'answered' | 'closed'; response?: string },
+  mail: { queues: Queues; appUrl: string },
 ) {
   const pkg = await findScopedPackage(ds.manager, user, packageId);
   const finding = await ds.getRepository(Finding).findOneBy({ id: findingId, packageId: pkg.id });
@@ -150,7 +154,7 @@ export async function updateFinding(
   }
   const response = body.response;
   if (finding.state === 'closed') throw new AppError(409, 'finding_closed', 'This finding is closed.');
-  await ds.transaction(async (m) => {
+  const mailIds = await ds.transaction(async (m) => {
     await m
       .getRepository(Finding)
       .update(finding.id, { response, state: 'answered', answeredAt: new Date() });
@@ -160,7 +164,10 @@ export async function updateFinding(
       packageId: pkg.id,
       detail: { findingId },
     });
+    // The engineer of record reads the answer before the next revision comes in.
+    return stageAnswerMail(m, pkg, finding, response, user.name, mail.appUrl);
   });
+  await dispatchMail(mail.queues, mailIds);
   return listFindings(ds, user, packageId);
 }
 

@@ -16,7 +16,7 @@ import { LiftPackage } from '../packages/package.entity';
 import { User } from '../users/user.entity';
 import { UploadedFile } from '../files/file.entity';
 import { Revision } from '../packages/package.entity';
-import type { Decision } from '@shared/schemas/common';
+import type { Decision, UnitSystem } from '@shared/schemas/common';
 
 @Index('assignments_assigned_by_idx', ['assignedById'])
 @Index('assignments_engineer_idx', ['engineerId'])
@@ -140,6 +140,7 @@ export class DecisionRecord {
 @Index('stamped_returns_package_idx', ['packageId', 'createdAt'])
 @Unique('stamped_returns_decision_id_key', ['decisionId'])
 @Unique('stamped_returns_verification_code_key', ['verificationCode'])
+@Check('stamped_returns_unit_system_check', `unit_system IN ('metric', 'imperial')`)
 export class StampedReturn {
   @PrimaryGeneratedColumn('uuid') id: string;
   @ForeignKey(() => DecisionRecord, { name: 'stamped_returns_decision_id_fkey', onDelete: 'CASCADE' })
@@ -163,6 +164,8 @@ export class StampedReturn {
   @Column({ type: 'int', default: 0 }) progress: number;
   @Column({ type: 'varchar', length: 500, nullable: true }) error: string | null;
   @Column({ type: 'int', nullable: true }) pages: number | null;
+  /** The unit system of the whole document, fixed when the return is issued. */
+  @Column({ type: 'varchar', length: 10, name: 'unit_system' }) unitSystem: UnitSystem;
   @Column({ type: 'timestamptz', name: 'ready_at', nullable: true }) readyAt: Date | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }

@@ -120,7 +120,10 @@ export function reviewRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { id, findingId } = valid(req, 'params', FindingParams);
       res.json(
-        await updateFinding(ds, currentActor(req), id, findingId, valid(req, 'body', FindingUpdateBody)),
+        await updateFinding(ds, currentActor(req), id, findingId, valid(req, 'body', FindingUpdateBody), {
+          queues: ctx.queues,
+          appUrl: appUrl(ctx.config),
+        }),
       );
     },
   );
@@ -146,7 +149,14 @@ export function reviewRoutes(ctx: AppContext): Router {
     validate({ params: PackageIdParams, body: DecisionBody }),
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      await recordDecision(ds, currentActor(req), id, valid(req, 'body', DecisionBody));
+      await recordDecision(
+        ds,
+        ctx.queues,
+        currentActor(req),
+        id,
+        valid(req, 'body', DecisionBody),
+        appUrl(ctx.config),
+      );
       res.json(await packageDetail(ds, id, currentActor(req)));
     },
   );

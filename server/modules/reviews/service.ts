@@ -11,6 +11,7 @@ import { AppError } from '../../lib/app-error';
 import type { Queues } from '../../lib/queues';
 import { recordAudit } from '../audit/service';
 import { dispatchMail, stageMail, type MailDraft } from '../mail/service';
+import { stageDecisionMail } from './hand-off-mail';
 import { templates } from '../mail/templates';
 import { Site } from '../sites/site.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
@@ -148,52 +149,75 @@ export async function assignEngineer(
  * Accepted as noted only with an override reason while something stands against them (422), and
  * the record keeps what it overrode and the version of the inputs and results it was made on.
  */
-export async function recordDecision(ds: DataSource, user: Actor, packageId: string, body: DecisionBody) {
+export async function recordDecision(
+  ds: DataSource,
+  queues: Queues,
+  user: Actor,
+  packageId: string,
+  body: DecisionBody,
+  appUrl: string,
+) {
   const what = 'A decision can be recorded';
   // Outside the lock: bcrypt takes a while, and a refused password changes nothing.
   requireAssignedEngineer(user, await findScopedPackage(ds.manager, user, packageId));
   await confirmPassword(ds, user, body.password);
   const confirmedAt = new Date();
-  await underReview(ds, user, packageId, 'record_decision', what, async (m, pkg, revision) => {
-    const gate = await passGate(m, pkg.id, revision, body.decision, body.overrideReason);
-    // Optimistic lock: the version the engineer read must still be the current one.
-    const result = await m
-      .createQueryBuilder()
-      .update(LiftPackage)
-      .set({ status: 'decided', decision: body.decision })
-      .where('id = :id AND version = :v', { id: pkg.id, v: body.baseVersion })
-      .execute();
-    if (!result.affected) {
-      throw new AppError(
-        409,
-        'stale_review',
-        'Someone changed this package after you opened it. Reload to see the newer version, then decide again.',
-      );
-    }
-    await m.getRepository(DecisionRecord).save({
-      packageId: pkg.id,
-      revisionId: revision.id,
-      decision: body.decision,
-      conditions: body.conditions,
-      engineerId: user.id,
-      overrideReason: gate.overrideReason,
-      overridden: gate.overridden,
-      ...madeOn(revision),
-      confirmedAt,
-    });
-    await recordAudit(m, {
-      action: 'decision.recorded',
-      actor: user,
-      packageId: pkg.id,
-      detail: {
+  const mailIds = await underReview(
+    ds,
+    user,
+    packageId,
+    'record_decision',
+    what,
+    async (m, pkg, revision) => {
+      const gate = await passGate(m, pkg.id, revision, body.decision, body.overrideReason);
+      // Optimistic lock: the version the engineer read must still be the current one.
+      const result = await m
+        .createQueryBuilder()
+        .update(LiftPackage)
+        .set({ status: 'decided', decision: body.decision })
+        .where('id = :id AND version = :v', { id: pkg.id, v: body.baseVersion })
+        .execute();
+      if (!result.affected) {
+        throw new AppError(
+          409,
+          'stale_review',
+          'Someone changed this package after you opened it. Reload to see the newer version, then decide again.',
+        );
+      }
+      const record = await m.getRepository(DecisionRecord).save({
+        packageId: pkg.id,
+        revisionId: revision.id,
         decision: body.decision,
-        revision: revision.number,
-        ...(gate.overrideReason
-          ? { overrideReason: gate.overrideReason, overridden: gate.overridden.length }
-          : {}),
-      },
-    });
-  });
+        conditions: body.conditions,
+        engineerId: user.id,
+        overrideReason: gate.overrideReason,
+        overridden: gate.overridden,
+        ...madeOn(revision),
+        confirmedAt,
+      });
+      await recordAudit(m, {
+        action: 'decision.recorded',
+        actor: user,
+        packageId: pkg.id,
+        detail: {
+          decision: body.decision,
+          revision: revision.number,
+          ...(gate.overrideReason
+            ? { overrideReason: gate.overrideReason, overridden: gate.overridden.length }
+            : {}),
+        },
+      });
+      // The coordinators issue the return next: they hear of the decision.
+      return stageDecisionMail(
+        m,
+        pkg,
+        { id: record.id, decision: body.decision, conditions: body.conditions, revision: revision.number },
+        user.name,
+        appUrl,
+      );
+    },
+  );
+  await dispatchMail(queues, mailIds);
 }
 
 export async function latestDecision(m: EntityManager, packageId: string) {

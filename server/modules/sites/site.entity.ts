@@ -1,6 +1,8 @@
 // A site belongs to an owner organisation and holds its review policy (overrides of the
 // engine's defaults). Reviewers are attached to sites through site_members.
+import type { UnitSystem } from '@shared/schemas/common';
 import {
+  Check,
   Column,
   CreateDateColumn,
   Entity,
@@ -17,6 +19,7 @@ import { User } from '../users/user.entity';
 @Index('sites_owner_organisation_idx', ['ownerOrganisationId'])
 @Entity({ name: 'sites' })
 @Unique('sites_code_key', ['code'])
+@Check('sites_unit_system_check', `unit_system IN ('metric', 'imperial')`)
 export class Site {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ type: 'uuid', name: 'owner_organisation_id' }) ownerOrganisationId: string;
@@ -29,6 +32,8 @@ export class Site {
   @Column({ type: 'varchar', length: 60, name: 'time_zone', default: 'UTC' }) timeZone: string;
   @Column({ type: 'jsonb', name: 'review_policy', default: {} }) reviewPolicy: Record<string, unknown>;
   @Column({ type: 'int', name: 'policy_version', default: 1 }) policyVersion: number;
+  /** The unit system of every document of the site's packages; null: each package's own. */
+  @Column({ type: 'varchar', length: 10, name: 'unit_system', nullable: true }) unitSystem: UnitSystem | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }
 

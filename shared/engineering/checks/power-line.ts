@@ -65,7 +65,7 @@ export function powerLineCheck(ctx: Ctx): CheckResult {
       limit: lim,
       limitType: 'min',
       unit: 'length',
-      formula: f`closest approach ${term(dist, 'length')} against ${ft} ft (${term(lim, 'length')}) for ${term(volts, 'voltage')}`,
+      formula: f`closest approach ${term(dist, 'length')} against the Table A clearance ${term(lim, 'length')} for ${term(volts, 'voltage')}`,
       source: SOURCES.oshaTableA,
       message: fallsShort(dist, lim)
         ? 'Closer than the minimum clearance for this voltage.'

@@ -7,7 +7,7 @@
 // OSHA 29 CFR 1926.1431). Default drag coefficient 1.2 when none is entered (common practice, no source).
 import { exceeds } from '../compare';
 import { check, f, item, statusMax, term, type Ctx } from '../context';
-import { SOURCES } from '../sources';
+import { SOURCES, sourceText } from '../sources';
 import { si } from '../units';
 import type { CheckItem, CheckResult } from '../types';
 
@@ -66,9 +66,18 @@ export function windCheck(ctx: Ctx): CheckResult {
       formula: f`wind ${term(v, 'speed')} against limit ${term(limit, 'speed')}${personnel ? ' (personnel lift)' : ''}`,
       source:
         personnel && policy.personnelWindLimitMps <= policy.windLimitMps
-          ? SOURCES.policy(`personnel wind limit (default: ${SOURCES.oshaPersonnelWind.text})`)
+          ? SOURCES.policy(`personnel wind limit (default: ${SOURCES.oshaPersonnelWind.text})`, {
+              metric: `personnel wind limit (default: ${sourceText(SOURCES.oshaPersonnelWind, 'metric')})`,
+              imperial: `personnel wind limit (default: ${sourceText(SOURCES.oshaPersonnelWind, 'imperial')})`,
+            })
           : SOURCES.policy(
               "wind limit (default 20 mph, common practice, no source; the manufacturer's chart governs when lower)",
+              {
+                metric:
+                  "wind limit (default 8.94 m/s, common practice, no source; the manufacturer's chart governs when lower)",
+                imperial:
+                  "wind limit (default 20 mph, common practice, no source; the manufacturer's chart governs when lower)",
+              },
             ),
       message: exceeds(v, limit)
         ? 'Wind above the limit: do not lift.'

@@ -17,6 +17,7 @@ import { CheckProgress } from '@/features/packages/components/detail/check-progr
 import { RevisionTimeline } from '@/features/packages/components/detail/revision-timeline';
 import { PackageResults } from '@/features/packages/components/detail/package-results';
 import { FileRow } from '@/features/packages/components/editor/documents-step';
+import { DocumentUnits } from '@/features/packages/components/detail/document-units';
 import { ReturnsPanel } from '@/features/returns/components/returns-panel';
 import { ResubmissionPanel } from '@/features/returns/components/resubmission-panel';
 import { LibraryUsesPanel } from '@/features/library/components/library-uses-panel';
@@ -153,6 +154,7 @@ export default function PackageDetailRoute() {
             canIssue={user.role === 'reviewer'}
             revisions={data.revisions}
           />
+          <DocumentUnits units={data.documentUnits} />
           <section aria-labelledby="files-title" className="border border-rule bg-sheet">
             <h2 id="files-title" className="border-b border-rule px-3 py-2 text-[14px] font-bold">
               Documents of revision {current.number}

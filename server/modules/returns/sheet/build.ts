@@ -6,10 +6,14 @@ import type { Fonts } from '../text-pdf';
 import { closingNote } from './closing-sections';
 import { cautionPanel, decisionPanel, summaryLine } from './decision-section';
 import { Flow } from './layout';
+import { inputsInSystem, type Obj } from './read-inputs';
 import { SHEET_SECTIONS } from './sections';
 
-export function buildSheet(doc: PDFDocument, fonts: Fonts, input: StampInput): PDFPage[] {
+export function buildSheet(doc: PDFDocument, fonts: Fonts, entered: StampInput): PDFPage[] {
   const flow = new Flow(doc, fonts);
+  // One unit system for the whole sheet: inputs entered in the other one are converted.
+  const inputs = inputsInSystem(entered.calculation.inputs, entered.calculation.units) as Obj;
+  const input = { ...entered, calculation: { ...entered.calculation, inputs } };
   const { result, units } = input.calculation;
   decisionPanel(flow, input);
   cautionPanel(flow, result);

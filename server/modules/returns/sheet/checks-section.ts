@@ -1,6 +1,7 @@
 // Section 2 of the calculation sheet: every check recomputed from the inputs, with its value,
 // limit, outcome (word and shape), the source of the limit and the formula in words.
 import { formatFormula, formatQuantity } from '@shared/engineering/format';
+import { sourceText } from '@shared/engineering/sources';
 import type { CheckItem, CheckStatus, LiftResult, UnitSystem } from '@shared/engineering/types';
 import { CHECK_STATUS_WORDS } from '@shared/vocabulary/check-statuses';
 import type { StatusKey } from '../text-pdf';
@@ -32,7 +33,7 @@ export function checksSection(flow: Flow, result: LiftResult, units: UnitSystem)
         { text: c.label, bold: true },
         { text: c.value === null ? '—' : formatQuantity(c.value, c.unit, units), bold: true },
         { text: limitText(c, units), bold: true },
-        { text: c.source.text, soft: true },
+        { text: sourceText(c.source, units), soft: true },
       ],
       note: {
         text: single ? [c.message, formatFormula(c.formula, units)].filter(Boolean).join(' — ') : c.message,
@@ -48,7 +49,7 @@ export function checksSection(flow: Flow, result: LiftResult, units: UnitSystem)
             { text: it.label },
             { text: it.value === null ? '—' : formatQuantity(it.value, it.unit, units) },
             { text: limitText(it, units) },
-            { text: it.source.text === c.source.text ? '' : it.source.text, soft: true },
+            { text: it.source.text === c.source.text ? '' : sourceText(it.source, units), soft: true },
           ],
           note: { text: formatFormula(it.formula, units), from: 1 },
           indent: 8,

@@ -1,6 +1,7 @@
 // Sections 4 to 6 of the calculation sheet and its closing note: why the lift is critical, the
 // fixes the check suggests, and the side view of each crane to scale.
-import type { LiftResult } from '@shared/engineering/types';
+import { sourceText } from '@shared/engineering/sources';
+import type { LiftResult, UnitSystem } from '@shared/engineering/types';
 import { craneSideViews } from '@shared/drawing/side-view';
 import { SHORT_CAUTION } from '@shared/vocabulary/cautions';
 import { drawSideView, SIDE_VIEW_HEIGHT, sideViewUnavailableReason } from '../draw-side-view';
@@ -11,13 +12,13 @@ import { LEFT, RIGHT, WIDTH, type Flow } from './layout';
 
 export { SIDE_VIEW_HEIGHT };
 
-export function criticalSection(flow: Flow, result: LiftResult | null) {
+export function criticalSection(flow: Flow, result: LiftResult | null, units: UnitSystem) {
   if (!result) flow.para('No result.');
   else if (result.critical.triggers.length === 0) flow.para('No critical-lift trigger applies.');
   else
     for (const t of result.critical.triggers) {
       flow.para(`• ${t.reason}`, { font: flow.fonts.bold, gap: 0 });
-      flow.para(t.source.text, { size: 7.3, color: INK_SOFT, indent: 9 });
+      flow.para(sourceText(t.source, units), { size: 7.3, color: INK_SOFT, indent: 9 });
     }
 }
 
@@ -67,7 +68,7 @@ export function closingNote(flow: Flow, result: LiftResult | null) {
     color: RULE,
   });
   flow.para(
-    `${result ? `Engine ${result.engineVersion}, result version ${result.resultVersion}. ` : ''}Values recomputed in SI and shown to three significant figures; inputs as entered. ${SHORT_CAUTION}`,
+    `${result ? `Engine ${result.engineVersion}, result version ${result.resultVersion}. ` : ''}Values recomputed in SI and shown to three significant figures; inputs as entered, in the document's unit system. ${SHORT_CAUTION}`,
     { size: 7, color: INK_SOFT },
   );
 }

@@ -6,6 +6,7 @@ import { CAUTIONS, SHORT_CAUTION } from '@shared/vocabulary/cautions';
 import { CHECK_STATUS_WORDS } from '@shared/vocabulary/check-statuses';
 import { DECISION_SHAPES } from '../draw-stamp-block';
 import { tradeDateTime } from '@shared/vocabulary/dates';
+import { UNIT_SYSTEM_WORDS } from '@shared/vocabulary/units';
 import type { StampInput } from '../stamp-input';
 import {
   drawStatusShape,
@@ -128,7 +129,7 @@ export function summaryLine(flow: Flow, result: LiftResult, units: UnitSystem) {
   const worst = result.checks.filter((c) => c.status === 'fail').length;
   const caution = result.checks.filter((c) => c.status === 'caution').length;
   const differ = result.discrepancies.filter((d) => d.status === 'discrepancy').length;
-  const rest = `${worst} failed, ${caution} with caution, of ${result.checks.length} checks · ${differ} contractor figure${differ === 1 ? '' : 's'} outside the tolerance · ${critical} · figures in ${units === 'metric' ? 'metric (m, t, kN, kPa)' : 'US customary (ft, lb, kip, psf)'} units`;
+  const rest = `${worst} failed, ${caution} with caution, of ${result.checks.length} checks · ${differ} contractor figure${differ === 1 ? '' : 's'} outside the tolerance · ${critical} · figures in ${UNIT_SYSTEM_WORDS[units]} units`;
   const hx = LEFT + 18 + widthOf(head, fonts.black, 11) + 12;
   const lines = wrapText(rest, fonts.regular, 8, RIGHT - hx);
   lines.forEach((l, i) => flow.text(l, hx, y + 1 - i * 10, 8, fonts.regular, INK_SOFT));

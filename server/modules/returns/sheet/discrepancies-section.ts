@@ -3,6 +3,7 @@
 import { formatQuantity } from '@shared/engineering/format';
 import { DISCREPANCY_WORDS } from '@shared/vocabulary/check-statuses';
 import type { StampInput } from '../stamp-input';
+import { findingLabel } from '../finding-marks';
 import type { StatusKey } from '../text-pdf';
 import { table, WIDTH, type Flow, type Row } from './layout';
 
@@ -79,21 +80,21 @@ export function findingsSection(flow: Flow, input: StampInput) {
   table(
     flow,
     [
-      { title: '#', width: 22 },
-      { title: 'Severity / state', width: 82 },
-      { title: 'Finding', width: 200 },
-      { title: 'On', width: 70 },
+      { title: '#', width: 24 },
+      { title: 'Severity / state', width: 80 },
+      { title: 'Finding', width: 170 },
+      { title: 'On', width: 100 },
       { title: 'Response', width: WIDTH - 374 },
     ],
     findings.map((f, i) => ({
       cells: [
-        { text: String(i + 1), bold: true },
+        { text: f.label ?? findingLabel(i), bold: true },
         { text: `${f.severity.toUpperCase()} · ${f.state}`, bold: true },
         { text: f.text },
         {
           text:
             [
-              f.pageNumber ? `page ${f.pageNumber}` : null,
+              f.markup ?? (f.pageNumber ? `page ${f.pageNumber}` : null),
               f.checkId ? (labels.get(f.checkId) ?? f.checkId) : null,
             ]
               .filter(Boolean)

@@ -24,7 +24,7 @@ export interface SheetSection {
 export const SHEET_SECTIONS: SheetSection[] = [
   {
     title: 'Inputs as submitted',
-    draw: (flow, { calculation: c }) => inputsSection(flow, c.inputs, c.result),
+    draw: (flow, { calculation: c }) => inputsSection(flow, c.inputs, c.result, c.units),
   },
   {
     title: 'Checks',
@@ -58,7 +58,7 @@ export const SHEET_SECTIONS: SheetSection[] = [
   {
     title: 'Why the lift is critical',
     keep: 30,
-    draw: (flow, { calculation: c }) => criticalSection(flow, c.result),
+    draw: (flow, { calculation: c }) => criticalSection(flow, c.result, c.units),
   },
   {
     title: 'Fixes the check suggests',

@@ -91,7 +91,8 @@ export function MailLog({ filters, onPage }: { filters: MailFilters; onPage: (pa
         >
           <p>
             Messages are queued at each hand-off: a package submitted, an engineer assigned, a decision
-            returned, a package resubmitted, the daily lift-date reminder, and invitations.
+            recorded, a decision returned, a finding answered, a package resubmitted, the daily lift-date
+            reminder, and invitations.
           </p>
         </EmptyState>
       }
@@ -149,7 +150,7 @@ function MailPage({
               </td>
               <td className="px-3 py-2">
                 <span className="block text-[12px] font-bold uppercase tracking-[0.05em] text-ink-soft">
-                  {MAIL_EVENT_LABELS[message.event] ?? message.event}
+                  {MAIL_EVENT_LABELS[message.event]}
                 </span>
                 <span className="block">{message.subject}</span>
                 {failed && message.lastError && (

@@ -1,6 +1,6 @@
 // Creating a site or editing one: name, the code that starts every package reference,
-// address and time zone (dates and times on the site's pages and returns use it). Rules
-// from the shared SiteBody schema.
+// address, time zone (dates and times on the site's pages and returns use it) and the unit
+// system of the site's documents (or each package's own). Rules from the shared SiteBody schema.
 import { useForm } from 'react-hook-form';
 import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import type { z } from 'zod';
@@ -13,7 +13,7 @@ import { Spinner } from '@/components/ui/page-loading';
 import { useCreateSite, useUpdateSite, type AdminSite } from '../api/sites';
 
 type SiteForm = z.input<typeof SiteBody>;
-const FIELDS = ['name', 'code', 'address', 'timeZone'] as const;
+const FIELDS = ['name', 'code', 'address', 'timeZone', 'unitSystem'] as const;
 
 function browserTimeZone(): string {
   try {
@@ -35,8 +35,14 @@ export function SiteDialog({ site, onClose }: { site?: AdminSite; onClose: () =>
   } = useForm<SiteForm, unknown, z.output<typeof SiteBody>>({
     resolver: zodResolver(SiteBody),
     defaultValues: site
-      ? { name: site.name, code: site.code, address: site.address, timeZone: site.timeZone }
-      : { name: '', code: '', address: '', timeZone: browserTimeZone() },
+      ? {
+          name: site.name,
+          code: site.code,
+          address: site.address,
+          timeZone: site.timeZone,
+          unitSystem: site.unitSystem,
+        }
+      : { name: '', code: '', address: '', timeZone: browserTimeZone(), unitSystem: null },
   });
 
   const onError = (error: Error) => {
@@ -109,6 +115,21 @@ export function SiteDialog({ site, onClose }: { site?: AdminSite; onClose: () =>
         </div>
         <FormField id="site-address" label="Address" error={errors.address?.message}>
           <textarea rows={2} className={`${inputClasses} h-auto py-1.5`} {...register('address')} />
+        </FormField>
+        <FormField
+          id="site-unit-system"
+          label="Units of stamped returns"
+          hint="Every stamped return and calculation sheet of the site's packages uses this unit system, whoever issues it."
+          error={errors.unitSystem?.message}
+        >
+          <select
+            className={inputClasses}
+            {...register('unitSystem', { setValueAs: (v: string | null) => (v ? v : null) })}
+          >
+            <option value="">Each package's own (its contractor's when created)</option>
+            <option value="metric">Metric (m, t, kN, kPa)</option>
+            <option value="imperial">US customary (ft, lb, kip, psf)</option>
+          </select>
         </FormField>
         <div className="mt-1 flex justify-end gap-2 border-t border-rule pt-3">
           <Button onClick={onClose}>Cancel</Button>

@@ -1,6 +1,8 @@
 // Plain names for the admin pages' enumerations.
 import type { OrganisationKind } from '@shared/schemas/common';
-import type { Person } from '@shared/schemas/admin';
+import type { MAIL_EVENTS, Person } from '@shared/schemas/admin';
+
+type MailEvent = (typeof MAIL_EVENTS)[number];
 
 export const ORGANISATION_KIND_LABELS: Record<OrganisationKind, string> = {
   contractor: 'Lifting contractor',
@@ -14,10 +16,12 @@ export const PERSON_STATE_LABELS: Record<Person['state'], string> = {
   deactivated: 'Deactivated',
 };
 
-export const MAIL_EVENT_LABELS: Record<string, string> = {
+export const MAIL_EVENT_LABELS: Record<MailEvent, string> = {
   submitted: 'Package submitted',
   assigned: 'Engineer assigned',
+  decided: 'Decision recorded',
   returned: 'Decision returned',
+  answered: 'Finding answered',
   resubmitted: 'Package resubmitted',
   reminder: 'Lift date reminder',
   invite: 'Invitation',

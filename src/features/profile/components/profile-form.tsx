@@ -116,8 +116,9 @@ export function ProfileSettingsForm({ profile }: { profile: Profile }) {
           </span>
         </label>
         <p className="text-[12.5px] text-ink-soft">
-          Hand-off messages — package submitted, engineer assigned, decision returned, package resubmitted —
-          always go out and cannot be turned off: the next person in a review depends on them.
+          Hand-off messages — package submitted, engineer assigned, decision recorded, decision returned,
+          finding answered, package resubmitted — always go out and cannot be turned off: the next person in a
+          review depends on them.
         </p>
       </fieldset>
 
