@@ -7,7 +7,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { DataSource, EntityManager } from 'typeorm';
-import { LocalFolderStorage, sha256 } from '../../lib/storage';
+import { sha256, type Storage } from '../../lib/storage';
 import { recordAudit } from '../../modules/audit/service';
 import { InvalidLiftData, runCheckRun } from '../../modules/check-runs/service';
 import { UploadedFile } from '../../modules/files/file.entity';
@@ -34,10 +34,9 @@ interface Seeded {
 
 export async function seedPackages(
   m: EntityManager,
-  filesDir: string,
+  storage: Storage,
   ctx: { orgs: Map<string, Organisation>; people: Map<string, User>; sites: { refinery: Site; wharf: Site } },
 ): Promise<Seeded[]> {
-  const storage = new LocalFolderStorage(filesDir);
   const contractors = {
     brackwater: {
       org: ctx.orgs.get('Brackwater Lifting Ltd')!,
@@ -132,9 +131,9 @@ export async function finishSeededPackages(
   seeded: Seeded[],
   people: Map<string, User>,
   reviewer: User,
-  opts: { filesDir: string; appUrl: string },
+  opts: { storage: Storage; appUrl: string },
 ) {
-  const storage = new LocalFolderStorage(opts.filesDir);
+  const storage = opts.storage;
   const appUrl = opts.appUrl;
   const engineers = {
     dev: people.get('dev.marsh@tamsin-ridge.example')!,
