@@ -18,7 +18,9 @@ const boolish = z
  */
 const S3Env = z
   .object({
-    S3_ENDPOINT: z.url('S3_ENDPOINT must be a URL such as http://127.0.0.1:59000').optional(),
+    S3_ENDPOINT: z
+      .url({ protocol: /^https?$/, message: 'S3_ENDPOINT must be a URL such as http://127.0.0.1:59000' })
+      .optional(),
     S3_BUCKET: z
       .string({ message: 'S3_BUCKET is required (the start command sets it for the local fake S3 server)' })
       .regex(

@@ -6,7 +6,9 @@ import os from 'node:os';
 import path from 'node:path';
 import { text } from 'node:stream/consumers';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { s3Settings } from '@server/config';
+import { connect, StartupError } from '@server/bootstrap';
+import { loadConfig, s3Settings } from '@server/config';
+import { freePort } from '../../scripts/lib/services';
 import { createS3Storage, type S3Storage } from '@server/lib/s3-storage';
 import { sha256, sha256OfFile } from '@server/lib/storage';
 
@@ -91,5 +93,28 @@ describe('S3 storage on the local fake S3 server', () => {
 
   it('when the bucket already exists, then ensureBucket succeeds again', async () => {
     await expect(storage.ensureBucket()).resolves.toBeUndefined();
+  });
+});
+
+describe('the start of the API and the worker', () => {
+  it('when the S3 endpoint does not answer, then connecting fails with one line naming the bucket and the endpoint', async () => {
+    const endpoint = `http://127.0.0.1:${await freePort()}`;
+    const error = await connect({ ...loadConfig(), S3_ENDPOINT: endpoint }).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(StartupError);
+    expect((error as StartupError).message).toMatch(
+      new RegExp(`^reach the S3 bucket failed: ${s3Settings().S3_BUCKET} at ${endpoint}: .+`),
+    );
+  });
+
+  it('when the bucket does not exist yet, then connecting creates it', async () => {
+    const bucket = `fresh-${randomUUID().slice(0, 8)}`;
+    const ctx = await connect({ ...loadConfig(), S3_BUCKET: bucket });
+    try {
+      const k = key('first.txt');
+      await ctx.storage.put(k, Buffer.from('first'));
+      expect((await ctx.storage.open(k))?.size).toBe(5);
+    } finally {
+      await (ctx as { close?: () => Promise<void> }).close?.();
+    }
   });
 });
