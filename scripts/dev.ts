@@ -43,11 +43,13 @@ async function main() {
     say,
     onStarted: (stop) => (stopServices = stop),
     lock,
+    run: (spec) => children.push(startProcess(spec.name, spec.command, spec.args, spec.env)),
   });
   const env = { ...stack.env, NODE_ENV: 'development', PORT: port };
   const tsx = path.join(root, 'node_modules/tsx/dist/cli.mjs');
   const catcher = mailCatcherSpec(env, say);
   children = [
+    ...children,
     ...(catcher ? [startProcess(catcher.name, catcher.command, catcher.args, catcher.env)] : []),
     startProcess('api', process.execPath, [tsx, 'watch', 'server/index.ts'], { ...env, CP_SERVICE: 'api' }),
     startProcess('worker', process.execPath, [tsx, 'watch', 'worker/index.ts'], {

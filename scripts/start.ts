@@ -1,8 +1,8 @@
 // The start command: takes the data folder's lock, checks its ports, builds the client,
 // brings up PostgreSQL and Redis (embedded under .data/ unless DATABASE_URL / REDIS_URL are
-// set), migrates, seeds the demo once, then supervises the API, the worker and the mail
-// catcher (restarting one that crashes) until Ctrl-C or SIGTERM, which stops what it
-// started, in order.
+// set) and the local fake S3 server (unless S3_ENDPOINT is set), migrates, seeds the demo
+// once, then supervises the API, the worker, the mail catcher and the fake S3 server
+// (restarting one that crashes) until Ctrl-C or SIGTERM, which stops what it started, in order.
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -11,7 +11,7 @@ import { AlreadyRunning, acquireLock, type DeskLock, type LockInfo } from './lib
 import { commandOf, firstTakenPort } from './lib/ports';
 import { waitForHealth } from './lib/processes';
 import { postmasterPid, readPid, StepError } from './lib/services';
-import { mailCatcherSpec, prepareStack } from './lib/stack';
+import { fakeS3Port, mailCatcherSpec, prepareStack } from './lib/stack';
 import { Supervisor, type ProcessSpec } from './lib/supervisor';
 
 const root = process.cwd();
@@ -20,8 +20,8 @@ const logDir = path.join(dataDir, 'logs');
 const port = Number(process.env.PORT ?? 3000);
 const host = process.env.HOST ?? '127.0.0.1';
 const address = `http://${host}:${port}`;
-/** The order of a clean stop: no new requests, then the jobs in flight, then the outbox. */
-const STOP_ORDER = ['api', 'worker', 'mail-catcher'];
+/** The order of a clean stop: no new requests, then the jobs in flight, then the outbox and the files. */
+const STOP_ORDER = ['api', 'worker', 'mail-catcher', 's3-fake'];
 
 function say(message: string) {
   process.stdout.write(`[counterpoise] ${message}\n`);
@@ -55,6 +55,7 @@ async function stopLeftovers(previous: LockInfo) {
     api: 'server/index.ts',
     worker: 'worker/index.ts',
     'mail-catcher': 'server/mail-catcher.ts',
+    's3-fake': 'server/s3-fake.ts',
   };
   for (const [name, pid] of Object.entries(previous.processes ?? {})) {
     const script = scripts[name];
@@ -88,6 +89,7 @@ async function checkPorts() {
     ...(process.env.SMTP_URL
       ? []
       : [{ port: Number(process.env.CP_SMTP_PORT ?? 55025), variable: 'CP_SMTP_PORT' }]),
+    ...(process.env.S3_ENDPOINT ? [] : [{ port: fakeS3Port(), variable: 'CP_S3_PORT' }]),
   ];
   const taken = await firstTakenPort(ports);
   if (taken) throw new StepError('check ports', taken);
@@ -125,6 +127,12 @@ async function main() {
     if (r.status !== 0) throw new StepError('build the client', 'vite build failed (see the output above)');
   }
 
+  supervisor = new Supervisor({
+    say: (m) => (m.includes('unexpectedly') ? process.stderr.write(`[counterpoise] ${m}\n`) : say(m)),
+    onGiveUp: () => void shutdown(1),
+    onPids: (pids) => lock?.update({ processes: pids }),
+  });
+  const sup = supervisor;
   const stack = await prepareStack({
     dataDir,
     root,
@@ -134,6 +142,8 @@ async function main() {
       stopServices = stop;
     },
     lock,
+    run: (spec) => sup.start({ ...spec, logFile: spec.logFile && rel(spec.logFile) }),
+    logDir,
   });
   const env: NodeJS.ProcessEnv = {
     ...stack.env,
@@ -161,11 +171,6 @@ async function main() {
       logFile: path.join(logDir, 'worker.log'),
     },
   );
-  supervisor = new Supervisor({
-    say: (m) => (m.includes('unexpectedly') ? process.stderr.write(`[counterpoise] ${m}\n`) : say(m)),
-    onGiveUp: () => void shutdown(1),
-    onPids: (pids) => lock?.update({ processes: pids }),
-  });
   for (const spec of specs) supervisor.start({ ...spec, logFile: spec.logFile && rel(spec.logFile) });
   try {
     await waitForHealth(`${address}/api/health`, 90_000, () => !supervisor?.gaveUp);
@@ -173,7 +178,7 @@ async function main() {
     throw new StepError('start the API', (error as Error).message, path.join(logDir, 'api.log'));
   }
   say(`ready: ${address}`);
-  say(`logs: ${rel(logDir)}/api.log, worker.log and mail.log`);
+  say(`logs: ${rel(logDir)}/api.log, worker.log, mail.log and s3.log`);
   say(`demo accounts (password "${DEMO_PASSWORD}"):`);
   for (const a of DEMO_ACCOUNTS)
     say(`  ${a.role.padEnd(10)} ${a.email.padEnd(40)} ${a.name}, ${a.organisation}`);

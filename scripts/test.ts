@@ -1,5 +1,5 @@
-// The test command: starts a throwaway PostgreSQL and Redis (temporary folders, free
-// ports) unless DATABASE_URL / REDIS_URL are set, then runs formatting, lint, types and
+// The test command: starts a throwaway PostgreSQL, Redis and fake S3 server (temporary
+// folders, free ports) unless DATABASE_URL / REDIS_URL / S3_ENDPOINT are set, then runs formatting, lint, types and
 // every test suite, stops the servers and exits non-zero on any failure.
 import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -15,18 +15,23 @@ import {
   type PostgresHandle,
   type RedisHandle,
 } from './lib/services';
+import { startThrowawayS3, type FakeS3Handle } from './lib/s3';
+import { fakeS3Env } from '../server/lib/fake-s3';
 
 const root = process.cwd();
 const outDir = path.join(root, 'test-output');
 let tmp: string | null = null;
 let postgres: PostgresHandle | null = null;
 let redis: RedisHandle | null = null;
+let s3: FakeS3Handle | null = null;
 
 function say(message: string) {
   process.stdout.write(`[test] ${message}\n`);
 }
 
 function cleanup() {
+  s3?.stop();
+  s3 = null;
   redis?.stop();
   postgres?.stop();
   redis = null;
@@ -63,9 +68,10 @@ async function main(): Promise<number> {
   };
   const needPostgres = !process.env.DATABASE_URL;
   const needRedis = !process.env.REDIS_URL;
+  const needS3 = !process.env.S3_ENDPOINT;
   // Every program the tests spawn (pdftotext, qpdf, Chromium...) comes from the install list.
   ensurePackages(packagesFor('test', { postgres: needPostgres, redis: needRedis }), say);
-  if (needPostgres || needRedis) {
+  if (needPostgres || needRedis || needS3) {
     tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'counterpoise-test-'));
     fs.chmodSync(tmp, 0o755);
   }
@@ -78,6 +84,11 @@ async function main(): Promise<number> {
     redis = await startRedis(path.join(tmp!, 'redis'), await freePort(), { persist: false });
     env.REDIS_URL = redis.url;
     say(`throwaway Redis on port ${redis.port}`);
+  }
+  if (needS3) {
+    s3 = await startThrowawayS3(tmp!, await freePort());
+    Object.assign(env, fakeS3Env(s3.url, 'counterpoise-test'));
+    say(`throwaway fake S3 server on port ${s3.port}`);
   }
   const bin = (p: string) => path.join(root, 'node_modules', p);
   const results: Array<[string, boolean]> = [];
@@ -120,12 +131,13 @@ async function main(): Promise<number> {
       ),
     ]);
   // The browser tests start their own app the way the start command does (its own
-  // PostgreSQL, Redis and fake SMTP): they do not use the throwaway servers above.
+  // PostgreSQL, Redis, fake SMTP and fake S3): they do not use the throwaway servers above.
   const e2eReportFile = path.join(outDir, 'vitest-e2e.json');
   fs.rmSync(e2eReportFile, { force: true });
   if (!filters.length || e2eFilters.length) {
     const e2eEnv: NodeJS.ProcessEnv = { ...env, LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' };
     for (const key of ['DATABASE_URL', 'REDIS_URL', 'JWT_SECRET', 'NODE_ENV']) delete e2eEnv[key];
+    for (const key of Object.keys(e2eEnv)) if (key.startsWith('S3_')) delete e2eEnv[key];
     results.push([
       'browser tests',
       run(

@@ -8,8 +8,7 @@ import { createDataSource } from './db/data-source';
 import { logger } from './lib/logger';
 import { createQueues, type QueueOptions } from './lib/queues';
 import { createRedis } from './lib/redis';
-import { LocalFolderStorage } from './lib/storage';
-import path from 'node:path';
+import { createS3Storage } from './lib/s3-storage';
 import { createPassport } from './modules/auth/passport';
 
 export class StartupError extends Error {
@@ -58,13 +57,25 @@ export async function connect(
   queueConnection.on('error', () => undefined);
   const queues = createQueues(queueConnection, config.REDIS_PREFIX, queueOptions);
   const passport = createPassport(dataSource, config.JWT_SECRET);
+  const storage = createS3Storage(config);
+  try {
+    await storage.ensureBucket();
+  } catch (error) {
+    queueConnection.disconnect();
+    redis.disconnect();
+    await dataSource.destroy();
+    throw new StartupError(
+      'reach the S3 bucket',
+      `${config.S3_BUCKET} at ${config.S3_ENDPOINT ?? `AWS ${config.S3_REGION}`}: ${(error as Error).message || (error as Error).name}`,
+    );
+  }
   return {
     config,
     dataSource,
     redis,
     queues,
     passport: passport as unknown as AppContext['passport'],
-    storage: new LocalFolderStorage(path.join(config.DATA_DIR, 'files')),
+    storage,
     async close() {
       await queues.close().catch(() => undefined);
       queueConnection.disconnect();

@@ -7,6 +7,42 @@ import { z } from 'zod';
 export const WORKER_QUEUE_KINDS = ['check', 'stamp', 'mail', 'reminders'] as const;
 export type WorkerQueueKind = (typeof WORKER_QUEUE_KINDS)[number];
 
+const boolish = z
+  .enum(['true', 'false', '1', '0'], { message: 'must be true or false' })
+  .transform((v) => v === 'true' || v === '1');
+
+/**
+ * Where files live: a bucket behind the S3 API. The start and test commands run a local fake
+ * S3 server and set these unless S3_ENDPOINT is set; without S3_ENDPOINT the SDK uses AWS's
+ * own endpoint for S3_REGION; without keys, its usual credential chain.
+ */
+const S3Env = z
+  .object({
+    S3_ENDPOINT: z
+      .url({ protocol: /^https?$/, message: 'S3_ENDPOINT must be a URL such as http://127.0.0.1:59000' })
+      .optional(),
+    S3_BUCKET: z
+      .string({ message: 'S3_BUCKET is required (the start command sets it for the local fake S3 server)' })
+      .regex(
+        /^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/,
+        'S3_BUCKET must be 3 to 63 of a-z, 0-9, . and -, starting and ending with a letter or digit',
+      ),
+    S3_REGION: z.string().min(1).default('us-east-1'),
+    S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+    S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+    // Bucket in the path (http://host/bucket/key), as the local fake and most S3-compatible servers want.
+    S3_FORCE_PATH_STYLE: boolish.default(true),
+  })
+  .superRefine((env, ctx) => {
+    if (Boolean(env.S3_ACCESS_KEY_ID) !== Boolean(env.S3_SECRET_ACCESS_KEY))
+      ctx.addIssue({
+        code: 'custom',
+        path: [env.S3_ACCESS_KEY_ID ? 'S3_SECRET_ACCESS_KEY' : 'S3_ACCESS_KEY_ID'],
+        message: 'S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY are set together, or neither',
+      });
+  });
+export type S3Settings = z.infer<typeof S3Env>;
+
 const Env = z
   .object({
     NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -101,6 +137,7 @@ const Env = z
     SIGNING_P12_FILE: z.string().min(1).optional(),
     SIGNING_P12_PASSPHRASE: z.string().optional(),
   })
+  .and(S3Env)
   .superRefine((env, ctx) => {
     if (env.SIGNING_P12_FILE && !env.SIGNING_P12_PASSPHRASE)
       ctx.addIssue({
@@ -149,6 +186,24 @@ export function logSettings(env: NodeJS.ProcessEnv = process.env): { level: stri
   return {
     level: env.LOG_LEVEL ?? (env.NODE_ENV === 'test' ? 'silent' : 'info'),
     service: env.CP_SERVICE ?? 'api',
+  };
+}
+
+/** The S3 settings alone (the seed runs with only these and DATABASE_URL set). */
+export function s3Settings(env: NodeJS.ProcessEnv = process.env): S3Settings {
+  const parsed = S3Env.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Configuration is not valid:\n${lines.join('\n')}`);
+  }
+  return parsed.data;
+}
+
+/** Where the local fake S3 server (server/s3-fake.ts) keeps its objects and listens. */
+export function fakeS3Settings(env: NodeJS.ProcessEnv = process.env): { dir: string; port: number } {
+  return {
+    dir: path.join(path.resolve(env.DATA_DIR ?? '.data'), 's3'),
+    port: Number(env.CP_S3_PORT ?? 59000),
   };
 }
 

@@ -7,15 +7,17 @@ import os from 'node:os';
 import path from 'node:path';
 import type supertest from 'supertest';
 import type { DataSource } from 'typeorm';
+import { fakeS3Env } from '../../server/lib/fake-s3';
 import { runMigrations } from './migrate';
+import { startThrowawayS3 } from './s3';
 import { freePort, startPostgres, startRedis } from './services';
 
 type Agent = ReturnType<typeof supertest.agent>;
 
 /**
- * A throwaway PostgreSQL (migrated) and Redis in a new temporary folder, as the test command
- * starts them, and the environment the desk's code reads (also set on this process, quiet).
- * `stops` stops both servers, last started first.
+ * A throwaway PostgreSQL (migrated), Redis and fake S3 server in a new temporary folder, as
+ * the test command starts them, and the environment the desk's code reads (also set on this
+ * process, quiet). `stops` stops the servers, last started first.
  */
 export async function benchServices(folder: string, extra: Record<string, string>) {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), folder));
@@ -23,8 +25,10 @@ export async function benchServices(folder: string, extra: Record<string, string
   fs.chmodSync(dir, 0o755);
   const pg = await startPostgres(path.join(dir, 'pg'), await freePort(), 'counterpoise_bench');
   const redis = await startRedis(path.join(dir, 'redis'), await freePort(), { persist: false });
-  const stops: Array<() => Promise<void> | void> = [() => redis.stop(), () => pg.stop()];
+  const s3 = await startThrowawayS3(path.join(dir, 'data'), await freePort());
+  const stops: Array<() => Promise<void> | void> = [() => s3.stop(), () => redis.stop(), () => pg.stop()];
   const env = {
+    ...fakeS3Env(s3.url, 'counterpoise-bench'),
     DATABASE_URL: pg.url,
     REDIS_URL: redis.url,
     JWT_SECRET: randomBytes(32).toString('hex'),

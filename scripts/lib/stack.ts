@@ -1,8 +1,10 @@
 // What the start and dev commands share: PostgreSQL and Redis (embedded unless
-// DATABASE_URL / REDIS_URL are set), migrations, the demo seed, and the environment the
-// API and the worker run with.
+// DATABASE_URL / REDIS_URL are set), the local fake S3 server (unless S3_ENDPOINT is set),
+// migrations, the demo seed, and the environment the API and the worker run with.
 import path from 'node:path';
+import { fakeS3Env } from '../../server/lib/fake-s3';
 import { runMigrations } from './migrate';
+import { fakeS3Spec, waitForFakeS3 } from './s3';
 import type { DeskLock } from './lock';
 import { localSecret } from './secret';
 import {
@@ -33,6 +35,9 @@ export async function prepareStack(opts: {
   onStarted: (stop: () => void) => void;
   /** The data folder's lock: servers its stale predecessor started are adopted, and the ones this run starts are recorded in it. */
   lock?: DeskLock;
+  /** Starts a process (supervised, in the start command) that lives as long as the desk: the fake S3 server. */
+  run: (spec: ProcessSpec) => void;
+  logDir?: string;
 }): Promise<Stack> {
   const { dataDir, root, say } = opts;
   let postgres: PostgresHandle | null = null;
@@ -65,6 +70,8 @@ export async function prepareStack(opts: {
     say(`Redis on 127.0.0.1:${redis.port}`);
   }
 
+  const s3 = await withStep('start the local fake S3 server', () => fakeS3(opts));
+
   const applied = await withStep('run migrations', () => runMigrations(databaseUrl!));
   say(applied.length ? `applied migrations: ${applied.join(', ')}` : 'database schema is up to date');
 
@@ -72,8 +79,8 @@ export async function prepareStack(opts: {
   const seeded = await withStep('seed the demo scenario', () =>
     seedDemoOnce(
       databaseUrl!,
-      path.join(dataDir, 'files'),
       process.env.APP_URL ?? `http://${process.env.HOST ?? '127.0.0.1'}:${process.env.PORT ?? 3000}`,
+      { ...process.env, ...s3 },
     ),
   );
   say(seeded ? 'demo scenario seeded' : 'demo data already present, reused');
@@ -100,8 +107,41 @@ export async function prepareStack(opts: {
       REDIS_URL: redisUrl,
       JWT_SECRET: process.env.JWT_SECRET ?? localSecret(dataDir),
       DATA_DIR: dataDir,
+      ...s3,
     },
   };
+}
+
+/** The fake S3 server's port (the start command checks it is free before anything starts). */
+export function fakeS3Port(): number {
+  return Number(process.env.CP_S3_PORT ?? 59000);
+}
+
+/**
+ * Without S3_ENDPOINT, starts the local fake S3 server (objects under the data folder's s3/)
+ * and waits until it answers; returns the S3_* settings for the seed, the API and the worker.
+ */
+async function fakeS3(opts: {
+  dataDir: string;
+  root: string;
+  say: (m: string) => void;
+  run: (spec: ProcessSpec) => void;
+  logDir?: string;
+}): Promise<Record<string, string>> {
+  if (process.env.S3_ENDPOINT) {
+    opts.say(
+      `files in the S3 bucket ${process.env.S3_BUCKET ?? '(S3_BUCKET not set)'} at ${process.env.S3_ENDPOINT}`,
+    );
+    return {};
+  }
+  const port = fakeS3Port();
+  const url = `http://127.0.0.1:${port}`;
+  opts.run(fakeS3Spec(opts.dataDir, port, opts.logDir ? path.join(opts.logDir, 's3.log') : undefined));
+  await waitForFakeS3(url);
+  opts.say(
+    `local fake S3 server on 127.0.0.1:${port} (objects in ${path.relative(opts.root, path.join(opts.dataDir, 's3'))})`,
+  );
+  return fakeS3Env(url, process.env.S3_BUCKET ?? 'counterpoise');
 }
 
 async function withStep<T>(step: string, fn: () => Promise<T>): Promise<T> {

@@ -1,9 +1,7 @@
-// Where file bytes live. The embedded default is a folder under the data directory;
-// another backend (an object store) implements the same calls.
+// Where file bytes live: an object store spoken to through the S3 API (s3-storage.ts), a
+// real one or the local fake S3 server that the start and test commands run.
 import { createHash } from 'node:crypto';
 import { createReadStream } from 'node:fs';
-import fs from 'node:fs/promises';
-import path from 'node:path';
 import type { Readable } from 'node:stream';
 
 /** Byte offsets, both inclusive, as in an HTTP Range. */
@@ -27,59 +25,20 @@ export interface Storage {
    */
   open(key: string): Promise<StoredObject | null>;
   delete(key: string): Promise<void>;
-  /** Store the file at `file`, moving it when it can (large files never pass through memory). */
+  /** Store the file at `file`, streamed from disk (large files never pass through memory); the caller keeps the file. */
   putFile(key: string, file: string): Promise<void>;
-  /** Write the stored bytes to the local file `dest`. */
+  /** Write the stored bytes to the local file `dest`, streamed. */
   getFile(key: string, dest: string): Promise<void>;
 }
 
-export class LocalFolderStorage implements Storage {
-  constructor(private readonly root: string) {}
-
-  private resolve(key: string): string {
-    if (!/^[a-z0-9][a-z0-9/_.-]*$/i.test(key) || key.includes('..'))
-      throw new Error(`bad storage key ${key}`);
-    return path.join(this.root, key);
-  }
-
-  async put(key: string, bytes: Uint8Array) {
-    const file = this.resolve(key);
-    await fs.mkdir(path.dirname(file), { recursive: true });
-    const tmp = `${file}.${process.pid}.tmp`;
-    await fs.writeFile(tmp, bytes);
-    await fs.rename(tmp, file);
-  }
-
-  async putFile(key: string, source: string) {
-    const file = this.resolve(key);
-    await fs.mkdir(path.dirname(file), { recursive: true });
-    const tmp = `${file}.${process.pid}.tmp`;
-    await fs.rename(source, tmp).catch(() => fs.copyFile(source, tmp));
-    await fs.rename(tmp, file);
-  }
-
-  async getFile(key: string, dest: string) {
-    // A hard link when both are on one file system (stored files are never changed in place).
-    await fs.link(this.resolve(key), dest).catch(() => fs.copyFile(this.resolve(key), dest));
-  }
-
-  async open(key: string): Promise<StoredObject | null> {
-    const file = this.resolve(key);
-    const stat = await fs.stat(file).catch((error: NodeJS.ErrnoException) => {
-      if (error.code === 'ENOENT') return null;
-      throw error;
-    });
-    if (!stat?.isFile()) return null;
-    return {
-      size: stat.size,
-      // Every stored file has its own key and is never rewritten, so the size holds while it streams.
-      stream: (range) => createReadStream(file, { ...range, highWaterMark: 1 << 16 }),
-    };
-  }
-
-  async delete(key: string) {
-    await fs.rm(this.resolve(key), { force: true });
-  }
+/**
+ * Every key is made by the code from ids it generated (`revisions/<uuid>/<uuid>.pdf`), never
+ * from what a person typed; anything else is refused before it reaches the store.
+ */
+export function checkStorageKey(key: string): string {
+  if (!/^[a-z0-9][a-z0-9/_.-]*$/i.test(key) || key.includes('..') || key.length > 512)
+    throw new Error(`bad storage key ${key}`);
+  return key;
 }
 
 export function sha256(bytes: Uint8Array): string {

@@ -31,7 +31,7 @@ beforeAll(async () => {
   await ds.runMigrations();
   await ds.destroy();
   filesDir = fs.mkdtempSync(path.join(os.tmpdir(), 'counterpoise-seed-'));
-  expect(await seedDemoOnce(url, filesDir, 'http://127.0.0.1:9')).toBe(true);
+  expect(await seedDemoOnce(url, 'http://127.0.0.1:9', process.env)).toBe(true);
   t = await startTestApp({ DATABASE_URL: url, DATA_DIR: filesDir });
 }, 180_000);
 

@@ -1,7 +1,6 @@
 // The contractor's submission over the API: drafts, uploads, submit, and their refusals.
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
-import path from 'node:path';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkRunJobId } from '@server/lib/queues';
@@ -9,6 +8,7 @@ import { UploadedFile } from '@server/modules/files/file.entity';
 import { startTestApp, signedIn, type TestApp } from '../support/app';
 import { makeWorld } from '../support/factories';
 import { makeEncryptedPdf, makePdf, truncate } from '../support/pdfs';
+import { storedObjects } from '../support/s3';
 
 const example = JSON.parse(fs.readFileSync('shared/engineering/examples/pass-outriggers.json', 'utf8'));
 
@@ -32,9 +32,8 @@ async function fileCount(revisionId: string) {
   return t.ctx.dataSource.getRepository(UploadedFile).countBy({ revisionId });
 }
 
-function filesOnDisk(revisionId: string): string[] {
-  const dir = path.join(t.ctx.config.DATA_DIR, 'files', 'revisions', revisionId);
-  return fs.existsSync(dir) ? fs.readdirSync(dir) : [];
+function filesStored(revisionId: string): Promise<string[]> {
+  return storedObjects(t.ctx.config, `revisions/${revisionId}/`);
 }
 
 describe('drafts', () => {
@@ -222,7 +221,7 @@ describe('uploads', () => {
 
     it('when the stored bytes are gone, then 404 as JSON, not a PDF header over an error', async () => {
       const { agent, pkg, url, body } = await uploaded();
-      fs.rmSync(path.join(t.ctx.config.DATA_DIR, 'files', 'revisions', pkg.current.id, `${body.id}.pdf`));
+      await t.ctx.storage.delete(`revisions/${pkg.current.id}/${body.id}.pdf`);
       const res = await agent.get(url);
       expect(res.status).toBe(404);
       expect(res.headers['content-type']).toMatch(/^application\/json/);
@@ -273,7 +272,7 @@ describe('uploads', () => {
       .attach('file', Buffer.from(await makePdf(2)), 'b.pdf');
     expect(b.status).toBe(201);
     expect(await fileCount(pkg.current.id)).toBe(1);
-    expect(filesOnDisk(pkg.current.id)).toEqual([`${b.body.id}.pdf`]);
+    expect(await filesStored(pkg.current.id)).toEqual([`${b.body.id}.pdf`]);
     expect(a.body.id).not.toBe(b.body.id);
   });
 
@@ -347,7 +346,7 @@ describe('uploads', () => {
       expect(res.body.error.message).toMatch(message);
       expect(res.body.error.fields[0].path).toBe('file');
       expect(await fileCount(pkg.current.id)).toBe(0);
-      expect(filesOnDisk(pkg.current.id)).toEqual([]);
+      expect(await filesStored(pkg.current.id)).toEqual([]);
     });
   }
 });

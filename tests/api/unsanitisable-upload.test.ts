@@ -2,12 +2,11 @@
 // is wrong in words, with nothing stored: damaged object streams (the catalog and page tree
 // cannot be read) and a page whose content cannot be decoded. A file that readers repair by
 // themselves (a wrong cross-reference offset) is taken. PDFs made in the test.
-import fs from 'node:fs';
-import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, type TestApp } from '../support/app';
 import { internalWords } from '../support/internal-words';
 import { makeBrokenPdf } from '../support/pdfs';
+import { storedObjects } from '../support/s3';
 import { desk } from '../support/review-desk';
 
 let t: TestApp;
@@ -24,9 +23,8 @@ async function draft() {
   return { ...d, id: created.body.package.id as string, revisionId: created.body.current.id as string };
 }
 
-function storedFiles(revisionId: string): string[] {
-  const dir = path.join(t.ctx.config.DATA_DIR, 'files', 'revisions', revisionId);
-  return fs.existsSync(dir) ? fs.readdirSync(dir) : [];
+function storedFiles(revisionId: string): Promise<string[]> {
+  return storedObjects(t.ctx.config, `revisions/${revisionId}/`);
 }
 
 describe('uploads the stamped return cannot be made from', () => {
@@ -64,7 +62,7 @@ describe('uploads the stamped return cannot be made from', () => {
         d.revisionId,
       ]);
       expect(rows).toEqual([]);
-      expect(storedFiles(d.revisionId)).toEqual([]);
+      expect(await storedFiles(d.revisionId)).toEqual([]);
     });
   }
 

@@ -1,5 +1,5 @@
 // Runs the real start command as a child process for the launcher tests: its own data
-// folder and free ports, none of the caller's DATABASE_URL / REDIS_URL / SMTP_URL.
+// folder and free ports, none of the caller's DATABASE_URL / REDIS_URL / SMTP_URL / S3_*.
 import { spawn, type ChildProcess } from 'node:child_process';
 import { freePort } from '../../scripts/lib/services';
 export { until } from '../support/until';
@@ -9,6 +9,7 @@ export interface Ports {
   pg: number;
   redis: number;
   smtp: number;
+  s3: number;
 }
 
 export interface Desk {
@@ -18,13 +19,20 @@ export interface Desk {
 }
 
 export async function freePorts(): Promise<Ports> {
-  return { http: await freePort(), pg: await freePort(), redis: await freePort(), smtp: await freePort() };
+  return {
+    http: await freePort(),
+    pg: await freePort(),
+    redis: await freePort(),
+    smtp: await freePort(),
+    s3: await freePort(),
+  };
 }
 
 export function deskEnv(dataDir: string, ports: Ports, extra: NodeJS.ProcessEnv = {}): NodeJS.ProcessEnv {
   const env: NodeJS.ProcessEnv = { ...process.env };
   for (const key of ['DATABASE_URL', 'REDIS_URL', 'JWT_SECRET', 'NODE_ENV', 'SMTP_URL', 'APP_URL'])
     delete env[key];
+  for (const key of Object.keys(env)) if (key.startsWith('S3_')) delete env[key];
   return {
     ...env,
     DATA_DIR: dataDir,
@@ -32,6 +40,7 @@ export function deskEnv(dataDir: string, ports: Ports, extra: NodeJS.ProcessEnv 
     CP_PG_PORT: String(ports.pg),
     CP_REDIS_PORT: String(ports.redis),
     CP_SMTP_PORT: String(ports.smtp),
+    CP_S3_PORT: String(ports.s3),
     SKIP_CLIENT_BUILD: '1',
     LOG_LEVEL: 'warn',
     ...extra,

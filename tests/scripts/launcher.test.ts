@@ -61,7 +61,7 @@ describe('the launcher', () => {
     expect(desk.output()).toMatch(/took over the lock of a desk that is no longer running \(pid \d+\)/);
     const lock = readLock(dataDir)!;
     expect(lock.pid).toBe(desk.child.pid);
-    expect(Object.keys(lock.processes).sort()).toEqual(['api', 'mail-catcher', 'worker']);
+    expect(Object.keys(lock.processes).sort()).toEqual(['api', 'mail-catcher', 's3-fake', 'worker']);
     const pgPid = postmasterPid(path.join(dataDir, 'pg'));
 
     const started = Date.now();

@@ -61,9 +61,15 @@ describe('the start command', () => {
       pg: await freePort(),
       redis: await freePort(),
       smtp: await freePort(),
+      s3: await freePort(),
     };
     const first = await start(ports);
     expect(first.output()).toContain('demo scenario seeded');
+    expect(first.output()).toContain(`local fake S3 server on 127.0.0.1:${ports.s3}`);
+    // The seed's plans went through the S3 API into the fake's bucket under the data folder.
+    const seededPlans = path.join(dataDir, 's3', 'counterpoise', 'revisions');
+    expect(fs.readdirSync(seededPlans).length).toBeGreaterThan(0);
+    expect(fs.existsSync(path.join(dataDir, 'files'))).toBe(false);
     const health = await fetch(`http://127.0.0.1:${ports.http}/api/health`);
     expect(await health.json()).toMatchObject({ status: 'ok' });
     const total = await signInAndCount(ports.http);
@@ -78,6 +84,7 @@ describe('the start command', () => {
     expect(await isPortFree(ports.http)).toBe(true);
     expect(await isPortFree(ports.pg)).toBe(true);
     expect(await isPortFree(ports.redis)).toBe(true);
+    expect(await isPortFree(ports.s3)).toBe(true);
     expect(fs.existsSync(path.join(dataDir, 'pg', 'postmaster.pid'))).toBe(false);
 
     const second = await start(ports);

@@ -145,6 +145,7 @@ describe('signing settings', () => {
       DATABASE_URL: 'postgres://app@127.0.0.1:1/x',
       REDIS_URL: 'redis://127.0.0.1:1',
       JWT_SECRET: 'x'.repeat(32),
+      S3_BUCKET: 'counterpoise',
       SIGNING_P12_FILE: join(dir, 'authority.p12'),
     };
     expect(() => loadConfig(env)).toThrow(

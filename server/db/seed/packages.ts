@@ -9,7 +9,7 @@ import { fileURLToPath } from 'node:url';
 import type { DataSource, EntityManager } from 'typeorm';
 import { fillFromVersion } from '@shared/library/to-lift-input';
 import type { VersionDetail } from '@shared/schemas/library';
-import { LocalFolderStorage, sha256 } from '../../lib/storage';
+import { sha256, type Storage } from '../../lib/storage';
 import { AuditEvent } from '../../modules/audit/audit-event.entity';
 import { recordAudit } from '../../modules/audit/service';
 import { InvalidLiftData, runCheckRun } from '../../modules/check-runs/service';
@@ -40,7 +40,7 @@ interface Seeded {
 
 export async function seedPackages(
   m: EntityManager,
-  filesDir: string,
+  storage: Storage,
   ctx: {
     orgs: Map<string, Organisation>;
     people: Map<string, User>;
@@ -49,7 +49,6 @@ export async function seedPackages(
     library: Map<string, VersionDetail>;
   },
 ): Promise<Seeded[]> {
-  const storage = new LocalFolderStorage(filesDir);
   const contractors = {
     brackwater: {
       org: ctx.orgs.get('Brackwater Lifting Ltd')!,
@@ -203,9 +202,9 @@ export async function finishSeededPackages(
   seeded: Seeded[],
   people: Map<string, User>,
   reviewer: User,
-  opts: { filesDir: string; appUrl: string },
+  opts: { storage: Storage; appUrl: string },
 ) {
-  const storage = new LocalFolderStorage(opts.filesDir);
+  const storage = opts.storage;
   const appUrl = opts.appUrl;
   const engineers = {
     dev: people.get('dev.marsh@tamsin-ridge.example')!,

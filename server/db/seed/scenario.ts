@@ -1,6 +1,7 @@
 // The invented demo week: Tamsin Ridge Energy (owner) runs lift reviews for its refinery
 // and its wharf terminal; Brackwater Lifting and Selsdon & Hale Crane Hire submit plans.
 import type { DataSource } from 'typeorm';
+import type { Storage } from '../../lib/storage';
 import { Organisation } from '../../modules/organisations/organisation.entity';
 import { Site, SiteMember } from '../../modules/sites/site.entity';
 import { User } from '../../modules/users/user.entity';
@@ -10,7 +11,7 @@ import { finishSeededPackages, seedPackages } from './packages';
 
 export async function seedScenario(
   dataSource: DataSource,
-  filesDir: string,
+  storage: Storage,
   opts: { hash: (p: string) => string; appUrl: string },
 ) {
   const { seeded, people, reviewer } = await dataSource.transaction(async (m) => {
@@ -60,8 +61,8 @@ export async function seedScenario(
     for (const site of [refinery, wharf])
       await m.getRepository(SiteMember).save({ siteId: site.id, userId: reviewer.id });
     const library = await seedLibrary(m, { orgs, people });
-    const seeded = await seedPackages(m, filesDir, { orgs, people, sites: { refinery, wharf }, library });
+    const seeded = await seedPackages(m, storage, { orgs, people, sites: { refinery, wharf }, library });
     return { seeded, people, reviewer };
   });
-  await finishSeededPackages(dataSource, seeded, people, reviewer, { filesDir, appUrl: opts.appUrl });
+  await finishSeededPackages(dataSource, seeded, people, reviewer, { storage, appUrl: opts.appUrl });
 }

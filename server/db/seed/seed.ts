@@ -3,6 +3,8 @@
 // status, each with a generated lift plan PDF and (once submitted) the engine's results.
 import bcrypt from 'bcryptjs';
 import type { DataSource } from 'typeorm';
+import { s3Settings } from '../../config';
+import { createS3Storage } from '../../lib/s3-storage';
 import { createDataSource } from '../data-source';
 import { seedScenario } from './scenario';
 
@@ -11,13 +13,18 @@ export async function isSeeded(dataSource: DataSource): Promise<boolean> {
   return Number(row.n) > 0;
 }
 
-/** Seeds when the database holds no organisation yet; returns whether it seeded. */
-export async function seedDemoOnce(url: string, filesDir: string, appUrl: string): Promise<boolean> {
+/**
+ * Seeds when the database holds no organisation yet; returns whether it seeded. The plans go
+ * into the bucket that the S3_* settings name (created when missing), as the API's uploads do.
+ */
+export async function seedDemoOnce(url: string, appUrl: string, env: NodeJS.ProcessEnv): Promise<boolean> {
   const dataSource = createDataSource(url);
   await dataSource.initialize();
   try {
     if (await isSeeded(dataSource)) return false;
-    await seedScenario(dataSource, filesDir, { hash: (p) => bcrypt.hashSync(p, 10), appUrl });
+    const storage = createS3Storage(s3Settings(env));
+    await storage.ensureBucket();
+    await seedScenario(dataSource, storage, { hash: (p) => bcrypt.hashSync(p, 10), appUrl });
     return true;
   } finally {
     await dataSource.destroy();

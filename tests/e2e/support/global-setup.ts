@@ -1,7 +1,7 @@
 // Starts the product for the browser tests the way the start command does — client build,
-// embedded PostgreSQL, Redis and fake SMTP, migrations, the demo seed, API and worker —
+// embedded PostgreSQL, Redis, fake SMTP and fake S3, migrations, the demo seed, API and worker —
 // but isolated: a temporary DATA_DIR, free ports, and none of the caller's DATABASE_URL,
-// REDIS_URL, SMTP_URL or JWT_SECRET (so it embeds its own, like a fresh machine).
+// REDIS_URL, SMTP_URL, S3_* or JWT_SECRET (so it embeds its own, like a fresh machine).
 import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -38,10 +38,12 @@ export default async function setup(project: TestProject) {
     pg: await freePort(),
     redis: await freePort(),
     smtp: await freePort(),
+    s3: await freePort(),
   };
   const env: NodeJS.ProcessEnv = { ...process.env };
   for (const key of ['DATABASE_URL', 'REDIS_URL', 'SMTP_URL', 'JWT_SECRET', 'NODE_ENV', 'APP_URL'])
     delete env[key];
+  for (const key of Object.keys(env)) if (key.startsWith('S3_')) delete env[key];
   Object.assign(env, {
     DATA_DIR: dataDir,
     PORT: String(ports.http),
@@ -49,6 +51,7 @@ export default async function setup(project: TestProject) {
     CP_PG_PORT: String(ports.pg),
     CP_REDIS_PORT: String(ports.redis),
     CP_SMTP_PORT: String(ports.smtp),
+    CP_S3_PORT: String(ports.s3),
     LOG_LEVEL: 'warn',
     // Every test file signs in several people; the default limit is for people, not robots.
     SIGN_IN_LIMIT: '1000',
