@@ -66,6 +66,7 @@ function contractorDesk(findings: Finding[]) {
               sha256: 'ab'.repeat(32),
               pages: 5,
               verificationCode: 'ABCDEFGHJKMNPQRSTVWXYZ23',
+              unitSystem: 'metric',
               createdAt: '2030-03-02T09:00:00.000Z',
               readyAt: '2030-03-02T09:00:05.000Z',
             },

@@ -6,13 +6,36 @@ import type { PackageDetail } from '@shared/schemas/packages';
 import { callsTo, makeUser, renderApp, stubFetch } from './support';
 import { makeDetail } from './package-fixtures';
 
+// jsdom has no canvas: the preview's drawing is replaced, and says which address it drew.
+const preview = vi.hoisted(() => ({ urls: [] as string[], fail: null as string | null }));
+vi.mock('@/lib/pdf-first-page', () => ({
+  renderFirstPage: (url: string) => {
+    preview.urls.push(url);
+    return {
+      promise: preview.fail ? Promise.reject(new Error(preview.fail)) : Promise.resolve(),
+      cancel: () => undefined,
+    };
+  },
+}));
+
 afterEach(() => {
   cleanup();
   vi.unstubAllGlobals();
+  preview.urls = [];
+  preview.fail = null;
 });
 
 const SHA = 'c0ffee00' + '1234abcd'.repeat(7);
 const CODE = 'ABCDEFGHJKMNPQRSTVWXYZ23';
+
+/** How many POSTs went to a path. */
+function posts(fetchMock: ReturnType<typeof stubFetch>, pathname: string): number {
+  return fetchMock.mock.calls.filter(
+    ([input, init]) =>
+      new URL(String(input), 'http://localhost').pathname === pathname &&
+      (init as RequestInit | undefined)?.method === 'POST',
+  ).length;
+}
 
 function decided(status: 'decided' | 'returned' = 'decided'): PackageDetail {
   return makeDetail({
@@ -31,6 +54,7 @@ function returnRow(overrides: Record<string, unknown>) {
     sha256: null,
     pages: null,
     verificationCode: CODE,
+    unitSystem: 'metric',
     createdAt: '2030-03-02T09:00:00.000Z',
     readyAt: null,
     ...overrides,
@@ -75,6 +99,16 @@ describe('stamped return', () => {
 
     const panel = await screen.findByRole('region', { name: 'Stamped return' }, { timeout: 8000 });
     await user.click(within(panel).getByRole('button', { name: 'Issue stamped return' }));
+    // First the preview of page 1, then the coordinator issues it as shown.
+    const dialog = await screen.findByRole('dialog', { name: 'Check the stamped return before issuing' });
+    expect(preview.urls).toEqual([`/api/packages/${id}/returns/preview`]);
+    expect(within(dialog).getByText(/Page 1 as it will print/).textContent).toContain('Accepted');
+    expect(posts(fetchMock, `/api/packages/${id}/returns`)).toBe(0);
+    const confirm = within(dialog).getByRole('button', { name: 'Issue as shown' });
+    await waitFor(() => expect((confirm as HTMLButtonElement).disabled).toBe(false));
+    await user.click(confirm);
+    expect(screen.queryByRole('dialog')).toBeNull();
+    expect(posts(fetchMock, `/api/packages/${id}/returns`)).toBe(1);
     expect(callsTo(fetchMock, `/api/packages/${id}/returns`).length).toBeGreaterThanOrEqual(2);
 
     const progress = await within(panel).findByRole('progressbar', { name: 'Stamped return' });
@@ -131,6 +165,30 @@ describe('stamped return', () => {
 
     const panel = await screen.findByRole('region', { name: 'Stamped return' }, { timeout: 8000 });
     await user.click(within(panel).getByRole('button', { name: 'Issue stamped return' }));
+    await user.click(await screen.findByRole('button', { name: 'Issue as shown' }));
     expect((await within(panel).findByRole('alert')).textContent).toContain('nothing to stamp');
+  });
+
+  it('when the preview cannot be made, then the dialog says why and the return cannot be issued from it', async () => {
+    preview.fail = 'The engineer of record has not recorded a decision on this revision yet.';
+    const detail = decided();
+    const id = detail.package.id;
+    const fetchMock = stubFetch((url) => {
+      if (url.pathname === '/api/me') return { status: 200, body: { user: makeUser('reviewer') } };
+      if (url.pathname === `/api/packages/${id}`) return { status: 200, body: detail };
+      if (url.pathname === `/api/packages/${id}/returns`) return { status: 200, body: { items: [] } };
+    });
+    renderApp(`/packages/${id}`);
+    const user = userEvent.setup();
+
+    const panel = await screen.findByRole('region', { name: 'Stamped return' }, { timeout: 8000 });
+    await user.click(within(panel).getByRole('button', { name: 'Issue stamped return' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Check the stamped return before issuing' });
+    expect((await within(dialog).findByRole('alert')).textContent).toContain('has not recorded a decision');
+    expect(
+      (within(dialog).getByRole('button', { name: 'Issue as shown' }) as HTMLButtonElement).disabled,
+    ).toBe(true);
+    await user.click(within(dialog).getByRole('button', { name: 'Cancel' }));
+    expect(posts(fetchMock, `/api/packages/${id}/returns`)).toBe(0);
   });
 });

@@ -316,6 +316,7 @@ describe('the four flows, in a real browser', () => {
     const reviewer = await signedIn(browser, 'reviewer');
     await reviewer.page.goto(`/packages/${state.packageId}`);
     await reviewer.page.getByRole('button', { name: 'Issue stamped return' }).click();
+    await reviewer.page.getByRole('button', { name: 'Issue as shown' }).click({ timeout: WAIT.job });
     const link = reviewer.page
       .getByRole('region', { name: 'Stamped return' })
       .getByRole('link', { name: /^\/verify\// });
@@ -399,6 +400,7 @@ describe('the four flows, in a real browser', () => {
     const reviewer = await signedIn(browser, 'reviewer');
     await reviewer.page.goto(`/packages/${state.packageId}`);
     await reviewer.page.getByRole('button', { name: 'Issue stamped return' }).click();
+    await reviewer.page.getByRole('button', { name: 'Issue as shown' }).click({ timeout: WAIT.job });
     const second = reviewer.page
       .getByRole('region', { name: 'Stamped return' })
       .getByRole('listitem')

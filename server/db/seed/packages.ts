@@ -315,8 +315,8 @@ export async function finishSeededPackages(
       // The same job code as the product: the return is built, stored and the package returned.
       const decision = await ds.getRepository(DecisionRecord).findOneByOrFail({ packageId });
       const [row] = await ds.query(
-        `INSERT INTO stamped_returns (decision_id, package_id, revision_id, verification_code, issued_by_id)
-         VALUES ($1, $2, $3, $4, $5) RETURNING id`,
+        `INSERT INTO stamped_returns (decision_id, package_id, revision_id, verification_code, issued_by_id, unit_system)
+         VALUES ($1, $2, $3, $4, $5, (SELECT unit_system FROM lift_packages WHERE id = $2)) RETURNING id`,
         [decision.id, packageId, submittedRevisionId, newVerificationCode(), reviewer.id],
       );
       await buildReturn(ds, storage, row.id, appUrl);

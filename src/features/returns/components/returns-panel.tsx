@@ -1,7 +1,7 @@
 // The stamped returns of a package. The coordinator issues the return once a decision is
 // recorded and watches the job's steps; everyone on the package gets the stamped PDF, its
 // sha-256, its page count and the public verification link.
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { DECISION_LABELS, type Decision, type PackageStatus } from '@shared/schemas/common';
@@ -14,6 +14,7 @@ import type { StampedReturn } from '@shared/schemas/returns';
 import { returnFileUrl, useIssueReturn, useReturns, verifyPath } from '../api/returns';
 import { shortHash, STAMP_STEPS, stepAt } from '../lib/stamp-steps';
 import { CopyButton } from './copy-button';
+import { IssuePreviewDialog } from './issue-preview-dialog';
 
 const NOT_STARTED_MS = 20_000;
 
@@ -142,6 +143,7 @@ export function ReturnsPanel({
   const queryClient = useQueryClient();
   const returns = useReturns(packageId);
   const issue = useIssueReturn(packageId);
+  const [previewing, setPreviewing] = useState(false);
   const items = returns.data?.items ?? [];
   const pending = items.find((r) => r.state === 'pending');
   const failed = !pending ? items.find((r) => r.state === 'failed') : undefined;
@@ -188,7 +190,7 @@ export function ReturnsPanel({
             The stamped return carries the original pages with the markups burned in, the stamp block and the
             calculation sheet.
           </p>
-          <Button variant="primary" size="sm" disabled={issue.isPending} onClick={() => issue.mutate()}>
+          <Button variant="primary" size="sm" disabled={issue.isPending} onClick={() => setPreviewing(true)}>
             {issue.isPending ? (
               <>
                 <Spinner className="size-3.5" /> Sending…
@@ -209,6 +211,17 @@ export function ReturnsPanel({
             </p>
           )}
         </div>
+      )}
+      {previewing && (
+        <IssuePreviewDialog
+          packageId={packageId}
+          decision={decision}
+          onClose={() => setPreviewing(false)}
+          onIssue={() => {
+            setPreviewing(false);
+            issue.mutate();
+          }}
+        />
       )}
       {pending && <StampProgress ret={pending} />}
       {failed && (
