@@ -12,11 +12,9 @@ import { documentUnits } from '@shared/rules/document-units';
 import { AppError } from '../../lib/app-error';
 import { concatenate } from '../../lib/pdf-tools/qpdf';
 import type { Storage } from '../../lib/storage';
-import { findScopedPackage } from '../packages/package-scope';
-import { requireState } from '../packages/state-guard';
-import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
 import { readReturnInput } from './return-input';
+import { decidedForReturn } from './service';
 import { buildStampedReturnFile, StampInputError } from './stamp-pdf';
 
 /** 24 characters, as a real code: the stamp block lays out the same. */
@@ -29,17 +27,7 @@ export async function previewReturn(
   packageId: string,
   appUrl: string,
 ): Promise<Buffer> {
-  if (user.role !== 'reviewer') throw AppError.forbidden('Only a reviewer previews the stamped return.');
-  const pkg = await findScopedPackage(ds.manager, user, packageId);
-  requireState('issue_return', pkg.status, 'The stamped return can be previewed', 'no_decision');
-  const decision = await latestDecision(ds.manager, pkg.id);
-  if (!decision) {
-    throw new AppError(
-      409,
-      'no_decision',
-      'The engineer of record has not recorded a decision on this revision yet.',
-    );
-  }
+  const { pkg, decision } = await decidedForReturn(ds, user, packageId, 'previewed');
   const site = await ds.getRepository(Site).findOneByOrFail({ id: pkg.siteId });
   const { input, files } = await readReturnInput(
     ds,

@@ -69,11 +69,22 @@ function toReturn(r: StampedReturn) {
   };
 }
 
-export async function issueReturn(ds: DataSource, queues: Queues, user: Actor, packageId: string) {
-  if (user.role !== 'reviewer') throw AppError.forbidden('Only a reviewer issues the stamped return.');
+/**
+ * The package a reviewer may issue (or preview) the stamped return of, and the decision on
+ * record: 403 for anyone else, 409 while there is no decision.
+ */
+export async function decidedForReturn(
+  ds: DataSource,
+  user: Actor,
+  packageId: string,
+  verb: 'issued' | 'previewed',
+) {
+  if (user.role !== 'reviewer')
+    throw AppError.forbidden(
+      `Only a reviewer ${verb === 'issued' ? 'issues' : 'previews'} the stamped return.`,
+    );
   const pkg = await findScopedPackage(ds.manager, user, packageId);
-  requireState('issue_return', pkg.status, 'The stamped return can be issued', 'no_decision');
-  // The decision the reviewer's request found; the return is issued for exactly this one.
+  requireState('issue_return', pkg.status, `The stamped return can be ${verb}`, 'no_decision');
   const decision = await latestDecision(ds.manager, pkg.id);
   if (!decision) {
     throw new AppError(
@@ -82,6 +93,12 @@ export async function issueReturn(ds: DataSource, queues: Queues, user: Actor, p
       'The engineer of record has not recorded a decision on this revision yet.',
     );
   }
+  return { pkg, decision };
+}
+
+export async function issueReturn(ds: DataSource, queues: Queues, user: Actor, packageId: string) {
+  // The decision the reviewer's request found; the return is issued for exactly this one.
+  const { pkg, decision } = await decidedForReturn(ds, user, packageId, 'issued');
   let ret = await ds.getRepository(StampedReturn).findOneBy({ decisionId: decision.id });
   if (!ret) {
     ret = await ds.transaction(async (m) => {
