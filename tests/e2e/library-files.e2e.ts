@@ -75,6 +75,8 @@ describe('fleet library files', () => {
       buffer: await chartWorkbook(),
     });
     await page.getByRole('button', { name: 'Read the file' }).click();
+    // The CSV's preview read the same units header: wait for what only the workbook's preview says.
+    await page.getByText('C3: holds a formula; its stored value 43.2 was read').waitFor();
     await page.getByText('radius in m (from A1); boom in m (from A1); capacity in t (from A1)').waitFor();
     expect(await page.getByRole('alert').filter({ hasText: 'error' }).count()).toBe(0);
     expect(await page.getByText('C3: holds a formula; its stored value 43.2 was read').count()).toBe(1);
