@@ -13,7 +13,7 @@ import { AppError } from '../../lib/app-error';
 import { concatenate } from '../../lib/pdf-tools/qpdf';
 import type { Storage } from '../../lib/storage';
 import { Site } from '../sites/site.entity';
-import { readReturnInput } from './return-input';
+import { fetchOriginals, readReturnInput } from './return-input';
 import { decidedForReturn } from './service';
 import { buildStampedReturnFile, StampInputError } from './stamp-pdf';
 
@@ -44,12 +44,7 @@ export async function previewReturn(
   );
   const work = await mkdtemp(path.join(tmpdir(), 'return-preview-'));
   try {
-    const documents = [];
-    for (const [i, f] of files.entries()) {
-      const file = path.join(work, `original-${i}.pdf`);
-      await storage.getFile(f.storageKey, file);
-      documents.push({ fileId: f.id, name: f.originalName, file });
-    }
+    const documents = await fetchOriginals(storage, files, work);
     const whole = path.join(work, 'preview-whole.pdf');
     await buildStampedReturnFile({ ...input, documents }, whole, { signer: null, workDir: work });
     const first = path.join(work, 'preview-page-1.pdf');

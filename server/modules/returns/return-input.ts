@@ -2,8 +2,10 @@
 // the decision it is issued for, the people, the markups with their findings' numbers and the
 // calculation. The stamp job and the preview read it the same way, so the preview prints what the
 // return will.
+import path from 'node:path';
 import type { DataSource } from 'typeorm';
 import type { UnitSystem } from '@shared/schemas/common';
+import type { Storage } from '../../lib/storage';
 import { UploadedFile } from '../files/file.entity';
 import { Organisation } from '../organisations/organisation.entity';
 import { LiftPackage, Revision } from '../packages/package.entity';
@@ -95,4 +97,19 @@ export async function readReturnInput(ds: DataSource, subject: ReturnSubject, ap
     },
   };
   return { input, files, pkg, revision, decision, site };
+}
+
+/** The revision's originals copied out of storage into `work`, as the builder reads them (files on disk). */
+export async function fetchOriginals(
+  storage: Storage,
+  files: Pick<UploadedFile, 'id' | 'storageKey' | 'originalName'>[],
+  work: string,
+) {
+  const documents = [];
+  for (const [i, f] of files.entries()) {
+    const file = path.join(work, `original-${i}.pdf`);
+    await storage.getFile(f.storageKey, file);
+    documents.push({ fileId: f.id, name: f.originalName, file });
+  }
+  return documents;
 }

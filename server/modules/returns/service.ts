@@ -29,7 +29,7 @@ import { lockPackage } from '../reviews/review-scope';
 import { latestDecision } from '../reviews/service';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
-import { readReturnInput } from './return-input';
+import { fetchOriginals, readReturnInput } from './return-input';
 import { buildStampedReturnFile, StampInputError } from './stamp-pdf';
 
 const BASE32 = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ234567';
@@ -243,12 +243,7 @@ export async function buildReturn(
   let signingCertificateSha256: string | null;
   const storageKey = `returns/${pkg.id}/${ret.id}.pdf`;
   try {
-    const documents = [];
-    for (const [i, f] of files.entries()) {
-      const file = path.join(work, `original-${i}.pdf`);
-      await storage.getFile(f.storageKey, file);
-      documents.push({ fileId: f.id, name: f.originalName, file });
-    }
+    const documents = await fetchOriginals(storage, files, work);
     await step(40, 'burning in markups and the stamp');
     const out = path.join(work, 'return.pdf');
     const built = await buildStampedReturnFile({ ...input, documents }, out, {
