@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { tippingBalance } from '@shared/engineering/evaluate';
 import { LiftInput } from '@shared/schemas/lift-input';
-import { checkOf, findItem, G, outriggerLift, q, run } from './support';
+import { checkOf, crawlerLift, findItem, G, outriggerLift, q, run } from './support';
 import type { LiftInputRaw } from '@shared/schemas/lift-input';
 
 const tm = (x: number) => x * 1000 * G; // t·m → N·m and t → N
@@ -103,25 +103,6 @@ describe('stated figures against the hand-worked outrigger balance (tolerance 5%
     expect(run(lift, { discrepancyTolerancePct: 2 }).discrepancies[0].status).toBe('discrepancy');
   });
 });
-
-function crawlerLift(): LiftInputRaw {
-  return {
-    crane: {
-      type: 'mobile_crawler',
-      boomLength: q(24, 'm'),
-      radius: q(12, 'm'),
-      slewAngle: q(0, 'deg'),
-      upperWorks: { weight: q(30, 't'), cgBehindRotation: q(0.5, 'm') },
-      counterweight: { weight: q(25, 't'), cgBehindRotation: q(4.5, 'm') },
-      carrier: { weight: q(40, 't'), cgRearOfRotation: q(0, 'm') },
-      boom: { weight: q(5, 't'), cgFromFoot: q(12, 'm') },
-      tracks: { length: q(6, 'm'), shoeWidth: q(1, 'm'), gauge: q(4.4, 'm') },
-    },
-    chart: { rows: [{ radius: q(12, 'm'), boomLength: q(24, 'm'), capacity: q(32, 't') }] },
-    load: { weight: q(20, 't') },
-    ground: { allowableBearing: q(250, 'kPa') },
-  };
-}
 
 describe('crawler, boom over the track ends (slew 0°), tipping line 3 m behind the centre', () => {
   // Load 20 t at 12 m → arm 9 m → 180 t·m; boom 5 t, CG at 12 × cos 60° = 6 m → arm 3 m → 15 t·m

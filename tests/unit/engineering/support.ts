@@ -74,3 +74,23 @@ export function badNumbers(v: unknown, path = '', out: string[] = []): string[] 
     for (const [k, x] of Object.entries(v)) badNumbers(x, path ? `${path}.${k}` : k, out);
   return out;
 }
+
+/** A crawler on its tracks, 20 t at 12 m with a 24 m boom (invented figures for hand-worked tests). */
+export function crawlerLift(): LiftInputRaw {
+  return {
+    crane: {
+      type: 'mobile_crawler',
+      boomLength: q(24, 'm'),
+      radius: q(12, 'm'),
+      slewAngle: q(0, 'deg'),
+      upperWorks: { weight: q(30, 't'), cgBehindRotation: q(0.5, 'm') },
+      counterweight: { weight: q(25, 't'), cgBehindRotation: q(4.5, 'm') },
+      carrier: { weight: q(40, 't'), cgRearOfRotation: q(0, 'm') },
+      boom: { weight: q(5, 't'), cgFromFoot: q(12, 'm') },
+      tracks: { length: q(6, 'm'), shoeWidth: q(1, 'm'), gauge: q(4.4, 'm') },
+    },
+    chart: { rows: [{ radius: q(12, 'm'), boomLength: q(24, 'm'), capacity: q(32, 't') }] },
+    load: { weight: q(20, 't') },
+    ground: { allowableBearing: q(250, 'kPa') },
+  };
+}

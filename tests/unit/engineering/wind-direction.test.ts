@@ -4,8 +4,8 @@
 // height; boom 8 m² × 1.2 → 588 N at half the tip height.
 import { describe, expect, it } from 'vitest';
 import { tippingBalance } from '@shared/engineering/evaluate';
-import { LiftInput, type LiftInputRaw } from '@shared/schemas/lift-input';
-import { findItem, G, outriggerLift, q, run } from './support';
+import { LiftInput } from '@shared/schemas/lift-input';
+import { crawlerLift, findItem, G, outriggerLift, q, run } from './support';
 
 function windy(slew: number) {
   const l = outriggerLift();
@@ -46,7 +46,7 @@ describe('wind direction', () => {
     // track carries V (b + M sin θ / V) ÷ 2b, b = 2.2 m, and (e > L/6) p = 2 V_t ÷ (3 w (L/2 − e)).
     // Over the circle the largest is 219.26 kPa near θ = 39°; the wind along the boom gives
     // 218.61 kPa and towards the corner of the track rectangle 219.16 kPa.
-    const l = structuredClone(CRAWLER);
+    const l = crawlerLift();
     l.load = { weight: q(20, 't'), windArea: q(10, 'm2'), dragCoefficient: 1.2 };
     l.environment = { windSpeed: q(10, 'm/s'), boomWindArea: q(8, 'm2'), boomDragCoefficient: 1.2 };
     const V = 120e3 * G;
@@ -65,20 +65,3 @@ describe('wind direction', () => {
     expect(it.value!).toBeGreaterThan(p(0) + 600);
   });
 });
-
-const CRAWLER: LiftInputRaw = {
-  crane: {
-    type: 'mobile_crawler',
-    boomLength: q(24, 'm'),
-    radius: q(12, 'm'),
-    slewAngle: q(0, 'deg'),
-    upperWorks: { weight: q(30, 't'), cgBehindRotation: q(0.5, 'm') },
-    counterweight: { weight: q(25, 't'), cgBehindRotation: q(4.5, 'm') },
-    carrier: { weight: q(40, 't'), cgRearOfRotation: q(0, 'm') },
-    boom: { weight: q(5, 't'), cgFromFoot: q(12, 'm') },
-    tracks: { length: q(6, 'm'), shoeWidth: q(1, 'm'), gauge: q(4.4, 'm') },
-  },
-  chart: { rows: [{ radius: q(12, 'm'), boomLength: q(24, 'm'), capacity: q(32, 't') }] },
-  load: { weight: q(20, 't') },
-  ground: { allowableBearing: q(250, 'kPa') },
-};
