@@ -6,7 +6,7 @@ import { useNavigate } from 'react-router-dom';
 import type { PackageDetail } from '@shared/schemas/packages';
 import { isApiError, type FieldError } from '@/lib/api-client';
 import { stepOfPath, type StepId } from '@shared/catalogue/lift-fields';
-import { readableField as labelOfPath } from '@shared/catalogue/readable-issue';
+import { readableField } from '@shared/catalogue/readable-issue';
 import { useSubmitPackage } from '../api/submit-package';
 import { liftPath, type useLiftForm } from './use-lift-form';
 
@@ -17,7 +17,7 @@ const PACKAGE_FIELDS = ['title', 'siteId', 'plannedLiftDate'];
 function mapFieldErrors(fields: FieldError[]): Problem[] {
   return fields.map((field) => ({
     step: stepOfPath(field.path),
-    label: labelOfPath(field.path),
+    label: readableField(field.path),
     message: field.message,
   }));
 }

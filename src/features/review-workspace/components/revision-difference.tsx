@@ -9,7 +9,7 @@ import { PageLoading } from '@/components/ui/page-loading';
 import { isApiError } from '@/lib/api-client';
 import { useCompare } from '../api/get-compare';
 import { FindingEntry } from '@/components/findings/finding-entry';
-import { readableField as labelOfPath } from '@shared/catalogue/readable-issue';
+import { readableField } from '@shared/catalogue/readable-issue';
 
 const STATUSES = ['pass', 'caution', 'fail', 'not_applicable'];
 
@@ -28,7 +28,7 @@ function inputText(value: unknown): string {
 /** The form's own label for an input path ("load.weight" → "Load weight"), else the path made readable. */
 function pathText(path: string): string {
   const dotted = path.replace(/\[(\d+)\]/g, '.$1');
-  const label = labelOfPath(dotted);
+  const label = readableField(dotted);
   if (label !== dotted) return label;
   return path
     .replace(/\[(\d+)\]/g, (_m, i: string) => ` ${Number(i) + 1}`)
