@@ -51,8 +51,16 @@ const INPUTS = {
 
 type Detail = { package: { id: string; reference: string; status: string } };
 
-/** A package of the demo contractor at the refinery, submitted and checked (ready for review). */
-export async function submittedPackage(contractor: APIRequestContext, title: string, pages = 3) {
+/**
+ * A package of the demo contractor at the refinery, submitted and checked (ready for review).
+ * The lift plan is made here with `pages` sheets unless a PDF file of the test's own is given.
+ */
+export async function submittedPackage(
+  contractor: APIRequestContext,
+  title: string,
+  pages = 3,
+  planFile?: string,
+) {
   const sites = await ok<{ items: { id: string; name: string }[] }>('sites', contractor.get('/api/sites'));
   const site = sites.items.find((s) => s.name.includes('Refinery')) ?? sites.items[0];
   const created = await ok<Detail>(
@@ -61,7 +69,7 @@ export async function submittedPackage(contractor: APIRequestContext, title: str
   );
   const id = created.package.id;
   await ok('draft', contractor.put(`/api/packages/${id}/draft`, { data: { inputs: INPUTS } }));
-  const pdf = await liftPlanPdf(`${id}.pdf`, pages, title);
+  const pdf = planFile ?? (await liftPlanPdf(`${id}.pdf`, pages, title));
   await ok(
     'upload',
     contractor.post(`/api/packages/${id}/files`, {

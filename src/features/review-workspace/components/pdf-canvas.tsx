@@ -1,7 +1,12 @@
 // One page of a PDF drawn onto a canvas at a viewport, sharp on high-density screens. The
-// render is cancelled when the page, zoom or component changes.
+// render is cancelled when the page, zoom or component changes. Only the page's content is
+// drawn, never the PDF's own annotations (comments, stamps, shapes, form fields): the stamped
+// return does not carry them, and the engineer reviews exactly what it will print.
 import { useEffect, useRef, useState } from 'react';
 import type { PdfPage, PdfViewport } from '../lib/pdf-loader';
+
+// pdf.js's AnnotationMode.DISABLE (this module does not import pdf.js: it loads on demand).
+const ANNOTATIONS_OFF = 0;
 
 export function PdfCanvas({
   page,
@@ -29,6 +34,7 @@ export function PdfCanvas({
       canvasContext: context,
       viewport,
       transform: ratio === 1 ? undefined : [ratio, 0, 0, ratio, 0, 0],
+      annotationMode: ANNOTATIONS_OFF,
     });
     task.promise.then(
       () => setFailed(false),

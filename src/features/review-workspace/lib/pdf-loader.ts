@@ -21,6 +21,8 @@ export interface PdfPage {
     canvasContext: CanvasRenderingContext2D;
     viewport: PdfViewport;
     transform?: number[];
+    /** pdf.js's AnnotationMode: 0 draws the page content alone. */
+    annotationMode?: number;
   }): PdfRenderTask;
 }
 
