@@ -226,6 +226,21 @@ describe('every main page: accessibility and screenshots', () => {
     });
   }
 
+  it("when the workspace's checks, findings and decision tabs are open, then each reads in words and axe finds nothing serious or critical", async () => {
+    const page = await pageFor('engineer');
+    await page.setViewportSize(DESKTOP);
+    await page.goto(`/packages/${ids.withEngineer}/review`);
+    await settle(page, page.getByRole('region', { name: 'Page view' }).locator('canvas').first());
+    for (const name of [/^Checks/, /^Findings/, /^Decision/]) {
+      await page.getByRole('tab', { name }).click();
+      const panel = page.getByRole('tabpanel', { name });
+      await panel.waitFor();
+      const violations = await seriousViolations(page);
+      expect(violations, `${String(name)}:\n${describeViolations(violations)}`).toEqual([]);
+      expect(internalWords(await panel.innerText()), String(name)).toEqual([]);
+    }
+  });
+
   it('when the demo desk has sent its e-mails, then each reads in words', async () => {
     const mail = await query<{ subject: string; text_body: string }>(
       `SELECT subject, text_body FROM caught_mail`,
