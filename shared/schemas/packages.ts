@@ -133,6 +133,8 @@ export const FileSummary = z.object({
   sha256: z.string(),
   sizeBytes: z.number().int(),
   pages: z.number().int(),
+  /** The revision this document was carried over from unchanged, or null when uploaded to this one. */
+  carriedFromRevision: z.number().int().nullable(),
   createdAt: z.string(),
 });
 export type FileSummary = z.infer<typeof FileSummary>;

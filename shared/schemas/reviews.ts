@@ -251,10 +251,23 @@ export type AssignResult = z.infer<typeof AssignResult>;
 
 const CompareSide = z.object({ status: z.string(), value: z.number().nullable() }).nullable();
 
+const CompareDocument = z.object({ fileId: z.uuid(), name: z.string(), pages: z.number().int() }).nullable();
+
+export const DOCUMENT_CHANGES = ['unchanged', 'replaced', 'added', 'removed'] as const;
+
 /** GET /api/packages/:id/compare: the inputs that changed between two revisions and every check in each. */
 export const RevisionCompare = z.object({
   from: z.number().int(),
   to: z.number().int(),
+  /** Each document of either revision: kept as it was, replaced by a new file, added or removed. */
+  documents: z.array(
+    z.object({
+      kind: z.enum(['lift_plan', 'supporting']),
+      change: z.enum(DOCUMENT_CHANGES),
+      from: CompareDocument,
+      to: CompareDocument,
+    }),
+  ),
   inputs: z.array(z.object({ path: z.string(), from: z.unknown(), to: z.unknown() })),
   checks: z.array(
     z.object({

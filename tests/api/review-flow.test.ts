@@ -340,7 +340,14 @@ describe('the stamped return, verification and resubmission', () => {
     });
     const next = await contractor.post(`/api/packages/${p.id}/revisions`);
     expect(next.status).toBe(201);
-    expect(next.body.current).toMatchObject({ number: 2, state: 'draft', files: [] });
+    // The new revision starts with revision 1's lift plan, kept until the contractor replaces it.
+    expect(next.body.current).toMatchObject({
+      number: 2,
+      state: 'draft',
+      files: [
+        expect.objectContaining({ kind: 'lift_plan', originalName: 'plan.pdf', carriedFromRevision: 1 }),
+      ],
+    });
     expect(next.body.current.inputs).toEqual(passing);
     const changed = { ...passing, load: { ...passing.load, weight: { value: 9.8, unit: 't' } } };
     await contractor.put(`/api/packages/${p.id}/draft`).send({ inputs: changed });
@@ -358,6 +365,14 @@ describe('the stamped return, verification and resubmission', () => {
       { path: 'load.weight', from: { value: 9.5, unit: 't' }, to: { value: 9.8, unit: 't' } },
     ]);
     expect(diff.body.checks.find((c: { id: string }) => c.id === 'gross-load').changed).toBe(true);
+    expect(diff.body.documents).toEqual([
+      expect.objectContaining({
+        kind: 'lift_plan',
+        change: 'replaced',
+        from: expect.objectContaining({ name: 'plan.pdf' }),
+        to: expect.objectContaining({ name: 'plan-rev2.pdf' }),
+      }),
+    ]);
     const findings = (await engineer.get(`/api/packages/${p.id}/findings`)).body.items;
     expect(findings).toEqual([
       expect.objectContaining({ id: findingId, state: 'answered', revisionNumber: 1 }),

@@ -12,6 +12,7 @@ export function makeFile(overrides: Partial<FileSummary> = {}): FileSummary {
     sha256: 'ab12cd34ef56ab12cd34ef56ab12cd34ef56ab12cd34ef56ab12cd34ef56ab12',
     sizeBytes: 482_113,
     pages: 6,
+    carriedFromRevision: null,
     createdAt: UPDATED_AT,
     ...overrides,
   };

@@ -166,6 +166,39 @@ describe('submission editor', () => {
     expect(screen.getByText('drawing.pdf')).toBeTruthy();
   });
 
+  it("when revision 2 starts with revision 1's documents, then each shows where it came from and can be replaced or removed", async () => {
+    const detail = makeDetail({
+      current: {
+        number: 2,
+        files: [
+          makeFile({ carriedFromRevision: 1 }),
+          makeFile({
+            id: '6a2e9b7c-8d0f-4c4e-9a7b-0c2d4e6f8a01',
+            kind: 'supporting',
+            originalName: 'ground-report.pdf',
+            carriedFromRevision: 1,
+          }),
+          makeFile({
+            id: '7b3f0c8d-9e1a-4d5f-8b8c-1d3e5f7a9b12',
+            kind: 'supporting',
+            originalName: 'lift-sequence.pdf',
+          }),
+        ],
+      },
+    });
+    openEditor(detail, 'documents');
+    expect(await screen.findByText(/starts with the previous revision’s documents/)).toBeTruthy();
+    const rows = screen.getAllByRole('listitem');
+    const row = (name: string) => rows.find((r) => within(r).queryByText(name))!;
+    expect(within(row('lift-plan-rev1.pdf')).getByText('Kept from revision 1')).toBeTruthy();
+    expect(within(row('ground-report.pdf')).getByText('Kept from revision 1')).toBeTruthy();
+    expect(within(row('ground-report.pdf')).getByLabelText('Replace ground-report.pdf')).toBeTruthy();
+    expect(
+      within(row('ground-report.pdf')).getByRole('button', { name: 'Remove ground-report.pdf' }),
+    ).toBeTruthy();
+    expect(within(row('lift-sequence.pdf')).queryByText(/Kept from revision/)).toBeNull();
+  });
+
   it('when submit is refused with field errors, then the steps holding those fields are marked', async () => {
     const detail = makeDetail({ inputs: passOutriggers, current: { files: [makeFile()] } });
     const fetchMock = openEditor(detail, 'review', (url, init) => {

@@ -37,7 +37,7 @@ beforeAll(async () => {
     data: { title: unique('E2E editor steps'), siteId: sites.items[0].id, plannedLiftDate: null },
   });
   draftId = ((await created.json()) as { package: { id: string } }).package.id;
-  const { title: _title, ...inputs } = {
+  const { title: _title, ...inputs }: Record<string, unknown> = {
     ...example('caution-two-cranes'),
     stated: example('caution-discrepancies').stated,
   };

@@ -26,6 +26,8 @@ export async function submitted(
   inputs: unknown = passing,
   title = 'Set the drive unit',
   date = '2027-03-14',
+  /** Names of one-page supporting PDFs uploaded beside the plan. */
+  supporting: string[] = [],
 ) {
   const created = await contractor
     .post('/api/packages')
@@ -37,6 +39,13 @@ export async function submitted(
     .field('kind', 'lift_plan')
     .attach('file', Buffer.from(await makePdf(2)), 'plan.pdf');
   expect(up.status).toBe(201);
+  for (const name of supporting) {
+    const added = await contractor
+      .post(`/api/packages/${id}/files`)
+      .field('kind', 'supporting')
+      .attach('file', Buffer.from(await makePdf(1, name)), name);
+    expect(added.status).toBe(201);
+  }
   const sub = await contractor.post(`/api/packages/${id}/submit`);
   expect(sub.status).toBe(202);
   await runCheckRun(t.ctx.dataSource, sub.body.current.id);

@@ -17,6 +17,8 @@ export type FileKind = 'lift_plan' | 'supporting';
 
 @Index('uploaded_files_revision_idx', ['revisionId'])
 @Index('uploaded_files_uploaded_by_idx', ['uploadedById'])
+@Index('uploaded_files_carried_from_idx', ['carriedFromId'])
+@Index('uploaded_files_storage_key_idx', ['storageKey'])
 // One lift plan per revision (migration OneLiftPlan1764720200000).
 @Index('uploaded_files_one_lift_plan_key', ['revisionId'], { unique: true, where: "kind = 'lift_plan'" })
 @Entity({ name: 'uploaded_files' })
@@ -36,5 +38,10 @@ export class UploadedFile {
   @ForeignKey(() => User, { name: 'uploaded_files_uploaded_by_id_fkey' })
   @Column({ type: 'uuid', name: 'uploaded_by_id' })
   uploadedById: string;
+  /** The previous revision's row this one was carried over from (migration CarriedDocuments1764724000000). */
+  @ForeignKey(() => UploadedFile, { name: 'uploaded_files_carried_from_id_fkey', onDelete: 'SET NULL' })
+  @Column({ type: 'uuid', name: 'carried_from_id', nullable: true })
+  carriedFromId: string | null;
+  @Column({ type: 'int', name: 'carried_from_revision', nullable: true }) carriedFromRevision: number | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
 }

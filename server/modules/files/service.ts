@@ -20,8 +20,42 @@ export function toFileSummary(f: UploadedFile): FileSummary {
     sha256: f.sha256,
     sizeBytes: Number(f.sizeBytes),
     pages: f.pages,
+    carriedFromRevision: f.carriedFromRevision ?? null,
     createdAt: f.createdAt.toISOString(),
   };
+}
+
+/**
+ * A new revision starts with the previous one's documents (the lift plan and the supporting
+ * PDFs): each gets a row of its own naming the row it came from, over the same stored object.
+ * The contractor then keeps, replaces or removes each one in the draft.
+ */
+export async function carryFiles(
+  m: EntityManager,
+  from: Pick<Revision, 'id' | 'number'>,
+  toRevisionId: string,
+) {
+  const repo = m.getRepository(UploadedFile);
+  const rows = await repo.find({ where: { revisionId: from.id }, order: { createdAt: 'ASC', id: 'ASC' } });
+  for (const { revision: _revision, ...row } of rows) {
+    await repo.insert({
+      ...row,
+      id: randomUUID(),
+      revisionId: toRevisionId,
+      carriedFromId: row.id,
+      carriedFromRevision: row.carriedFromRevision ?? from.number,
+    });
+  }
+  return rows.length;
+}
+
+/**
+ * A stored object is shared by a document's rows across revisions: it goes only when no row
+ * names it any more (a carried copy removed from a draft leaves the previous revision's file).
+ */
+async function deleteStoredIfUnused(ds: DataSource, storage: Storage, storageKey: string) {
+  const still = await ds.getRepository(UploadedFile).existsBy({ storageKey });
+  if (!still) await storage.delete(storageKey).catch(() => undefined);
 }
 
 function requireDraft(revision: Pick<Revision, 'number' | 'state'>) {
@@ -137,7 +171,7 @@ export async function addFile(
         return { file, replaced };
       }),
     );
-    if (saved.replaced) await storage.delete(saved.replaced.storageKey).catch(() => undefined);
+    if (saved.replaced) await deleteStoredIfUnused(ds, storage, saved.replaced.storageKey);
     return toFileSummary(saved.file);
   } catch (error) {
     await storage.delete(storageKey).catch(() => undefined);
@@ -166,7 +200,7 @@ export async function removeFile(
     });
     return found;
   });
-  await storage.delete(file.storageKey).catch(() => undefined);
+  await deleteStoredIfUnused(ds, storage, file.storageKey);
 }
 
 /** The uploaded file of a package the person may see (its bytes are streamed by the route). */

@@ -4,6 +4,8 @@ import type { Actor } from '@shared/rules/actor';
 import type { DataSource } from 'typeorm';
 import { readStoredResult } from '@shared/engineering/stored-result';
 import { AppError } from '../../lib/app-error';
+import type { RevisionCompare } from '@shared/schemas/reviews';
+import { UploadedFile } from '../files/file.entity';
 import { Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 
@@ -68,5 +70,55 @@ export async function compareRevisions(
       changed: x?.status !== y?.status || x?.value !== y?.value,
     };
   });
-  return { from, to, inputs, checks };
+  const [filesA, filesB] = await Promise.all(
+    [a, b].map((r) =>
+      ds
+        .getRepository(UploadedFile)
+        .find({ where: { revisionId: r.id }, order: { createdAt: 'ASC', id: 'ASC' } }),
+    ),
+  );
+  return { from, to, documents: documentChanges(filesA, filesB), inputs, checks };
+}
+
+type DocRow = Pick<UploadedFile, 'id' | 'kind' | 'originalName' | 'pages' | 'sha256'>;
+
+/**
+ * Document by document: the same bytes in both revisions are unchanged (renamed or not); the lift plan, or a
+ * supporting PDF of the same name, with other bytes is replaced; the rest added or removed.
+ */
+export function documentChanges(before: DocRow[], after: DocRow[]): RevisionCompare['documents'] {
+  const side = (f: DocRow) => ({ fileId: f.id, name: f.originalName, pages: f.pages });
+  const left = [...before];
+  const take = (match: (f: DocRow) => boolean) => {
+    const i = left.findIndex(match);
+    return i < 0 ? null : left.splice(i, 1)[0];
+  };
+  const out: RevisionCompare['documents'] = [];
+  const pending: DocRow[] = [];
+  // The same bytes under the same name first, then the same bytes renamed.
+  const unmatched = after.filter((f) => {
+    const same = take((g) => g.sha256 === f.sha256 && g.kind === f.kind && g.originalName === f.originalName);
+    if (same) out.push({ kind: f.kind, change: 'unchanged', from: side(same), to: side(f) });
+    return !same;
+  });
+  for (const f of unmatched) {
+    const same = take((g) => g.sha256 === f.sha256 && g.kind === f.kind);
+    if (same) out.push({ kind: f.kind, change: 'unchanged', from: side(same), to: side(f) });
+    else pending.push(f);
+  }
+  for (const f of pending) {
+    const was = take((g) =>
+      f.kind === 'lift_plan'
+        ? g.kind === 'lift_plan'
+        : g.kind === 'supporting' && g.originalName === f.originalName,
+    );
+    out.push(
+      was
+        ? { kind: f.kind, change: 'replaced', from: side(was), to: side(f) }
+        : { kind: f.kind, change: 'added', from: null, to: side(f) },
+    );
+  }
+  for (const g of left) out.push({ kind: g.kind, change: 'removed', from: side(g), to: null });
+  const order = { lift_plan: 0, supporting: 1 };
+  return out.sort((x, y) => order[x.kind] - order[y.kind]);
 }

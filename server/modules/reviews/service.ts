@@ -20,6 +20,7 @@ import { requireState } from '../packages/state-guard';
 import { User } from '../users/user.entity';
 import { Assignment, DecisionRecord } from './review.entity';
 import { carryLibraryUses } from '../library/uses';
+import { carryFiles } from '../files/service';
 import { lockPackage, requireAssignedEngineer, underReview } from './review-scope';
 import { confirmPassword, madeOn, passGate } from './decision-gate';
 
@@ -242,6 +243,7 @@ export async function startNextRevision(ds: DataSource, user: Actor, packageId: 
       .getRepository(Revision)
       .save({ packageId: pkg.id, number, state: 'draft', inputs: previous.inputs });
     await carryLibraryUses(m, previous.id, next.id);
+    const documents = await carryFiles(m, previous, next.id);
     await m.getRepository(LiftPackage).update(pkg.id, {
       currentRevision: number,
       status: 'draft',
@@ -253,7 +255,7 @@ export async function startNextRevision(ds: DataSource, user: Actor, packageId: 
       action: 'revision.started',
       actor: user,
       packageId: pkg.id,
-      detail: { revision: number, from: previous.number },
+      detail: { revision: number, from: previous.number, documents },
     });
   });
 }

@@ -1,9 +1,10 @@
 // What changed between the previous revision and this one: the inputs side by side, every
-// check's status and value in each, and the findings carried over with their answers.
+// check's status and value in each, the documents kept, replaced, added or removed, and the
+// findings carried over with their answers.
 import { formatQuantity } from '@shared/engineering/format';
 import type { UnitKind, UnitSystem } from '@shared/engineering/types';
 import type { CheckStatus } from '@shared/schemas/packages';
-import type { Finding } from '@shared/schemas/reviews';
+import type { Finding, RevisionCompare } from '@shared/schemas/reviews';
 import { CheckStatusMark } from '@/components/ui/check-status-mark';
 import { PageLoading } from '@/components/ui/page-loading';
 import { isApiError } from '@/lib/api-client';
@@ -54,6 +55,72 @@ function Side({
   );
 }
 
+const CHANGE_WORDS: Record<RevisionCompare['documents'][number]['change'], string> = {
+  unchanged: 'Same file',
+  replaced: 'Replaced',
+  added: 'Added',
+  removed: 'Removed',
+};
+
+function DocumentChanges({
+  documents,
+  from,
+  to,
+  th,
+}: {
+  documents: RevisionCompare['documents'];
+  from: number;
+  to: number;
+  th: string;
+}) {
+  const changed = documents.filter((d) => d.change !== 'unchanged').length;
+  const side = (d: RevisionCompare['documents'][number]['from']) =>
+    d ? `${d.name} · ${d.pages} ${d.pages === 1 ? 'page' : 'pages'}` : '—';
+  return (
+    <section aria-labelledby="diff-documents">
+      <h3 id="diff-documents" className="border-b border-rule bg-sheet-alt px-3 py-1.5 text-[13px] font-bold">
+        Documents{' '}
+        <span className="font-normal text-ink-soft">
+          · {changed} changed, {documents.length - changed} the same
+        </span>
+      </h3>
+      <table className="w-full border-collapse text-[12.5px]">
+        <thead>
+          <tr className="border-b border-rule-strong">
+            <th scope="col" className={th}>
+              Document
+            </th>
+            <th scope="col" className={th}>
+              Revision {from}
+            </th>
+            <th scope="col" className={th}>
+              Revision {to}
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {documents.map((d, i) => (
+            <tr key={i} className="border-b border-rule align-top">
+              <th scope="row" className="px-2 py-1 text-left">
+                <span className="block font-bold">
+                  {d.kind === 'lift_plan' ? 'Lift plan' : 'Supporting PDF'}
+                </span>
+                <span className={d.change === 'unchanged' ? 'text-ink-soft' : 'font-bold text-engineer-ink'}>
+                  {CHANGE_WORDS[d.change]}
+                </span>
+              </th>
+              <td className="break-all px-2 py-1 text-ink-soft">{side(d.from)}</td>
+              <td className={`break-all px-2 py-1 ${d.change === 'unchanged' ? '' : 'font-bold'}`}>
+                {side(d.to)}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </section>
+  );
+}
+
 function ChangedMark() {
   return (
     <span className="inline-flex items-center gap-1 text-[12px] font-bold text-engineer-ink">
@@ -93,12 +160,13 @@ export function RevisionDifference({
         {isApiError(compare.error) ? compare.error.message : 'The revisions could not be compared.'}
       </p>
     );
-  const { inputs, checks } = compare.data;
+  const { inputs, checks, documents } = compare.data;
   const changedChecks = checks.filter((c) => c.changed);
   const sameChecks = checks.filter((c) => !c.changed);
   const th = 'px-2 py-1 text-left text-[11.5px] uppercase tracking-[0.05em] text-ink-soft';
   return (
     <div className="flex flex-col">
+      <DocumentChanges documents={documents} from={from} to={revision} th={th} />
       <section aria-labelledby="diff-inputs">
         <h3 id="diff-inputs" className="border-b border-rule bg-sheet-alt px-3 py-1.5 text-[13px] font-bold">
           Inputs changed <span className="font-normal text-ink-soft">· {inputs.length}</span>

@@ -52,13 +52,17 @@ export function FileRow({
   packageId,
   file,
   onRemove,
+  onReplace,
   removing,
 }: {
   packageId: string;
   file: FileSummary;
   onRemove?: () => void;
+  /** A supporting PDF: a new file takes its place (uploaded first, then this one removed). */
+  onReplace?: (list: ArrayLike<File> | null) => void;
   removing?: boolean;
 }) {
+  const carried = file.carriedFromRevision;
   return (
     <li className="flex flex-wrap items-center gap-x-4 gap-y-1 border-b border-rule px-3 py-2 last:border-b-0">
       <svg
@@ -88,6 +92,28 @@ export function FileRow({
         </abbr>{' '}
         · {formatDateTime(file.createdAt)}
       </span>
+      {carried !== null && (
+        <span className="inline-flex items-center rounded-[3px] border border-rule-strong bg-sheet-alt px-1.5 text-[12px] font-bold text-ink-soft">
+          Kept from revision {carried}
+        </span>
+      )}
+      {onReplace && (
+        <label className="cursor-pointer">
+          <input
+            type="file"
+            accept="application/pdf,.pdf"
+            className="peer sr-only"
+            aria-label={`Replace ${file.originalName}`}
+            onChange={(event) => {
+              onReplace(event.target.files);
+              event.target.value = '';
+            }}
+          />
+          <span className="inline-flex h-7 items-center rounded-[3px] px-2 text-[12.5px] font-bold text-verdigris underline underline-offset-2 peer-focus-visible:outline-3 peer-focus-visible:outline-rust">
+            Replace…
+          </span>
+        </label>
+      )}
       {onRemove && (
         <Button
           size="sm"
@@ -128,7 +154,7 @@ export function DocumentsStep({
     onFilesChanged(fresh);
   }
 
-  function start(kind: FileKind, list: FileList | null) {
+  function start(kind: FileKind, list: ArrayLike<File> | null, replaces?: FileSummary) {
     if (!list) return;
     for (const file of Array.from(list)) {
       const key = nextKey.current++;
@@ -143,6 +169,7 @@ export function DocumentsStep({
       )
         .then(async () => {
           setUploads((current) => current.filter((u) => u.key !== key));
+          if (replaces) await deleteFile(packageId, replaces.id).catch(() => undefined);
           await refresh().catch(() => undefined);
         })
         .catch((error: unknown) => {
@@ -200,8 +227,16 @@ export function DocumentsStep({
         </li>
       ));
 
+  const carried = files.filter((file) => file.carriedFromRevision !== null);
   return (
     <div className="flex flex-col gap-5">
+      {carried.length > 0 && (
+        <p className="border-l-4 border-verdigris bg-sheet-alt px-3 py-2 text-[13px]">
+          This revision starts with the previous revision’s documents, each marked “Kept from revision …” (the
+          revision it was uploaded to). Keep each as it is, replace it with a new file, or remove it: the
+          engineer sees which documents changed.
+        </p>
+      )}
       <section aria-labelledby="lift-plan-title" className="flex flex-col gap-2">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h3 id="lift-plan-title" className="text-[14px] font-bold">
@@ -276,6 +311,7 @@ export function DocumentsStep({
               packageId={packageId}
               file={file}
               onRemove={() => remove(file)}
+              onReplace={(list) => start('supporting', list?.length ? [list[0]] : null, file)}
               removing={removing === file.id}
             />
           ))}
