@@ -20,6 +20,7 @@ import { calculationRoutes } from './modules/calculations/routes';
 import { checkRunRoutes } from './modules/check-runs/routes';
 import { healthRoutes } from './modules/health/routes';
 import { libraryRoutes } from './modules/library/routes';
+import { liveRoutes } from './modules/live/routes';
 import { packageRoutes } from './modules/packages/routes';
 import { profileRoutes } from './modules/profile/routes';
 import { returnRoutes } from './modules/returns/routes';
@@ -78,6 +79,7 @@ export function createApp(ctx: AppContext, opts: { clientDir?: string } = {}) {
   app.use('/api', verifyRoutes(ctx));
   app.use('/api', profileRoutes(ctx));
   app.use('/api', libraryRoutes(ctx));
+  app.use('/api', liveRoutes(ctx));
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApiDocument());
   });

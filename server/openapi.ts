@@ -13,5 +13,6 @@ import './modules/verify/openapi';
 import './modules/admin/openapi';
 import './modules/profile/openapi';
 import './modules/library/openapi';
+import './modules/live/openapi';
 
 export { openApiDocument } from './lib/openapi';

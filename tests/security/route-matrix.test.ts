@@ -34,6 +34,9 @@ const ALLOWED: Record<string, Allowed> = {
   'GET /api/me/profile': ALL,
   'PATCH /api/me/profile': ALL,
   'POST /api/me/password': ALL,
+  'GET /api/hand-offs': ALL,
+  'POST /api/hand-offs/read': ALL,
+  'GET /api/live': ALL,
   'GET /api/sites': ALL,
   'GET /api/packages': ALL,
   'GET /api/packages/:id': ALL,
@@ -220,6 +223,12 @@ function call(agent: supertest.Agent | supertest.SuperTest<supertest.Test>, meth
   const req = (agent as unknown as Record<string, (u: string) => supertest.Test>)
     [method](url)
     .set('X-CSRF-Guard', '1');
+  // The live stream never ends by itself: its status is read and the stream closed.
+  if (url === '/api/live')
+    return req.buffer(true).parse((res, done) => {
+      done(null, null);
+      (res as unknown as { destroy(): void }).destroy();
+    });
   if (method === 'get' || method === 'delete') return req;
   // The multipart routes (package files, the library's chart file and manufacturer's document).
   if (/\/(files|document|chart-import\/file)$/.test(url)) return req.field('kind', 'lift_plan');

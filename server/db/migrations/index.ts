@@ -13,6 +13,7 @@ import { DeliberateDecision1764720100000 } from './1764720100000-deliberate-deci
 import { OneLiftPlan1764720200000 } from './1764720200000-one-lift-plan';
 import { DocumentUnits1764720300000 } from './1764720300000-document-units';
 import { CarriedDocuments1764724000000 } from './1764724000000-carried-documents';
+import { LiveUpdates1764724100000 } from './1764724100000-live-updates';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
@@ -29,4 +30,5 @@ export const MIGRATIONS = [
   OneLiftPlan1764720200000,
   DocumentUnits1764720300000,
   CarriedDocuments1764724000000,
+  LiveUpdates1764724100000,
 ];

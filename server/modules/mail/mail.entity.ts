@@ -18,6 +18,8 @@ export type MailEvent =
 
 @Index('mail_messages_package_idx', ['packageId'])
 @Index('mail_messages_recipient_idx', ['recipientId'])
+// The person's unread hand-offs (migration LiveUpdates1764724100000).
+@Index('mail_messages_recipient_unread_idx', ['recipientId', 'createdAt'], { where: 'read_at IS NULL' })
 @Entity({ name: 'mail_messages' })
 @Check('mail_messages_status_check', `status IN ('queued', 'sent', 'failed')`)
 @Index('mail_messages_status_idx', ['status', 'createdAt'])
@@ -43,6 +45,8 @@ export class MailMessage {
   @Column({ type: 'varchar', length: 1000, name: 'last_error', nullable: true }) lastError: string | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
   @Column({ type: 'timestamptz', name: 'sent_at', nullable: true }) sentAt: Date | null;
+  /** When the recipient marked it read in the desk's list of hand-offs. */
+  @Column({ type: 'timestamptz', name: 'read_at', nullable: true }) readAt: Date | null;
 }
 
 @Entity({ name: 'caught_mail' })
