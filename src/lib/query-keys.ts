@@ -79,6 +79,10 @@ export const profileKeys = {
   all: ['profile'] as const,
 };
 
+export const handOffKeys = {
+  all: ['hand-offs'] as const,
+};
+
 export const inviteKeys = {
   all: ['invites'] as const,
   token: (token: string) => [...inviteKeys.all, token] as const,

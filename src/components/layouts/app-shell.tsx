@@ -6,6 +6,8 @@ import { useCurrentUser, useSignOut } from '@/lib/auth';
 import { navItemsFor, ROLE_LABELS } from '@/lib/roles';
 import { Wordmark } from '@/components/ui/logo';
 import { CautionNote } from '@/components/ui/caution-note';
+import { HandOffsButton } from '@/features/hand-offs/components/hand-offs-button';
+import { useLiveUpdates } from '@/lib/live-updates';
 
 function Initials({ name }: { name: string }) {
   const letters = name
@@ -59,6 +61,8 @@ function SignedInAs({ user }: { user: CurrentUser }) {
 
 export function AppShell() {
   const { data: user } = useCurrentUser();
+  // Pages refresh in place when someone else changes what they show.
+  useLiveUpdates(Boolean(user));
   if (!user) return null;
   const items = navItemsFor(user.role);
 
@@ -98,6 +102,7 @@ export function AppShell() {
               </li>
             ))}
           </ul>
+          <HandOffsButton />
         </nav>
         <SignedInAs user={user} />
       </aside>
