@@ -13,6 +13,8 @@ export function makeFile(overrides: Partial<FileSummary> = {}): FileSummary {
     sizeBytes: 482_113,
     pages: 6,
     createdAt: UPDATED_AT,
+    contents: null,
+    notCarried: null,
     ...overrides,
   };
 }

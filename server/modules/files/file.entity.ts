@@ -10,6 +10,7 @@ import {
   ManyToOne,
   PrimaryGeneratedColumn,
 } from 'typeorm';
+import type { PdfContents } from '@shared/schemas/packages';
 import { User } from '../users/user.entity';
 import { Revision } from '../packages/package.entity';
 
@@ -37,4 +38,6 @@ export class UploadedFile {
   @Column({ type: 'uuid', name: 'uploaded_by_id' })
   uploadedById: string;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
+  /** What the PDF carries besides page content, found at upload (migration UploadContents1764722000000); null before. */
+  @Column({ type: 'jsonb', nullable: true }) contents: PdfContents | null;
 }
