@@ -209,6 +209,17 @@ describe('uploads stream with bounded memory', () => {
     expect(growth).toBeLessThan(64 * MB);
   }, 180_000);
 
+  it('when three ~150 MB scans are uploaded at once, then each is stored and the API grows by less than 3 × 64 MB', async () => {
+    const drafts = await Promise.all([newDraft(), newDraft(), newDraft()]);
+    const { result, growth } = await rssGrowth(() => Promise.all(drafts.map((d) => sendFile(d, big))));
+    process.stdout.write(
+      `three 150 MB uploads at once: API grew by ${(growth / MB).toFixed(1)} MB at its peak\n`,
+    );
+    expect(result.map((r) => r?.status)).toEqual([201, 201, 201]);
+    expect(workFiles()).toEqual([]);
+    expect(growth).toBeLessThan(3 * 64 * MB);
+  }, 300_000);
+
   it('when a compression bomb is uploaded, then 422 names the file, nothing is stored, health answers meanwhile and the API grows by less than 64 MB', async () => {
     const d = await newDraft();
     let answering = true;

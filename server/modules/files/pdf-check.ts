@@ -8,6 +8,7 @@
 // own (inspect-process.ts, with a time limit), so the API's memory and event loop stay free.
 import { fork } from 'node:child_process';
 import { open } from 'node:fs/promises';
+import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import path from 'node:path';
 import type { PdfContents } from '@shared/schemas/packages';
@@ -118,6 +119,23 @@ async function ends(file: string, size: number): Promise<{ head: Buffer; tail: B
 
 const INSPECT_ENTRY = fileURLToPath(new URL('./inspect-process.ts', import.meta.url));
 
+// Checks run one per core at most; more uploads finishing at once wait their turn (each
+// check's qpdf may use a few hundred MB on a large file, and the machine is shared).
+const CHECKS_AT_ONCE = Math.max(1, availableParallelism());
+let running = 0;
+const waiting: Array<() => void> = [];
+
+async function inTurn<T>(run: () => Promise<T>): Promise<T> {
+  if (running >= CHECKS_AT_ONCE) await new Promise<void>((go) => waiting.push(go));
+  running++;
+  try {
+    return await run();
+  } finally {
+    running--;
+    waiting.shift()?.();
+  }
+}
+
 /** Runs the check in its own process; null when it ran past `seconds` (it is killed). */
 function inspectInProcess(file: string, options: object, seconds: number): Promise<Inspection | null> {
   return new Promise((resolve, reject) => {
@@ -176,10 +194,12 @@ export async function inspectPdf(
     );
   }
   const decodeBudget = Math.max(limits.decodeMaxBytes, 8 * upload.size);
-  const result = await inspectInProcess(
-    upload.workFile,
-    { maxPages: limits.maxPages, decodeBudget, workDir: limits.workDir },
-    limits.checkSeconds,
+  const result = await inTurn(() =>
+    inspectInProcess(
+      upload.workFile,
+      { maxPages: limits.maxPages, decodeBudget, workDir: limits.workDir },
+      limits.checkSeconds,
+    ),
   );
   if (!result) {
     throw new AppError(
