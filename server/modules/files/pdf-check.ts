@@ -7,7 +7,7 @@
 // its working copy on disk: the header and trailer here (2 kB), the rest in a process of its
 // own (inspect-process.ts, with a time limit), so the API's memory and event loop stay free.
 import { fork } from 'node:child_process';
-import { open } from 'node:fs/promises';
+import { mkdir, mkdtemp, open, rm } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import path from 'node:path';
@@ -15,6 +15,7 @@ import type { PdfContents } from '@shared/schemas/packages';
 import type { Config } from '../../config';
 import { unsafeTextReason } from '@shared/schemas/safe-text';
 import { AppError } from '../../lib/app-error';
+import { logger } from '../../lib/logger';
 import type { Inspection } from './pdf-inspect';
 
 const HEADER = Buffer.from('%PDF-');
@@ -136,20 +137,36 @@ async function inTurn<T>(run: () => Promise<T>): Promise<T> {
   }
 }
 
-/** Runs the check in its own process; null when it ran past `seconds` (it is killed). */
-function inspectInProcess(file: string, options: object, seconds: number): Promise<Inspection | null> {
+type Outcome =
+  Inspection | { ok: false; refusal: 'timeout' } | { ok: false; refusal: 'stopped'; reason: string };
+
+/**
+ * Runs the check in its own process group (the node process and the qpdf it runs), killed
+ * whole when it runs past `seconds`. A process that dies without answering (out of memory on
+ * the file) is `stopped`; an error inside the check is a fault of ours and rejects.
+ */
+function inspectInProcess(file: string, options: object, seconds: number): Promise<Outcome> {
   return new Promise((resolve, reject) => {
     // spawns: node (the check's entry, through tsx's loader like the API itself)
     const child = fork(INSPECT_ENTRY, [file, JSON.stringify(options)], {
       execArgv: ['--import', 'tsx', '--max-old-space-size=512'],
       stdio: ['ignore', 'ignore', 'pipe', 'ipc'],
+      detached: true,
     });
     let answer: (Inspection | { ok: false; refusal: 'failed'; message: string }) | null = null;
+    let timedOut = false;
     let stderr = '';
     child.stderr?.on('data', (chunk: Buffer) => {
       if (stderr.length < 4000) stderr += chunk.toString('utf8');
     });
-    const timer = setTimeout(() => child.kill('SIGKILL'), seconds * 1000);
+    const timer = setTimeout(() => {
+      timedOut = true;
+      try {
+        process.kill(-child.pid!, 'SIGKILL');
+      } catch {
+        child.kill('SIGKILL');
+      }
+    }, seconds * 1000);
     child.on('message', (m) => {
       answer = m as typeof answer;
     });
@@ -161,8 +178,9 @@ function inspectInProcess(file: string, options: object, seconds: number): Promi
       clearTimeout(timer);
       const a = answer as typeof answer;
       if (a && (a.ok || a.refusal !== 'failed')) return resolve(a as Inspection);
-      if (signal === 'SIGKILL' && !a) return resolve(null);
-      reject(new Error(`the PDF check stopped (${signal ?? code}): ${a?.message ?? stderr.slice(0, 500)}`));
+      if (a) return reject(new Error(`the PDF check failed: ${a.message}`));
+      if (timedOut) return resolve({ ok: false, refusal: 'timeout' });
+      resolve({ ok: false, refusal: 'stopped', reason: `${signal ?? code}: ${stderr.slice(-500)}` });
     });
   });
 }
@@ -194,14 +212,21 @@ export async function inspectPdf(
     );
   }
   const decodeBudget = Math.max(limits.decodeMaxBytes, 8 * upload.size);
-  const result = await inTurn(() =>
-    inspectInProcess(
-      upload.workFile,
-      { maxPages: limits.maxPages, decodeBudget, workDir: limits.workDir },
-      limits.checkSeconds,
-    ),
-  );
-  if (!result) {
+  const result = await inTurn(async () => {
+    // Made and removed here: a check killed at its time limit cannot remove it itself.
+    await mkdir(limits.workDir, { recursive: true });
+    const scratch = await mkdtemp(path.join(limits.workDir, 'inspect-'));
+    try {
+      return await inspectInProcess(
+        upload.workFile,
+        { maxPages: limits.maxPages, decodeBudget, scratch },
+        limits.checkSeconds,
+      );
+    } finally {
+      await rm(scratch, { recursive: true, force: true });
+    }
+  });
+  if (!result.ok && result.refusal === 'timeout') {
     throw new AppError(
       422,
       'pdf_check_timeout',
@@ -211,6 +236,14 @@ export async function inspectPdf(
   }
   if (result.ok) return { pages: result.pages, contents: result.contents };
   switch (result.refusal) {
+    case 'stopped':
+      logger.warn({ name, reason: result.reason }, 'the PDF check stopped without an answer');
+      throw new AppError(
+        422,
+        'pdf_check_failed',
+        `The file “${name}” could not be checked: reading it took more memory than the desk allows for one file. Save or print it as a new PDF and upload that copy.`,
+        field(`file “${name}” could not be checked`),
+      );
     case 'encrypted':
       throw new AppError(
         400,

@@ -7,7 +7,7 @@
 // file's annotations, scripts, actions, attachments and form fields are counted.
 import { execFile, spawn } from 'node:child_process';
 import { createReadStream } from 'node:fs';
-import { mkdtemp, rm } from 'node:fs/promises';
+import { rm } from 'node:fs/promises';
 import path from 'node:path';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
@@ -34,8 +34,8 @@ export interface InspectOptions {
   maxPages: number;
   /** Bytes all the file's streams may unpack to, together. */
   decodeBudget: number;
-  /** Where the scratch folder goes (beside the upload's working copy). */
-  workDir: string;
+  /** An empty folder for the stream bytes qpdf writes out; the caller removes it. */
+  scratch: string;
 }
 
 const FLATE = new Set(['/FlateDecode', '/Fl']);
@@ -167,7 +167,7 @@ async function withinDecodeBudget(file: string, json: DocumentJson, s: QpdfStruc
 }
 
 export async function inspectFile(file: string, opts: InspectOptions): Promise<Inspection> {
-  const scratch = await mkdtemp(path.join(opts.workDir, 'inspect-'));
+  const scratch = opts.scratch;
   try {
     const read = await readJson(file, scratch);
     if (!read.json) {
