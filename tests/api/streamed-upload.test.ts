@@ -35,6 +35,9 @@ beforeAll(async () => {
   await writeNoisePdf(big, 150 * 1000 * 1000);
   // About 1 MB on disk, 1 GiB unpacked.
   await writeBombPdf(bomb, 1024 * MB);
+  // What an API process that ended mid-upload would leave behind.
+  fs.mkdirSync(path.join(dir, 'data', 'work', 'uploads'), { recursive: true });
+  fs.writeFileSync(path.join(dir, 'data', 'work', 'uploads', 'left-by-a-crash.upload'), 'partial');
   const logFile = path.join(dir, 'api.log');
   port = await freePort();
   base = `http://127.0.0.1:${port}`;
@@ -92,6 +95,26 @@ async function rssGrowth<T>(fn: () => Promise<T>): Promise<{ result: T; growth: 
     return { result, growth: peak - before, before };
   } finally {
     clearInterval(timer);
+  }
+}
+
+/** Runs `fn` while /api/health is asked every 100 ms; each answer's time (Infinity when not 200). */
+async function probingHealth<T>(fn: () => Promise<T>): Promise<{ result: T; health: number[] }> {
+  let answering = true;
+  const health: number[] = [];
+  const probe = (async () => {
+    while (answering) {
+      const started = Date.now();
+      const res = await fetch(`${base}/api/health`);
+      health.push(res.status === 200 ? Date.now() - started : Infinity);
+      await new Promise((r) => setTimeout(r, 100));
+    }
+  })();
+  try {
+    return { result: await fn(), health };
+  } finally {
+    answering = false;
+    await probe;
   }
 }
 
@@ -185,16 +208,24 @@ const workFiles = () => {
 };
 
 describe('uploads stream with bounded memory', () => {
-  it('when a ~150 MB scan is uploaded, then it is stored whole with its sha-256 and the API grows by less than 64 MB', async () => {
+  it('when the API starts, then working copies left by an earlier process are removed', () => {
+    expect(workFiles()).toEqual([]);
+  });
+
+  it('when a ~150 MB scan is uploaded, then it is stored whole with its sha-256, health answers meanwhile and the API grows by less than 64 MB', async () => {
     // One small upload first, so the growth measured is the upload's, not the first use of the code.
     const warm = path.join(dir, 'warm-up.pdf');
     fs.writeFileSync(warm, await makePdf(1));
     expect((await sendFile(await newDraft(), warm))?.status).toBe(201);
     const d = await newDraft();
-    const { result, growth, before } = await rssGrowth(() => sendFile(d, big));
+    const {
+      result: { result, growth, before },
+      health,
+    } = await probingHealth(() => rssGrowth(() => sendFile(d, big)));
     process.stdout.write(
-      `150 MB upload: API resident memory ${Math.round(before / MB)} MB before, grew by ${(growth / MB).toFixed(1)} MB at its peak\n`,
+      `150 MB upload: API resident memory ${Math.round(before / MB)} MB before, grew by ${(growth / MB).toFixed(1)} MB at its peak; /api/health answered ${health.length} times meanwhile, slowest ${Math.max(...health)} ms\n`,
     );
+    expect(Math.max(...health)).toBeLessThan(1000);
     expect(result?.status).toBe(201);
     expect(result?.body).toMatchObject({
       originalName: 'scanned-lift-plan.pdf',
@@ -222,19 +253,10 @@ describe('uploads stream with bounded memory', () => {
 
   it('when a compression bomb is uploaded, then 422 names the file, nothing is stored, health answers meanwhile and the API grows by less than 64 MB', async () => {
     const d = await newDraft();
-    let answering = true;
-    const health: number[] = [];
-    const probe = (async () => {
-      while (answering) {
-        const started = Date.now();
-        const res = await fetch(`${base}/api/health`);
-        health.push(res.status === 200 ? Date.now() - started : Infinity);
-        await new Promise((r) => setTimeout(r, 100));
-      }
-    })();
-    const { result, growth } = await rssGrowth(() => sendFile(d, bomb));
-    answering = false;
-    await probe;
+    const {
+      result: { result, growth },
+      health,
+    } = await probingHealth(() => rssGrowth(() => sendFile(d, bomb)));
     process.stdout.write(
       `compression bomb (${(fs.statSync(bomb).size / MB).toFixed(1)} MB, 1 GiB unpacked): API grew by ${(growth / MB).toFixed(1)} MB; /api/health answered ${health.length} times meanwhile, slowest ${Math.max(...health)} ms\n`,
     );
