@@ -4,7 +4,7 @@
 import { randomBytes } from 'node:crypto';
 import { createWriteStream } from 'node:fs';
 import { once } from 'node:events';
-import { createDeflate } from 'node:zlib';
+import { createDeflate, deflateSync } from 'node:zlib';
 import { PDFDocument, PDFName, PDFString } from 'pdf-lib';
 
 /** Writes a PDF object by object, keeping the offsets for the cross-reference table. */
@@ -88,9 +88,21 @@ async function deflatedZeros(total: number): Promise<Buffer[]> {
   return out;
 }
 
-/** One page whose Flate content stream unpacks to `inflated` bytes (1 GiB is about 1 MB of file). */
-export async function writeBombPdf(file: string, inflated: number) {
-  const data = await deflatedZeros(inflated);
+/**
+ * One page whose Flate content stream unpacks to `inflated` bytes (1 GiB is about 1 MB of
+ * file). `wrap` packs it once more: 'flate' (Flate twice: a few kB of file) or 'hex'
+ * (ASCIIHex over the Flate, a filter the check unpacks through qpdf rather than zlib).
+ */
+export async function writeBombPdf(file: string, inflated: number, wrap?: 'flate' | 'hex') {
+  let data = await deflatedZeros(inflated);
+  let filter = '/Filter /FlateDecode';
+  if (wrap === 'flate') {
+    data = [deflateSync(Buffer.concat(data))];
+    filter = '/Filter [/FlateDecode /FlateDecode]';
+  } else if (wrap === 'hex') {
+    data = [Buffer.from(`${Buffer.concat(data).toString('hex')}>`)];
+    filter = '/Filter [/ASCIIHexDecode /FlateDecode]';
+  }
   const length = data.reduce((n, c) => n + c.length, 0);
   const w = new PdfWriter(file);
   await w.write('%PDF-1.7\n%\xe2\xe3\xcf\xd3\n');
@@ -98,7 +110,7 @@ export async function writeBombPdf(file: string, inflated: number) {
   await w.object('<< /Type /Pages /Kids [3 0 R] /Count 1 >>');
   await w.object('<< /Type /Page /Parent 2 0 R /MediaBox [0 0 595 842] /Contents 4 0 R >>');
   await w.stream(
-    '/Filter /FlateDecode',
+    filter,
     length,
     (async function* () {
       yield* data;
