@@ -45,7 +45,7 @@ const DOWN_NAMES = new Set([
 ]);
 
 /** The object store is away (not: the request was wrong). */
-export class StorageUnavailable extends AppError {
+class StorageUnavailable extends AppError {
   constructor(readonly reason: string) {
     super(
       503,
@@ -57,7 +57,7 @@ export class StorageUnavailable extends AppError {
 }
 
 /** `error` as StorageUnavailable when it means the S3 server did not answer; else itself. */
-export function asStorageOutage(error: unknown): unknown {
+function asStorageOutage(error: unknown): unknown {
   if (error instanceof AppError) return error;
   const e = error as { code?: string; name?: string; message?: string; cause?: { code?: string } };
   const code = e?.code ?? e?.cause?.code ?? '';

@@ -127,7 +127,7 @@ export const UploadFileFields = z.object({
 });
 
 /** Annotations as a contractor would name them (server/modules/files/pdf-contents.ts maps the PDF subtypes). */
-export const ANNOTATION_KINDS = [
+const ANNOTATION_KINDS = [
   'comment',
   'stamp',
   'shape',

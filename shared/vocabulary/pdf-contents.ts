@@ -34,7 +34,7 @@ function joinWords(parts: string[]): string {
 }
 
 /** Each thing found, in words, or [] when the PDF carries page content only. */
-export function notCarriedItems(c: PdfContents): string[] {
+function notCarriedItems(c: PdfContents): string[] {
   const items: string[] = [];
   const kinds = [...new Set(c.annotations.map((a) => a.kind))];
   for (const kind of kinds) {
