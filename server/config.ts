@@ -66,6 +66,17 @@ const Env = z
       .min(1024)
       .default(100 * 1024 * 1024),
     UPLOAD_MAX_PAGES: z.coerce.number().int().min(1).default(500),
+    /**
+     * What an upload's compressed streams may unpack to, together, when it is checked (or 8 ×
+     * the file's size, if larger): a compression bomb is refused at this point. 256 MiB.
+     */
+    UPLOAD_DECODE_MAX_BYTES: z.coerce
+      .number()
+      .int()
+      .min(1024 * 1024)
+      .default(256 * 1024 * 1024),
+    /** How long the check of one upload may take (seconds) before it is refused. */
+    UPLOAD_CHECK_SECONDS: z.coerce.number().min(1).max(3600).default(120),
     /** Largest chart file (CSV or .xlsx) the fleet library's importer reads */
     CHART_IMPORT_MAX_BYTES: z.coerce
       .number()

@@ -1,9 +1,11 @@
 // The API process: connect, listen, and close on SIGTERM/SIGINT (stop taking requests,
 // let those under way finish within a time limit, then close the connections).
+import { rm } from 'node:fs/promises';
 import { loadConfig } from './config';
 import { createApp } from './app';
 import { connect, handleProcessEvents, StartupError } from './bootstrap';
 import { logger } from './lib/logger';
+import { uploadWorkDir } from './modules/files/pdf-check';
 
 const CLOSE_LIMIT_MS = 8_000;
 
@@ -19,6 +21,9 @@ async function main() {
     process.exit(2);
   }
   const ctx = await connect(config);
+  // Working copies of uploads cut short by the last API process's end (one API per data
+  // folder: the start command's lock): nothing refers to them.
+  await rm(uploadWorkDir(config), { recursive: true, force: true });
   const app = createApp(ctx);
   const server = app.listen(config.PORT, config.HOST, () => {
     logger.info({ url: `http://${config.HOST}:${config.PORT}` }, 'API listening');

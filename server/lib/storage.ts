@@ -29,6 +29,17 @@ export interface Storage {
   putFile(key: string, file: string): Promise<void>;
   /** Write the stored bytes to the local file `dest`, streamed. */
   getFile(key: string, dest: string): Promise<void>;
+  /**
+   * Store what `body` yields as it arrives (an upload still being received): a multipart
+   * upload of small parts, so memory holds a few parts whatever the file's size. `done`
+   * settles when the object is stored; `abort` stops it and leaves no object behind.
+   */
+  putStream(key: string, body: Readable): StreamedPut;
+}
+
+export interface StreamedPut {
+  done: Promise<void>;
+  abort(): Promise<void>;
 }
 
 /**

@@ -61,8 +61,16 @@ export function outageOf(err: unknown): AppError | null {
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   let error: AppError;
   const outage = outageOf(err);
-  if (err instanceof AppError) error = err;
-  else if (outage) {
+  if (err instanceof AppError) {
+    error = err;
+    if (err.status === 503) {
+      (req.log ?? logger).warn(
+        { err: { message: (err as { reason?: string }).reason ?? err.message } },
+        err.code,
+      );
+      res.setHeader('Retry-After', '10');
+    }
+  } else if (outage) {
     (req.log ?? logger).warn({ err: { message: err?.message, code: err?.code } }, outage.code);
     error = outage;
     res.setHeader('Retry-After', '10');

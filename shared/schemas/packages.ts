@@ -126,6 +126,38 @@ export const UploadFileFields = z.object({
   kind: z.enum(FILE_KINDS, { message: "kind must be 'lift_plan' or 'supporting'" }).default('supporting'),
 });
 
+/** Annotations as a contractor would name them (server/modules/files/pdf-contents.ts maps the PDF subtypes). */
+const ANNOTATION_KINDS = [
+  'comment',
+  'stamp',
+  'shape',
+  'attachment',
+  'widget',
+  'link',
+  'media',
+  'other',
+] as const;
+export const AnnotationKind = z.enum(ANNOTATION_KINDS);
+export type AnnotationKind = z.infer<typeof AnnotationKind>;
+
+/**
+ * What an uploaded PDF carries besides its pages' content, found when it was checked. None
+ * of it is carried into the stamped return.
+ */
+export const PdfContents = z.object({
+  annotations: z.array(
+    z.object({ kind: AnnotationKind, page: z.number().int().min(1), count: z.number().int().min(1) }),
+  ),
+  /** JavaScript actions and scripts anywhere in the file. */
+  javascript: z.number().int().min(0),
+  /** Other actions run when the file opens or a page is shown (/OpenAction, /AA). */
+  actions: z.number().int().min(0),
+  embeddedFiles: z.number().int().min(0),
+  formFields: z.number().int().min(0),
+  xfa: z.boolean(),
+});
+export type PdfContents = z.infer<typeof PdfContents>;
+
 export const FileSummary = z.object({
   id: z.uuid(),
   kind: FileKind,
@@ -136,6 +168,10 @@ export const FileSummary = z.object({
   /** The revision this document was carried over from unchanged, or null when uploaded to this one. */
   carriedFromRevision: z.number().int().nullable(),
   createdAt: z.string(),
+  /** Null for a file stored before uploads were inspected for it. */
+  contents: PdfContents.nullable(),
+  /** The same in words (shared/vocabulary/pdf-contents.ts); null when nothing was found or not known. */
+  notCarried: z.string().nullable(),
 });
 export type FileSummary = z.infer<typeof FileSummary>;
 

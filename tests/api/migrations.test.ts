@@ -47,48 +47,63 @@ describe('migrations', () => {
         ]),
       );
       const count = async (sql: string) => Number((await ds.query(sql))[0].n);
-      // The last migration announces changes live and keeps what a person has read of their hand-offs; the one before it lets documents carry over into a new revision; the one before that gives packages, sites and returns their unit system; the one before it holds one lift plan per revision; the one before that keeps what a decision overrode, why, and what it was made on; the one
-      // before it indexes the foreign keys that had none; the one before that adds the fleet library.
-      const lastMigration = async () => [
-        await count(
+      // The newest migrations, newest first, each with what it adds (counted); undoing them one by
+      // one takes each count to 0 in turn. A new migration adds its row at the top.
+      const LATEST: Array<[string, string, number]> = [
+        [
+          'LiveUpdates',
           `SELECT count(*) AS n FROM pg_trigger WHERE tgname IN ('lift_packages_live', 'audit_events_live', 'mail_messages_live')`,
-        ),
-        await count(
+          3,
+        ],
+        [
+          'CarriedDocuments',
           `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'uploaded_files' AND column_name IN ('carried_from_id', 'carried_from_revision')`,
-        ),
-        await count(
+          2,
+        ],
+        [
+          'UploadContents',
+          `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'uploaded_files' AND column_name = 'contents' AND data_type = 'jsonb'`,
+          1,
+        ],
+        [
+          'DocumentUnits',
           `SELECT count(*) AS n FROM information_schema.columns WHERE column_name = 'unit_system' AND table_name IN ('lift_packages', 'sites', 'stamped_returns')`,
-        ),
-        await count(
+          3,
+        ],
+        [
+          'OneLiftPlan',
           `SELECT count(*) AS n FROM pg_indexes WHERE indexname = 'uploaded_files_one_lift_plan_key' AND indexdef LIKE 'CREATE UNIQUE INDEX%WHERE%lift_plan%'`,
-        ),
-        await count(
+          1,
+        ],
+        [
+          'DeliberateDecision',
           `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'decisions' AND column_name IN ('override_reason', 'overridden', 'inputs_sha256', 'results_sha256', 'engine_version', 'confirmed_at')`,
-        ),
-        await count(
+          6,
+        ],
+        [
+          'ForeignKeyIndexes',
           `SELECT count(*) AS n FROM pg_indexes WHERE schemaname = 'public' AND indexname IN ('uploaded_files_revision_idx', 'uploaded_files_uploaded_by_idx', 'markups_file_idx', 'users_organisation_idx')`,
-        ),
-        await count(
+          4,
+        ],
+        [
+          'FleetLibrary',
           `SELECT count(*) AS n FROM information_schema.tables WHERE table_name IN ('library_cranes', 'library_configurations', 'library_versions', 'library_chart_cells', 'library_verifications', 'library_uses')`,
-        ),
+          6,
+        ],
       ];
-      expect(await lastMigration()).toEqual([3, 2, 3, 1, 6, 4, 6]);
-      await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 2, 3, 1, 6, 4, 6]);
-      await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 3, 1, 6, 4, 6]);
-      await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 0, 1, 6, 4, 6]);
-      await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 0, 0, 6, 4, 6]);
-      await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 0, 0, 0, 4, 6]);
-      await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 0, 0, 0, 0, 6]);
-      await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 0, 0, 0, 0, 0]);
+      // The table follows the migrations' own order.
+      expect(MIGRATIONS.slice(-LATEST.length).map((m) => m.name.replace(/\d+$/, ''))).toEqual(
+        LATEST.map(([name]) => name).reverse(),
+      );
+      const counts = async () => Promise.all(LATEST.map(([, sql]) => count(sql)));
+      for (let undone = 0; undone <= LATEST.length; undone++) {
+        expect(await counts(), `after undoing ${undone}`).toEqual(
+          LATEST.map(([, , n], i) => (i < undone ? 0 : n)),
+        );
+        if (undone < LATEST.length) await ds.undoLastMigration();
+      }
       expect(await tables(ds)).toContain('lift_packages');
-      for (let i = 5; i < MIGRATIONS.length; i++) await ds.undoLastMigration();
+      for (let i = LATEST.length; i < MIGRATIONS.length; i++) await ds.undoLastMigration();
       expect((await tables(ds)).filter((t) => t !== 'migrations')).toEqual([]);
     } finally {
       await ds.destroy();

@@ -9,7 +9,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { connect, StartupError } from '@server/bootstrap';
 import { loadConfig, s3Settings } from '@server/config';
 import { freePort } from '../../scripts/lib/services';
-import { createS3Storage, type S3Storage } from '@server/lib/s3-storage';
+import { PassThrough } from 'node:stream';
+import { createS3Client, createS3Storage, S3Storage } from '@server/lib/s3-storage';
+import { until } from '../support/until';
 import { sha256, sha256OfFile } from '@server/lib/storage';
 
 let storage: S3Storage;
@@ -73,6 +75,44 @@ describe('S3 storage on the local fake S3 server', () => {
     const dest = path.join(work, 'fetched.bin');
     await storage.getFile(k, dest);
     expect(await sha256OfFile(dest)).toBe(sha256(bytes));
+  });
+
+  it('when a body is streamed in as it arrives, then the object holds every byte, in parts', async () => {
+    const k = key('streamed.bin');
+    const body = new PassThrough();
+    const put = storage.putStream(k, body);
+    const chunks = Array.from({ length: 11 }, () => randomBytes(1024 * 1024));
+    for (const c of chunks) if (!body.write(c)) await new Promise((r) => body.once('drain', r));
+    body.end();
+    await put.done;
+    const dest = path.join(work, 'streamed.bin');
+    await storage.getFile(k, dest);
+    expect(await sha256OfFile(dest)).toBe(sha256(Buffer.concat(chunks)));
+  });
+
+  it('when a streamed put is aborted after its first parts, then the multipart upload is aborted and no object is left', async () => {
+    const client = createS3Client(s3Settings());
+    const commands: string[] = [];
+    client.middlewareStack.add(
+      (next, context) => async (args) => {
+        commands.push(context.commandName ?? '');
+        return next(args);
+      },
+      { step: 'initialize', name: 'recordCommands' },
+    );
+    const recorded = new S3Storage(client, s3Settings().S3_BUCKET);
+    const k = key('cut-off.bin');
+    const body = new PassThrough();
+    const put = recorded.putStream(k, body);
+    put.done.catch(() => undefined);
+    body.write(randomBytes(12 * 1024 * 1024));
+    await until(async () => commands.includes('UploadPartCommand'), 10_000, 'a part sent');
+    body.destroy();
+    await put.abort();
+    await until(async () => commands.includes('AbortMultipartUploadCommand'), 10_000, 'the upload aborted');
+    expect(commands).not.toContain('CompleteMultipartUploadCommand');
+    expect(await recorded.open(k)).toBeNull();
+    client.destroy();
   });
 
   it('when a key is not of the form the code makes, then it is refused before any request', async () => {

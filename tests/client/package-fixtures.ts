@@ -14,6 +14,8 @@ export function makeFile(overrides: Partial<FileSummary> = {}): FileSummary {
     pages: 6,
     carriedFromRevision: null,
     createdAt: UPDATED_AT,
+    contents: null,
+    notCarried: null,
     ...overrides,
   };
 }

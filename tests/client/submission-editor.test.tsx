@@ -199,6 +199,64 @@ describe('submission editor', () => {
     expect(within(row('lift-sequence.pdf')).queryByText(/Kept from revision/)).toBeNull();
   });
 
+  it('when an uploaded PDF carries comments, a script and a form field, then the upload step says they are left out of the stamped return', async () => {
+    const words =
+      'Found in this PDF and left out of the stamped return: 3 comments on page 1, JavaScript and 1 form field on page 1. The return carries each page’s printed content only: flatten anything meant to stay into the page (print it to a new PDF) and upload that copy.';
+    const stored = makeFile({
+      originalName: 'plan-with-comments.pdf',
+      contents: {
+        annotations: [
+          { kind: 'comment', page: 1, count: 3 },
+          { kind: 'widget', page: 1, count: 1 },
+        ],
+        javascript: 1,
+        actions: 0,
+        embeddedFiles: 0,
+        formFields: 1,
+        xfa: false,
+      },
+      notCarried: words,
+    });
+    class AcceptingXhr {
+      status = 0;
+      responseText = '';
+      withCredentials = false;
+      upload: {
+        onprogress: ((e: { loaded: number; total: number; lengthComputable: boolean }) => void) | null;
+      } = { onprogress: null };
+      onload: (() => void) | null = null;
+      onerror: (() => void) | null = null;
+      onabort: (() => void) | null = null;
+      open() {}
+      setRequestHeader() {}
+      abort() {}
+      send() {
+        setTimeout(() => {
+          this.status = 201;
+          this.responseText = JSON.stringify(stored);
+          this.onload?.();
+        }, 0);
+      }
+    }
+    vi.stubGlobal('XMLHttpRequest', AcceptingXhr);
+    const empty = makeDetail();
+    let uploaded = false;
+    openEditor(empty, 'documents', (url) => {
+      if (url.pathname === `/api/packages/${empty.package.id}` && uploaded)
+        return { status: 200, body: makeDetail({ current: { files: [stored] } }) };
+    });
+    const user = userEvent.setup();
+    const input = await screen.findByLabelText('Choose the lift plan PDF');
+    expect(screen.queryByRole('note', { name: /Left out of the stamped return/ })).toBeNull();
+    uploaded = true;
+    await user.upload(input, new File(['%PDF-1.7'], 'plan-with-comments.pdf', { type: 'application/pdf' }));
+
+    const note = await screen.findByRole('note', {
+      name: 'Left out of the stamped return: plan-with-comments.pdf',
+    });
+    expect(note.textContent).toBe(words);
+  });
+
   it('when submit is refused with field errors, then the steps holding those fields are marked', async () => {
     const detail = makeDetail({ inputs: passOutriggers, current: { files: [makeFile()] } });
     const fetchMock = openEditor(detail, 'review', (url, init) => {

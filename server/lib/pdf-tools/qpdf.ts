@@ -22,7 +22,8 @@ export type QDict = { [key: string]: QValue };
 
 export interface QObject {
   value?: QValue;
-  stream?: { dict: QDict };
+  /** `datafile`: where --json-stream-data=file wrote the stream's bytes. */
+  stream?: { dict: QDict; datafile?: string };
 }
 
 export interface QpdfStructure {

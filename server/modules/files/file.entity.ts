@@ -10,6 +10,7 @@ import {
   ManyToOne,
   PrimaryGeneratedColumn,
 } from 'typeorm';
+import type { PdfContents } from '@shared/schemas/packages';
 import { User } from '../users/user.entity';
 import { Revision } from '../packages/package.entity';
 
@@ -44,4 +45,6 @@ export class UploadedFile {
   carriedFromId: string | null;
   @Column({ type: 'int', name: 'carried_from_revision', nullable: true }) carriedFromRevision: number | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
+  /** What the PDF carries besides page content, found at upload (migration UploadContents1764722000000); null before. */
+  @Column({ type: 'jsonb', nullable: true }) contents: PdfContents | null;
 }

@@ -1,16 +1,20 @@
-// Uploaded PDFs of a draft revision: checked, hashed, stored behind the storage
-// interface, recorded. A refused upload leaves nothing on disk or in the database.
+// Uploaded PDFs of a draft revision. The route names the storage key before the body is read
+// (`uploadTarget`: the package is the person's and its revision a draft), the body streams
+// into the object store and a working copy (receive.ts), the copy is checked (pdf-check.ts),
+// and only then is the row written. A refused upload leaves no object, no row and no copy.
 import type { Actor } from '@shared/rules/actor';
 import { randomUUID } from 'node:crypto';
 import { QueryFailedError, type DataSource, type EntityManager } from 'typeorm';
 import type { FileKind, FileSummary } from '@shared/schemas/packages';
 import { AppError } from '../../lib/app-error';
-import { sha256, type Storage } from '../../lib/storage';
+import type { Storage } from '../../lib/storage';
+import { notCarriedWords } from '@shared/vocabulary/pdf-contents';
 import { recordAudit } from '../audit/service';
 import { Revision } from '../packages/package.entity';
 import { findScopedPackage } from '../packages/package-scope';
 import { UploadedFile } from './file.entity';
-import { checkFileName, inspectPdf } from './pdf-check';
+import { checkFileName, inspectPdf, type UploadLimits } from './pdf-check';
+import { discardUpload, discardWorkFile, type ReceivedUpload } from './receive';
 
 export function toFileSummary(f: UploadedFile): FileSummary {
   return {
@@ -22,6 +26,8 @@ export function toFileSummary(f: UploadedFile): FileSummary {
     pages: f.pages,
     carriedFromRevision: f.carriedFromRevision ?? null,
     createdAt: f.createdAt.toISOString(),
+    contents: f.contents ?? null,
+    notCarried: notCarriedWords(f.contents ?? null),
   };
 }
 
@@ -118,21 +124,31 @@ async function onePlanAtATime<T>(save: () => Promise<T>): Promise<T> {
   }
 }
 
+/** Where the next upload to this package's draft goes, checked before its body is read. */
+export async function uploadTarget(ds: DataSource, user: Actor, packageId: string) {
+  const { revision } = await currentDraft(ds, user, packageId);
+  const id = randomUUID();
+  return { id, storageKey: `revisions/${revision.id}/${id}.pdf` };
+}
+
+/**
+ * Checks and records an upload already stored under `target` (uploadTarget). On any refusal
+ * the object is deleted again; the working copy is always deleted.
+ */
 export async function addFile(
   ds: DataSource,
   storage: Storage,
   user: Actor,
   packageId: string,
-  upload: { originalName: string; bytes: Uint8Array; kind: FileKind },
-  limits: { maxPages: number },
+  target: { id: string },
+  upload: ReceivedUpload & { kind: FileKind },
+  limits: UploadLimits,
 ): Promise<FileSummary> {
-  const { pkg, revision } = await currentDraft(ds, user, packageId);
-  const originalName = checkFileName(upload.originalName);
-  const { pages } = await inspectPdf(upload.bytes, limits, originalName);
-  const id = randomUUID();
-  const storageKey = `revisions/${revision.id}/${id}.pdf`;
-  await storage.put(storageKey, upload.bytes);
   try {
+    const { pkg, revision } = await currentDraft(ds, user, packageId);
+    const originalName = checkFileName(upload.originalName);
+    const { pages, contents } = await inspectPdf(upload, limits, originalName);
+    await discardWorkFile(upload);
     const saved = await onePlanAtATime(() =>
       ds.transaction(async (m) => {
         await lockDraft(m, revision.id);
@@ -146,15 +162,16 @@ export async function addFile(
           if (replaced) await m.getRepository(UploadedFile).delete(replaced.id);
         }
         const file = await m.getRepository(UploadedFile).save({
-          id,
+          id: target.id,
           revisionId: revision.id,
           kind: upload.kind,
           originalName,
-          sha256: sha256(upload.bytes),
-          sizeBytes: String(upload.bytes.byteLength),
+          sha256: upload.sha256,
+          sizeBytes: String(upload.size),
           pages,
-          storageKey,
+          storageKey: upload.storageKey,
           uploadedById: user.id,
+          contents,
         });
         await recordAudit(m, {
           action: 'file.added',
@@ -174,7 +191,7 @@ export async function addFile(
     if (saved.replaced) await deleteStoredIfUnused(ds, storage, saved.replaced.storageKey);
     return toFileSummary(saved.file);
   } catch (error) {
-    await storage.delete(storageKey).catch(() => undefined);
+    await discardUpload(storage, upload);
     throw error;
   }
 }

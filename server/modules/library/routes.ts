@@ -28,7 +28,9 @@ import { chartCsv, chartXlsx, previewChartFile } from './chart-files';
 import { createCrane, getCrane, listCranes, patchCrane, retireCrane } from './cranes';
 import { craneRemoved, listUses, removeUse, setUse } from './uses';
 import { verifyVersion } from './verifications';
-import { attachDocument, readDocument } from './version-document';
+import { attachDocument, documentTarget, readDocument } from './version-document';
+import { uploadLimits, uploadWorkDir } from '../files/pdf-check';
+import { receivedUpload, receiveInto, streamedUpload } from '../files/receive';
 import {
   addVersion,
   chartOf,
@@ -165,26 +167,35 @@ export function libraryRoutes(ctx: AppContext): Router {
     return { name: Buffer.from(req.file.originalname, 'latin1').toString('utf8'), bytes: req.file.buffer };
   };
 
+  // The document streams into the object store (files/receive.ts), under a key named once the
+  // version is known to be the person's and still without a document.
+  const receiveDocument = streamedUpload({
+    storage: ctx.storage,
+    workDir: uploadWorkDir(ctx.config),
+    maxBytes: ctx.config.UPLOAD_MAX_BYTES,
+    what: "manufacturer's document",
+    fields: 2,
+  });
   router.post(
     '/library/versions/:id/document',
     contractor,
     validate({ params: LibraryIdParams }),
-    receive(ctx.config.UPLOAD_MAX_BYTES, "manufacturer's document"),
+    async (req, _res, next) => {
+      const target = await documentTarget(ds, currentActor(req), valid(req, 'params', LibraryIdParams).id);
+      receiveInto(req, target.storageKey);
+      next();
+    },
+    receiveDocument,
     async (req, res) => {
       const { id } = valid(req, 'params', LibraryIdParams);
-      const f = fileOf(req);
-      res.status(201).json(
-        await attachDocument(
-          ds,
-          ctx.storage,
-          currentActor(req),
-          id,
-          { originalName: f.name, bytes: new Uint8Array(f.bytes) },
-          {
-            maxPages: ctx.config.UPLOAD_MAX_PAGES,
-          },
-        ),
-      );
+      const upload = receivedUpload(req);
+      if (!upload)
+        throw AppError.badRequest('Attach one file in the form field "file".', [
+          { path: 'file', message: 'file is required' },
+        ]);
+      res
+        .status(201)
+        .json(await attachDocument(ds, ctx.storage, currentActor(req), id, upload, uploadLimits(ctx.config)));
     },
   );
   router.get('/library/versions/:id/document', validate({ params: LibraryIdParams }), async (req, res) => {

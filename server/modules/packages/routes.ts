@@ -1,6 +1,5 @@
 // Lift package routes. Thin: check the role, validate, call the service, answer.
-import { Router, type NextFunction, type Request, type Response } from 'express';
-import multer from 'multer';
+import { Router } from 'express';
 import { z } from 'zod';
 import {
   CreatePackageBody,
@@ -14,7 +13,9 @@ import { AppError, fromZod } from '../../lib/app-error';
 import { sendStored } from '../../lib/send-stored';
 import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
-import { addFile, readFile, removeFile } from '../files/service';
+import { uploadLimits, uploadWorkDir } from '../files/pdf-check';
+import { discardUpload, receivedUpload, receiveInto, streamedUpload } from '../files/receive';
+import { addFile, readFile, removeFile, uploadTarget } from '../files/service';
 import { createPackage, duplicatePackage, saveDraft, submitPackage } from './drafts';
 import { getPackage, getRevision, listPackages, packageDetail } from './service';
 
@@ -80,55 +81,46 @@ export function packageRoutes(ctx: AppContext): Router {
     },
   );
 
-  const upload = multer({
-    storage: multer.memoryStorage(),
-    preservePath: true,
-    limits: { fileSize: ctx.config.UPLOAD_MAX_BYTES, files: 1, fields: 5 },
-  }).single('file');
-  const receive = (req: Request, res: Response, next: NextFunction) =>
-    upload(req, res, (err: unknown) => {
-      if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') {
-          const mb = Math.round((ctx.config.UPLOAD_MAX_BYTES / 1024 / 1024) * 10) / 10;
-          return next(
-            new AppError(413, 'file_too_large', `The file is larger than the limit of ${mb} MB.`, [
-              { path: 'file', message: `file must be at most ${mb} MB` },
-            ]),
-          );
-        }
-        return next(
-          new AppError(400, 'bad_upload', `The upload was refused: ${err.message}.`, [
-            { path: err.field ?? 'file', message: err.message },
-          ]),
-        );
-      }
-      next(err);
-    });
-
+  // The body streams into the object store under the key named here, once the package is
+  // known to be the person's and its revision a draft (nothing is read for a refused request).
+  const receive = streamedUpload({
+    storage: ctx.storage,
+    workDir: uploadWorkDir(ctx.config),
+    maxBytes: ctx.config.UPLOAD_MAX_BYTES,
+    what: 'file',
+    fields: 5,
+  });
   router.post(
     '/packages/:id/files',
     contractorOnly,
     validate({ params: PackageIdParams }),
+    async (req, res, next) => {
+      const target = await uploadTarget(ds, currentActor(req), valid(req, 'params', PackageIdParams).id);
+      res.locals.uploadTarget = target;
+      receiveInto(req, target.storageKey);
+      next();
+    },
     receive,
     async (req, res) => {
       const { id } = valid(req, 'params', PackageIdParams);
-      const fields = UploadFileFields.safeParse(req.body ?? {});
-      if (!fields.success) throw fromZod(fields.error);
-      if (!req.file)
+      const upload = receivedUpload(req);
+      if (!upload)
         throw AppError.badRequest('Attach one PDF in the form field "file".', [
           { path: 'file', message: 'file is required' },
         ]);
+      const fields = UploadFileFields.safeParse(req.body ?? {});
+      if (!fields.success) {
+        await discardUpload(ctx.storage, upload);
+        throw fromZod(fields.error);
+      }
       const summary = await addFile(
         ds,
         ctx.storage,
         currentActor(req),
         id,
-        {
-          originalName: Buffer.from(req.file.originalname, 'latin1').toString('utf8'),
-          bytes: new Uint8Array(req.file.buffer),
-          kind: fields.data.kind,
-        },
-        { maxPages: ctx.config.UPLOAD_MAX_PAGES },
+        res.locals.uploadTarget as { id: string },
+        { ...upload, kind: fields.data.kind },
+        uploadLimits(ctx.config),
       );
       res.status(201).json(summary);
     },

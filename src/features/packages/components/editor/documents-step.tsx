@@ -1,6 +1,8 @@
 // The documents of a draft: the lift plan PDF (required, one; a new one replaces it) and
 // supporting PDFs (drawings, chart pages, certificates). Each upload shows the bytes sent;
-// a file the server refuses keeps its row with the server's reason beside it.
+// a file the server refuses keeps its row with the server's reason beside it. A stored file
+// that carries comments, stamps, form fields, scripts or attachments says so under its row:
+// the stamped return leaves them out, so the contractor flattens what is meant to stay.
 import { useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { FileKind, FileSummary, PackageDetail } from '@shared/schemas/packages';
@@ -48,12 +50,38 @@ function ProgressBar({ loaded, total, label }: { loaded: number; total: number; 
   );
 }
 
+/** What the stamped return leaves out of this file, in the server's words (shared/vocabulary/pdf-contents.ts). */
+function NotCarriedNote({ file }: { file: FileSummary }) {
+  if (!file.notCarried) return null;
+  return (
+    <p
+      role="note"
+      aria-label={`Left out of the stamped return: ${file.originalName}`}
+      className="flex basis-full items-start gap-2 border border-caution-ink/40 bg-caution-tint px-2 py-1.5 text-[12.5px] text-ink"
+    >
+      <svg
+        className="mt-0.5 size-4 shrink-0 text-caution-ink"
+        viewBox="0 0 16 16"
+        aria-hidden="true"
+        fill="none"
+        stroke="currentColor"
+        strokeWidth="1.6"
+      >
+        <path d="M8 1.5 L15 14.5 H1 Z" />
+        <path d="M8 6 V10 M8 12 V12.5" />
+      </svg>
+      <span>{file.notCarried}</span>
+    </p>
+  );
+}
+
 export function FileRow({
   packageId,
   file,
   onRemove,
   onReplace,
   removing,
+  showNotCarried = false,
 }: {
   packageId: string;
   file: FileSummary;
@@ -61,6 +89,8 @@ export function FileRow({
   /** A supporting PDF: a new file takes its place (uploaded first, then this one removed). */
   onReplace?: (list: ArrayLike<File> | null) => void;
   removing?: boolean;
+  /** Say under the row what the stamped return leaves out (the upload step). */
+  showNotCarried?: boolean;
 }) {
   const carried = file.carriedFromRevision;
   return (
@@ -125,6 +155,7 @@ export function FileRow({
           {removing ? 'Removing…' : 'Remove'}
         </Button>
       )}
+      {showNotCarried && <NotCarriedNote file={file} />}
     </li>
   );
 }
@@ -266,6 +297,7 @@ export function DocumentsStep({
               file={plan}
               onRemove={() => remove(plan)}
               removing={removing === plan.id}
+              showNotCarried
             />
           )}
           {pendingRows('lift_plan')}
@@ -313,6 +345,7 @@ export function DocumentsStep({
               onRemove={() => remove(file)}
               onReplace={(list) => start('supporting', list?.length ? [list[0]] : null, file)}
               removing={removing === file.id}
+              showNotCarried
             />
           ))}
           {pendingRows('supporting')}
@@ -330,7 +363,9 @@ export function DocumentsStep({
       )}
       <p className="text-[12.5px] text-ink-soft">
         PDF files only, checked by their content: not encrypted, within the desk’s size and page limits. The
-        server names the rule and the limit if a file is refused.
+        server names the rule and the limit if a file is refused. The stamped return carries each page’s
+        printed content only: comments, stamps, form fields, links, scripts and attached files are left out,
+        so flatten anything meant to stay before uploading.
       </p>
     </div>
   );
