@@ -37,7 +37,16 @@ import { sha256OfFile } from '../../lib/storage';
 import { concatenate, QpdfError, readStructure, inherited, type QValue } from '../../lib/pdf-tools/qpdf';
 import { buildCalculationSheet, drawSheetHeader } from './calc-sheet-pdf';
 import { drawMarkups } from './draw-markups';
-import { drawFooter, drawStampBlock, footerLayout, type FrameBox } from './draw-stamp-block';
+import {
+  drawFooter,
+  drawStampBlock,
+  footerLayout,
+  stampBlockLayout,
+  type FrameBox,
+} from './draw-stamp-block';
+import { COVER_HEADING, drawCoverSheet } from './cover-sheet';
+import { chooseStampSpot, markupFootprint, type StampSpot } from './stamp-placement';
+import { PageInkError, readPageInk, type PageInk } from '../../lib/pdf-tools/page-ink';
 import { displayToUser, frameOf, inDisplayFrame, type PageFrame } from './page-frame-pdf';
 import { FooterForms, indexPage, pageForm } from './overlay-carrier';
 import { assembleReturn, signReturn, type SignatureField } from './return-structure';
@@ -110,18 +119,53 @@ function frameFromBoxes(o: OriginalPage): PageFrame {
   return { box, rotation, width: turned ? box.height : box.width, height: turned ? box.width : box.height };
 }
 
+/** The findings' "Page 3 of the return" read one page on when a cover sheet comes first. */
+function withCover(input: StampInput): StampInput {
+  const findings = input.calculation.findings.map((f) =>
+    f.markup && f.markupPage != null
+      ? {
+          ...f,
+          markup: f.markup.replace(
+            `Page ${f.markupPage} of the return`,
+            `Page ${f.markupPage + 1} of the return`,
+          ),
+        }
+      : f,
+  );
+  return { ...input, calculation: { ...input.calculation, findings } };
+}
+
 /**
  * The overlay PDF: an index page naming one form per original page (overlay-carrier.ts), then
- * the calculation sheet. Pages with markups or the stamp block are drawn on scratch pages;
- * pages with only the footer get a footer form without a page, so the cost follows the
- * markups, not the page count.
+ * the cover sheet when the stamp goes there, then the calculation sheet. Pages with markups or
+ * the stamp block are drawn on scratch pages; pages with only the footer get a footer form
+ * without a page, so the cost follows the markups, not the page count.
  */
-async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
+async function buildOverlay(input: StampInput, originals: OriginalPage[][], ink: PageInk | null) {
   const { stamp } = input;
   const out = await PDFDocument.create({ updateMetadata: false });
   const fonts = embedFonts(out);
-  let field: { rect: Box } | null = null;
   const originalCount = originals.reduce((n, pages) => n + pages.length, 0);
+  // Page 1 of the plan: where the stamp block goes (stamp-placement.ts).
+  const firstFrame = frameFromBoxes(originals[0][0]);
+  const firstMarks = input.markups.filter(
+    (m) => m.fileId === input.documents[0].fileId && m.pageNumber === 1,
+  );
+  const sheetPageOnPlan = originalCount + 1;
+  const layout = stampBlockLayout(firstFrame, fonts, stamp, sheetPageOnPlan);
+  const footerBox = footerLayout(firstFrame, fonts, footerTextFor(stamp, originalCount, originalCount + 9));
+  const spot = chooseStampSpot({
+    ink,
+    page: firstFrame,
+    size: { width: layout.width, height: layout.height },
+    placed: input.placement ?? null,
+    reserved: [
+      ...firstMarks.map((m) => markupFootprint(firstFrame, m)),
+      { x: footerBox.x - 4, y: 0, width: firstFrame.width - footerBox.x + 4, height: footerBox.y + 12 },
+    ],
+  });
+  const cover = spot.on === 'cover' ? 1 : 0;
+  let field: { rect: Box } | null = null;
   type Slot = { o: OriginalPage; frame: PageFrame; page: PDFPage | null };
   const slots: Slot[] = [];
   input.documents.forEach((doc, d) => {
@@ -139,35 +183,58 @@ async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
       const frame = frameOf(page);
       inDisplayFrame(page, frame, () => {
         drawMarkups(page, frame, marks, fonts);
-        if (first)
-          field = { rect: userRect(frame, drawStampBlock(page, frame, fonts, stamp, originalCount + 1)) };
+        if (first && spot.on === 'page')
+          field = { rect: userRect(frame, drawStampBlock(page, fonts, stamp, layout, spot.rect)) };
       });
       slots.push({ o, frame, page });
     });
   });
   const scratchCount = out.getPageCount();
-  const sheet = buildCalculationSheet(out, fonts, input);
-  const total = originalCount + sheet.length;
-  const footerText = (n: number) => `${stamp.reference} rev ${stamp.revision} — page ${n} of ${total}`;
+  const coverPage =
+    spot.on === 'cover' ? drawCoverSheet(out, fonts, stamp, spot.why, originalCount + 2) : null;
+  if (coverPage) {
+    const f = coverPage.field;
+    field = { rect: [f.x, f.y, f.x + f.width, f.y + f.height] };
+  }
+  const sheet = buildCalculationSheet(out, fonts, cover ? withCover(input) : input);
+  const total = cover + originalCount + sheet.length;
+  const footerText = (n: number) => footerTextFor(stamp, n, total);
   const footers = new FooterForms(out, fonts.bold);
   const forms = slots.map(({ o, frame, page }, i) => {
-    if (!page) return footers.form(o.media, frame, footerLayout(frame, fonts, footerText(i + 1)));
+    if (!page) return footers.form(o.media, frame, footerLayout(frame, fonts, footerText(cover + i + 1)));
     // The footer goes inside the same display-frame group as the markups.
-    inDisplayFrame(page, frame, () => drawFooter(page, frame, fonts, footerText(i + 1)));
+    inDisplayFrame(page, frame, () => drawFooter(page, frame, fonts, footerText(cover + i + 1)));
     return pageForm(page);
   });
-  sheet.forEach((page, k) => {
-    const n = originalCount + k + 1;
+  const added = [
+    ...(coverPage ? [{ page: coverPage.page, n: 1, heading: COVER_HEADING }] : []),
+    ...sheet.map((page, k) => ({ page, n: cover + originalCount + k + 1, heading: undefined })),
+  ];
+  for (const { page, n, heading } of added) {
     const frame = frameOf(page);
     inDisplayFrame(page, frame, () => {
-      drawSheetHeader(page, fonts, input, n, total);
+      drawSheetHeader(page, fonts, input, n, total, heading);
       drawFooter(page, frame, fonts, footerText(n));
     });
-  });
+  }
   for (let k = 0; k < scratchCount; k++) out.removePage(0);
   indexPage(out, forms);
   const bytes = await out.save({ useObjectStreams: false, objectsPerTick: Infinity });
-  return { bytes, originalCount, total, field: field as { rect: Box } | null };
+  return { bytes, originalCount, total, cover, spot, field: field as { rect: Box } | null };
+}
+
+const footerTextFor = (stamp: StampInput['stamp'], n: number, total: number) =>
+  `${stamp.reference} rev ${stamp.revision} — page ${n} of ${total}`;
+
+/** Page 1's ink (page-ink.ts), or null when poppler cannot render it: then the stamp takes the cover sheet. */
+async function firstPageInk(file: string, o: OriginalPage, work: string): Promise<PageInk | null> {
+  const frame = frameFromBoxes(o);
+  try {
+    return await readPageInk(file, 1, frame, work);
+  } catch (err) {
+    if (err instanceof PageInkError) return null;
+    throw err;
+  }
 }
 
 export interface BuildOptions {
@@ -185,6 +252,8 @@ export interface BuiltReturn {
   sha256: string;
   /** Size of what the desk adds (overlays, fonts and the calculation sheet) before combining. */
   overlayBytes: number;
+  /** Where the stamp block went: on page 1 (placed or a corner, its display-frame rectangle) or a cover sheet. */
+  stampSpot: StampSpot;
 }
 
 /** Build the return into `outFile`. The documents are only read. */
@@ -208,7 +277,8 @@ export async function buildStampedReturnFile(
     }
     const originals: OriginalPage[][] = [];
     for (const [i, doc] of input.documents.entries()) originals.push(await originalPages(files[i], doc.name));
-    const overlay = await buildOverlay(input, originals);
+    const ink = await firstPageInk(files[0], originals[0][0], work);
+    const overlay = await buildOverlay(input, originals, ink);
     const overlayFile = path.join(work, 'overlay.pdf');
     await writeFile(overlayFile, overlay.bytes);
     try {
@@ -219,7 +289,7 @@ export async function buildStampedReturnFile(
       throw err;
     }
     const issued = pdfDate(stamp.issuedAt);
-    const assembled = await assembleReturn(outFile, overlay.originalCount, {
+    const assembled = await assembleReturn(outFile, overlay.originalCount, overlay.cover, {
       title: `${stamp.reference} rev ${stamp.revision} — stamped return`,
       subject: stamp.title,
       author: stamp.engineer,
@@ -247,6 +317,7 @@ export async function buildStampedReturnFile(
       pages: overlay.total,
       signingCertificateSha256: fingerprint,
       overlayBytes: overlay.bytes.length,
+      stampSpot: overlay.spot,
     };
   } finally {
     await rm(work, { recursive: true, force: true });
