@@ -34,7 +34,7 @@ import path from 'node:path';
 import { PDFDocument, PDFName, PDFNumber, type PDFPage } from 'pdf-lib';
 import type { Signer } from '../../lib/pdf-tools/signer';
 import { sha256OfFile } from '../../lib/storage';
-import { concatenate, QpdfError, readStructure, inherited, type QValue } from '../../lib/pdf-tools/qpdf';
+import { concatenate, QpdfError } from '../../lib/pdf-tools/qpdf';
 import { buildCalculationSheet, drawSheetHeader } from './calc-sheet-pdf';
 import { drawMarkups } from './draw-markups';
 import {
@@ -45,8 +45,16 @@ import {
   type FrameBox,
 } from './draw-stamp-block';
 import { COVER_HEADING, drawCoverSheet } from './cover-sheet';
-import { chooseStampSpot, markupFootprint, type StampSpot } from './stamp-placement';
-import { PageInkError, readPageInk, type PageInk } from '../../lib/pdf-tools/page-ink';
+import { chooseStampSpot, deskReserved, type StampSpot } from './stamp-placement';
+import type { PageInk } from '../../lib/pdf-tools/page-ink';
+import {
+  firstPageInk,
+  frameFromBoxes,
+  originalPages,
+  StampInputError,
+  type Box,
+  type OriginalPage,
+} from './original-pages';
 import { displayToUser, frameOf, inDisplayFrame, type PageFrame } from './page-frame-pdf';
 import { FooterForms, indexPage, pageForm } from './overlay-carrier';
 import { assembleReturn, signReturn, type SignatureField } from './return-structure';
@@ -55,46 +63,11 @@ import type { StampInput } from './stamp-input';
 
 export type { StampInput } from './stamp-input';
 
-export class StampInputError extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = 'StampInputError';
-  }
-}
+export { StampInputError };
 
 function pdfDate(iso: string): Date {
   const d = new Date(iso);
   return Number.isNaN(d.getTime()) ? new Date(0) : d;
-}
-
-type Box = [number, number, number, number];
-
-function boxOf(v: QValue | undefined): Box | null {
-  if (!Array.isArray(v) || v.length !== 4 || !v.every((n) => typeof n === 'number')) return null;
-  const [a, b, c, d] = v as number[];
-  return [Math.min(a, c), Math.min(b, d), Math.max(a, c), Math.max(b, d)];
-}
-
-interface OriginalPage {
-  media: Box;
-  crop: Box | null;
-  rotate: number;
-}
-
-/** Each page's boxes and rotation, read by qpdf; a document qpdf cannot read is refused. */
-async function originalPages(file: string, name: string): Promise<OriginalPage[]> {
-  try {
-    const s = await readStructure(file);
-    return s.pages.map((p) => ({
-      media: boxOf(inherited(s, p.object, '/MediaBox')) ?? [0, 0, 612, 792],
-      crop: boxOf(inherited(s, p.object, '/CropBox')),
-      rotate: Number(inherited(s, p.object, '/Rotate') ?? 0) || 0,
-    }));
-  } catch (err) {
-    if (err instanceof QpdfError)
-      throw new StampInputError(`${name} could not be read as a PDF (${err.message}).`);
-    throw err;
-  }
 }
 
 /** A box in the display frame as a rectangle in the page's user space. */
@@ -109,14 +82,6 @@ function userRect(frame: PageFrame, b: FrameBox): Box {
   const xs = pts.map((p) => p[0]);
   const ys = pts.map((p) => p[1]);
   return [Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)];
-}
-
-function frameFromBoxes(o: OriginalPage): PageFrame {
-  const v = o.crop ?? o.media;
-  const box = { x: v[0], y: v[1], width: v[2] - v[0], height: v[3] - v[1] };
-  const rotation = ((((Math.round(o.rotate / 90) * 90) % 360) + 360) % 360) as PageFrame['rotation'];
-  const turned = rotation === 90 || rotation === 270;
-  return { box, rotation, width: turned ? box.height : box.width, height: turned ? box.width : box.height };
 }
 
 /** The findings' "Page 3 of the return" read one page on when a cover sheet comes first. */
@@ -159,10 +124,7 @@ async function buildOverlay(input: StampInput, originals: OriginalPage[][], ink:
     page: firstFrame,
     size: { width: layout.width, height: layout.height },
     placed: input.placement ?? null,
-    reserved: [
-      ...firstMarks.map((m) => markupFootprint(firstFrame, m)),
-      { x: footerBox.x - 4, y: 0, width: firstFrame.width - footerBox.x + 4, height: footerBox.y + 12 },
-    ],
+    reserved: deskReserved(firstFrame, firstMarks, footerBox.x),
   });
   const cover = spot.on === 'cover' ? 1 : 0;
   let field: { rect: Box } | null = null;
@@ -225,17 +187,6 @@ async function buildOverlay(input: StampInput, originals: OriginalPage[][], ink:
 
 const footerTextFor = (stamp: StampInput['stamp'], n: number, total: number) =>
   `${stamp.reference} rev ${stamp.revision} — page ${n} of ${total}`;
-
-/** Page 1's ink (page-ink.ts), or null when poppler cannot render it: then the stamp takes the cover sheet. */
-async function firstPageInk(file: string, o: OriginalPage, work: string): Promise<PageInk | null> {
-  const frame = frameFromBoxes(o);
-  try {
-    return await readPageInk(file, 1, frame, work);
-  } catch (err) {
-    if (err instanceof PageInkError) return null;
-    throw err;
-  }
-}
 
 export interface BuildOptions {
   /** Sign the return (PAdES baseline B) as its last incremental update. */

@@ -7,6 +7,7 @@
 import type { StampInput } from './stamp-input';
 import {
   cornerCandidates,
+  FOOTER_ROOM,
   overlaps,
   STAMP_SIZE,
   type PageSize,
@@ -69,6 +70,21 @@ export function markupFootprint(frame: PageFrame, m: MarkupOnPage): Rect {
   const y0 = Math.min(...ys) - pad;
   const top = Math.max(...ys) + pad + labelAbove;
   return { x: x0, y: y0, width: Math.max(...xs) + pad + (labelAbove ? 180 : 0) - x0, height: top - y0 };
+}
+
+/** Room the footer may take at the bottom right, for placements checked before the page count is known. */
+export const FOOTER_ALLOWANCE = 214;
+
+/**
+ * What the desk itself draws on page 1 and the stamp must leave visible: the markups (with their
+ * labels) and the footer, whose left edge is at most `footerLeft`.
+ */
+export function deskReserved(frame: PageFrame, marks: MarkupOnPage[], footerLeft = Infinity): Rect[] {
+  const left = Math.min(footerLeft, frame.width - FOOTER_ALLOWANCE) - 4;
+  return [
+    ...marks.map((m) => markupFootprint(frame, m)),
+    { x: left, y: 0, width: frame.width - left, height: FOOTER_ROOM - 3 },
+  ];
 }
 
 export interface SpotQuestion {
