@@ -246,3 +246,73 @@ describe('stamp placement', () => {
     expect(built.stampSpot).toEqual({ on: 'cover', why: 'page 1 had no free corner' });
   });
 });
+
+describe('markup text in the return', () => {
+  const LONG_WORD = 'Outriggerpadbearingpressurerecheckedagainstthegeotechnicalreport';
+
+  it('when a text markup is long and near the right edge, then its lines wrap inside the 220 pt box and stay on the page', async () => {
+    const planFile = await plan(THREE_CORNERS);
+    const text = `Confirm the mat size under the front outrigger before the lift ${LONG_WORD} and sign off on site.`;
+    const { out } = await build(planFile, (i) => {
+      i.markups = [
+        {
+          fileId: PLAN_ID,
+          pageNumber: 1,
+          kind: 'text',
+          geometry: { x: 480, y: 560, fontSize: 11 },
+          colour: 'rust',
+          text,
+          number: null,
+        },
+      ];
+    });
+    // The plan's own words on these lines end left of x 340; the markup cannot start left of 369.
+    const mine = words(out, 1).filter((w) => w.yMin > 842 - 600 && w.yMin < 842 - 300 && w.xMin >= 340);
+    const left = Math.min(...mine.map((w) => w.xMin));
+    const right = Math.max(...mine.map((w) => w.xMax));
+    expect(mine.map((w) => w.text).join(' ')).toContain('Confirm the mat size');
+    // The long word is broken over lines, none wider than the box.
+    expect(
+      mine.filter((w) => LONG_WORD.startsWith(w.text) || LONG_WORD.includes(w.text)).length,
+    ).toBeGreaterThan(1);
+    expect(right - left).toBeLessThanOrEqual(220.5);
+    expect(right).toBeLessThanOrEqual(A4[0] - 6 + 0.5);
+    expect(left).toBeGreaterThanOrEqual(6);
+  });
+
+  it('when a box markup near the top right corner has a long label, then the label stays on the page', async () => {
+    const planFile = await plan(THREE_CORNERS);
+    const label = 'Check the crane mats under the corner of the slab here and the edge distance';
+    const { out } = await build(planFile, (i) => {
+      i.markups = [
+        {
+          fileId: PLAN_ID,
+          pageNumber: 1,
+          kind: 'rectangle',
+          geometry: { x: 545, y: 815, width: 45, height: 24 },
+          colour: 'cobalt',
+          text: label,
+          number: null,
+        },
+        {
+          fileId: PLAN_ID,
+          pageNumber: 1,
+          kind: 'cloud',
+          geometry: { x: 2, y: 700, width: 40, height: 140 },
+          colour: 'rust',
+          text: 'Left edge cloud label that is long',
+          number: null,
+        },
+      ];
+    });
+    const all = words(out, 1);
+    for (const word of ['Check', 'edge', 'distance', 'Left', 'cloud']) {
+      const w = all.find((x) => x.text === word)!;
+      expect(w, word).toBeTruthy();
+      expect(w.xMin, word).toBeGreaterThanOrEqual(5.5);
+      expect(w.xMax, word).toBeLessThanOrEqual(A4[0] - 5.5);
+      expect(w.yMin, word).toBeGreaterThanOrEqual(5.5);
+      expect(w.yMax, word).toBeLessThanOrEqual(A4[1] - 5.5);
+    }
+  });
+});
