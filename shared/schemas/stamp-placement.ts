@@ -29,6 +29,8 @@ export type StampLanding = z.infer<typeof StampLanding>;
 /** GET, PUT and DELETE /api/packages/:id/stamp-placement */
 export const StampPlacementView = z.object({
   revision: z.number().int(),
+  /** The plan: the document whose page 1 carries the stamp. */
+  fileId: z.uuid(),
   /** Null: the desk chooses (the emptiest corner, else a cover sheet). */
   placement: z.object({ x: z.number(), y: z.number() }).nullable(),
   /** Page 1 of the plan as displayed, in points. */

@@ -44,7 +44,7 @@ async function inspectFirstPage(ds: DataSource, storage: Storage, revision: Revi
       frame,
       marks.map((m) => ({ kind: m.kind, geometry: m.geometry as Record<string, number>, text: m.text })),
     );
-    return { page: { width: frame.width, height: frame.height }, ink, reserved };
+    return { fileId: plan.id, page: { width: frame.width, height: frame.height }, ink, reserved };
   } finally {
     await rm(work, { recursive: true, force: true });
   }
@@ -56,6 +56,7 @@ function view(revision: number, seen: Inspected, placement: StampPlacementBody |
   const lands = chooseStampSpot({ ...seen, size: STAMP_SIZE, placed: placement });
   return {
     revision,
+    fileId: seen.fileId,
     placement,
     page: seen.page,
     stamp: { ...STAMP_SIZE },
