@@ -32,26 +32,48 @@ export interface PageSize {
   height: number;
 }
 
+/** How far in from its corner the block may slide, as a share of the page's shorter side, and the step. */
+export const CORNER_REACH = 0.3;
+export const CORNER_STEP = 6;
+
 /**
- * The corner positions in the order they are tried: top right first (where a reader looks
- * for a stamp), then top left, bottom right, bottom left; each first at STAMP_EDGE from the
- * edges, then closer in (12, 8 pt) so a block that just misses the plan's content still fits.
- * Bottom positions stay above the footer's room.
+ * The positions the desk tries, best first: the block in each corner at STAMP_EDGE from the
+ * edges, a little closer to them (12, 8 pt), or slid in from that corner in CORNER_STEP steps,
+ * up to CORNER_REACH of the shorter side — so a drawing's border frame or title block does not
+ * push it off the page when there is room just inside. The nearest to its corner comes first;
+ * at equal distance top right (where a reader looks for a stamp), then top left, bottom right,
+ * bottom left. Bottom positions stay above the footer's room.
  */
 export function cornerCandidates(page: PageSize, size: PageSize): Array<{ corner: StampCorner; rect: Rect }> {
-  const out: Array<{ corner: StampCorner; rect: Rect }> = [];
+  const out: Array<{ corner: StampCorner; rect: Rect; inset: number; order: number }> = [];
   const corners: StampCorner[] = ['top-right', 'top-left', 'bottom-right', 'bottom-left'];
-  for (const corner of corners) {
-    for (const edge of [STAMP_EDGE, 12, 8]) {
-      const right = corner.endsWith('right');
-      const top = corner.startsWith('top');
-      const x = right ? page.width - edge - size.width : edge;
-      const y = top ? page.height - edge - size.height : Math.max(edge, FOOTER_ROOM);
-      if (x < 0 || y < 0 || x + size.width > page.width || y + size.height > page.height) continue;
-      out.push({ corner, rect: { x, y, width: size.width, height: size.height } });
+  const reach = CORNER_REACH * Math.min(page.width, page.height);
+  const steps = Math.floor(reach / CORNER_STEP);
+  // Offsets from the STAMP_EDGE position: out towards the edges (12 and 8 pt from them), then in.
+  const offsets = [
+    12 - STAMP_EDGE,
+    8 - STAMP_EDGE,
+    ...Array.from({ length: steps + 1 }, (_, k) => k * CORNER_STEP),
+  ];
+  corners.forEach((corner, order) => {
+    const right = corner.endsWith('right');
+    const top = corner.startsWith('top');
+    for (const dx of offsets) {
+      for (const dy of offsets) {
+        const x = right ? page.width - STAMP_EDGE - size.width - dx : STAMP_EDGE + dx;
+        const y = top ? page.height - STAMP_EDGE - size.height - dy : Math.max(STAMP_EDGE + dy, FOOTER_ROOM);
+        if (x < 0 || y < 0 || x + size.width > page.width || y + size.height > page.height) continue;
+        out.push({
+          corner,
+          rect: { x, y, width: size.width, height: size.height },
+          inset: Math.abs(dx) + Math.abs(dy),
+          order,
+        });
+      }
     }
-  }
-  return out;
+  });
+  out.sort((p, q) => p.inset - q.inset || p.order - q.order);
+  return out.map(({ corner, rect }) => ({ corner, rect }));
 }
 
 /** Whether two rectangles overlap (touching edges do not). */
