@@ -92,13 +92,16 @@ export function layoutTextBox(
 /**
  * A label whose first baseline would be at `at`: wrapped to LABEL.width in three lines at most
  * (the third ending "…" when cut), then moved so that its whole block, backing included, lies on
- * the page — left of the right edge, right of the left, below the top and above the bottom.
+ * the page — left of the right edge, right of the left, below the top and above the bottom. A
+ * shape's label that has no room above the shape goes below it (`below`).
  */
 export function layoutLabel(
   text: string,
   at: { x: number; y: number },
   page: PageSize,
   measure: Measure,
+  /** Where the first baseline goes instead when `at` is too near the top (below a shape, say). */
+  below?: number,
 ): TextBlock {
   const size = LABEL.size;
   const all = wrapLines(text, LABEL.width, size, measure);
@@ -111,9 +114,10 @@ export function layoutLabel(
   const width = Math.max(0, ...lines.map((l) => measure(l, size)));
   const lineHeight = size * LINE_HEIGHT;
   const x = Math.max(PAGE_MARGIN, Math.min(at.x, page.width - PAGE_MARGIN - width));
+  const wanted = below !== undefined && at.y > page.height - PAGE_MARGIN - size ? below : at.y;
   const y = Math.max(
     PAGE_MARGIN + 2.5 + (lines.length - 1) * lineHeight,
-    Math.min(at.y, page.height - PAGE_MARGIN - size),
+    Math.min(wanted, page.height - PAGE_MARGIN - size),
   );
   return { lines, size, x, y, lineHeight, width };
 }

@@ -311,6 +311,8 @@ describe('markup text in the return', () => {
       ];
     });
     const all = words(out, 1);
+    // No room above the box at the top edge: its label goes under it, clear of the box.
+    expect(all.find((x) => x.text === 'Check')!.yMin).toBeGreaterThan(A4[1] - 815);
     for (const word of ['Check', 'edge', 'distance', 'Left', 'cloud']) {
       const w = all.find((x) => x.text === word)!;
       expect(w, word).toBeTruthy();

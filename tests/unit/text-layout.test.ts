@@ -53,6 +53,8 @@ describe('text layout', () => {
     expect(b.lines[2].endsWith('…')).toBe(true);
     expect(b.x + b.width).toBeLessThanOrEqual(PAGE.width - PAGE_MARGIN);
     expect(b.y + b.size).toBeLessThanOrEqual(PAGE.height - PAGE_MARGIN);
+    expect(layoutLabel(text, { x: 560, y: 850 }, PAGE, measure, 780).y).toBe(780);
+    expect(layoutLabel(text, { x: 560, y: 700 }, PAGE, measure, 600).y).toBe(700);
     const low = layoutLabel(text, { x: -20, y: 2 }, PAGE, measure);
     expect(low.x).toBe(PAGE_MARGIN);
     expect(low.y - (low.lines.length - 1) * low.lineHeight - 2.5).toBeGreaterThanOrEqual(PAGE_MARGIN);

@@ -56,8 +56,9 @@ function drawLabel(
   x: number,
   y: number,
   colour: ReturnType<typeof hexColour>,
+  below?: number,
 ) {
-  const block = layoutLabel(safeText(text, fonts.bold), { x, y }, f, measureBold(fonts));
+  const block = layoutLabel(safeText(text, fonts.bold), { x, y }, f, measureBold(fonts), below);
   if (block.lines.length === 0 || (block.lines.length === 1 && block.lines[0] === '')) return;
   const { lines, lineHeight: lh, size } = block;
   page.drawRectangle({
@@ -116,7 +117,7 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
       case 'rectangle': {
         const b = boxInFrame(frame, g);
         page.drawRectangle({ ...b, borderColor: colour, borderWidth: STROKE });
-        if (note) drawLabel(page, frame, fonts, note, b.x, b.y + b.height + 4, colour);
+        if (note) drawLabel(page, frame, fonts, note, b.x, b.y + b.height + 4, colour, b.y - 12);
         break;
       }
       case 'ellipse': {
@@ -129,7 +130,7 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
           borderColor: colour,
           borderWidth: STROKE,
         });
-        if (note) drawLabel(page, frame, fonts, note, b.x, b.y + b.height + 4, colour);
+        if (note) drawLabel(page, frame, fonts, note, b.x, b.y + b.height + 4, colour, b.y - 12);
         break;
       }
       case 'cloud': {
@@ -141,7 +142,7 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
           borderColor: colour,
           borderWidth: STROKE,
         });
-        if (note) drawLabel(page, frame, fonts, note, b.x, b.y + b.height + 14, colour);
+        if (note) drawLabel(page, frame, fonts, note, b.x, b.y + b.height + 14, colour, b.y - 20);
         break;
       }
       case 'arrow': {

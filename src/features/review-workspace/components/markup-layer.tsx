@@ -118,17 +118,21 @@ function TextLines({
 function Label({
   text,
   p,
+  below,
   viewport,
   colour,
 }: {
   text: string;
   p: ViewPoint;
+  /** View y of the first baseline when there is no room above (below the shape). */
+  below?: number;
   viewport: PdfViewport;
   colour: string;
 }) {
   const s = pointScale(viewport);
   const frame = displayFrame(viewport, s);
-  const block = layoutLabel(text, frame.toDisplay(p), frame.page, measureBold);
+  const under = below === undefined ? undefined : frame.toDisplay({ x: p.x, y: below }).y;
+  const block = layoutLabel(text, frame.toDisplay(p), frame.page, measureBold, under);
   return <TextLines block={block} frame={frame} s={s} colour={colour} backing />;
 }
 
@@ -186,6 +190,7 @@ function MarkupShape({
               text={note}
               // The return puts a cloud's label higher, clear of its scallops.
               p={{ x: b.left, y: b.top - (markup.kind === 'cloud' ? 14 : 4) * s }}
+              below={b.top + b.height + (markup.kind === 'cloud' ? 20 : 12) * s}
               viewport={viewport}
               colour={colour}
             />
