@@ -155,7 +155,16 @@ describe('stamp placement', () => {
       full.push(['from edge to edge in two columns of notes', 300, y]);
     }
     const planFile = await plan(full, 2);
-    const { out, built } = await build(planFile);
+    const { out, built } = await build(planFile, (i) => {
+      i.calculation.findings = [
+        {
+          ...i.calculation.findings[0],
+          label: 'F1',
+          markup: 'Page 2 of the return (plan.pdf, page 2), cloud marked F1',
+          markupPage: 2,
+        },
+      ];
+    });
     const roomy = await build(await plan(THREE_CORNERS, 2));
     expect(built.stampSpot).toEqual({ on: 'cover', why: 'page 1 had no free corner' });
     expect(built.pages).toBe(roomy.built.pages + 1);
@@ -176,6 +185,13 @@ describe('stamp placement', () => {
     );
     expect(page2.some((w) => w.text === 'REVIEW')).toBe(false);
     expect(hiddenPixels(planFile, 1, out, 2)).toBe(0);
+    // The findings name the pages as the return now numbers them.
+    // spawns: pdftotext
+    const sheetText = execFileSync('pdftotext', ['-f', '4', out, '-'], { encoding: 'utf8' }).replace(
+      /\s+/g,
+      ' ',
+    );
+    expect(sheetText).toContain('Page 3 of the return (plan.pdf, page 2), cloud marked F1');
     // The plan's second page is page 3, untouched but its footer.
     expect(
       words(out, 3)
