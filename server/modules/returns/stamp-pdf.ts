@@ -8,7 +8,9 @@
 // 2. pdf-lib draws only what the desk adds, in a small "overlay" PDF: one Form XObject per
 //    original page (markups, the stamp block on the first page, the footer), all named by one
 //    index page (overlay-carrier.ts; a footer-only page costs one small form, no page), then
-//    the calculation sheet's pages.
+//    the calculation sheet's pages. The stamp block goes where page 1 has nothing under it
+//    (stamp-placement.ts: page 1 rendered by pdftoppm; the engineer's placement, else the
+//    nearest free spot to a corner), else on a cover sheet that comes before the plan.
 // 3. qpdf copies the original pages, the index page and the sheet into one file
 //    (--stream-data=preserve: every original content and image stream byte for byte).
 // 4. An incremental update (pdf-tools/incremental.ts) gives each original page a /Contents
