@@ -244,6 +244,32 @@ describe('stamp placement', () => {
     expect(hiddenPixels(planFile, 1, out, 1)).toBe(0);
   });
 
+  it('when a text markup sits in the empty corner, then none of its words is under the stamp', async () => {
+    const planFile = await plan(THREE_CORNERS);
+    const text = 'Mats under every outrigger to be checked against the ground report before the lift';
+    const { out, built } = await build(planFile, (i) => {
+      i.markups = [
+        {
+          fileId: PLAN_ID,
+          pageNumber: 1,
+          kind: 'text',
+          geometry: { x: 30, y: 160, fontSize: 12 },
+          colour: 'rust',
+          text,
+          number: null,
+        },
+      ];
+    });
+    expect(built.stampSpot.on).toBe('page');
+    const r = built.stampSpot.on === 'page' ? built.stampSpot.rect : { x: 0, y: 0, width: 0, height: 0 };
+    const block = { x0: r.x, x1: r.x + r.width, y0: A4[1] - r.y - r.height, y1: A4[1] - r.y };
+    const marked = words(out, 1).filter(
+      (w) => text.split(' ').includes(w.text) && w.xMin < 300 && w.yMin > 842 - 200,
+    );
+    expect(marked.length).toBeGreaterThan(8);
+    for (const w of marked) expect(meets(w, block), w.text).toBe(false);
+  });
+
   it('when page 1 carries a markup in the empty corner, then the stamp does not cover the markup', async () => {
     const planFile = await plan(THREE_CORNERS);
     const { built } = await build(planFile, (i) => {

@@ -16,6 +16,7 @@ import {
 } from '@shared/drawing/stamp-outline';
 import { inkUnder, type PageInk } from '../../lib/pdf-tools/page-ink';
 import { markupToDisplay, type PageFrame } from './page-frame-pdf';
+import { layoutTextBox } from '@shared/drawing/text-layout';
 
 /** Points kept clear round the block: nothing of the plan may touch its border. */
 export const STAMP_CLEARANCE = 4;
@@ -24,6 +25,9 @@ export type StampSpot =
   { on: 'page'; rect: Rect; how: 'placed' | StampCorner } | { on: 'cover'; why: string };
 
 type MarkupOnPage = Pick<StampInput['markups'][number], 'kind' | 'geometry' | 'text'>;
+
+/** A measure wider than Lato bold (about 0.55 em a character), so the footprint errs large. */
+const wide = (t: string, size: number) => [...t].length * size * 0.62;
 
 const n = (g: Record<string, number>, k: string, d = 0) =>
   typeof g[k] === 'number' && Number.isFinite(g[k]) ? g[k] : d;
@@ -45,13 +49,20 @@ export function markupFootprint(frame: PageFrame, m: MarkupOnPage): Rect {
       );
       pad = 14;
       break;
-    case 'pin':
     case 'text': {
+      // Laid out as drawn (shared layout), measured wider than Lato bold is, with room for its tag above.
       const [x, y] = markupToDisplay(frame, n(g, 'x'), n(g, 'y'));
-      const size = n(g, 'fontSize', 11);
-      // A text box wraps within 220 pt; a pin's label runs 180 pt to its right.
-      const lines = m.kind === 'text' ? Math.ceil(((m.text ?? '').length * size * 0.55) / 220) + 1 : 3;
-      pts.push([x - 10, y + size + 14], [x + 232, y - lines * size * 1.2 - 10]);
+      const width = typeof g.width === 'number' && g.width > 0 ? g.width : undefined;
+      const b = layoutTextBox({ x, y, fontSize: n(g, 'fontSize', 11), width }, m.text ?? '', frame, wide);
+      const bottom = b.y - (b.lines.length - 1) * b.lineHeight - b.size * 0.3;
+      pts.push([b.x, bottom], [b.x + b.width, b.y + b.size + 14]);
+      labelAbove = 0;
+      break;
+    }
+    case 'pin': {
+      const [x, y] = markupToDisplay(frame, n(g, 'x'), n(g, 'y'));
+      // The pin's disc, and its label running up to 180 pt to its right, three lines at most.
+      pts.push([x - 10, y + 14], [x + 11 + 180, y - 3 * 8 * 1.2 - 10]);
       labelAbove = 0;
       break;
     }
