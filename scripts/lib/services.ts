@@ -91,8 +91,8 @@ export const DEBIAN_PACKAGES: DebianPackage[] = [
   {
     name: 'poppler-utils',
     binaries: ['pdftotext', 'pdftoppm', 'pdfinfo', 'pdfsig'],
-    purposes: ['test'],
-    why: "reading stamped returns back in the tests and checking the return's signature independently",
+    purposes: ['start', 'test'],
+    why: "finding the empty corner of page 1 for the stamp block (pdftoppm), reading stamped returns back in the tests and checking the return's signature independently",
     present: () => ['pdftotext', 'pdftoppm', 'pdfinfo', 'pdfsig'].every((b) => which(b) !== null),
   },
   {

@@ -29,6 +29,7 @@ export type PackageAction =
   | 'raise_finding'
   | 'close_or_reopen_finding'
   | 'edit_markups'
+  | 'place_stamp'
   | 'accept_figure'
   | 'record_decision'
   | 'issue_return'
@@ -50,6 +51,11 @@ export const ACTION_STATES: Record<PackageAction, { states: readonly PackageStat
     when: 'while the package is with the engineer, before the return',
   },
   edit_markups: { states: ['with_engineer'], when: 'while the package is with the engineer' },
+  // Where the stamp goes is part of what the return is built from: open until it is requested.
+  place_stamp: {
+    states: ['with_engineer', 'decided'],
+    when: 'while the package is with the engineer, before the return',
+  },
   accept_figure: { states: ['with_engineer'], when: 'while the package is with the engineer' },
   // The engineer may change the decision until the return is requested (see fixedByReturn).
   record_decision: {
@@ -81,6 +87,7 @@ const FIXED_ONCE_RETURN_REQUESTED: ReadonlySet<PackageAction> = new Set<PackageA
   'raise_finding',
   'close_or_reopen_finding',
   'edit_markups',
+  'place_stamp',
   'accept_figure',
 ]);
 

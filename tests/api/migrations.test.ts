@@ -61,6 +61,11 @@ describe('migrations', () => {
           2,
         ],
         [
+          'StampPlacement',
+          `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'revisions' AND column_name = 'stamp_placement'`,
+          1,
+        ],
+        [
           'UploadContents',
           `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'uploaded_files' AND column_name = 'contents' AND data_type = 'jsonb'`,
           1,

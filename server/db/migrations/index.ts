@@ -13,6 +13,7 @@ import { DeliberateDecision1764720100000 } from './1764720100000-deliberate-deci
 import { OneLiftPlan1764720200000 } from './1764720200000-one-lift-plan';
 import { DocumentUnits1764720300000 } from './1764720300000-document-units';
 import { UploadContents1764722000000 } from './1764722000000-upload-contents';
+import { StampPlacement1764723000000 } from './1764723000000-stamp-placement';
 import { CarriedDocuments1764724000000 } from './1764724000000-carried-documents';
 import { LiveUpdates1764724100000 } from './1764724100000-live-updates';
 
@@ -31,6 +32,7 @@ export const MIGRATIONS = [
   OneLiftPlan1764720200000,
   DocumentUnits1764720300000,
   UploadContents1764722000000,
+  StampPlacement1764723000000,
   CarriedDocuments1764724000000,
   LiveUpdates1764724100000,
 ];

@@ -109,6 +109,9 @@ export class Revision {
     engineer: string;
     at: string;
   }>;
+  /** The engineer's placement of the stamp block on page 1 (display frame, points); null: the desk's corner. */
+  @Column({ type: 'jsonb', name: 'stamp_placement', nullable: true })
+  stampPlacement: { x: number; y: number } | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' }) updatedAt: Date;
 }

@@ -2,13 +2,15 @@
 // at their stored coordinates: outlines for rectangles, ellipses and clouds (a scalloped
 // outline of arcs), an arrow with a filled head, free text, and numbered pins (a filled disc
 // with the number in white). A markup a finding is tied to carries the finding's number ("F3")
-// in its label. Text wraps inside its box (the stored width, or up to the page's right margin)
-// and the box is kept on the page. Called inside the page's display frame (page-frame-pdf.ts).
+// in its label. Text wraps inside its box (the stored width, else 220 pt, never past the page's
+// margins) and is kept on the page, and so is every label: the layout is shared with the
+// workspace (shared/drawing/text-layout.ts). Called inside the page's display frame (page-frame-pdf.ts).
 import type { PDFPage } from 'pdf-lib';
 import { MARKUP_COLOURS, type MarkupColour } from '@shared/schemas/reviews';
 import type { MarkupKind } from '@shared/vocabulary/markups';
 import { markupToDisplay, type PageFrame } from './page-frame-pdf';
-import { drawText, fitText, hexColour, WHITE, widthOf, wrapText, type Fonts } from './text-pdf';
+import { drawText, hexColour, safeText, WHITE, widthOf, type Fonts } from './text-pdf';
+import { layoutLabel, layoutTextBox } from '@shared/drawing/text-layout';
 import { cloudPath } from '@shared/drawing/cloud-path';
 
 export interface MarkupToDraw {
@@ -25,11 +27,6 @@ const STROKE = 1.6;
 const PIN_RADIUS = 8;
 const HEAD_LENGTH = 11;
 const HEAD_HALF_WIDTH = 4.5;
-const LABEL_SIZE = 8;
-const LABEL_WIDTH = 180;
-/** A text markup's box when none was stored, and the margin it keeps from the page's edges. */
-const TEXT_BOX_WIDTH = 220;
-const PAGE_MARGIN = 6;
 
 const num = (g: Record<string, number>, k: string, dflt = 0) =>
   typeof g[k] === 'number' && Number.isFinite(g[k]) ? g[k] : dflt;
@@ -50,41 +47,36 @@ function boxInFrame(f: PageFrame, g: Record<string, number>) {
   };
 }
 
+/** A label on its white backing, kept on the page (layoutLabel). */
 function drawLabel(
   page: PDFPage,
+  f: PageFrame,
   fonts: Fonts,
   text: string,
   x: number,
   y: number,
   colour: ReturnType<typeof hexColour>,
+  below?: number,
 ) {
-  const lines = wrapText(text, fonts.bold, LABEL_SIZE, LABEL_WIDTH).slice(0, 3);
-  if (lines.length === 0 || (lines.length === 1 && lines[0] === '')) return;
-  if (wrapText(text, fonts.bold, LABEL_SIZE, LABEL_WIDTH).length > 3)
-    lines[2] = fitText(lines[2] + '…', fonts.bold, LABEL_SIZE, LABEL_WIDTH);
-  const lh = LABEL_SIZE * 1.2;
-  const w = Math.max(...lines.map((l) => widthOf(l, fonts.bold, LABEL_SIZE)));
+  const block = layoutLabel(safeText(text, fonts.bold), { x, y }, f, measureBold(fonts), below);
+  if (block.lines.length === 0 || (block.lines.length === 1 && block.lines[0] === '')) return;
+  const { lines, lineHeight: lh, size } = block;
   page.drawRectangle({
-    x: x - 2,
-    y: y - (lines.length - 1) * lh - 2.5,
-    width: w + 4,
+    x: block.x - 2,
+    y: block.y - (lines.length - 1) * lh - 2.5,
+    width: block.width + 4,
     height: lines.length * lh + 2,
     color: WHITE,
     opacity: 0.85,
   });
   lines.forEach((line, i) =>
-    drawText(page, line, { x, y: y - i * lh, size: LABEL_SIZE, font: fonts.bold, color: colour }),
+    drawText(page, line, { x: block.x, y: block.y - i * lh, size, font: fonts.bold, color: colour }),
   );
 }
 
-const clampX = (f: PageFrame, x: number, w: number) =>
-  Math.max(PAGE_MARGIN, Math.min(x, f.width - PAGE_MARGIN - w));
+const measureBold = (fonts: Fonts) => (t: string, size: number) => widthOf(t, fonts.bold, size);
 
-/**
- * A text markup: wrapped to its box (the stored width, else up to TEXT_BOX_WIDTH, never past the
- * page's right margin), the box moved left or up so that it stays on the page, and the type made
- * smaller only when the whole page cannot hold it.
- */
+/** A text markup, wrapped inside its box and kept on the page (layoutTextBox, as the workspace draws it). */
 function drawTextBox(
   page: PDFPage,
   f: PageFrame,
@@ -93,24 +85,24 @@ function drawTextBox(
   colour: ReturnType<typeof hexColour>,
 ) {
   const g = m.geometry;
-  let size = Math.min(72, Math.max(4, num(g, 'fontSize', 11)));
-  const [x0, y0] = markupToDisplay(f, num(g, 'x'), num(g, 'y'));
-  const room = Math.max(20, f.width - 2 * PAGE_MARGIN);
-  const width = Math.min(num(g, 'width', TEXT_BOX_WIDTH), room);
-  let lines = wrapText(m.text ?? '', fonts.bold, size, width);
-  while (size > 4 && lines.length * size * 1.2 > f.height - 2 * PAGE_MARGIN) {
-    size = Math.max(4, size - 1);
-    lines = wrapText(m.text ?? '', fonts.bold, size, width);
-  }
-  const used = Math.max(0, ...lines.map((l) => widthOf(l, fonts.bold, size)));
-  const x = clampX(f, x0, used);
-  const lh = size * 1.2;
-  // The first baseline sits at the stored point; the last line's descent stays above the margin.
-  const top = Math.min(y0, f.height - PAGE_MARGIN - size);
-  const y = Math.max(top, PAGE_MARGIN + size * 0.25 + (lines.length - 1) * lh);
-  lines.forEach((line, i) =>
-    drawText(page, line, { x, y: y - i * lh, size, font: fonts.bold, color: colour }),
+  const [x, y] = markupToDisplay(f, num(g, 'x'), num(g, 'y'));
+  const width = typeof g.width === 'number' && g.width > 0 ? g.width : undefined;
+  const block = layoutTextBox(
+    { x, y, fontSize: num(g, 'fontSize', 11), width },
+    safeText(m.text ?? '', fonts.bold, true),
+    f,
+    measureBold(fonts),
   );
+  block.lines.forEach((line, i) =>
+    drawText(page, line, {
+      x: block.x,
+      y: block.y - i * block.lineHeight,
+      size: block.size,
+      font: fonts.bold,
+      color: colour,
+    }),
+  );
+  return block;
 }
 
 /** Draw one page's markups. Must run inside inDisplayFrame for that page. */
@@ -125,7 +117,7 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
       case 'rectangle': {
         const b = boxInFrame(frame, g);
         page.drawRectangle({ ...b, borderColor: colour, borderWidth: STROKE });
-        if (note) drawLabel(page, fonts, note, b.x, b.y + b.height + 4, colour);
+        if (note) drawLabel(page, frame, fonts, note, b.x, b.y + b.height + 4, colour, b.y - 12);
         break;
       }
       case 'ellipse': {
@@ -138,7 +130,7 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
           borderColor: colour,
           borderWidth: STROKE,
         });
-        if (note) drawLabel(page, fonts, note, b.x, b.y + b.height + 4, colour);
+        if (note) drawLabel(page, frame, fonts, note, b.x, b.y + b.height + 4, colour, b.y - 12);
         break;
       }
       case 'cloud': {
@@ -150,7 +142,7 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
           borderColor: colour,
           borderWidth: STROKE,
         });
-        if (note) drawLabel(page, fonts, note, b.x, b.y + b.height + 14, colour);
+        if (note) drawLabel(page, frame, fonts, note, b.x, b.y + b.height + 14, colour, b.y - 20);
         break;
       }
       case 'arrow': {
@@ -176,23 +168,12 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
           `M${p(x2, y2)} L${p(bx - uy * hw, by + ux * hw)} L${p(bx + uy * hw, by - ux * hw)} Z`,
           { x: 0, y: 0, color: colour },
         );
-        if (note) drawLabel(page, fonts, note, x1 + 3, y1 + (uy > 0 ? -10 : 5), colour);
+        if (note) drawLabel(page, frame, fonts, note, x1 + 3, y1 + (uy > 0 ? -10 : 5), colour);
         break;
       }
       case 'text': {
-        drawTextBox(page, frame, fonts, m, colour);
-        if (tag) {
-          const [x, y] = markupToDisplay(frame, num(g, 'x'), num(g, 'y'));
-          const size = Math.min(72, Math.max(4, num(g, 'fontSize', 11)));
-          drawLabel(
-            page,
-            fonts,
-            tag,
-            clampX(frame, x, widthOf(tag, fonts.bold, LABEL_SIZE)),
-            y + size + 2,
-            colour,
-          );
-        }
+        const block = drawTextBox(page, frame, fonts, m, colour);
+        if (tag) drawLabel(page, frame, fonts, tag, block.x, block.y + block.size + 2, colour);
         break;
       }
       case 'pin': {
@@ -202,7 +183,7 @@ export function drawMarkups(page: PDFPage, frame: PageFrame, markups: MarkupToDr
         const size = label.length > 2 ? 7 : 9;
         const w = widthOf(label, fonts.black, size);
         drawText(page, label, { x: x - w / 2, y: y - size * 0.35, size, font: fonts.black, color: WHITE });
-        if (note) drawLabel(page, fonts, note, x + PIN_RADIUS + 3, y + 3, colour);
+        if (note) drawLabel(page, frame, fonts, note, x + PIN_RADIUS + 3, y + 3, colour);
         break;
       }
     }

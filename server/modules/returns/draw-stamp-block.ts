@@ -1,5 +1,5 @@
-// The stamp block on the first page of the return: a compact white panel (230 × 150 pt) in
-// the top-right corner that reads over drawings — the decision in large type with its shape,
+// The stamp block on the first page of the return (or on the cover sheet when page 1 has no
+// room; stamp-placement.ts decides where): a compact white panel (230 × 150 pt) that reads over drawings — the decision in large type with its shape,
 // package reference, revision and title, engineer of record, reviewer, decision and issue
 // dates, the conditions and any override reason (cut short with a pointer to the calculation
 // sheet's page; an override makes the block taller), the
@@ -26,9 +26,10 @@ import {
   type StatusKey,
 } from './text-pdf';
 import { SHORT_CAUTION } from '@shared/vocabulary/cautions';
+import { STAMP_EDGE, STAMP_SIZE } from '@shared/drawing/stamp-outline';
 
-export const STAMP_WIDTH = 230;
-export const STAMP_HEIGHT = 150;
+export const STAMP_WIDTH = STAMP_SIZE.width;
+export const STAMP_HEIGHT = STAMP_SIZE.height;
 export { SHORT_CAUTION };
 
 export type DecisionKey = 'accepted' | 'accepted_as_noted' | 'revise_and_resubmit' | 'rejected';
@@ -93,30 +94,56 @@ export interface FrameBox {
   height: number;
 }
 
-/**
- * Draw the stamp block; must run inside the first page's display frame. Returns the box of its
- * verification rows in the display frame: the return's visible signature field goes there.
- */
-export function drawStampBlock(
-  page: PDFPage,
-  frame: PageFrame,
+/** The block's size on a page: taller by any override lines, scaled down only on a page too small for it. */
+export interface StampBlockLayout {
+  /** Unscaled size. */
+  W: number;
+  H: number;
+  /** Scale (1 but on a tiny page). */
+  k: number;
+  /** Size on the page. */
+  width: number;
+  height: number;
+  overrideLines: string[];
+  /** The return's page number of the calculation sheet's first page. */
+  sheetPage: number;
+}
+
+export function stampBlockLayout(
+  frame: Pick<PageFrame, 'width' | 'height'>,
   fonts: Fonts,
   s: StampBlockData,
-  /** The return's page number of the calculation sheet's first page. */
   sheetPage: number,
-): FrameBox {
+): StampBlockLayout {
   const W = STAMP_WIDTH;
-  const pad = 7;
-  const fullW = W - 2 * pad;
+  const fullW = W - 14;
   // An override of what stood against an acceptance prints under the conditions: the block
   // grows by its lines (two at most here; in full on the calculation sheet).
   const reason = s.overrideReason?.trim();
   const overrideLines = reason ? conditionLines(`${reason}`, fonts, 6.3, fullW - 38, 2, sheetPage) : [];
   const H = STAMP_HEIGHT + (overrideLines.length ? overrideLines.length * 7.4 + 3 : 0);
-  const margin = Math.min(18, frame.width * 0.04, frame.height * 0.04);
+  const margin = Math.min(STAMP_EDGE, frame.width * 0.04, frame.height * 0.04);
   const k = Math.min(1, (frame.width - 2 * margin) / W, (frame.height - 2 * margin) / H);
-  const ox = frame.width - margin - W * k;
-  const oy = frame.height - margin - H * k;
+  return { W, H, k, width: W * k, height: H * k, overrideLines, sheetPage };
+}
+
+/**
+ * Draw the stamp block with its lower-left corner at `at` (display frame); must run inside the
+ * page's display frame. Returns the box of its verification rows in the display frame: the
+ * return's visible signature field goes there.
+ */
+export function drawStampBlock(
+  page: PDFPage,
+  fonts: Fonts,
+  s: StampBlockData,
+  layout: StampBlockLayout,
+  at: { x: number; y: number },
+): FrameBox {
+  const { W, H, k, overrideLines, sheetPage } = layout;
+  const pad = 7;
+  const fullW = W - 2 * pad;
+  const ox = at.x;
+  const oy = at.y;
   page.pushOperators(pushGraphicsState(), concatTransformationMatrix(k, 0, 0, k, ox, oy));
 
   const band = 15;

@@ -41,6 +41,12 @@ export function findingsByMarkup(findings: FindingLike[]): Map<string, string[]>
   return out;
 }
 
+/** The page of the return (without a cover sheet) a finding's markup is on. */
+export function markupReturnPage(files: FileLike[], markups: MarkupLike[], markupId: string | null) {
+  const mk = markupId ? markups.find((m) => m.id === markupId) : undefined;
+  return mk ? returnPage(files, mk.fileId, mk.pageNumber) : null;
+}
+
 /** "Page 3 of the return (plan.pdf, page 1), cloud marked F2": where a finding's markup is. */
 export function markupPlace(
   files: FileLike[],

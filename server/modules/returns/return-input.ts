@@ -12,7 +12,7 @@ import { LiftPackage, Revision } from '../packages/package.entity';
 import { DecisionRecord, Finding, Markup } from '../reviews/review.entity';
 import { Site } from '../sites/site.entity';
 import { User } from '../users/user.entity';
-import { findingLabel, findingsByMarkup, markupPlace } from './finding-marks';
+import { findingLabel, findingsByMarkup, markupPlace, markupReturnPage } from './finding-marks';
 import { resultInUnits } from './result-in-units';
 import type { StampInput } from './stamp-input';
 
@@ -47,6 +47,7 @@ export async function readReturnInput(ds: DataSource, subject: ReturnSubject, ap
     .find({ where: { packageId: pkg.id }, order: { createdAt: 'ASC' } });
   const tags = findingsByMarkup(findings);
   const input: Omit<StampInput, 'documents'> = {
+    placement: revision.stampPlacement ?? null,
     markups: markups.map((mk) => ({
       fileId: mk.fileId,
       pageNumber: mk.pageNumber,
@@ -82,6 +83,7 @@ export async function readReturnInput(ds: DataSource, subject: ReturnSubject, ap
       findings: findings.map((f, i) => ({
         label: findingLabel(i),
         markup: markupPlace(files, markups, f.markupId, findingLabel(i)),
+        markupPage: markupReturnPage(files, markups, f.markupId),
         text: f.text,
         severity: f.severity,
         state: f.state,

@@ -70,6 +70,8 @@ function asDict(v: QValue | undefined): QDict {
 export async function assembleReturn(
   file: string,
   originalCount: number,
+  /** 1 when the overlay's first page after the index is a cover sheet that goes before the plan. */
+  cover: number,
   info: DocumentInfo,
 ): Promise<Assembled> {
   const s = await readStructure(file);
@@ -137,16 +139,21 @@ export async function assembleReturn(
     if (i === 0) firstPage = dict;
     objects.push({ num: Number(pageRef.split(' ')[0]), dict });
   }
-  const kept = [...pageRefs.slice(0, originalCount), ...pageRefs.slice(originalCount + 1)];
+  const covers = pageRefs.slice(originalCount + 1, originalCount + 1 + cover);
+  const kept = [...covers, ...pageRefs.slice(0, originalCount), ...pageRefs.slice(originalCount + 1 + cover)];
   // qpdf writes a flat page tree; pages under another node are re-parented to the root above.
-  for (const p of kept.slice(originalCount)) {
+  // The cover sheet carries the stamp block, so the signature's widget goes on it: its whole
+  // dictionary is written, as the first original's is.
+  for (const p of [...covers, ...kept.slice(cover + originalCount)]) {
     const d = dictOf(s, p) ?? {};
-    if (d['/Parent'] !== pagesRef) {
+    const isCover = covers.includes(p);
+    if (d['/Parent'] !== pagesRef || isCover) {
       const dict: { [key: string]: PdfValue } = { ...d, '/Parent': pagesRef };
       for (const key of ['/MediaBox', '/CropBox', '/Rotate', '/Resources']) {
         const v = inherited(s, p, key);
         if (v !== undefined) dict[key] = v;
       }
+      if (isCover) firstPage = dict;
       objects.push({ num: Number(p.split(' ')[0]), dict });
     }
   }
@@ -185,7 +192,7 @@ export async function assembleReturn(
     catalog,
     infoRef,
     id,
-    firstPageRef: pageRefs[0],
+    firstPageRef: kept[0],
     firstPage,
     firstPageAnnots,
   };

@@ -48,6 +48,8 @@ export interface StampInput {
       label?: string;
       /** Where its markup is, in words ("Page 3 of the return (plan.pdf, page 1), cloud marked F3"). */
       markup?: string | null;
+      /** The page of the return `markup` names, counted without a cover sheet. */
+      markupPage?: number | null;
       text: string;
       severity: string;
       state: string;
@@ -57,4 +59,9 @@ export interface StampInput {
     }>;
     acceptedFigures: Array<{ figure: string; reason: string; engineer: string }>;
   };
+  /**
+   * The engineer's placement of the stamp block on page 1 of the plan: the lower-left corner of
+   * its outline in the page's display frame (points, y up). Null: the desk picks the emptiest corner.
+   */
+  placement?: { x: number; y: number } | null;
 }

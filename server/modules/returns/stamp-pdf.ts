@@ -8,7 +8,9 @@
 // 2. pdf-lib draws only what the desk adds, in a small "overlay" PDF: one Form XObject per
 //    original page (markups, the stamp block on the first page, the footer), all named by one
 //    index page (overlay-carrier.ts; a footer-only page costs one small form, no page), then
-//    the calculation sheet's pages.
+//    the calculation sheet's pages. The stamp block goes where page 1 has nothing under it
+//    (stamp-placement.ts: page 1 rendered by pdftoppm; the engineer's placement, else the
+//    nearest free spot to a corner), else on a cover sheet that comes before the plan.
 // 3. qpdf copies the original pages, the index page and the sheet into one file
 //    (--stream-data=preserve: every original content and image stream byte for byte).
 // 4. An incremental update (pdf-tools/incremental.ts) gives each original page a /Contents
@@ -34,10 +36,27 @@ import path from 'node:path';
 import { PDFDocument, PDFName, PDFNumber, type PDFPage } from 'pdf-lib';
 import type { Signer } from '../../lib/pdf-tools/signer';
 import { sha256OfFile } from '../../lib/storage';
-import { concatenate, QpdfError, readStructure, inherited, type QValue } from '../../lib/pdf-tools/qpdf';
+import { concatenate, QpdfError } from '../../lib/pdf-tools/qpdf';
 import { buildCalculationSheet, drawSheetHeader } from './calc-sheet-pdf';
 import { drawMarkups } from './draw-markups';
-import { drawFooter, drawStampBlock, footerLayout, type FrameBox } from './draw-stamp-block';
+import {
+  drawFooter,
+  drawStampBlock,
+  footerLayout,
+  stampBlockLayout,
+  type FrameBox,
+} from './draw-stamp-block';
+import { COVER_HEADING, drawCoverSheet } from './cover-sheet';
+import { chooseStampSpot, deskReserved, type StampSpot } from './stamp-placement';
+import type { PageInk } from '../../lib/pdf-tools/page-ink';
+import {
+  firstPageInk,
+  frameFromBoxes,
+  originalPages,
+  StampInputError,
+  type Box,
+  type OriginalPage,
+} from './original-pages';
 import { displayToUser, frameOf, inDisplayFrame, type PageFrame } from './page-frame-pdf';
 import { FooterForms, indexPage, pageForm } from './overlay-carrier';
 import { assembleReturn, signReturn, type SignatureField } from './return-structure';
@@ -46,46 +65,11 @@ import type { StampInput } from './stamp-input';
 
 export type { StampInput } from './stamp-input';
 
-export class StampInputError extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = 'StampInputError';
-  }
-}
+export { StampInputError };
 
 function pdfDate(iso: string): Date {
   const d = new Date(iso);
   return Number.isNaN(d.getTime()) ? new Date(0) : d;
-}
-
-type Box = [number, number, number, number];
-
-function boxOf(v: QValue | undefined): Box | null {
-  if (!Array.isArray(v) || v.length !== 4 || !v.every((n) => typeof n === 'number')) return null;
-  const [a, b, c, d] = v as number[];
-  return [Math.min(a, c), Math.min(b, d), Math.max(a, c), Math.max(b, d)];
-}
-
-interface OriginalPage {
-  media: Box;
-  crop: Box | null;
-  rotate: number;
-}
-
-/** Each page's boxes and rotation, read by qpdf; a document qpdf cannot read is refused. */
-async function originalPages(file: string, name: string): Promise<OriginalPage[]> {
-  try {
-    const s = await readStructure(file);
-    return s.pages.map((p) => ({
-      media: boxOf(inherited(s, p.object, '/MediaBox')) ?? [0, 0, 612, 792],
-      crop: boxOf(inherited(s, p.object, '/CropBox')),
-      rotate: Number(inherited(s, p.object, '/Rotate') ?? 0) || 0,
-    }));
-  } catch (err) {
-    if (err instanceof QpdfError)
-      throw new StampInputError(`${name} could not be read as a PDF (${err.message}).`);
-    throw err;
-  }
 }
 
 /** A box in the display frame as a rectangle in the page's user space. */
@@ -102,26 +86,50 @@ function userRect(frame: PageFrame, b: FrameBox): Box {
   return [Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)];
 }
 
-function frameFromBoxes(o: OriginalPage): PageFrame {
-  const v = o.crop ?? o.media;
-  const box = { x: v[0], y: v[1], width: v[2] - v[0], height: v[3] - v[1] };
-  const rotation = ((((Math.round(o.rotate / 90) * 90) % 360) + 360) % 360) as PageFrame['rotation'];
-  const turned = rotation === 90 || rotation === 270;
-  return { box, rotation, width: turned ? box.height : box.width, height: turned ? box.width : box.height };
+/** The findings' "Page 3 of the return" read one page on when a cover sheet comes first. */
+function withCover(input: StampInput): StampInput {
+  const findings = input.calculation.findings.map((f) =>
+    f.markup && f.markupPage != null
+      ? {
+          ...f,
+          markup: f.markup.replace(
+            `Page ${f.markupPage} of the return`,
+            `Page ${f.markupPage + 1} of the return`,
+          ),
+        }
+      : f,
+  );
+  return { ...input, calculation: { ...input.calculation, findings } };
 }
 
 /**
  * The overlay PDF: an index page naming one form per original page (overlay-carrier.ts), then
- * the calculation sheet. Pages with markups or the stamp block are drawn on scratch pages;
- * pages with only the footer get a footer form without a page, so the cost follows the
- * markups, not the page count.
+ * the cover sheet when the stamp goes there, then the calculation sheet. Pages with markups or
+ * the stamp block are drawn on scratch pages; pages with only the footer get a footer form
+ * without a page, so the cost follows the markups, not the page count.
  */
-async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
+async function buildOverlay(input: StampInput, originals: OriginalPage[][], ink: PageInk | null) {
   const { stamp } = input;
   const out = await PDFDocument.create({ updateMetadata: false });
   const fonts = embedFonts(out);
-  let field: { rect: Box } | null = null;
   const originalCount = originals.reduce((n, pages) => n + pages.length, 0);
+  // Page 1 of the plan: where the stamp block goes (stamp-placement.ts).
+  const firstFrame = frameFromBoxes(originals[0][0]);
+  const firstMarks = input.markups.filter(
+    (m) => m.fileId === input.documents[0].fileId && m.pageNumber === 1,
+  );
+  const sheetPageOnPlan = originalCount + 1;
+  const layout = stampBlockLayout(firstFrame, fonts, stamp, sheetPageOnPlan);
+  const footerBox = footerLayout(firstFrame, fonts, footerTextFor(stamp, originalCount, originalCount + 9));
+  const spot = chooseStampSpot({
+    ink,
+    page: firstFrame,
+    size: { width: layout.width, height: layout.height },
+    placed: input.placement ?? null,
+    reserved: deskReserved(firstFrame, firstMarks, footerBox.x),
+  });
+  const cover = spot.on === 'cover' ? 1 : 0;
+  let field: { rect: Box } | null = null;
   type Slot = { o: OriginalPage; frame: PageFrame; page: PDFPage | null };
   const slots: Slot[] = [];
   input.documents.forEach((doc, d) => {
@@ -139,36 +147,48 @@ async function buildOverlay(input: StampInput, originals: OriginalPage[][]) {
       const frame = frameOf(page);
       inDisplayFrame(page, frame, () => {
         drawMarkups(page, frame, marks, fonts);
-        if (first)
-          field = { rect: userRect(frame, drawStampBlock(page, frame, fonts, stamp, originalCount + 1)) };
+        if (first && spot.on === 'page')
+          field = { rect: userRect(frame, drawStampBlock(page, fonts, stamp, layout, spot.rect)) };
       });
       slots.push({ o, frame, page });
     });
   });
   const scratchCount = out.getPageCount();
-  const sheet = buildCalculationSheet(out, fonts, input);
-  const total = originalCount + sheet.length;
-  const footerText = (n: number) => `${stamp.reference} rev ${stamp.revision} — page ${n} of ${total}`;
+  const coverPage =
+    spot.on === 'cover' ? drawCoverSheet(out, fonts, stamp, spot.why, originalCount + 2) : null;
+  if (coverPage) {
+    const f = coverPage.field;
+    field = { rect: [f.x, f.y, f.x + f.width, f.y + f.height] };
+  }
+  const sheet = buildCalculationSheet(out, fonts, cover ? withCover(input) : input);
+  const total = cover + originalCount + sheet.length;
+  const footerText = (n: number) => footerTextFor(stamp, n, total);
   const footers = new FooterForms(out, fonts.bold);
   const forms = slots.map(({ o, frame, page }, i) => {
-    if (!page) return footers.form(o.media, frame, footerLayout(frame, fonts, footerText(i + 1)));
+    if (!page) return footers.form(o.media, frame, footerLayout(frame, fonts, footerText(cover + i + 1)));
     // The footer goes inside the same display-frame group as the markups.
-    inDisplayFrame(page, frame, () => drawFooter(page, frame, fonts, footerText(i + 1)));
+    inDisplayFrame(page, frame, () => drawFooter(page, frame, fonts, footerText(cover + i + 1)));
     return pageForm(page);
   });
-  sheet.forEach((page, k) => {
-    const n = originalCount + k + 1;
+  const added = [
+    ...(coverPage ? [{ page: coverPage.page, n: 1, heading: COVER_HEADING }] : []),
+    ...sheet.map((page, k) => ({ page, n: cover + originalCount + k + 1, heading: undefined })),
+  ];
+  for (const { page, n, heading } of added) {
     const frame = frameOf(page);
     inDisplayFrame(page, frame, () => {
-      drawSheetHeader(page, fonts, input, n, total);
+      drawSheetHeader(page, fonts, input, n, total, heading);
       drawFooter(page, frame, fonts, footerText(n));
     });
-  });
+  }
   for (let k = 0; k < scratchCount; k++) out.removePage(0);
   indexPage(out, forms);
   const bytes = await out.save({ useObjectStreams: false, objectsPerTick: Infinity });
-  return { bytes, originalCount, total, field: field as { rect: Box } | null };
+  return { bytes, originalCount, total, cover, spot, field: field as { rect: Box } | null };
 }
+
+const footerTextFor = (stamp: StampInput['stamp'], n: number, total: number) =>
+  `${stamp.reference} rev ${stamp.revision} — page ${n} of ${total}`;
 
 export interface BuildOptions {
   /** Sign the return (PAdES baseline B) as its last incremental update. */
@@ -185,6 +205,8 @@ export interface BuiltReturn {
   sha256: string;
   /** Size of what the desk adds (overlays, fonts and the calculation sheet) before combining. */
   overlayBytes: number;
+  /** Where the stamp block went: on page 1 (placed or a corner, its display-frame rectangle) or a cover sheet. */
+  stampSpot: StampSpot;
 }
 
 /** Build the return into `outFile`. The documents are only read. */
@@ -208,7 +230,8 @@ export async function buildStampedReturnFile(
     }
     const originals: OriginalPage[][] = [];
     for (const [i, doc] of input.documents.entries()) originals.push(await originalPages(files[i], doc.name));
-    const overlay = await buildOverlay(input, originals);
+    const ink = await firstPageInk(files[0], originals[0][0], work);
+    const overlay = await buildOverlay(input, originals, ink);
     const overlayFile = path.join(work, 'overlay.pdf');
     await writeFile(overlayFile, overlay.bytes);
     try {
@@ -219,7 +242,7 @@ export async function buildStampedReturnFile(
       throw err;
     }
     const issued = pdfDate(stamp.issuedAt);
-    const assembled = await assembleReturn(outFile, overlay.originalCount, {
+    const assembled = await assembleReturn(outFile, overlay.originalCount, overlay.cover, {
       title: `${stamp.reference} rev ${stamp.revision} — stamped return`,
       subject: stamp.title,
       author: stamp.engineer,
@@ -247,6 +270,7 @@ export async function buildStampedReturnFile(
       pages: overlay.total,
       signingCertificateSha256: fingerprint,
       overlayBytes: overlay.bytes.length,
+      stampSpot: overlay.spot,
     };
   } finally {
     await rm(work, { recursive: true, force: true });

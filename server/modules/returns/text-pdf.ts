@@ -3,6 +3,7 @@
 // run by run in the font that has each character, word wrapping measured with those fonts,
 // trade-style dates, and the check-status shapes that keep a status readable in greyscale print.
 import { degrees, rgb, type Color, type PDFPage } from 'pdf-lib';
+import { wrapLines } from '@shared/drawing/text-layout';
 import { CHECK_STATUS_WORDS } from '@shared/vocabulary/check-statuses';
 import { GLYPH_BOX, STATUS_GLYPHS, type GlyphTone } from '@shared/drawing/status-glyphs';
 import type { Face } from './fonts-pdf';
@@ -91,35 +92,9 @@ export function drawText(
   }
 }
 
-/** Break text into safe lines no wider than `width`; long words break by character. */
+/** Break text into safe lines no wider than `width`; long words break by character (shared/drawing/text-layout.ts). */
 export function wrapText(text: string, font: Face, size: number, width: number): string[] {
-  const lines: string[] = [];
-  for (const para of safeText(text, font, true).split('\n')) {
-    const words = para.split(/ +/).filter((w) => w.length > 0);
-    if (words.length === 0) {
-      lines.push('');
-      continue;
-    }
-    let line = '';
-    for (const whole of words) {
-      const candidate = line ? `${line} ${whole}` : whole;
-      if (widthOf(candidate, font, size) <= width) {
-        line = candidate;
-        continue;
-      }
-      if (line) lines.push(line);
-      let word = [...whole];
-      while (word.length > 1 && widthOf(word.join(''), font, size) > width) {
-        let cut = word.length - 1;
-        while (cut > 1 && widthOf(word.slice(0, cut).join(''), font, size) > width) cut--;
-        lines.push(word.slice(0, cut).join(''));
-        word = word.slice(cut);
-      }
-      line = word.join('');
-    }
-    lines.push(line);
-  }
-  return lines;
+  return wrapLines(safeText(text, font, true), width, size, (t, sz) => widthOf(t, font, sz));
 }
 
 /** Shorten one line of text to fit `width`, ending in an ellipsis when cut. */

@@ -13,6 +13,7 @@ import {
   MarkupBody,
   RevisionCompare,
 } from '@shared/schemas/reviews';
+import { StampPlacementBody, StampPlacementView } from '@shared/schemas/stamp-placement';
 import { z } from 'zod';
 import { PackageIdParams } from '../packages/routes';
 import { CompareQuery, FindingParams, MarkupParams, MarkupQuery } from './routes';
@@ -65,6 +66,40 @@ describeRoute({
   tags: ['review'],
   params: MarkupParams,
   status: 204,
+  conflict: ENGINEER_EDIT_CONFLICT,
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/stamp-placement',
+  summary:
+    "Where the stamp block lands on page 1 of the current revision's plan: the engineer's placement, else the emptiest corner, else a cover sheet (engineer, reviewer)",
+  tags: ['review'],
+  params: PackageIdParams,
+  response: StampPlacementView,
+});
+describeRoute({
+  method: 'put',
+  path: '/packages/:id/stamp-placement',
+  summary:
+    'Place the stamp block on page 1 (assigned engineer): the lower-left corner of its outline, in points from the page’s lower-left corner as displayed',
+  tags: ['review'],
+  params: PackageIdParams,
+  body: StampPlacementBody,
+  response: StampPlacementView,
+  conflict: ENGINEER_EDIT_CONFLICT,
+  answers: {
+    400: 'x or y puts the block off page 1: the field and its limits are named',
+    422: 'The block would cover part of page 1 — the plan’s content, a markup or the footer (stamp_over_content)',
+  },
+});
+describeRoute({
+  method: 'delete',
+  path: '/packages/:id/stamp-placement',
+  summary:
+    'Let the desk place the stamp block again (assigned engineer): the emptiest corner, else a cover sheet',
+  tags: ['review'],
+  params: PackageIdParams,
+  response: StampPlacementView,
   conflict: ENGINEER_EDIT_CONFLICT,
 });
 describeRoute({

@@ -21,6 +21,8 @@ import { compareRevisions } from './compare';
 import { acceptFigure, addFinding, listFindings, updateFinding } from './findings';
 import { addMarkup, deleteMarkup, listMarkups } from './markups';
 import { assignEngineer, listEngineers, recordDecision, startNextRevision } from './service';
+import { getStampPlacement, placeStamp, resetStampPlacement } from './stamp-placement';
+import { StampPlacementBody } from '@shared/schemas/stamp-placement';
 
 export const MarkupParams = PackageIdParams.extend({
   markupId: z.uuid({ message: 'markupId must be a UUID' }),
@@ -94,6 +96,41 @@ export function reviewRoutes(ctx: AppContext): Router {
       const { id, markupId } = valid(req, 'params', MarkupParams);
       await deleteMarkup(ds, currentActor(req), id, markupId);
       res.status(204).end();
+    },
+  );
+
+  router.get(
+    '/packages/:id/stamp-placement',
+    auth,
+    requireRole('engineer', 'reviewer'),
+    validate({ params: PackageIdParams }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      res.json(await getStampPlacement(ds, ctx.storage, currentActor(req), id));
+    },
+  );
+
+  router.put(
+    '/packages/:id/stamp-placement',
+    auth,
+    requireRole('engineer'),
+    validate({ params: PackageIdParams, body: StampPlacementBody }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      res.json(
+        await placeStamp(ds, ctx.storage, currentActor(req), id, valid(req, 'body', StampPlacementBody)),
+      );
+    },
+  );
+
+  router.delete(
+    '/packages/:id/stamp-placement',
+    auth,
+    requireRole('engineer'),
+    validate({ params: PackageIdParams }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      res.json(await resetStampPlacement(ds, ctx.storage, currentActor(req), id));
     },
   );
 

@@ -7,11 +7,19 @@ import type { StampInput } from '../stamp-input';
 import { drawText, fitText, GRAPHITE, INK, INK_SOFT, widthOf, type Fonts } from '../text-pdf';
 import { LEFT, PAGE_H, RIGHT, WIDTH } from './layout';
 
-export function drawSheetHeader(page: PDFPage, fonts: Fonts, input: StampInput, n: number, total: number) {
+export function drawSheetHeader(
+  page: PDFPage,
+  fonts: Fonts,
+  input: StampInput,
+  n: number,
+  total: number,
+  /** The cover sheet (cover-sheet.ts) names itself. */
+  heading = 'CALCULATION SHEET · STAMPED RETURN',
+) {
   const { stamp } = input;
   const top = PAGE_H - 30;
   page.drawRectangle({ x: LEFT, y: top + 8, width: WIDTH, height: 3, color: GRAPHITE });
-  drawText(page, 'CALCULATION SHEET · STAMPED RETURN', {
+  drawText(page, heading, {
     x: LEFT,
     y: top - 4,
     size: 7,

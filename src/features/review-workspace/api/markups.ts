@@ -38,7 +38,10 @@ export function useCreateMarkup(packageId: string) {
       queryClient.setQueryData<Markup[]>(packageKeys.markups(packageId), (list) => [...(list ?? []), saved]);
     },
     onError: (error) => refetchIfReviewClosed(queryClient, packageId, error),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: packageKeys.markups(packageId) }),
+    onSettled: () => {
+      void queryClient.invalidateQueries({ queryKey: packageKeys.stampPlacement(packageId) });
+      return queryClient.invalidateQueries({ queryKey: packageKeys.markups(packageId) });
+    },
   });
 }
 
@@ -56,6 +59,9 @@ export function useDeleteMarkup(packageId: string) {
       );
     },
     onError: (error) => refetchIfReviewClosed(queryClient, packageId, error),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: packageKeys.markups(packageId) }),
+    onSettled: () => {
+      void queryClient.invalidateQueries({ queryKey: packageKeys.stampPlacement(packageId) });
+      return queryClient.invalidateQueries({ queryKey: packageKeys.markups(packageId) });
+    },
   });
 }

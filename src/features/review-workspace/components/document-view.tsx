@@ -8,6 +8,18 @@ import type { MarkupEditing } from '../hooks/use-markup-editing';
 import { usePdfDocument } from '../hooks/use-pdf-document';
 import { MarkupLayer } from './markup-layer';
 import { PdfPages } from './pdf-pages';
+import { StampOutline } from './stamp-outline';
+import type { StampPlacementBody, StampPlacementView } from '@shared/schemas/stamp-placement';
+
+/** The stamp block's outline on page 1 of the plan (stamp-outline.tsx). */
+export type StampControls = {
+  view: StampPlacementView | undefined;
+  editable: boolean;
+  saving: boolean;
+  error: string | null;
+  onPlace: (at: StampPlacementBody) => void;
+  onReset: () => void;
+};
 
 type RevisionFile = PackageDetail['current']['files'][number];
 
@@ -24,6 +36,7 @@ function OpenDocument({
   markups,
   editing,
   editable,
+  stamp,
 }: {
   packageId: string;
   file: RevisionFile;
@@ -31,6 +44,7 @@ function OpenDocument({
   markups: Markup[];
   editing: MarkupEditing;
   editable: boolean;
+  stamp: StampControls;
 }) {
   const state = usePdfDocument(fileUrl(packageId, file.id));
   if (state.status === 'loading') {
@@ -72,23 +86,37 @@ function OpenDocument({
       onPick={(n) => view.goToPage(n)}
       markups={markups}
       renderLayer={(n, viewport) => (
-        <MarkupLayer
-          viewport={viewport}
-          fileId={file.id}
-          pageNumber={n}
-          markups={markups.filter((m) => m.pageNumber === n)}
-          tool={editing.tool}
-          colour={editing.colour}
-          editable={editable}
-          selectedId={editing.selectedId}
-          onSelect={editing.setSelectedId}
-          onCreate={editing.add}
-          pending={pending && pending.fileId === file.id && pending.pageNumber === n ? pending : null}
-          onPendingStart={(at) => editing.setPending({ fileId: file.id, pageNumber: n, at, value: '' })}
-          onPendingChange={(value) => editing.setPending((p) => (p ? { ...p, value } : p))}
-          onPendingSave={editing.savePendingText}
-          onPendingCancel={() => editing.setPending(null)}
-        />
+        <>
+          <MarkupLayer
+            viewport={viewport}
+            fileId={file.id}
+            pageNumber={n}
+            markups={markups.filter((m) => m.pageNumber === n)}
+            tool={editing.tool}
+            colour={editing.colour}
+            editable={editable}
+            selectedId={editing.selectedId}
+            onSelect={editing.setSelectedId}
+            onCreate={editing.add}
+            pending={pending && pending.fileId === file.id && pending.pageNumber === n ? pending : null}
+            onPendingStart={(at) => editing.setPending({ fileId: file.id, pageNumber: n, at, value: '' })}
+            onPendingChange={(value) => editing.setPending((p) => (p ? { ...p, value } : p))}
+            onPendingSave={editing.savePendingText}
+            onPendingCancel={() => editing.setPending(null)}
+          />
+          {n === 1 && stamp.view && stamp.view.fileId === file.id && (
+            <StampOutline
+              viewport={viewport}
+              view={stamp.view}
+              editable={stamp.editable}
+              active={editing.tool === 'select'}
+              saving={stamp.saving}
+              error={stamp.error}
+              onPlace={stamp.onPlace}
+              onReset={stamp.onReset}
+            />
+          )}
+        </>
       )}
     />
   );
@@ -100,6 +128,7 @@ export function DocumentView(props: {
   markups: Markup[];
   editing: MarkupEditing;
   editable: boolean;
+  stamp: StampControls;
 }) {
   const file = props.view.file;
   if (!file)

@@ -17,6 +17,8 @@ import {
   type ViewPoint,
 } from '../lib/geometry';
 import type { PdfViewport } from '../lib/pdf-loader';
+import { layoutLabel, layoutTextBox, type TextBlock } from '@shared/drawing/text-layout';
+import { measureBold } from '../lib/text-measure';
 import { markupName, type Tool } from '../lib/tools';
 
 export const TEXT_SIZE = 11;
@@ -51,6 +53,87 @@ function ArrowShape({ a, b, colour, s }: { a: ViewPoint; b: ViewPoint; colour: s
       />
     </>
   );
+}
+
+/**
+ * The page as the return lays text out on it: the display frame in points (y up), from the
+ * viewport (its size, turned by the page's rotation, over the zoom).
+ */
+function displayFrame(viewport: PdfViewport, s: number) {
+  const page = { width: viewport.width / s, height: viewport.height / s };
+  return {
+    page,
+    toDisplay: (p: ViewPoint) => ({ x: p.x / s, y: page.height - p.y / s }),
+    toView: (x: number, y: number): ViewPoint => ({ x: x * s, y: (page.height - y) * s }),
+  };
+}
+
+/** A laid-out block's lines as SVG text at the zoom; with a white backing for labels, as printed. */
+function TextLines({
+  block,
+  frame,
+  s,
+  colour,
+  backing,
+}: {
+  block: TextBlock;
+  frame: ReturnType<typeof displayFrame>;
+  s: number;
+  colour: string;
+  backing?: boolean;
+}) {
+  const at = frame.toView(block.x, block.y);
+  const lh = block.lineHeight * s;
+  return (
+    <>
+      {backing && (
+        <rect
+          x={at.x - 2 * s}
+          y={at.y - block.size * s - 0.5 * s}
+          width={(block.width + 4) * s}
+          height={(block.lines.length * block.lineHeight + 2) * s}
+          fill="#fff"
+          opacity={0.85}
+        />
+      )}
+      <text
+        x={at.x}
+        y={at.y}
+        fontSize={block.size * s}
+        fontWeight={700}
+        fill={colour}
+        data-testid="markup-text"
+      >
+        {block.lines.map((line, i) => (
+          <tspan key={i} x={at.x} y={at.y + i * lh}>
+            {line}
+          </tspan>
+        ))}
+      </text>
+    </>
+  );
+}
+
+/** A label whose first baseline would be at view point `p`, kept on the page (layoutLabel). */
+function Label({
+  text,
+  p,
+  below,
+  viewport,
+  colour,
+}: {
+  text: string;
+  p: ViewPoint;
+  /** View y of the first baseline when there is no room above (below the shape). */
+  below?: number;
+  viewport: PdfViewport;
+  colour: string;
+}) {
+  const s = pointScale(viewport);
+  const frame = displayFrame(viewport, s);
+  const under = below === undefined ? undefined : frame.toDisplay({ x: p.x, y: below }).y;
+  const block = layoutLabel(text, frame.toDisplay(p), frame.page, measureBold, under);
+  return <TextLines block={block} frame={frame} s={s} colour={colour} backing />;
 }
 
 function MarkupShape({
@@ -103,9 +186,14 @@ function MarkupShape({
             />
           )}
           {note && (
-            <text x={b.left} y={b.top - 4 * s} fontSize={8 * s} fontWeight={700} fill={colour}>
-              {note}
-            </text>
+            <Label
+              text={note}
+              // The return puts a cloud's label higher, clear of its scallops.
+              p={{ x: b.left, y: b.top - (markup.kind === 'cloud' ? 14 : 4) * s }}
+              below={b.top + b.height + (markup.kind === 'cloud' ? 20 : 12) * s}
+              viewport={viewport}
+              colour={colour}
+            />
           )}
         </>
       );
@@ -132,17 +220,15 @@ function MarkupShape({
         </>
       );
     case 'text': {
-      const p = toViewPoint(viewport, g.x ?? 0, g.y ?? 0);
-      const size = (g.fontSize ?? TEXT_SIZE) * s;
-      return (
-        <text x={p.x} y={p.y} fontSize={size} fontWeight={700} fill={colour}>
-          {(markup.text ?? '').split('\n').map((line, i) => (
-            <tspan key={i} x={p.x} dy={i === 0 ? 0 : size * 1.2}>
-              {line}
-            </tspan>
-          ))}
-        </text>
+      const frame = displayFrame(viewport, s);
+      const at = frame.toDisplay(toViewPoint(viewport, g.x ?? 0, g.y ?? 0));
+      const block = layoutTextBox(
+        { ...at, fontSize: g.fontSize ?? TEXT_SIZE, width: g.width },
+        markup.text ?? '',
+        frame.page,
+        measureBold,
       );
+      return <TextLines block={block} frame={frame} s={s} colour={colour} />;
     }
     case 'pin': {
       const p = toViewPoint(viewport, g.x ?? 0, g.y ?? 0);
@@ -153,15 +239,12 @@ function MarkupShape({
             {markup.number ?? ''}
           </text>
           {note && (
-            <text
-              x={p.x + (PIN_RADIUS + 3) * s}
-              y={p.y - 3 * s}
-              fontSize={8 * s}
-              fontWeight={700}
-              fill={colour}
-            >
-              {note}
-            </text>
+            <Label
+              text={note}
+              p={{ x: p.x + (PIN_RADIUS + 3) * s, y: p.y - 3 * s }}
+              viewport={viewport}
+              colour={colour}
+            />
           )}
         </>
       );

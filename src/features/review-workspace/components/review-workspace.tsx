@@ -24,7 +24,8 @@ import { useWorkspaceKeys } from '../hooks/use-workspace-keys';
 import { CheckPanel, type RaiseFinding } from './check-panel';
 import { DecisionForm } from './decision-form';
 import { DocumentToolbar } from './document-toolbar';
-import { DocumentView } from './document-view';
+import { DocumentView, type StampControls } from './document-view';
+import { useChangeStampPlacement, useStampPlacement } from '../api/stamp-placement';
 import { FindingsPanel } from './findings-panel';
 import { RevisionDifference } from './revision-difference';
 import { ToolRail } from './tool-rail';
@@ -57,6 +58,16 @@ export function ReviewWorkspace({
   const setFindingState = useSetFindingState(pkg.id);
 
   const view = useDocumentView(files);
+  const stampQuery = useStampPlacement(pkg.id, user.role === 'engineer' || user.role === 'reviewer');
+  const changeStamp = useChangeStampPlacement(pkg.id);
+  const stamp: StampControls = {
+    view: stampQuery.data,
+    editable: access.canPlaceStamp,
+    saving: changeStamp.isPending,
+    error: changeStamp.error instanceof Error ? changeStamp.error.message : null,
+    onPlace: (at) => changeStamp.mutate(at),
+    onReset: () => changeStamp.mutate(null),
+  };
   const editing = useMarkupEditing(pkg.id, access.canMarkUp);
   const composer = useFindingComposer(pkg.id, access.canMarkUp);
   const [selectedFindingId, setSelectedFindingId] = useState<string | null>(null);
@@ -167,6 +178,7 @@ export function ReviewWorkspace({
           markups={fileMarkups}
           editing={editing}
           editable={access.canMarkUp}
+          stamp={stamp}
         />
       </div>
     </section>

@@ -16,6 +16,8 @@ export type WorkspaceAccess = {
   canDecide: boolean;
   /** Closing and reopening findings. */
   canChangeFindings: boolean;
+  /** Dragging the stamp block's outline on page 1: like the decision, until the return is requested. */
+  canPlaceStamp: boolean;
   /** Why the workspace is read-only (or partly), in a sentence; null when everything is open. */
   reason: string | null;
 };
@@ -46,5 +48,6 @@ export function workspaceAccess(user: CurrentUser, detail: PackageDetail): Works
     reason = `Read-only: the package is ${PACKAGE_STATUS_LABELS[pkg.status].toLowerCase()}.`;
   }
   const canChangeFindings = allowed('close_or_reopen_finding');
-  return { assigned, canMarkUp, canDecide, canChangeFindings, reason };
+  const canPlaceStamp = allowed('place_stamp');
+  return { assigned, canMarkUp, canDecide, canChangeFindings, canPlaceStamp, reason };
 }
