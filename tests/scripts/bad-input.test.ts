@@ -54,7 +54,8 @@ describe.runIf(process.getuid?.() === 0)('starting with a fault', () => {
   }, 60_000);
 
   it('when a Debian package is missing and the user is not root, then one sentence names the packages and how to install them', async () => {
-    // A PATH holding only node: redis-server, qpdf and apt-get are not found.
+    // A PATH holding only node: redis-server, qpdf, pdftoppm (poppler-utils, the stamp's page
+    // render) and apt-get are not found.
     const bin = path.join(tmp, 'bin');
     fs.mkdirSync(bin);
     fs.symlinkSync(process.execPath, path.join(bin, 'node'));
@@ -66,7 +67,7 @@ describe.runIf(process.getuid?.() === 0)('starting with a fault', () => {
     const lines = desk.output().trim().split('\n');
     expect(lines).toHaveLength(1);
     expect(lines[0]).toMatch(
-      /^\[counterpoise\] step "install packages" failed: missing Debian packages redis-server, qpdf: install them with your system's package manager \(Debian names: redis-server qpdf\), then start again\.$/,
+      /^\[counterpoise\] step "install packages" failed: missing Debian packages redis-server, qpdf, poppler-utils: install them with your system's package manager \(Debian names: redis-server qpdf poppler-utils\), then start again\.$/,
     );
     expect(fs.existsSync(path.join(writable, 'data', 'pg'))).toBe(false);
   }, 60_000);
