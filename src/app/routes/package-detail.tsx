@@ -16,6 +16,7 @@ import { PackageHeading } from '@/features/packages/components/package-heading';
 import { CheckProgress } from '@/features/packages/components/detail/check-progress';
 import { RevisionTimeline } from '@/features/packages/components/detail/revision-timeline';
 import { PackageResults } from '@/features/packages/components/detail/package-results';
+import { AssignPanel } from '@/features/review-desk/components/assign-panel';
 import { FileRow } from '@/features/packages/components/editor/documents-step';
 import { DocumentUnits } from '@/features/packages/components/detail/document-units';
 import { ReturnsPanel } from '@/features/returns/components/returns-panel';
@@ -154,6 +155,9 @@ export default function PackageDetailRoute() {
             canIssue={user.role === 'reviewer'}
             revisions={data.revisions}
           />
+          {!contractor && current.state === 'submitted' && (
+            <AssignPanel pkg={data.package} canAssign={user.role === 'reviewer'} />
+          )}
           <DocumentUnits units={data.documentUnits} />
           <section aria-labelledby="files-title" className="border border-rule bg-sheet">
             <h2 id="files-title" className="border-b border-rule px-3 py-2 text-[14px] font-bold">
