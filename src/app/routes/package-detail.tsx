@@ -16,6 +16,7 @@ import { PackageHeading } from '@/features/packages/components/package-heading';
 import { CheckProgress } from '@/features/packages/components/detail/check-progress';
 import { RevisionTimeline } from '@/features/packages/components/detail/revision-timeline';
 import { PackageResults } from '@/features/packages/components/detail/package-results';
+import { DecisionPanel } from '@/features/returns/components/decision-panel';
 import { AssignPanel } from '@/features/review-desk/components/assign-panel';
 import { FileRow } from '@/features/packages/components/editor/documents-step';
 import { DocumentUnits } from '@/features/packages/components/detail/document-units';
@@ -103,7 +104,7 @@ export default function PackageDetailRoute() {
       )}
 
       {!contractor && current.state === 'submitted' && (
-        <div className="-mt-2 mb-3 flex flex-wrap items-center gap-2">
+        <div data-print="hide" className="-mt-2 mb-3 flex flex-wrap items-center gap-2">
           {user.role === 'engineer' && data.package.engineer?.id === user.id ? (
             <Link to={`/packages/${id}/review`} className={buttonClasses('primary', 'sm')}>
               Open review workspace
@@ -148,6 +149,9 @@ export default function PackageDetailRoute() {
           )}
         </div>
         <aside className="flex flex-col gap-4">
+          {data.decision && !(contractor && resubmission === 'returned') && (
+            <DecisionPanel decision={data.decision} />
+          )}
           <ReturnsPanel
             packageId={id}
             status={data.package.status}
