@@ -205,7 +205,24 @@ export const AssignBody = z.object({
     .min(1, 'packageIds must list at least 1 package')
     .max(100, 'packageIds must list at most 100 packages'),
   engineerId: z.uuid({ message: 'engineerId must be the id of an engineer' }),
+  /** A note to the engineer, in the mail and the assignment history. */
+  note: safeText('note').trim().max(500, 'note must be at most 500 characters').optional(),
 });
+
+/** GET /api/packages/:id/assignments: who has been the package's engineer of record, newest first. */
+export const AssignmentHistory = z.object({
+  items: z.array(
+    z.object({
+      id: z.uuid(),
+      engineer: z.string(),
+      assignedBy: z.string(),
+      assignedAt: z.string(),
+      endedAt: z.string().nullable(),
+      note: z.string().nullable(),
+    }),
+  ),
+});
+export type AssignmentHistory = z.infer<typeof AssignmentHistory>;
 
 export const Verification = z.object({
   found: z.literal(true),

@@ -50,6 +50,7 @@ export const packageKeys = {
   returns: (id: string) => [...packageKeys.detail(id), 'returns'] as const,
   findings: (id: string) => [...packageKeys.detail(id), 'findings'] as const,
   markups: (id: string) => [...packageKeys.detail(id), 'markups'] as const,
+  assignments: (id: string) => [...packageKeys.detail(id), 'assignments'] as const,
   /** Where the stamp block lands on page 1 (it moves when a markup takes its corner). */
   stampPlacement: (id: string) => [...packageKeys.detail(id), 'stamp-placement'] as const,
   compare: (id: string, from: number, to: number) =>

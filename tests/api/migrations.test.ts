@@ -51,6 +51,11 @@ describe('migrations', () => {
       // one takes each count to 0 in turn. A new migration adds its row at the top.
       const LATEST: Array<[string, string, number]> = [
         [
+          'AssignmentNote',
+          `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'assignments' AND column_name = 'note'`,
+          1,
+        ],
+        [
           'LiveUpdates',
           `SELECT count(*) AS n FROM pg_trigger WHERE tgname IN ('lift_packages_live', 'audit_events_live', 'mail_messages_live')`,
           3,

@@ -61,6 +61,7 @@ const ALLOWED: Record<string, Allowed> = {
   'POST /api/packages/:id/check-run/retry': ['contractor', 'reviewer'],
   'GET /api/engineers': ['reviewer', 'admin'],
   'POST /api/assignments': R,
+  'GET /api/packages/:id/assignments': ['reviewer', 'engineer', 'admin'],
   'POST /api/packages/:id/returns': R,
   'POST /api/packages/:id/markups': E,
   'DELETE /api/packages/:id/markups/:markupId': E,

@@ -16,6 +16,7 @@ import { UploadContents1764722000000 } from './1764722000000-upload-contents';
 import { StampPlacement1764723000000 } from './1764723000000-stamp-placement';
 import { CarriedDocuments1764724000000 } from './1764724000000-carried-documents';
 import { LiveUpdates1764724100000 } from './1764724100000-live-updates';
+import { AssignmentNote1764724200000 } from './1764724200000-assignment-note';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
@@ -35,4 +36,5 @@ export const MIGRATIONS = [
   StampPlacement1764723000000,
   CarriedDocuments1764724000000,
   LiveUpdates1764724100000,
+  AssignmentNote1764724200000,
 ];

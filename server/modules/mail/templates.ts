@@ -74,11 +74,14 @@ export const templates = {
       ],
       { url: p.url, label: 'Open the package' },
     ),
-  assigned: (to: string, p: PackageRef, by: string): Rendered =>
+  assigned: (to: string, p: PackageRef, by: string, note?: string | null): Rendered =>
     render(
       `${p.reference} assigned to you for review — ${p.title}`,
       `Hello ${to},`,
-      [`${by} assigned ${p.reference} "${p.title}" at ${p.site} to you as engineer of record (${when(p)}).`],
+      [
+        `${by} assigned ${p.reference} "${p.title}" at ${p.site} to you as engineer of record (${when(p)}).`,
+        ...(note ? [`${by}'s note: ${note}`] : []),
+      ],
       { url: p.url, label: 'Open the package' },
     ),
   decided: (

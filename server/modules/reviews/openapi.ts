@@ -4,6 +4,7 @@ import {
   AcceptFigureBody,
   AssignBody,
   AssignResult,
+  AssignmentHistory,
   DecisionBody,
   EngineerList,
   FindingBody,
@@ -38,6 +39,14 @@ describeRoute({
   body: AssignBody,
   response: AssignResult,
   conflict: "The package's status allows no assignment, e.g. once decided (not_assignable)",
+});
+describeRoute({
+  method: 'get',
+  path: '/packages/:id/assignments',
+  summary: "The package's engineers of record over time, newest first, with the coordinators' notes",
+  tags: ['review'],
+  params: PackageIdParams,
+  response: AssignmentHistory,
 });
 describeRoute({
   method: 'get',

@@ -35,6 +35,8 @@ export class Assignment {
   assignedById: string;
   @CreateDateColumn({ type: 'timestamptz', name: 'assigned_at' }) assignedAt: Date;
   @Column({ type: 'timestamptz', name: 'ended_at', nullable: true }) endedAt: Date | null;
+  /** The coordinator's note to the engineer (migration AssignmentNote1764724200000). */
+  @Column({ type: 'varchar', length: 500, nullable: true }) note: string | null;
 }
 
 @Index('findings_created_by_idx', ['createdById'])

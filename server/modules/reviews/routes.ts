@@ -16,6 +16,7 @@ import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { stepUpLimit } from '../auth/rate-limits';
 import { PackageIdParams } from '../packages/routes';
+import { assignmentHistory } from './assignments';
 import { packageDetail } from '../packages/service';
 import { compareRevisions } from './compare';
 import { acceptFigure, addFinding, listFindings, updateFinding } from './findings';
@@ -61,8 +62,20 @@ export function reviewRoutes(ctx: AppContext): Router {
           body.packageIds,
           body.engineerId,
           appUrl(ctx.config),
+          body.note,
         ),
       );
+    },
+  );
+
+  router.get(
+    '/packages/:id/assignments',
+    auth,
+    requireRole('reviewer', 'engineer', 'admin'),
+    validate({ params: PackageIdParams }),
+    async (req, res) => {
+      const { id } = valid(req, 'params', PackageIdParams);
+      res.json(await assignmentHistory(ds, currentActor(req), id));
     },
   );
 

@@ -54,6 +54,7 @@ export async function assignEngineer(
   packageIds: string[],
   engineerId: string,
   appUrl: string,
+  note?: string,
 ) {
   if (user.role !== 'reviewer') throw AppError.forbidden('Only a reviewer assigns engineers.');
   const engineer = await ds
@@ -95,7 +96,7 @@ export async function assignEngineer(
         .update({ packageId: pkg.id, endedAt: IsNull() }, { endedAt: new Date() });
       const assignment = await m
         .getRepository(Assignment)
-        .save({ packageId: pkg.id, engineerId: engineer.id, assignedById: user.id });
+        .save({ packageId: pkg.id, engineerId: engineer.id, assignedById: user.id, note: note || null });
       const site = await m.getRepository(Site).findOneByOrFail({ id: pkg.siteId });
       mail.push({
         event: 'assigned',
@@ -112,6 +113,7 @@ export async function assignEngineer(
             url: `${appUrl}/packages/${pkg.id}`,
           },
           user.name,
+          note,
         ),
       });
       await m.getRepository(LiftPackage).update(pkg.id, {
@@ -125,6 +127,7 @@ export async function assignEngineer(
         detail: {
           engineer: engineer.name,
           engineerId: engineer.id,
+          ...(note ? { note } : {}),
         },
       });
     }

@@ -16,6 +16,8 @@ import { PackageHeading } from '@/features/packages/components/package-heading';
 import { CheckProgress } from '@/features/packages/components/detail/check-progress';
 import { RevisionTimeline } from '@/features/packages/components/detail/revision-timeline';
 import { PackageResults } from '@/features/packages/components/detail/package-results';
+import { DecisionPanel } from '@/features/returns/components/decision-panel';
+import { AssignPanel } from '@/features/review-desk/components/assign-panel';
 import { FileRow } from '@/features/packages/components/editor/documents-step';
 import { DocumentUnits } from '@/features/packages/components/detail/document-units';
 import { ReturnsPanel } from '@/features/returns/components/returns-panel';
@@ -102,7 +104,7 @@ export default function PackageDetailRoute() {
       )}
 
       {!contractor && current.state === 'submitted' && (
-        <div className="-mt-2 mb-3 flex flex-wrap items-center gap-2">
+        <div data-print="hide" className="-mt-2 mb-3 flex flex-wrap items-center gap-2">
           {user.role === 'engineer' && data.package.engineer?.id === user.id ? (
             <Link to={`/packages/${id}/review`} className={buttonClasses('primary', 'sm')}>
               Open review workspace
@@ -147,6 +149,9 @@ export default function PackageDetailRoute() {
           )}
         </div>
         <aside className="flex flex-col gap-4">
+          {data.decision && !(contractor && resubmission === 'returned') && (
+            <DecisionPanel decision={data.decision} />
+          )}
           <ReturnsPanel
             packageId={id}
             status={data.package.status}
@@ -154,6 +159,9 @@ export default function PackageDetailRoute() {
             canIssue={user.role === 'reviewer'}
             revisions={data.revisions}
           />
+          {!contractor && current.state === 'submitted' && (
+            <AssignPanel pkg={data.package} canAssign={user.role === 'reviewer'} />
+          )}
           <DocumentUnits units={data.documentUnits} />
           <section aria-labelledby="files-title" className="border border-rule bg-sheet">
             <h2 id="files-title" className="border-b border-rule px-3 py-2 text-[14px] font-bold">

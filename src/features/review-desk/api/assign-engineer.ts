@@ -6,7 +6,7 @@ import { AssignResult } from '@shared/schemas/reviews';
 import { api, isApiError } from '@/lib/api-client';
 import { engineerKeys, packageKeys } from '@/lib/query-keys';
 
-export type AssignInput = { packageIds: string[]; engineerId: string };
+export type AssignInput = { packageIds: string[]; engineerId: string; note?: string };
 
 export function assignEngineer(input: AssignInput): Promise<AssignResult> {
   return api.post('/api/assignments', input, AssignResult);
