@@ -47,9 +47,13 @@ describe('migrations', () => {
         ]),
       );
       const count = async (sql: string) => Number((await ds.query(sql))[0].n);
-      // The last migration gives packages, sites and returns their unit system; the one before it holds one lift plan per revision; the one before that keeps what a decision overrode, why, and what it was made on; the one
+      // The last migration gives the queue its sort and trigram indexes and the counts kept by a
+      // trigger; the one before it gives packages, sites and returns their unit system; the one before it holds one lift plan per revision; the one before that keeps what a decision overrode, why, and what it was made on; the one
       // before it indexes the foreign keys that had none; the one before that adds the fleet library.
       const lastMigration = async () => [
+        await count(
+          `SELECT count(*) + (SELECT count(*) FROM pg_trigger WHERE tgname = 'lift_packages_status_counts') AS n FROM pg_indexes WHERE indexname IN ('lift_packages_lift_date_asc_idx', 'lift_packages_lift_date_desc_idx', 'lift_packages_updated_idx', 'lift_packages_discrepancies_idx', 'lift_packages_revision_idx', 'lift_packages_reference_trgm_idx', 'lift_packages_title_trgm_idx', 'package_status_counts_pkey')`,
+        ),
         await count(
           `SELECT count(*) AS n FROM information_schema.columns WHERE column_name = 'unit_system' AND table_name IN ('lift_packages', 'sites', 'stamped_returns')`,
         ),
@@ -66,19 +70,21 @@ describe('migrations', () => {
           `SELECT count(*) AS n FROM information_schema.tables WHERE table_name IN ('library_cranes', 'library_configurations', 'library_versions', 'library_chart_cells', 'library_verifications', 'library_uses')`,
         ),
       ];
-      expect(await lastMigration()).toEqual([3, 1, 6, 4, 6]);
+      expect(await lastMigration()).toEqual([9, 3, 1, 6, 4, 6]);
       await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 1, 6, 4, 6]);
+      expect(await lastMigration()).toEqual([0, 3, 1, 6, 4, 6]);
       await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 6, 4, 6]);
+      expect(await lastMigration()).toEqual([0, 0, 1, 6, 4, 6]);
       await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 0, 4, 6]);
+      expect(await lastMigration()).toEqual([0, 0, 0, 6, 4, 6]);
       await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 0, 0, 6]);
+      expect(await lastMigration()).toEqual([0, 0, 0, 0, 4, 6]);
       await ds.undoLastMigration();
-      expect(await lastMigration()).toEqual([0, 0, 0, 0, 0]);
+      expect(await lastMigration()).toEqual([0, 0, 0, 0, 0, 6]);
+      await ds.undoLastMigration();
+      expect(await lastMigration()).toEqual([0, 0, 0, 0, 0, 0]);
       expect(await tables(ds)).toContain('lift_packages');
-      for (let i = 5; i < MIGRATIONS.length; i++) await ds.undoLastMigration();
+      for (let i = 6; i < MIGRATIONS.length; i++) await ds.undoLastMigration();
       expect((await tables(ds)).filter((t) => t !== 'migrations')).toEqual([]);
     } finally {
       await ds.destroy();

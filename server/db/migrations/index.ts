@@ -12,6 +12,7 @@ import { ForeignKeyIndexes1764718000000 } from './1764718000000-foreign-key-inde
 import { DeliberateDecision1764720100000 } from './1764720100000-deliberate-decision';
 import { OneLiftPlan1764720200000 } from './1764720200000-one-lift-plan';
 import { DocumentUnits1764720300000 } from './1764720300000-document-units';
+import { QueueAtScale1764721000000 } from './1764721000000-queue-at-scale';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
@@ -27,4 +28,5 @@ export const MIGRATIONS = [
   DeliberateDecision1764720100000,
   OneLiftPlan1764720200000,
   DocumentUnits1764720300000,
+  QueueAtScale1764721000000,
 ];

@@ -16,7 +16,8 @@ import { currentActor, requireAuth, requireRole } from '../../middleware/auth';
 import { valid, validate } from '../../middleware/validate';
 import { addFile, readFile, removeFile } from '../files/service';
 import { createPackage, duplicatePackage, saveDraft, submitPackage } from './drafts';
-import { getPackage, getRevision, listPackages, packageDetail } from './service';
+import { listPackages } from './list-packages';
+import { getPackage, getRevision, packageDetail } from './service';
 
 export const PackageIdParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }) });
 export const FileParams = PackageIdParams.extend({ fileId: z.uuid({ message: 'fileId must be a UUID' }) });
