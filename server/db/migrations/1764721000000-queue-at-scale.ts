@@ -31,7 +31,9 @@ export class QueueAtScale1764721000000 implements MigrationInterface {
     await q.query(
       `CREATE INDEX lift_packages_reference_trgm_idx ON lift_packages USING gin (reference gin_trgm_ops)`,
     );
-    await q.query(`CREATE INDEX lift_packages_title_trgm_idx ON lift_packages USING gin (title gin_trgm_ops)`);
+    await q.query(
+      `CREATE INDEX lift_packages_title_trgm_idx ON lift_packages USING gin (title gin_trgm_ops)`,
+    );
 
     await q.query(
       `CREATE TABLE package_status_counts (

@@ -25,7 +25,8 @@ function filteredPackages(manager: EntityManager, user: Actor, query: PackageLis
   if (query.contractorId)
     qb.andWhere('p.contractor_organisation_id = :contractorId', { contractorId: query.contractorId });
   if (query.engineerId === 'none') qb.andWhere('p.assigned_engineer_id IS NULL');
-  else if (query.engineerId) qb.andWhere('p.assigned_engineer_id = :engineerId', { engineerId: query.engineerId });
+  else if (query.engineerId)
+    qb.andWhere('p.assigned_engineer_id = :engineerId', { engineerId: query.engineerId });
   if (query.critical !== undefined) qb.andWhere('p.critical = :critical', { critical: query.critical });
   if (query.discrepancies === true) qb.andWhere('p.open_discrepancies > 0');
   if (query.discrepancies === false) qb.andWhere('p.open_discrepancies = 0');
@@ -36,7 +37,8 @@ function filteredPackages(manager: EntityManager, user: Actor, query: PackageLis
       { within: query.liftWithinDays },
     );
   }
-  if (query.revisionMin) qb.andWhere('p.current_revision >= :revisionMin', { revisionMin: query.revisionMin });
+  if (query.revisionMin)
+    qb.andWhere('p.current_revision >= :revisionMin', { revisionMin: query.revisionMin });
   if (query.q) {
     qb.andWhere('(p.reference ILIKE :q OR p.title ILIKE :q)', {
       q: `%${query.q.replace(/[%_\\]/g, '\\$&')}%`,
@@ -114,10 +116,13 @@ function pageOf(qb: SelectQueryBuilder<LiftPackage>, query: PackageListQuery, cu
   // Walking back reads the index the other way and turns the rows round afterwards.
   const descending = key.desc !== before;
   if (cursor) {
-    qb.andWhere(`(${key.expr}, p.reference) ${descending ? '<' : '>'} (CAST(:cursorKey AS ${key.type}), :cursorRef)`, {
-      cursorKey: cursor.key,
-      cursorRef: cursor.reference,
-    });
+    qb.andWhere(
+      `(${key.expr}, p.reference) ${descending ? '<' : '>'} (CAST(:cursorKey AS ${key.type}), :cursorRef)`,
+      {
+        cursorKey: cursor.key,
+        cursorRef: cursor.reference,
+      },
+    );
   } else if (query.page > 1) qb.offset((query.page - 1) * query.pageSize);
   const dir = descending ? 'DESC' : 'ASC';
   return qb

@@ -20,7 +20,11 @@ export class PackageStatusCount {
     primaryKeyConstraintName: 'package_status_counts_pkey',
   })
   status: string;
-  @PrimaryColumn({ type: 'boolean', name: 'first_draft', primaryKeyConstraintName: 'package_status_counts_pkey' })
+  @PrimaryColumn({
+    type: 'boolean',
+    name: 'first_draft',
+    primaryKeyConstraintName: 'package_status_counts_pkey',
+  })
   firstDraft: boolean;
   @Column({ type: 'int', default: 0 }) n: number;
 }
