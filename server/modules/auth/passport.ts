@@ -3,6 +3,7 @@
 // signing them out everywhere bumps the version, and signing out revokes the session, so
 // older tokens stop working at once. A token without `exp`, or whose `sub` or `sid` is not
 // an id, is refused (401) before the database is asked.
+import { createSecretKey, type KeyObject } from 'node:crypto';
 import type { Request } from 'express';
 import { Passport } from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
@@ -21,13 +22,19 @@ export interface TokenPayload {
 
 export function createPassport(dataSource: DataSource, secret: string) {
   const passport = new Passport();
+  // jsonwebtoken turns a string secret into a key on every verify, first by trying it as a public
+  // key (a thrown and caught error): a tenth of a signed-in request's CPU. The key is made once.
+  // @types/passport-jwt lists only string | Buffer for the key, jsonwebtoken takes a KeyObject:
+  // handed over untyped (Reflect.apply) rather than cast.
+  const key: KeyObject = createSecretKey(Buffer.from(secret));
   passport.use(
     new JwtStrategy(
       {
         jwtFromRequest: ExtractJwt.fromExtractors([
           (req: Request) => (req?.cookies?.[SESSION_COOKIE] as string | undefined) ?? null,
         ]),
-        secretOrKey: secret,
+        secretOrKeyProvider: (_req: Request, _token: string, done: (err: null, key: string) => void) =>
+          Reflect.apply(done, undefined, [null, key]),
         algorithms: ['HS256'],
         passReqToCallback: true,
       },
