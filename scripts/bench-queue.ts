@@ -44,6 +44,7 @@ function get(
   port: number,
   url: string,
   cookie: string,
+  retry = true,
 ): Promise<{ status: number; body: Buffer; ms: number }> {
   const t0 = performance.now();
   return new Promise((resolve, reject) => {
@@ -55,7 +56,13 @@ function get(
       );
       res.on('error', reject);
     });
-    req.on('error', reject);
+    // A kept-alive socket the server closed while it sat idle (its 5 s keep-alive timeout): asked
+    // again once on a new one, as Node's documentation advises.
+    req.on('error', (e: NodeJS.ErrnoException) => {
+      if (retry && req.reusedSocket && e.code === 'ECONNRESET')
+        get(port, url, cookie, false).then(resolve, reject);
+      else reject(e);
+    });
     req.end();
   });
 }

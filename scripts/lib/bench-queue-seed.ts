@@ -2,7 +2,9 @@
 // (INSERT … SELECT over generate_series, a few statements), so that seeding takes seconds: one
 // owner's desk with 20 sites (the reviewer serves 10 of them, so half the packages are in their
 // scope), 40 contractors with a planner each, 30 engineers; statuses, revisions (1–4, each with a
-// whole example lift as its inputs and that lift's evaluated result when it was checked), planned
+// whole example lift as its inputs; the current one, once checked, with that lift's evaluated
+// result, 30–70 kB of JSON: older revisions' results are left out to keep seeding within two
+// minutes, and the queue reads neither), planned
 // lift dates (a few missing), criticality, discrepancies and engineers spread as on a busy desk.
 // The names and figures are invented demo data.
 import fs from 'node:fs';
@@ -24,6 +26,14 @@ export interface SeededQueue {
 const EXAMPLES = ['caution-tandem.json', 'caution-discrepancies.json', 'fail-capacity.json'];
 
 export async function seedQueue(ds: DataSource, packages: number): Promise<SeededQueue> {
+  const step = (() => {
+    let t = performance.now();
+    return (what: string) => {
+      const now = performance.now();
+      process.stdout.write(`  seed: ${what} ${((now - t) / 1000).toFixed(1)} s\n`);
+      t = now;
+    };
+  })();
   const { makeOrganisation, makeSite, makeUser, makeWorld } = await import('../../tests/support/factories');
   const w = await makeWorld(ds);
   const contractors = [w.contractorA, w.contractorB];
@@ -45,8 +55,14 @@ export async function seedQueue(ds: DataSource, packages: number): Promise<Seede
   );
   const results = inputs.map((x) => evaluateLift(LiftInput.parse(x)));
 
-  await ds.query(`SELECT setseed(0.16)`);
-  await ds.query(
+  step('people and sites');
+  // One session for the seed: the random seed holds in it, and lz4 compresses the JSON quicker
+  // than the default pglz.
+  const session = ds.createQueryRunner();
+  await session.connect();
+  await session.query(`SET default_toast_compression = 'lz4'`);
+  await session.query(`SELECT setseed(0.16)`);
+  await session.query(
     `INSERT INTO lift_packages (reference, title, contractor_organisation_id, site_id, created_by_id, status,
        planned_lift_date, current_revision, assigned_engineer_id, critical, worst_status, open_discrepancies,
        decision, created_at, updated_at)
@@ -83,8 +99,9 @@ export async function seedQueue(ds: DataSource, packages: number): Promise<Seede
       packages,
     ],
   );
+  step(`${packages} packages`);
   // Every revision up to the current one; the current one of a draft package is the draft.
-  await ds.query(
+  await session.query(
     `INSERT INTO revisions (package_id, number, state, inputs, submitted_at, submitted_by_id, check_status,
        check_progress, result_version, results, checked_at, created_at, updated_at)
      SELECT p.id, n, CASE WHEN p.status = 'draft' AND n = p.current_revision THEN 'draft' ELSE 'submitted' END,
@@ -95,14 +112,17 @@ export async function seedQueue(ds: DataSource, packages: number): Promise<Seede
          WHEN p.status = 'checking' AND n = p.current_revision THEN 'running'
          WHEN p.status = 'check_failed' AND n = p.current_revision THEN 'failed' ELSE 'done' END,
        100, 1,
-       CASE WHEN p.status IN ('draft', 'checking', 'check_failed') AND n = p.current_revision THEN NULL
+       CASE WHEN n < p.current_revision OR p.status IN ('draft', 'checking', 'check_failed') THEN NULL
          ELSE ($2::jsonb[])[1 + (n + length(p.reference)) % 3] END,
        p.updated_at, p.created_at, p.updated_at
      FROM lift_packages p CROSS JOIN LATERAL generate_series(1, p.current_revision) AS n
      WHERE p.site_id = ANY($3::uuid[])`,
     [inputs.map((x) => JSON.stringify(x)), results.map((x) => JSON.stringify(x)), sites.map((s) => s.id)],
   );
+  step('revisions');
+  await session.release();
   await ds.query(`VACUUM ANALYZE`);
+  step('vacuum and analyse');
   return {
     reviewerEmail: w.reviewer.email,
     siteId: w.site.id,
