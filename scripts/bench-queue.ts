@@ -235,9 +235,9 @@ async function explain(url: string, s: SeededQueue, v: Variant) {
       [s.reviewerEmail],
     );
     const query = PackageListQuery.parse(Object.fromEntries(new URLSearchParams(v.query)));
-    await listPackages(ds, user, query);
-    const runs = [...statements];
     statements.length = 0;
+    await listPackages(ds, user, query);
+    const runs = statements.filter((st) => /^\s*SELECT/i.test(st.sql));
     for (const st of runs) {
       const plan: Array<{ 'QUERY PLAN': string }> = await ds.query(
         `EXPLAIN (ANALYZE, BUFFERS) ${st.sql}`,

@@ -85,12 +85,12 @@ export const PackageListResponse = z.object({
   pageSize: z.number().int(),
   countsByStatus: z.record(z.string(), z.number().int()),
   /**
-   * Counts are exact up to this many; a status in `countsOverLimit` has more than this many
-   * (its count is given as the limit). Only filters the kept counts cannot answer are bounded.
+   * With filters the kept counts cannot answer, at most this many packages are counted: when more
+   * match, every status is in `countsOverLimit` and its count is a lower bound ("at least").
    */
   countLimit: z.number().int().default(0),
   countsOverLimit: z.array(PackageStatus).default([]),
-  /** `total` is a lower bound: at least one status it adds up has more than `countLimit`. */
+  /** `total` is a lower bound (more packages match than were counted). */
   totalOverLimit: z.boolean().default(false),
   /** The cursor of the page after this one (null on the last page) and of the page before (null on the first). */
   nextCursor: z.string().nullable().default(null),

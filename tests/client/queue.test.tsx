@@ -133,25 +133,33 @@ describe('site queue', () => {
     );
   });
 
-  it('when a count is over the limit the server counts exactly, then it says "more than" in words', async () => {
+  it('when more packages match than the server counts, then the counts say "at least" in words', async () => {
     reviewerWithList(undefined, {
-      countsByStatus: { ready_for_review: 1000, decided: 4 },
+      countsByStatus: { ready_for_review: 997, decided: 4 },
       countLimit: 1000,
-      countsOverLimit: ['ready_for_review'],
-      total: 1004,
+      countsOverLimit: [
+        'draft',
+        'checking',
+        'check_failed',
+        'ready_for_review',
+        'with_engineer',
+        'decided',
+        'returned',
+      ],
+      total: 1001,
       totalOverLimit: true,
     });
     renderApp('/queue?critical=true');
 
     const counts = await screen.findByRole('group', { name: 'Packages by status' });
     const ready = within(counts).getByRole('button', { name: /Ready for review/ });
-    expect(ready.textContent).toContain('more than 1,000');
-    expect(within(counts).getByRole('button', { name: /All/ }).textContent).toContain('more than 1,004');
-    expect(within(counts).getByRole('button', { name: /Decision recorded/ }).textContent).not.toContain(
-      'more',
+    expect(ready.textContent).toContain('at least 997');
+    expect(within(counts).getByRole('button', { name: /All/ }).textContent).toContain('at least 1,001');
+    expect(within(counts).getByRole('button', { name: /Decision recorded/ }).textContent).toContain(
+      'at least 4',
     );
-    expect(counts.textContent).toContain('counted exactly up to 1,000 packages');
-    expect(screen.getByRole('navigation', { name: 'Pages' }).textContent).toContain('of more than 1,004');
+    expect(counts.textContent).toContain('More than 1,000 packages match these filters');
+    expect(screen.getByRole('navigation', { name: 'Pages' }).textContent).toContain('of at least 1,001');
   });
 
   it('when j and k are pressed on the rows, then focus moves down and up, and Enter opens the package', async () => {

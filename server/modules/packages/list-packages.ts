@@ -4,8 +4,8 @@
 //   - a page is a keyset range from the cursor over the sort's own index (list-cursor.ts), the
 //     site, contractor and engineer names joined only for the rows of the page (many-to-one);
 //   - the counts by status come from the counts a trigger keeps (package_status_counts) when the
-//     filters are ones they answer (scope, site, contractor); otherwise each status is counted up
-//     to COUNT_LIMIT and beyond that said to be "more than" it;
+//     filters are ones they answer (scope, site, contractor); otherwise from one pass over at most
+//     COUNT_LIMIT + 1 matching packages: exact within it, lower bounds ("at least") beyond;
 //   - the search runs on the trigram indexes of reference and title.
 import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager, SelectQueryBuilder } from 'typeorm';
@@ -15,7 +15,7 @@ import type { LiftPackage } from './package.entity';
 import { scopedPackages, scopedStatusCounts } from './package-scope';
 import { decodeCursor, encodeCursor, sortKey, type Cursor } from './list-cursor';
 
-/** Counts above this many are given as "more than" it when no kept count answers them. */
+/** With filters the kept counts cannot answer, the packages counted at most (+ 1 to know there are more). */
 export const COUNT_LIMIT = 1000;
 
 /** The scope and every filter but the status (the counts are by status). */
@@ -68,25 +68,20 @@ async function countsByStatus(manager: EntityManager, user: Actor, query: Packag
       .getRawMany<{ status: string; n: number }>();
     return { counts: Object.fromEntries(rows.filter((r) => r.n > 0).map((r) => [r.status, r.n])), over: [] };
   }
-  // Each status counted up to COUNT_LIMIT + 1 rows: the work is bounded whatever the scope. The
-  // statement is the query builder's own (every value a parameter) inside a lateral count.
+  // One pass over at most COUNT_LIMIT + 1 matching packages, whatever the scope (a count per
+  // status would repeat the filter's scan, the search's trigram bitmap, once per status). Within the
+  // limit the counts are exact; beyond it every status's count is a lower bound ("at least").
   const [inner, params] = filteredPackages(manager, user, query)
-    .andWhere('p.status = s.status')
-    .select('1')
+    .select('p.status', 'status')
     .limit(COUNT_LIMIT + 1)
     .getQueryAndParameters();
   const rows: { status: PackageStatus; n: number }[] = await manager.query(
-    `SELECT s.status, (SELECT count(*)::int FROM (${inner}) x) AS n
-     FROM unnest($${params.length + 1}::varchar[]) AS s(status)`,
-    [...params, PACKAGE_STATUSES],
+    `SELECT status, count(*)::int AS n FROM (${inner}) x GROUP BY status`,
+    params,
   );
-  const counts: Record<string, number> = {};
-  const over: PackageStatus[] = [];
-  for (const r of rows) {
-    if (r.n > COUNT_LIMIT) over.push(r.status);
-    if (r.n > 0) counts[r.status] = Math.min(r.n, COUNT_LIMIT);
-  }
-  return { counts, over };
+  const counts = Object.fromEntries(rows.map((r) => [r.status, r.n]));
+  const seen = rows.reduce((sum, r) => sum + r.n, 0);
+  return { counts, over: seen > COUNT_LIMIT ? [...PACKAGE_STATUSES] : [] };
 }
 
 interface Row {

@@ -18,7 +18,7 @@ export function Pager({
   page: number;
   pageSize: number;
   total: number;
-  /** `total` is a lower bound ("more than"). */
+  /** `total` is a lower bound ("at least"). */
   totalOverLimit: boolean;
   nextCursor: string | null;
   previousCursor: string | null;
@@ -39,7 +39,7 @@ export function Pager({
         </strong>{' '}
         of{' '}
         <strong className="text-ink">
-          {totalOverLimit ? `more than ${total.toLocaleString('en-GB')}` : total}
+          {totalOverLimit ? `at least ${total.toLocaleString('en-GB')}` : total}
         </strong>{' '}
         · page {page}
         {totalOverLimit ? '' : ` of ${pages}`}

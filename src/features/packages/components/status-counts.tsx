@@ -1,6 +1,6 @@
 // Counts by status across the top of a list; each count is also the quickest way to
 // filter the list to that status (press again to show all). With filters the kept counts cannot
-// answer, a status with more packages than the server counts exactly says "more than" the limit.
+// answer and more matching packages than the server counts, each count says "at least".
 import { PACKAGE_STATUSES, PACKAGE_STATUS_LABELS, type PackageStatus } from '@shared/schemas/common';
 import { StatusShape } from '@/components/ui/status-badge';
 
@@ -23,7 +23,7 @@ export function StatusCounts({
   statuses = PACKAGE_STATUSES,
 }: {
   counts: Record<string, number>;
-  /** Statuses whose count is "more than `limit`" (given as the limit). */
+  /** Statuses whose count is a lower bound ("at least"); `limit` is how many were counted. */
   overLimit?: readonly string[];
   limit?: number;
   active: PackageStatus | undefined;
@@ -35,7 +35,7 @@ export function StatusCounts({
   const figure = (n: number, over: boolean) =>
     over ? (
       <span className="text-[22px] font-black leading-none tabular">
-        <span className="text-[12px] font-bold">more than </span>
+        <span className="text-[12px] font-bold">at least </span>
         {n.toLocaleString('en-GB')}
       </span>
     ) : (
@@ -80,8 +80,8 @@ export function StatusCounts({
       ))}
       {anyOver && (
         <p className="basis-full border-t border-rule px-3 py-1 text-[12.5px] text-ink-soft">
-          With these filters each status is counted exactly up to {limit.toLocaleString('en-GB')} packages;
-          beyond that the count says “more than”.
+          More than {limit.toLocaleString('en-GB')} packages match these filters: the desk counts that many,
+          so each count is the least there are.
         </p>
       )}
     </div>
