@@ -9,6 +9,7 @@ import { Passport } from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import type { DataSource } from 'typeorm';
 import { User } from '../users/user.entity';
+import { preparedQuery } from '../../db/prepared';
 import { isUuid, LIVE_SESSION } from './sessions';
 
 export const SESSION_COOKIE = 'cp_session';
@@ -75,7 +76,8 @@ async function sessionUser(dataSource: DataSource, payload: TokenPayload): Promi
     organisation_id: string;
     organisation_name: string;
     organisation_kind: Express.User['organisation']['kind'];
-  }> = await dataSource.query(
+  }> = await preparedQuery(
+    dataSource,
     `SELECT u.id, u.email, u.name, u.role, u.unit_system, o.id AS organisation_id,
             o.name AS organisation_name, o.kind AS organisation_kind
      FROM users u JOIN organisations o ON o.id = u.organisation_id

@@ -12,6 +12,7 @@ import type { DataSource, EntityManager, SelectQueryBuilder } from 'typeorm';
 import { PACKAGE_STATUSES, type PackageStatus } from '@shared/schemas/common';
 import type { PackageListQuery, PackageListResponse, PackageSummary } from '@shared/schemas/packages';
 import type { LiftPackage } from './package.entity';
+import { preparedQuery } from '../../db/prepared';
 import { scopedPackages, scopedStatusCounts } from './package-scope';
 import { decodeCursor, encodeCursor, sortKey, type Cursor } from './list-cursor';
 
@@ -55,17 +56,19 @@ interface Counts {
 /** Filters the kept counts cannot answer: with any of them on, the counts are bounded counts. */
 const NOT_KEPT = ['engineerId', 'critical', 'discrepancies', 'liftWithinDays', 'revisionMin', 'q'] as const;
 
-async function countsByStatus(manager: EntityManager, user: Actor, query: PackageListQuery): Promise<Counts> {
+async function countsByStatus(dataSource: DataSource, user: Actor, query: PackageListQuery): Promise<Counts> {
+  const manager = dataSource.manager;
   const kept = NOT_KEPT.some((k) => query[k] !== undefined) ? null : scopedStatusCounts(manager, user);
   if (kept) {
     if (query.siteId) kept.andWhere('c.site_id = :siteId', { siteId: query.siteId });
     if (query.contractorId)
       kept.andWhere('c.contractor_organisation_id = :contractorId', { contractorId: query.contractorId });
-    const rows = await kept
+    const [sql, params] = kept
       .select('c.status', 'status')
       .addSelect('sum(c.n)::int', 'n')
       .groupBy('c.status')
-      .getRawMany<{ status: string; n: number }>();
+      .getQueryAndParameters();
+    const rows = await preparedQuery<{ status: string; n: number }>(dataSource, sql, params);
     return { counts: Object.fromEntries(rows.filter((r) => r.n > 0).map((r) => [r.status, r.n])), over: [] };
   }
   // One pass over at most COUNT_LIMIT + 1 matching packages, whatever the scope (a count per
@@ -75,7 +78,8 @@ async function countsByStatus(manager: EntityManager, user: Actor, query: Packag
     .select('p.status', 'status')
     .limit(COUNT_LIMIT + 1)
     .getQueryAndParameters();
-  const rows: { status: PackageStatus; n: number }[] = await manager.query(
+  const rows = await preparedQuery<{ status: PackageStatus; n: number }>(
+    dataSource,
     `SELECT status, count(*)::int AS n FROM (${inner}) x GROUP BY status`,
     params,
   );
@@ -176,8 +180,8 @@ export async function listPackages(
   const qb = filteredPackages(manager, user, query);
   if (query.status) qb.andWhere('p.status = :status', { status: query.status });
   const [fetched, { counts, over }] = await Promise.all([
-    pageOf(qb, query, cursor).getRawMany<Row>(),
-    countsByStatus(manager, user, query),
+    preparedQuery<Row>(dataSource, ...pageOf(qb, query, cursor).getQueryAndParameters()),
+    countsByStatus(dataSource, user, query),
   ]);
   const more = fetched.length > query.pageSize;
   const rows = fetched.slice(0, query.pageSize);
