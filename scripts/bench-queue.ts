@@ -228,6 +228,16 @@ async function explain(url: string, s: SeededQueue, v: Variant) {
   };
   const ds: DataSource = new DS({ ...createDataSource(url).options, logging: ['query'], logger: capture });
   await ds.initialize();
+  // The list's statements go to the pool as named prepared statements (server/db/prepared.ts),
+  // past TypeORM's logger: the pool's query is wrapped to see them too.
+  const pool = (ds.driver as unknown as { master: { query: (...a: unknown[]) => Promise<unknown> } }).master;
+  const poolQuery = pool.query.bind(pool);
+  pool.query = (...a: unknown[]) => {
+    const config = a[0] as { text?: string; values?: unknown[] };
+    if (typeof config === 'object' && config.text)
+      statements.push({ sql: config.text, params: config.values ?? [] });
+    return poolQuery(...a);
+  };
   try {
     const [user] = await ds.query(
       `SELECT u.id, u.role, u.organisation_id AS "organisationId", o.kind AS "organisationKind", u.name
