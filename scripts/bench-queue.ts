@@ -111,6 +111,7 @@ async function startServer(
   args: string[],
 ): Promise<{ port: number; child: ChildProcess }> {
   const prof = PROFILE && !args.includes('--bare') ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE}`] : [];
+  // spawns: node (process.execPath: the API or the bare route, in a process of its own)
   const child = spawn(
     process.execPath,
     [...prof, '--import', 'tsx', 'scripts/bench-queue-server.ts', ...args],
