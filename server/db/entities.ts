@@ -8,6 +8,7 @@ import { LIBRARY_ENTITIES } from '../modules/library/library.entity';
 import { CaughtMail, MailMessage } from '../modules/mail/mail.entity';
 import { Organisation } from '../modules/organisations/organisation.entity';
 import { LiftPackage, Revision } from '../modules/packages/package.entity';
+import { PackageStatusCount } from '../modules/packages/package-status-count.entity';
 import { Assignment, DecisionRecord, Finding, Markup, StampedReturn } from '../modules/reviews/review.entity';
 import { Site, SiteMember } from '../modules/sites/site.entity';
 import { User } from '../modules/users/user.entity';
@@ -19,6 +20,7 @@ export const ENTITIES = [
   SiteMember,
   LiftPackage,
   Revision,
+  PackageStatusCount,
   UploadedFile,
   Assignment,
   Finding,

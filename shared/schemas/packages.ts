@@ -45,6 +45,16 @@ export const PackageListQuery = z.object({
   sort: z
     .enum(PACKAGE_SORTS, { message: `sort must be one of ${PACKAGE_SORTS.join(', ')}` })
     .default('plannedLiftDate'),
+  /**
+   * Where the page starts: the `nextCursor` or `previousCursor` of the page before, for the same
+   * filters and sort. Without it, `page` counts from the start (an offset: slower on deep pages).
+   */
+  cursor: z
+    .string()
+    .max(600, 'cursor must be at most 600 characters')
+    .regex(/^[A-Za-z0-9_-]+$/, 'cursor must be one the list gave out')
+    .optional(),
+  /** The page's number, shown beside the rows; it positions the rows only when there is no cursor. */
   page: z.coerce.number().int().min(1, 'page must be 1 or more').max(10_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(100, 'pageSize must be at most 100').default(25),
 });
@@ -74,6 +84,17 @@ export const PackageListResponse = z.object({
   page: z.number().int(),
   pageSize: z.number().int(),
   countsByStatus: z.record(z.string(), z.number().int()),
+  /**
+   * With filters the kept counts cannot answer, at most this many packages are counted: when more
+   * match, every status is in `countsOverLimit` and its count is a lower bound ("at least").
+   */
+  countLimit: z.number().int().default(0),
+  countsOverLimit: z.array(PackageStatus).default([]),
+  /** `total` is a lower bound (more packages match than were counted). */
+  totalOverLimit: z.boolean().default(false),
+  /** The cursor of the page after this one (null on the last page) and of the page before (null on the first). */
+  nextCursor: z.string().nullable().default(null),
+  previousCursor: z.string().nullable().default(null),
 });
 export type PackageListResponse = z.infer<typeof PackageListResponse>;
 

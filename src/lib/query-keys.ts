@@ -21,6 +21,7 @@ export type PackageListFilters = Pick<
   | 'revisionMin'
   | 'q'
   | 'sort'
+  | 'cursor'
   | 'page'
   | 'pageSize'
 >;

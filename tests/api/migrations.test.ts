@@ -76,6 +76,11 @@ describe('migrations', () => {
           1,
         ],
         [
+          'QueueAtScale',
+          `SELECT count(*) + (SELECT count(*) FROM pg_trigger WHERE tgname = 'lift_packages_status_counts') AS n FROM pg_indexes WHERE indexname IN ('lift_packages_lift_date_asc_idx', 'lift_packages_lift_date_desc_idx', 'lift_packages_updated_idx', 'lift_packages_discrepancies_idx', 'lift_packages_revision_idx', 'lift_packages_reference_trgm_idx', 'lift_packages_title_trgm_idx', 'package_status_counts_pkey')`,
+          9,
+        ],
+        [
           'DocumentUnits',
           `SELECT count(*) AS n FROM information_schema.columns WHERE column_name = 'unit_system' AND table_name IN ('lift_packages', 'sites', 'stamped_returns')`,
           3,

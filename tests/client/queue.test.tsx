@@ -85,18 +85,81 @@ describe('site queue', () => {
     );
   });
 
-  it('when next page is pressed, then page 2 is asked for with the same filters', async () => {
-    const fetchMock = reviewerWithList([makePackage(1)], { total: 60, page: 1, pageSize: 25 });
-    renderApp('/queue?status=ready_for_review');
+  it('when next page is pressed, then the page after is asked for by its cursor with the same filters', async () => {
+    const fetchMock = reviewerWithList([makePackage(1)], {
+      total: 60,
+      page: 1,
+      pageSize: 25,
+      nextCursor: 'after-row-25',
+      previousCursor: null,
+    });
+    const { router } = renderApp('/queue?status=ready_for_review');
     const user = userEvent.setup();
 
+    expect((await screen.findByRole('button', { name: /Previous/ })).hasAttribute('disabled')).toBe(true);
     await user.click(await screen.findByRole('button', { name: /Next/ }));
 
     await waitFor(() =>
       expect(callsTo(fetchMock, '/api/packages').at(-1)).toBe(
-        '/api/packages?status=ready_for_review&sort=plannedLiftDate&page=2&pageSize=25',
+        '/api/packages?status=ready_for_review&sort=plannedLiftDate&cursor=after-row-25&page=2&pageSize=25',
       ),
     );
+    expect(router.state.location.search).toBe('?status=ready_for_review&page=2&cursor=after-row-25');
+  });
+
+  it('when previous is pressed, then page 3 goes back by its cursor and page 2 to the first page without one', async () => {
+    // The server echoes the page it was asked for.
+    const fetchMock = stubFetch((url) => {
+      if (url.pathname === '/api/me') return { status: 200, body: { user: makeUser('reviewer') } };
+      if (url.pathname === '/api/packages') {
+        const page = Number(url.searchParams.get('page'));
+        return listReply([makePackage(page)], {
+          total: 80,
+          page,
+          nextCursor: 'n',
+          previousCursor: page === 3 ? 'before-row-51' : 'before-row-26',
+        });
+      }
+    });
+    const { router } = renderApp('/queue?page=3&cursor=after-row-50');
+    const user = userEvent.setup();
+    await screen.findByRole('table');
+    await user.click(await screen.findByRole('button', { name: /Previous/ }));
+    await waitFor(() => expect(router.state.location.search).toBe('?page=2&cursor=before-row-51'));
+    await user.click(await screen.findByRole('button', { name: /Previous/ }));
+    await waitFor(() => expect(router.state.location.search).toBe(''));
+    expect(callsTo(fetchMock, '/api/packages').at(-1)).toBe(
+      '/api/packages?sort=plannedLiftDate&page=1&pageSize=25',
+    );
+  });
+
+  it('when more packages match than the server counts, then the counts say "at least" in words', async () => {
+    reviewerWithList(undefined, {
+      countsByStatus: { ready_for_review: 997, decided: 4 },
+      countLimit: 1000,
+      countsOverLimit: [
+        'draft',
+        'checking',
+        'check_failed',
+        'ready_for_review',
+        'with_engineer',
+        'decided',
+        'returned',
+      ],
+      total: 1001,
+      totalOverLimit: true,
+    });
+    renderApp('/queue?critical=true');
+
+    const counts = await screen.findByRole('group', { name: 'Packages by status' });
+    const ready = within(counts).getByRole('button', { name: /Ready for review/ });
+    expect(ready.textContent).toContain('at least 997');
+    expect(within(counts).getByRole('button', { name: /All/ }).textContent).toContain('at least 1,001');
+    expect(within(counts).getByRole('button', { name: /Decision recorded/ }).textContent).toContain(
+      'at least 4',
+    );
+    expect(counts.textContent).toContain('More than 1,000 packages match these filters');
+    expect(screen.getByRole('navigation', { name: 'Pages' }).textContent).toContain('of at least 1,001');
   });
 
   it('when j and k are pressed on the rows, then focus moves down and up, and Enter opens the package', async () => {

@@ -12,6 +12,7 @@ import { ForeignKeyIndexes1764718000000 } from './1764718000000-foreign-key-inde
 import { DeliberateDecision1764720100000 } from './1764720100000-deliberate-decision';
 import { OneLiftPlan1764720200000 } from './1764720200000-one-lift-plan';
 import { DocumentUnits1764720300000 } from './1764720300000-document-units';
+import { QueueAtScale1764721000000 } from './1764721000000-queue-at-scale';
 import { UploadContents1764722000000 } from './1764722000000-upload-contents';
 import { StampPlacement1764723000000 } from './1764723000000-stamp-placement';
 import { CarriedDocuments1764724000000 } from './1764724000000-carried-documents';
@@ -32,6 +33,7 @@ export const MIGRATIONS = [
   DeliberateDecision1764720100000,
   OneLiftPlan1764720200000,
   DocumentUnits1764720300000,
+  QueueAtScale1764721000000,
   UploadContents1764722000000,
   StampPlacement1764723000000,
   CarriedDocuments1764724000000,

@@ -16,17 +16,8 @@ export async function openSession(dataSource: DataSource, userId: string, hours:
   return rows[0].id;
 }
 
-export async function sessionIsLive(
-  dataSource: DataSource,
-  sessionId: string,
-  userId: string,
-): Promise<boolean> {
-  const rows: unknown[] = await dataSource.query(
-    `SELECT 1 FROM sessions WHERE id = $1 AND user_id = $2 AND revoked_at IS NULL AND expires_at > now()`,
-    [sessionId, userId],
-  );
-  return rows.length === 1;
-}
+/** A live session, $3 its id and $1 its user's: the passport strategy asks it with the user, per request. */
+export const LIVE_SESSION = `SELECT 1 FROM sessions WHERE id = $3 AND user_id = $1 AND revoked_at IS NULL AND expires_at > now()`;
 
 export async function revokeSession(dataSource: DataSource, sessionId: string): Promise<void> {
   await dataSource.query(`UPDATE sessions SET revoked_at = now() WHERE id = $1 AND revoked_at IS NULL`, [

@@ -7,6 +7,7 @@ import type { Actor } from '@shared/rules/actor';
 import type { EntityManager, SelectQueryBuilder } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import { LiftPackage } from './package.entity';
+import { PackageStatusCount } from './package-status-count.entity';
 
 /** A package that was never submitted is the contractor's alone; a later revision in draft is not. */
 const NOT_FIRST_DRAFT = (alias: string) =>
@@ -37,6 +38,36 @@ export function scopedPackages(
           scopeOrg: user.organisationId,
         })
         .andWhere(NOT_FIRST_DRAFT(alias));
+  }
+}
+
+/**
+ * The kept counts (package_status_counts, one row per site, contractor, status and first draft)
+ * of the packages in the same scope as scopedPackages(): the counts above a list, summed by status,
+ * without reading the packages. Engineers have no kept counts (theirs are per assignment).
+ */
+export function scopedStatusCounts(
+  manager: EntityManager,
+  user: Actor,
+): SelectQueryBuilder<PackageStatusCount> | null {
+  const qb = manager.getRepository(PackageStatusCount).createQueryBuilder('c');
+  switch (user.role) {
+    case 'contractor':
+      return qb.where('c.contractor_organisation_id = :scopeOrg', { scopeOrg: user.organisationId });
+    case 'reviewer':
+      return qb
+        .where('c.site_id IN (SELECT sm.site_id FROM site_members sm WHERE sm.user_id = :scopeUser)', {
+          scopeUser: user.id,
+        })
+        .andWhere('NOT c.first_draft');
+    case 'engineer':
+      return null;
+    case 'admin':
+      return qb
+        .where('c.site_id IN (SELECT s.id FROM sites s WHERE s.owner_organisation_id = :scopeOrg)', {
+          scopeOrg: user.organisationId,
+        })
+        .andWhere('NOT c.first_draft');
   }
 }
 

@@ -27,6 +27,16 @@ import { User } from '../users/user.entity';
 @Index('lift_packages_contractor_idx', ['contractorOrganisationId'])
 @Index('lift_packages_engineer_idx', ['assignedEngineerId'])
 @Index('lift_packages_site_status_idx', ['siteId', 'status', 'plannedLiftDate'])
+// The queue's sorts, each ending in the tie-break (1764721000000-queue-at-scale). The planned lift
+// date's two are on coalesce() expressions and the trigram ones are GIN indexes, which TypeORM's
+// metadata cannot describe: named here with synchronize off so that it leaves them alone.
+@Index('lift_packages_lift_date_asc_idx', { synchronize: false })
+@Index('lift_packages_lift_date_desc_idx', { synchronize: false })
+@Index('lift_packages_updated_idx', ['updatedAt', 'reference'])
+@Index('lift_packages_discrepancies_idx', ['openDiscrepancies', 'reference'])
+@Index('lift_packages_revision_idx', ['currentRevision', 'reference'])
+@Index('lift_packages_reference_trgm_idx', { synchronize: false })
+@Index('lift_packages_title_trgm_idx', { synchronize: false })
 @Unique('lift_packages_reference_key', ['reference'])
 @Check('lift_packages_unit_system_check', `unit_system IN ('metric', 'imperial')`)
 export class LiftPackage {

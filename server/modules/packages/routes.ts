@@ -17,7 +17,8 @@ import { uploadLimits, uploadWorkDir } from '../files/pdf-check';
 import { discardUpload, receivedUpload, receiveInto, streamedUpload } from '../files/receive';
 import { addFile, readFile, removeFile, uploadTarget } from '../files/service';
 import { createPackage, duplicatePackage, saveDraft, submitPackage } from './drafts';
-import { getPackage, getRevision, listPackages, packageDetail } from './service';
+import { listPackages } from './list-packages';
+import { getPackage, getRevision, packageDetail } from './service';
 
 export const PackageIdParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }) });
 export const FileParams = PackageIdParams.extend({ fileId: z.uuid({ message: 'fileId must be a UUID' }) });

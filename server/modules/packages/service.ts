@@ -1,14 +1,8 @@
-// Lift packages: the scoped list (contractor's desk, reviewer's queue, engineer's
-// assignments) and one package with its current revision, files and audit trail.
+// Lift packages: one package with its current revision, files and audit trail (the scoped list
+// is list-packages.ts).
 import type { Actor } from '@shared/rules/actor';
 import type { DataSource } from 'typeorm';
-import type {
-  PackageDetail,
-  PackageListQuery,
-  PackageListResponse,
-  PackageSummary,
-  RevisionDetail,
-} from '@shared/schemas/packages';
+import type { PackageDetail, PackageSummary, RevisionDetail } from '@shared/schemas/packages';
 import { AppError } from '../../lib/app-error';
 import { AuditEvent } from '../audit/audit-event.entity';
 import { UploadedFile } from '../files/file.entity';
@@ -17,15 +11,7 @@ import { User } from '../users/user.entity';
 import { sitePolicy } from '../sites/site-policy';
 import { documentUnits } from '@shared/rules/document-units';
 import { LiftPackage, Revision } from './package.entity';
-import { findScopedPackage, scopedPackages } from './package-scope';
-
-const SORT_COLUMNS: Record<string, string> = {
-  plannedLiftDate: 'p.planned_lift_date',
-  updatedAt: 'p.updated_at',
-  reference: 'p.reference',
-  openDiscrepancies: 'p.open_discrepancies',
-  revision: 'p.current_revision',
-};
+import { findScopedPackage } from './package-scope';
 
 export function toSummary(p: LiftPackage): PackageSummary {
   return {
@@ -43,61 +29,6 @@ export function toSummary(p: LiftPackage): PackageSummary {
     openDiscrepancies: p.openDiscrepancies,
     decision: p.decision,
     updatedAt: p.updatedAt.toISOString(),
-  };
-}
-
-export async function listPackages(
-  dataSource: DataSource,
-  user: Actor,
-  query: PackageListQuery,
-): Promise<PackageListResponse> {
-  const filtered = scopedPackages(dataSource.manager, user)
-    .leftJoinAndSelect('p.site', 'site')
-    .leftJoinAndSelect('p.contractor', 'contractor')
-    .leftJoinAndSelect('p.assignedEngineer', 'engineer');
-  if (query.siteId) filtered.andWhere('p.site_id = :siteId', { siteId: query.siteId });
-  if (query.contractorId)
-    filtered.andWhere('p.contractor_organisation_id = :contractorId', { contractorId: query.contractorId });
-  if (query.engineerId === 'none') filtered.andWhere('p.assigned_engineer_id IS NULL');
-  else if (query.engineerId)
-    filtered.andWhere('p.assigned_engineer_id = :engineerId', { engineerId: query.engineerId });
-  if (query.critical !== undefined) filtered.andWhere('p.critical = :critical', { critical: query.critical });
-  if (query.discrepancies === true) filtered.andWhere('p.open_discrepancies > 0');
-  if (query.discrepancies === false) filtered.andWhere('p.open_discrepancies = 0');
-  if (query.liftWithinDays !== undefined) {
-    filtered.andWhere(`p.planned_lift_date <= current_date + make_interval(days => :within)`, {
-      within: query.liftWithinDays,
-    });
-  }
-  if (query.revisionMin)
-    filtered.andWhere('p.current_revision >= :revisionMin', { revisionMin: query.revisionMin });
-  if (query.q) {
-    filtered.andWhere('(p.reference ILIKE :q OR p.title ILIKE :q)', {
-      q: `%${query.q.replace(/[%_\\]/g, '\\$&')}%`,
-    });
-  }
-  const counts = await filtered
-    .clone()
-    .select('p.status', 'status')
-    .addSelect('count(*)::int', 'n')
-    .groupBy('p.status')
-    .orderBy()
-    .getRawMany<{ status: string; n: number }>();
-  if (query.status) filtered.andWhere('p.status = :status', { status: query.status });
-  const desc = query.sort.startsWith('-');
-  const column = SORT_COLUMNS[query.sort.replace(/^-/, '')];
-  filtered
-    .orderBy(column, desc ? 'DESC' : 'ASC', 'NULLS LAST')
-    .addOrderBy('p.reference', 'ASC')
-    .skip((query.page - 1) * query.pageSize)
-    .take(query.pageSize);
-  const [rows, total] = await filtered.getManyAndCount();
-  return {
-    items: rows.map(toSummary),
-    total,
-    page: query.page,
-    pageSize: query.pageSize,
-    countsByStatus: Object.fromEntries(counts.map((c) => [c.status, Number(c.n)])),
   };
 }
 

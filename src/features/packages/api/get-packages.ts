@@ -1,5 +1,6 @@
 // GET /api/packages: one page of the lift packages this person may see, with counts by
-// status. The server scopes the list by role (organisation, site, assignment).
+// status. The server scopes the list by role (organisation, site, assignment); a page after the
+// first is asked for by the cursor the page before gave (keyset paging), its number only shown.
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { PackageListResponse } from '@shared/schemas/packages';
 import { api } from '@/lib/api-client';
@@ -20,6 +21,7 @@ export function getPackages(filters: PackageListFilters, signal?: AbortSignal): 
       revisionMin: filters.revisionMin,
       q: filters.q,
       sort: filters.sort,
+      cursor: filters.cursor,
       page: filters.page,
       pageSize: filters.pageSize,
     },

@@ -54,6 +54,8 @@ export function PackageListView({
       {data && !nothingYet && (
         <StatusCounts
           counts={data.countsByStatus}
+          overLimit={data.countsOverLimit}
+          limit={data.countLimit}
           active={filters.status}
           onSelect={(status) => update({ status })}
         />
@@ -140,7 +142,11 @@ export function PackageListView({
             page={data.page}
             pageSize={data.pageSize}
             total={data.total}
-            onPage={(page) => update({ page })}
+            totalOverLimit={data.totalOverLimit}
+            nextCursor={data.nextCursor}
+            previousCursor={data.previousCursor}
+            shown={data.items.length}
+            onPage={(page, cursor) => update({ page, cursor })}
             onPageSize={(pageSize) => update({ pageSize })}
           />
         </>

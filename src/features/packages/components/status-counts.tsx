@@ -1,5 +1,6 @@
 // Counts by status across the top of a list; each count is also the quickest way to
-// filter the list to that status (press again to show all).
+// filter the list to that status (press again to show all). With filters the kept counts cannot
+// answer and more matching packages than the server counts, each count says "at least".
 import { PACKAGE_STATUSES, PACKAGE_STATUS_LABELS, type PackageStatus } from '@shared/schemas/common';
 import { StatusShape } from '@/components/ui/status-badge';
 
@@ -15,16 +16,31 @@ const INK: Record<PackageStatus, string> = {
 
 export function StatusCounts({
   counts,
+  overLimit = [],
+  limit = 0,
   active,
   onSelect,
   statuses = PACKAGE_STATUSES,
 }: {
   counts: Record<string, number>;
+  /** Statuses whose count is a lower bound ("at least"); `limit` is how many were counted. */
+  overLimit?: readonly string[];
+  limit?: number;
   active: PackageStatus | undefined;
   onSelect: (status: PackageStatus | undefined) => void;
   statuses?: readonly PackageStatus[];
 }) {
   const total = statuses.reduce((sum, status) => sum + (counts[status] ?? 0), 0);
+  const anyOver = statuses.some((status) => overLimit.includes(status));
+  const figure = (n: number, over: boolean) =>
+    over ? (
+      <span className="text-[22px] font-black leading-none tabular">
+        <span className="text-[12px] font-bold">at least </span>
+        {n.toLocaleString('en-GB')}
+      </span>
+    ) : (
+      <span className="text-[22px] font-black leading-none tabular">{n}</span>
+    );
   const tile = (selected: boolean) =>
     `flex flex-1 flex-col items-start gap-0.5 border-r border-rule px-3 py-2 text-left last:border-r-0 hover:bg-sheet-alt ${
       selected ? 'bg-sheet shadow-[inset_0_-3px_0_var(--color-ink)]' : ''
@@ -43,7 +59,7 @@ export function StatusCounts({
         className={tile(active === undefined)}
       >
         <span className="text-[12px] font-bold uppercase tracking-[0.06em] text-ink-soft">All</span>
-        <span className="text-[22px] font-black leading-none tabular">{total}</span>
+        {figure(total, anyOver)}
       </button>
       {statuses.map((status) => (
         <button
@@ -59,9 +75,15 @@ export function StatusCounts({
             <StatusShape status={status} />
             {PACKAGE_STATUS_LABELS[status]}
           </span>
-          <span className="text-[22px] font-black leading-none tabular">{counts[status] ?? 0}</span>
+          {figure(counts[status] ?? 0, overLimit.includes(status))}
         </button>
       ))}
+      {anyOver && (
+        <p className="basis-full border-t border-rule px-3 py-1 text-[12.5px] text-ink-soft">
+          More than {limit.toLocaleString('en-GB')} packages match these filters: the desk counts that many,
+          so each count is the least there are.
+        </p>
+      )}
     </div>
   );
 }

@@ -1,5 +1,5 @@
 // The list's filters live in the URL (?status=&siteId=&contractorId=&engineerId=&critical=
-// &discrepancies=&liftWithinDays=&revisionMin=&q=&sort=&page=&pageSize=), so a filtered
+// &discrepancies=&liftWithinDays=&revisionMin=&q=&sort=&cursor=&page=&pageSize=), so a filtered
 // queue can be bookmarked, shared and restored with the back button. Values that the
 // server would refuse are dropped here rather than sent.
 import { useCallback, useMemo } from 'react';
@@ -21,6 +21,7 @@ function isSort(value: string | null): value is PackageSort {
   return value !== null && (PACKAGE_SORTS as readonly string[]).includes(value);
 }
 
+const CURSOR = /^[A-Za-z0-9_-]{1,600}$/;
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 function uuid(value: string | null): string | undefined {
@@ -59,6 +60,7 @@ export function readPackageListParams(params: URLSearchParams): PackageListFilte
     revisionMin: boundedInt(params.get('revisionMin'), 1, 1000),
     q: q ? q : undefined,
     sort: isSort(sort) ? sort : DEFAULT_SORT,
+    cursor: CURSOR.test(params.get('cursor') ?? '') ? params.get('cursor')! : undefined,
     page: positiveInt(params.get('page'), 1, 10_000),
     pageSize,
   };
@@ -70,7 +72,7 @@ export function usePackageListParams() {
   const [params, setParams] = useSearchParams();
   const filters = useMemo(() => readPackageListParams(params), [params]);
 
-  /** Changing anything but the page goes back to page 1; defaults are left out of the URL. */
+  /** Changing anything but the page goes back to page 1 (no cursor); defaults are left out of the URL. */
   const update = useCallback(
     (changes: ListChanges, options: { replace?: boolean } = {}) => {
       setParams(
@@ -81,6 +83,7 @@ export function usePackageListParams() {
             else next.set(key, String(value));
           }
           if (!('page' in changes)) next.delete('page');
+          if (!('cursor' in changes)) next.delete('cursor');
           if (next.get('page') === '1') next.delete('page');
           if (next.get('sort') === DEFAULT_SORT) next.delete('sort');
           if (next.get('pageSize') === String(DEFAULT_PAGE_SIZE)) next.delete('pageSize');
