@@ -155,7 +155,7 @@ export const STEPS: Step[] = [
             hint: 'From your own data, 0.8 to 1; give its source below.',
           },
           { kind: 'text', path: 'reeving.sheaveEfficiencySource', label: 'Source of the sheave efficiency' },
-          q('reeving.hoistLinePull', 'Hoist line pull', 'weight'),
+          q('reeving.hoistLinePull', "Hoist line pull (the hoist's rated single-line pull)", 'weight'),
           q('reeving.ropeRatedLoad', 'Rope rated load', 'weight'),
           q('reeving.ropeBreakingStrength', 'Rope breaking strength', 'weight'),
           {
@@ -212,7 +212,7 @@ export const STEPS: Step[] = [
             columns: [
               { kind: 'text', path: 'name', label: 'Line' },
               q('voltage', 'Voltage', 'voltage'),
-              q('distance', 'Closest approach', 'length'),
+              q('distance', 'Closest approach of any part of crane, load or rigging', 'length'),
             ],
           },
         ],

@@ -2,6 +2,7 @@
 // The server's audit service accepts only these names; the client's timeline reads the words.
 export const AUDIT_ACTION_WORDS = {
   'package.created': 'Package started',
+  'package.deleted': 'Draft package deleted',
   'revision.submitted': 'Revision submitted',
   'revision.started': 'New revision started',
   'check.completed': 'Check completed',

@@ -132,6 +132,8 @@ afterEach(() => {
   cleanup();
   vi.unstubAllGlobals();
   vi.restoreAllMocks();
+  // Unsaved findings and conditions are kept in localStorage: each test starts without any.
+  window.localStorage.clear();
 });
 
 async function openWorkspace(path: string) {
@@ -504,6 +506,47 @@ describe('review workspace', () => {
       severity: 'minor',
       checkId: `stated:${firstDisagreement.figure}`,
     });
+  });
+
+  it('when the page is reloaded with a finding and conditions half written, then both come back; a saved finding is not kept', async () => {
+    const detail = workspaceDetail();
+    const { sent } = serve({
+      detail,
+      onPost: (path) => (path.endsWith('/findings') ? { status: 201, body: { items: [] } } : undefined),
+    });
+    await openWorkspace(`/packages/${detail.package.id}/review`);
+    fireEvent.click(screen.getByRole('tab', { name: /Findings/ }));
+    fireEvent.change(await screen.findByRole('textbox', { name: 'New finding' }), {
+      target: { value: 'Show the mat sizes under the front outriggers.' },
+    });
+    fireEvent.click(screen.getByRole('tab', { name: /Decision/ }));
+    fireEvent.change(within(screen.getByRole('form', { name: 'Decision' })).getByLabelText(/^Conditions/), {
+      target: { value: 'Trial lift at 300 mm first.' },
+    });
+    cleanup();
+
+    await openWorkspace(`/packages/${detail.package.id}/review`);
+    fireEvent.click(screen.getByRole('tab', { name: /Decision/ }));
+    expect(
+      (
+        within(screen.getByRole('form', { name: 'Decision' })).getByLabelText(
+          /^Conditions/,
+        ) as HTMLTextAreaElement
+      ).value,
+    ).toBe('Trial lift at 300 mm first.');
+    fireEvent.click(screen.getByRole('tab', { name: /Findings/ }));
+    const text = (await screen.findByRole('textbox', { name: 'New finding' })) as HTMLTextAreaElement;
+    expect(text.value).toBe('Show the mat sizes under the front outriggers.');
+    fireEvent.keyDown(text, { key: 's', ctrlKey: true });
+    await waitFor(() => expect(sent.filter((s) => s.path.endsWith('/findings'))).toHaveLength(1));
+    await waitFor(() => expect(text.value).toBe(''));
+    cleanup();
+
+    await openWorkspace(`/packages/${detail.package.id}/review`);
+    fireEvent.click(screen.getByRole('tab', { name: /Findings/ }));
+    expect(((await screen.findByRole('textbox', { name: 'New finding' })) as HTMLTextAreaElement).value).toBe(
+      '',
+    );
   });
 
   it('when ] and [ are pressed, then the page shown moves forward and back', async () => {

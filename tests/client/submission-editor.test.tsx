@@ -257,6 +257,17 @@ describe('submission editor', () => {
     expect(note.textContent).toBe(words);
   });
 
+  it('when the live check fails, then the review step and the submit confirmation name the failing checks', async () => {
+    const { title: _title, ...inputs } = failCapacity;
+    openEditor(makeDetail({ inputs, current: { files: [makeFile()] } }), 'review');
+    const user = userEvent.setup();
+    const status = await screen.findByText(/The live check fails:/, {}, { timeout: 8000 });
+    expect(status.closest('p')!.textContent).toContain('Rated-capacity use');
+    await user.click(await screen.findByRole('button', { name: 'Submit revision 1…' }));
+    const confirm = await screen.findByRole('alertdialog');
+    expect(within(confirm).getByText(/The live check fails on: Rated-capacity use/)).toBeTruthy();
+  });
+
   it('when submit is refused with field errors, then the steps holding those fields are marked', async () => {
     const detail = makeDetail({ inputs: passOutriggers, current: { files: [makeFile()] } });
     const fetchMock = openEditor(detail, 'review', (url, init) => {

@@ -54,6 +54,7 @@ const ALLOWED: Record<string, Allowed> = {
   'POST /api/packages': C,
   'PUT /api/packages/:id/draft': C,
   'POST /api/packages/:id/duplicate': C,
+  'DELETE /api/packages/:id': C,
   'POST /api/packages/:id/submit': C,
   'POST /api/packages/:id/files': C,
   'DELETE /api/packages/:id/files/:fileId': C,

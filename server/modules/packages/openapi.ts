@@ -60,6 +60,15 @@ describeRoute({
   response: PackageDetail,
 });
 describeRoute({
+  method: 'delete',
+  path: '/packages/:id',
+  summary: 'Delete a package that was never submitted (its draft and files)',
+  tags: ['packages'],
+  params: PackageIdParams,
+  status: 204,
+  conflict: 'The package has been submitted and stays on record (not_a_first_draft)',
+});
+describeRoute({
   method: 'post',
   path: '/packages/:id/duplicate',
   summary: 'Start a new draft from this package’s inputs',

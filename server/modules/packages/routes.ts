@@ -17,6 +17,7 @@ import { uploadLimits, uploadWorkDir } from '../files/pdf-check';
 import { discardUpload, receivedUpload, receiveInto, streamedUpload } from '../files/receive';
 import { addFile, readFile, removeFile, uploadTarget } from '../files/service';
 import { createPackage, duplicatePackage, saveDraft, submitPackage } from './drafts';
+import { deleteDraftPackage } from './delete-draft';
 import { listPackages } from './list-packages';
 import { getPackage, getRevision, packageDetail } from './service';
 
@@ -60,6 +61,11 @@ export function packageRoutes(ctx: AppContext): Router {
       res.json(await packageDetail(ds, id, currentActor(req)));
     },
   );
+
+  router.delete('/packages/:id', contractorOnly, validate({ params: PackageIdParams }), async (req, res) => {
+    await deleteDraftPackage(ds, ctx.storage, currentActor(req), valid(req, 'params', PackageIdParams).id);
+    res.status(204).end();
+  });
 
   router.post(
     '/packages/:id/duplicate',

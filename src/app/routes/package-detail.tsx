@@ -16,6 +16,7 @@ import { PackageHeading } from '@/features/packages/components/package-heading';
 import { CheckProgress } from '@/features/packages/components/detail/check-progress';
 import { RevisionTimeline } from '@/features/packages/components/detail/revision-timeline';
 import { PackageResults } from '@/features/packages/components/detail/package-results';
+import { DeleteDraftButton } from '@/features/packages/components/detail/delete-draft-button';
 import { DecisionPanel } from '@/features/returns/components/decision-panel';
 import { AssignPanel } from '@/features/review-desk/components/assign-panel';
 import { FileRow } from '@/features/packages/components/editor/documents-step';
@@ -95,6 +96,9 @@ export default function PackageDetailRoute() {
           >
             {duplicate.isPending ? 'Duplicating…' : 'Duplicate as a new draft'}
           </Button>
+          {data.package.status === 'draft' && current.number === 1 && (
+            <DeleteDraftButton pkg={data.package} documents={current.files.length} />
+          )}
           {duplicate.isError && (
             <span role="alert" className="text-[13px] font-bold text-fail-ink">
               {isApiError(duplicate.error) ? duplicate.error.message : 'The package could not be duplicated.'}

@@ -40,7 +40,9 @@ function Row({
         )}
         {toggle}
       </th>
-      <td className="whitespace-nowrap px-2 py-1.5 text-right tabular">
+      <td
+        className={`px-2 py-1.5 tabular ${id === 'critical-triggers' ? 'min-w-[12rem] text-left' : 'whitespace-nowrap text-right'}`}
+      >
         {formatCheckValue({ ...item, id }, result, system)}
       </td>
       <td className="whitespace-nowrap px-2 py-1.5 text-right tabular">{formatCheckLimit(item, system)}</td>

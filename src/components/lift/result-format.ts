@@ -1,6 +1,6 @@
 // Values of a check in the reader's unit system: 3 significant figures, and a percentage
 // of a limit as "82% of 16.0 t" rather than a bare ratio.
-import { formatPercent, formatPercentOf, formatQuantity } from '@shared/engineering/format';
+import { formatFormula, formatPercent, formatPercentOf, formatQuantity } from '@shared/engineering/format';
 import type { CheckItem, LiftResult, UnitSystem } from '@shared/engineering/types';
 
 export function formatCheckValue(
@@ -9,6 +9,15 @@ export function formatCheckValue(
   system: UnitSystem,
 ): string {
   if (item.value === null) return '—';
+  // Why the lift is critical: the reasons, not how many there are.
+  if (item.id === 'critical-triggers') {
+    const reasons = (result.checks.find((c) => c.id === 'critical-triggers')?.items ?? [])
+      .filter((i) => i.id !== 'critical-triggers.none')
+      .map((i) => formatFormula(i.formula, system));
+    return reasons.length ? reasons.join(' · ') : 'No trigger applies';
+  }
+  if (item.id === 'critical-triggers.none') return 'None';
+  if (item.id.startsWith('critical-triggers.')) return 'Applies';
   if (item.unit === 'percent' && item.id.startsWith('capacity') && result.figures.chartCapacity !== null) {
     return formatPercentOf(item.value, result.figures.chartCapacity, 'weight', system);
   }

@@ -5,6 +5,8 @@
 // for the engineer's password in a dialog, which also lists what stands against an acceptance
 // and asks for the override reason (decision-confirm-dialog.tsx).
 import { useState } from 'react';
+import { useCurrentUser } from '@/lib/auth';
+import { useKeptDraft } from '@/lib/kept-draft';
 import { useQueryClient } from '@tanstack/react-query';
 import { DECISION_LABELS, DECISIONS, PACKAGE_STATUS_LABELS, type Decision } from '@shared/schemas/common';
 import type { PackageDetail } from '@shared/schemas/packages';
@@ -46,6 +48,8 @@ function newerFrom(detail: PackageDetail): Newer {
   };
 }
 
+const isBlank = (text: string) => text.trim() === '';
+
 export function DecisionForm({
   detail,
   canDecide,
@@ -70,7 +74,14 @@ export function DecisionForm({
   const queryClient = useQueryClient();
   const record = useRecordDecision(pkg.id);
   const [decision, setDecision] = useState<Decision | null>(pkg.decision);
-  const [conditions, setConditions] = useState('');
+  // Conditions being written are kept in the browser (per person, package and revision), so a
+  // reload or a look at another page does not lose them.
+  const [conditions, setConditions] = useKeptDraft(
+    `conditions:${useCurrentUser().data?.id ?? 'anyone'}:${pkg.id}:${detail.current.number}`,
+    '',
+    (v) => (typeof v === 'string' ? v : null),
+    isBlank,
+  );
   const [tried, setTried] = useState(false);
   const [stale, setStale] = useState<Newer | null>(null);
   const [saved, setSaved] = useState<Decision | null>(null);

@@ -69,7 +69,11 @@ export function ReviewWorkspace({
     onReset: () => changeStamp.mutate(null),
   };
   const editing = useMarkupEditing(pkg.id, access.canMarkUp);
-  const composer = useFindingComposer(pkg.id, access.canMarkUp);
+  const composer = useFindingComposer(
+    pkg.id,
+    access.canMarkUp,
+    `finding:${user.id}:${pkg.id}:${current.number}`,
+  );
   const [selectedFindingId, setSelectedFindingId] = useState<string | null>(null);
   const [tab, setTab] = useState<Tab>('checks');
   // About a third of the screen for the review column; the separator widens or narrows it.

@@ -12,6 +12,7 @@ export function ReviewStep({
   planMissing,
   revision,
   onGoTo,
+  failingChecks,
 }: {
   title: string;
   onTitle: (value: string) => void;
@@ -21,6 +22,8 @@ export function ReviewStep({
   planMissing: boolean;
   revision: number;
   onGoTo: (step: StepId) => void;
+  /** Checks the live check fails on the data as it stands. */
+  failingChecks: string[];
 }) {
   const titleError =
     title.trim().length < 3 ? 'The title must be at least 3 characters (it is not saved until it is).' : null;
@@ -54,6 +57,13 @@ export function ReviewStep({
           />
         </label>
       </fieldset>
+      {failingChecks.length > 0 && (
+        <p role="status" className="border-l-4 border-failed-ink bg-failed-tint px-3 py-2 text-[13px]">
+          <strong>The live check fails:</strong> {failingChecks.join('; ')}. You can still submit; the
+          independent check will very likely fail the same way, and the engineer of record sees it. Consider
+          correcting the lift first.
+        </p>
+      )}
       <section aria-label="Before you submit">
         <h3 className="text-[14px] font-bold">Before you submit revision {revision}</h3>
         {byStep.length === 0 ? (

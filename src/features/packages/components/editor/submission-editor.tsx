@@ -2,7 +2,7 @@
 // shared LiftInput schema as it is typed, the live check beside the form, autosave to the
 // server, the documents, and the submit that freezes the revision. This file composes: the
 // form and its issues are in ../../hooks/use-lift-form.ts, the submit in use-submit-revision.ts.
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import { FormProvider } from 'react-hook-form';
 import { useSearchParams } from 'react-router-dom';
 import type { UnitSystem } from '@shared/schemas/common';
@@ -17,7 +17,7 @@ import { useLibraryFill, type EditorLibrary } from '../../hooks/use-library-fill
 import { isLibraryPath } from '@shared/library/to-lift-input';
 import { ChartRowsEditor } from './chart-rows-editor';
 import { FieldGroups, MultiCraneEditor } from './multi-crane-editor';
-import { LiveCheckPanel } from './live-check-panel';
+import { LiveCheckPanel, runLiveCheck } from './live-check-panel';
 import { DocumentsStep } from './documents-step';
 import { EditorHeader } from './editor-header';
 import { errorPaths, IssuesContext } from './field-errors';
@@ -79,6 +79,15 @@ export function SubmissionEditor({
     () => form.subscribe({ formState: { values: true }, callback: () => schedule() }),
     [form, schedule],
   );
+
+  // The checks the live check fails, named on the review step and in the submit confirmation.
+  const deferredValues = useDeferredValue(values);
+  const failingChecks = useMemo(() => {
+    const outcome = runLiveCheck(deferredValues, system);
+    return outcome.ok === true
+      ? outcome.result.checks.filter((c) => c.status === 'fail').map((c) => c.label)
+      : [];
+  }, [deferredValues, system]);
 
   const [showAll, setShowAll] = useState(false);
   const issues = useLiftIssues(values, showAll);
@@ -182,9 +191,16 @@ export function SubmissionEditor({
                 planMissing={submission.planMissing}
                 revision={detail.current.number}
                 onGoTo={goTo}
+                failingChecks={failingChecks}
               />
             )}
-            <SubmitBar index={index} revision={detail.current.number} submission={submission} onGoTo={goTo} />
+            <SubmitBar
+              index={index}
+              revision={detail.current.number}
+              submission={submission}
+              onGoTo={goTo}
+              failingChecks={failingChecks}
+            />
           </section>
 
           <div className="lg:col-start-2 wide:sticky wide:top-4 wide:col-start-3 wide:row-start-1">

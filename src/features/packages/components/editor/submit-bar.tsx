@@ -10,11 +10,14 @@ export function SubmitBar({
   revision,
   submission,
   onGoTo,
+  failingChecks,
 }: {
   index: number;
   revision: number;
   submission: ReturnType<typeof useSubmitRevision>;
   onGoTo: (step: StepId) => void;
+  /** Checks the live check fails: the confirmation names them. */
+  failingChecks: string[];
 }) {
   return (
     <>
@@ -39,6 +42,11 @@ export function SubmitBar({
             Submitting freezes this revision: its lift data and files can no longer change. The independent
             check runs and the package goes to the site’s coordinator. Changes after that need a new revision.
           </p>
+          {failingChecks.length > 0 && (
+            <p className="mt-1 text-[13px] font-bold text-failed-ink">
+              The live check fails on: {failingChecks.join('; ')}.
+            </p>
+          )}
           <div className="mt-2 flex gap-2">
             <Button variant="primary" onClick={() => void submission.confirm()} disabled={submission.pending}>
               {submission.pending && <Spinner />}
