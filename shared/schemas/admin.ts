@@ -38,6 +38,18 @@ const siteFields = {
   unitSystem: z
     .enum(['metric', 'imperial'], { message: "unitSystem must be 'metric', 'imperial' or null" })
     .nullable(),
+  /** Working days a review is given from submission (shared/rules/review-due.ts). */
+  reviewTurnaroundDays: z
+    .number({ error: 'reviewTurnaroundDays must be a whole number of working days' })
+    .int('reviewTurnaroundDays must be a whole number of working days')
+    .min(1, 'reviewTurnaroundDays must be between 1 and 60 working days')
+    .max(60, 'reviewTurnaroundDays must be between 1 and 60 working days'),
+  /** Calendar days before the planned lift by which the review must be done. */
+  reviewMarginDays: z
+    .number({ error: 'reviewMarginDays must be a whole number of days' })
+    .int('reviewMarginDays must be a whole number of days')
+    .min(0, 'reviewMarginDays must be between 0 and 30 days')
+    .max(30, 'reviewMarginDays must be between 0 and 30 days'),
 };
 
 export const SiteBody = z.object({
@@ -45,6 +57,8 @@ export const SiteBody = z.object({
   address: siteFields.address.default(''),
   timeZone: siteFields.timeZone.default('UTC'),
   unitSystem: siteFields.unitSystem.default(null),
+  reviewTurnaroundDays: siteFields.reviewTurnaroundDays.default(5),
+  reviewMarginDays: siteFields.reviewMarginDays.default(2),
 });
 /** A change of some of a site's settings: what is left out stays as it is (no defaults). */
 export const SitePatch = z.object(siteFields).partial();
@@ -59,6 +73,8 @@ export const AdminSite = z.object({
   address: z.string(),
   timeZone: z.string(),
   unitSystem: UnitSystem.nullable(),
+  reviewTurnaroundDays: z.number().int(),
+  reviewMarginDays: z.number().int(),
   policyVersion: z.number().int(),
   reviewers: z.array(z.object({ id: z.uuid(), name: z.string(), email: z.string() })),
 });
@@ -154,6 +170,7 @@ export const MAIL_EVENTS = [
   'answered',
   'resubmitted',
   'reminder',
+  'review_due',
   'invite',
 ] as const;
 export const MailMessage = z.object({

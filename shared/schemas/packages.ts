@@ -17,6 +17,8 @@ export const PACKAGE_SORTS = [
   '-openDiscrepancies',
   'revision',
   '-revision',
+  'reviewDue',
+  '-reviewDue',
 ] as const;
 
 const flag = (name: string) =>
@@ -68,6 +70,9 @@ export const PackageSummary = z.object({
   site: z.object({ id: z.uuid(), name: z.string() }),
   contractor: z.object({ id: z.uuid(), name: z.string() }),
   plannedLiftDate: z.string().nullable(),
+  /** When the review of the latest submission is due (YYYY-MM-DD), and whether that has passed while it is owed. */
+  reviewDueOn: z.string().nullable().default(null),
+  reviewOverdue: z.boolean().default(false),
   revisionNumber: z.number().int(),
   engineer: z.object({ id: z.uuid(), name: z.string() }).nullable(),
   critical: z.boolean(),

@@ -7,6 +7,7 @@ export const HAND_OFF_KINDS: Record<string, string> = {
   answered: 'Findings answered',
   resubmitted: 'Resubmitted',
   reminder: 'Reminder',
+  review_due: 'Review due',
 };
 
 export const handOffKind = (event: string) => HAND_OFF_KINDS[event] ?? 'Hand-off';

@@ -51,6 +51,11 @@ describe('migrations', () => {
       // one takes each count to 0 in turn. A new migration adds its row at the top.
       const LATEST: Array<[string, string, number]> = [
         [
+          'ReviewDue',
+          `SELECT (SELECT count(*) FROM information_schema.columns WHERE (table_name = 'sites' AND column_name IN ('review_turnaround_days', 'review_margin_days')) OR (table_name = 'lift_packages' AND column_name = 'review_due_on')) + (SELECT count(*) FROM pg_indexes WHERE indexname LIKE 'lift_packages_review_due_%') AS n`,
+          5,
+        ],
+        [
           'AssignmentNote',
           `SELECT count(*) AS n FROM information_schema.columns WHERE table_name = 'assignments' AND column_name = 'note'`,
           1,

@@ -22,6 +22,7 @@ interface Item {
   id: string;
   reference: string;
   plannedLiftDate: string | null;
+  reviewDueOn: string | null;
   updatedAt: string;
   openDiscrepancies: number;
   revisionNumber: number;
@@ -47,8 +48,16 @@ async function tiedQueue() {
     });
     await t.ctx.dataSource.query(
       `UPDATE lift_packages SET reference = $2, planned_lift_date = $3, open_discrepancies = $4,
-         current_revision = $5, updated_at = $6 WHERE id = $1`,
-      [p.id, `${prefix}${String(i).padStart(3, '0')}`, DATES[i % 6], i % 3, 1 + (i % 2), STAMPS[i % 2]],
+         current_revision = $5, updated_at = $6, review_due_on = $7 WHERE id = $1`,
+      [
+        p.id,
+        `${prefix}${String(i).padStart(3, '0')}`,
+        DATES[i % 6],
+        i % 3,
+        1 + (i % 2),
+        STAMPS[i % 2],
+        DATES[(i + 2) % 6],
+      ],
     );
     ids.push(p.id);
   }
@@ -57,6 +66,7 @@ async function tiedQueue() {
 
 const KEY: Record<string, (i: Item) => string | number | null> = {
   plannedLiftDate: (i) => i.plannedLiftDate,
+  reviewDue: (i) => i.reviewDueOn,
   updatedAt: (i) => i.updatedAt,
   reference: (i) => i.reference,
   openDiscrepancies: (i) => i.openDiscrepancies,

@@ -45,6 +45,8 @@ export const adminSite = {
   address: '1 Quay Road',
   timeZone: 'Europe/London',
   unitSystem: null,
+  reviewTurnaroundDays: 5,
+  reviewMarginDays: 2,
   policyVersion: 3,
   reviewers: [],
 };

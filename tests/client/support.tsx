@@ -78,6 +78,8 @@ export function makePackage(index: number, overrides: Partial<PackageSummary> = 
     site: { id: '3d9b6e4f-5a7c-4f1b-8d4e-6f8a0b2c4d6e', name: 'North Yard' },
     contractor: { id: '4e0c7f5a-6b8d-4a2c-9e5f-7a9b1c3d5e7f', name: 'Fenwick Lifting Ltd' },
     plannedLiftDate: '2030-03-14',
+    reviewDueOn: '2030-03-08',
+    reviewOverdue: false,
     revisionNumber: 1,
     engineer: null,
     critical: true,

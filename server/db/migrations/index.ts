@@ -18,6 +18,7 @@ import { StampPlacement1764723000000 } from './1764723000000-stamp-placement';
 import { CarriedDocuments1764724000000 } from './1764724000000-carried-documents';
 import { LiveUpdates1764724100000 } from './1764724100000-live-updates';
 import { AssignmentNote1764724200000 } from './1764724200000-assignment-note';
+import { ReviewDue1764724300000 } from './1764724300000-review-due';
 
 export const MIGRATIONS = [
   InitialSchema1764633600000,
@@ -39,4 +40,5 @@ export const MIGRATIONS = [
   CarriedDocuments1764724000000,
   LiveUpdates1764724100000,
   AssignmentNote1764724200000,
+  ReviewDue1764724300000,
 ];

@@ -2,6 +2,7 @@
 // the engine's example inputs, each with a generated lift plan PDF. Submitted revisions
 // are checked by the same check-run service the worker uses; decisions, assignments and
 // findings are then laid on top so the queue shows every status.
+import { REVIEW_TIMES_DEFAULT, reviewDueOn } from '@shared/rules/review-due';
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -143,11 +144,18 @@ export async function seedPackages(
       uploadedById: person.id,
     });
     if (submitted) {
+      const submittedAt = new Date(Date.now() - (3 + Math.abs(spec.daysToLift)) * 86_400_000);
       await m.getRepository(Revision).update(revision.id, {
         state: 'submitted',
-        submittedAt: new Date(Date.now() - (3 + Math.abs(spec.daysToLift)) * 86_400_000),
+        submittedAt,
         submittedById: person.id,
         checkStatus: 'queued',
+      });
+      await m.getRepository(LiftPackage).update(pkg.id, {
+        reviewDueOn: reviewDueOn(submittedAt.toISOString().slice(0, 10), pkg.plannedLiftDate, {
+          turnaroundDays: site.reviewTurnaroundDays ?? REVIEW_TIMES_DEFAULT.turnaroundDays,
+          marginDays: site.reviewMarginDays ?? REVIEW_TIMES_DEFAULT.marginDays,
+        }),
       });
       await recordAudit(m, {
         action: 'revision.submitted',

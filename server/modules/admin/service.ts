@@ -100,6 +100,8 @@ export async function adminSite(ds: DataSource, site: Site) {
     address: site.address,
     timeZone: site.timeZone,
     unitSystem: site.unitSystem,
+    reviewTurnaroundDays: site.reviewTurnaroundDays,
+    reviewMarginDays: site.reviewMarginDays,
     policyVersion: site.policyVersion,
     reviewers: rows,
   };
@@ -119,7 +121,15 @@ function codeTaken(error: unknown) {
 export async function createSite(
   ds: DataSource,
   admin: Actor,
-  body: { name: string; code: string; address: string; timeZone: string; unitSystem: UnitSystem | null },
+  body: {
+    name: string;
+    code: string;
+    address: string;
+    timeZone: string;
+    unitSystem: UnitSystem | null;
+    reviewTurnaroundDays: number;
+    reviewMarginDays: number;
+  },
 ) {
   try {
     const site = await ds.transaction(async (m) => {
@@ -154,6 +164,8 @@ export async function updateSite(
     address: string;
     timeZone: string;
     unitSystem: UnitSystem | null;
+    reviewTurnaroundDays: number;
+    reviewMarginDays: number;
   }>,
 ) {
   const site = await ownSite(ds, admin, id);

@@ -14,7 +14,15 @@ import { LiftPackage } from '../packages/package.entity';
 import { User } from '../users/user.entity';
 
 export type MailEvent =
-  'submitted' | 'assigned' | 'decided' | 'returned' | 'answered' | 'resubmitted' | 'reminder' | 'invite';
+  | 'submitted'
+  | 'assigned'
+  | 'decided'
+  | 'returned'
+  | 'answered'
+  | 'resubmitted'
+  | 'reminder'
+  | 'review_due'
+  | 'invite';
 
 @Index('mail_messages_package_idx', ['packageId'])
 @Index('mail_messages_recipient_idx', ['recipientId'])

@@ -149,6 +149,15 @@ export const templates = {
       ],
       { url: p.url, label: 'Open the package' },
     ),
+  review_due: (to: string, p: PackageRef, dueOn: string, today: string, status: string): Rendered =>
+    render(
+      `${p.reference} review ${dueOn < today ? `overdue since ${dueOn}` : dueOn === today ? 'due today' : 'due tomorrow'} — ${p.title}`,
+      `Hello ${to},`,
+      [
+        `The review of ${p.reference} "${p.title}" at ${p.site} is due ${dueOn} (the site's review turnaround, or its margin before the lift; ${when(p)}). Now: ${status}.`,
+      ],
+      { url: p.url, label: 'Open the package' },
+    ),
   invite: (to: string, organisation: string, inviter: string, url: string, expires: string): Rendered =>
     render(
       `You are invited to the Counterpoise lift review desk`,

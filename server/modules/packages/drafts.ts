@@ -11,6 +11,7 @@ import { checkRunJobId, type Queues } from '../../lib/queues';
 import { recordAudit } from '../audit/service';
 import { UploadedFile } from '../files/file.entity';
 import { Site } from '../sites/site.entity';
+import { reviewDueOn } from '@shared/rules/review-due';
 import { LiftPackage, Revision } from './package.entity';
 import { checkRunIntent, handOff, mailIntent, recordIntent } from '../jobs/intents';
 import { siteReviewers, stageMail, type MailDraft } from '../mail/service';
@@ -181,7 +182,14 @@ export async function submitPackage(
       checkStatus: 'queued',
       checkProgress: 0,
     });
-    await m.getRepository(LiftPackage).update(pkg.id, { status: 'checking' });
+    const site = await m.getRepository(Site).findOneByOrFail({ id: pkg.siteId });
+    await m.getRepository(LiftPackage).update(pkg.id, {
+      status: 'checking',
+      reviewDueOn: reviewDueOn(new Date().toISOString().slice(0, 10), pkg.plannedLiftDate, {
+        turnaroundDays: site.reviewTurnaroundDays,
+        marginDays: site.reviewMarginDays,
+      }),
+    });
     await recordAudit(m, {
       action: 'revision.submitted',
       actor: user,

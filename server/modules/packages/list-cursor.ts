@@ -23,6 +23,11 @@ const KEYS: Record<string, (desc: boolean) => SortKey> = {
     expr: `coalesce(p.planned_lift_date, '${desc ? '-infinity' : 'infinity'}'::date)`,
     type: 'date',
   }),
+  // The same for a review due date (1764724300000-review-due).
+  reviewDue: (desc) => ({
+    expr: `coalesce(p.review_due_on, '${desc ? '-infinity' : 'infinity'}'::date)`,
+    type: 'date',
+  }),
   updatedAt: () => ({ expr: 'p.updated_at', type: 'timestamptz' }),
   reference: () => ({ expr: 'p.reference', type: 'varchar' }),
   openDiscrepancies: () => ({ expr: 'p.open_discrepancies', type: 'int' }),

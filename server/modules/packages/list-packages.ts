@@ -7,6 +7,7 @@
 //     filters are ones they answer (scope, site, contractor); otherwise from one pass over at most
 //     COUNT_LIMIT + 1 matching packages: exact within it, lower bounds ("at least") beyond;
 //   - the search runs on the trigram indexes of reference and title.
+import { isReviewOverdue } from '@shared/rules/review-due';
 import type { Actor } from '@shared/rules/actor';
 import type { DataSource, EntityManager, SelectQueryBuilder } from 'typeorm';
 import { PACKAGE_STATUSES, type PackageStatus } from '@shared/schemas/common';
@@ -94,6 +95,7 @@ interface Row {
   title: string;
   status: PackageSummary['status'];
   planned_lift_date: string | null;
+  review_due_on: string | null;
   current_revision: number;
   critical: boolean;
   worst_status: PackageSummary['worstStatus'];
@@ -134,6 +136,7 @@ function pageOf(qb: SelectQueryBuilder<LiftPackage>, query: PackageListQuery, cu
       'p.title AS title',
       'p.status AS status',
       'p.planned_lift_date::text AS planned_lift_date',
+      'p.review_due_on::text AS review_due_on',
       'p.current_revision AS current_revision',
       'p.critical AS critical',
       'p.worst_status AS worst_status',
@@ -153,6 +156,8 @@ function pageOf(qb: SelectQueryBuilder<LiftPackage>, query: PackageListQuery, cu
     .limit(query.pageSize + 1);
 }
 
+const todayIso = () => new Date().toISOString().slice(0, 10);
+
 const toItem = (r: Row): PackageSummary => ({
   id: r.id,
   reference: r.reference,
@@ -161,6 +166,8 @@ const toItem = (r: Row): PackageSummary => ({
   site: { id: r.site_id, name: r.site_name },
   contractor: { id: r.contractor_id, name: r.contractor_name },
   plannedLiftDate: r.planned_lift_date,
+  reviewDueOn: r.review_due_on,
+  reviewOverdue: isReviewOverdue(r.review_due_on, r.status, todayIso()),
   revisionNumber: r.current_revision,
   engineer: r.engineer_id ? { id: r.engineer_id, name: r.engineer_name ?? '' } : null,
   critical: r.critical,

@@ -32,6 +32,8 @@ import { User } from '../users/user.entity';
 // metadata cannot describe: named here with synchronize off so that it leaves them alone.
 @Index('lift_packages_lift_date_asc_idx', { synchronize: false })
 @Index('lift_packages_lift_date_desc_idx', { synchronize: false })
+@Index('lift_packages_review_due_asc_idx', { synchronize: false })
+@Index('lift_packages_review_due_desc_idx', { synchronize: false })
 @Index('lift_packages_updated_idx', ['updatedAt', 'reference'])
 @Index('lift_packages_discrepancies_idx', ['openDiscrepancies', 'reference'])
 @Index('lift_packages_revision_idx', ['currentRevision', 'reference'])
@@ -59,6 +61,8 @@ export class LiftPackage {
   createdById: string;
   @Column({ type: 'varchar', length: 30 }) status: PackageStatus;
   @Column({ type: 'date', name: 'planned_lift_date', nullable: true }) plannedLiftDate: string | null;
+  /** When the review of the latest submission is due (shared/rules/review-due.ts). */
+  @Column({ type: 'date', name: 'review_due_on', nullable: true }) reviewDueOn: string | null;
   @Column({ type: 'int', name: 'current_revision', default: 1 }) currentRevision: number;
   @Column({ type: 'uuid', name: 'assigned_engineer_id', nullable: true }) assignedEngineerId: string | null;
   @ManyToOne(() => User, { nullable: true })

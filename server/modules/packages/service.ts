@@ -10,6 +10,7 @@ import { toFileSummary } from '../files/service';
 import { User } from '../users/user.entity';
 import { sitePolicy } from '../sites/site-policy';
 import { documentUnits } from '@shared/rules/document-units';
+import { isReviewOverdue } from '@shared/rules/review-due';
 import { LiftPackage, Revision } from './package.entity';
 import { findScopedPackage } from './package-scope';
 
@@ -22,6 +23,8 @@ export function toSummary(p: LiftPackage): PackageSummary {
     site: { id: p.site!.id, name: p.site!.name },
     contractor: { id: p.contractor!.id, name: p.contractor!.name },
     plannedLiftDate: p.plannedLiftDate,
+    reviewDueOn: p.reviewDueOn,
+    reviewOverdue: isReviewOverdue(p.reviewDueOn, p.status, new Date().toISOString().slice(0, 10)),
     revisionNumber: p.currentRevision,
     engineer: p.assignedEngineer ? { id: p.assignedEngineer.id, name: p.assignedEngineer.name } : null,
     critical: p.critical,

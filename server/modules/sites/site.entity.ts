@@ -20,6 +20,8 @@ import { User } from '../users/user.entity';
 @Entity({ name: 'sites' })
 @Unique('sites_code_key', ['code'])
 @Check('sites_unit_system_check', `unit_system IN ('metric', 'imperial')`)
+@Check('sites_review_turnaround_days_check', `review_turnaround_days BETWEEN 1 AND 60`)
+@Check('sites_review_margin_days_check', `review_margin_days BETWEEN 0 AND 30`)
 export class Site {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ type: 'uuid', name: 'owner_organisation_id' }) ownerOrganisationId: string;
@@ -32,6 +34,9 @@ export class Site {
   @Column({ type: 'varchar', length: 60, name: 'time_zone', default: 'UTC' }) timeZone: string;
   @Column({ type: 'jsonb', name: 'review_policy', default: {} }) reviewPolicy: Record<string, unknown>;
   @Column({ type: 'int', name: 'policy_version', default: 1 }) policyVersion: number;
+  /** Working days a review is given, and calendar days before the lift it must be done by (migration ReviewDue1764724300000). */
+  @Column({ type: 'int', name: 'review_turnaround_days', default: 5 }) reviewTurnaroundDays: number;
+  @Column({ type: 'int', name: 'review_margin_days', default: 2 }) reviewMarginDays: number;
   /** The unit system of every document of the site's packages; null: each package's own. */
   @Column({ type: 'varchar', length: 10, name: 'unit_system', nullable: true }) unitSystem: UnitSystem | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;

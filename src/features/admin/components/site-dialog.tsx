@@ -1,6 +1,7 @@
 // Creating a site or editing one: name, the code that starts every package reference,
 // address, time zone (dates and times on the site's pages and returns use it) and the unit
-// system of the site's documents (or each package's own). Rules from the shared SiteBody schema.
+// system of the site's documents (or each package's own), and the review's turnaround and margin
+// before the lift (the due date of each submission). Rules from the shared SiteBody schema.
 import { useForm } from 'react-hook-form';
 import { readableResolver as zodResolver } from '@/lib/readable-resolver';
 import type { z } from 'zod';
@@ -13,7 +14,15 @@ import { Spinner } from '@/components/ui/page-loading';
 import { useCreateSite, useUpdateSite, type AdminSite } from '../api/sites';
 
 type SiteForm = z.input<typeof SiteBody>;
-const FIELDS = ['name', 'code', 'address', 'timeZone', 'unitSystem'] as const;
+const FIELDS = [
+  'name',
+  'code',
+  'address',
+  'timeZone',
+  'unitSystem',
+  'reviewTurnaroundDays',
+  'reviewMarginDays',
+] as const;
 
 function browserTimeZone(): string {
   try {
@@ -41,8 +50,18 @@ export function SiteDialog({ site, onClose }: { site?: AdminSite; onClose: () =>
           address: site.address,
           timeZone: site.timeZone,
           unitSystem: site.unitSystem,
+          reviewTurnaroundDays: site.reviewTurnaroundDays,
+          reviewMarginDays: site.reviewMarginDays,
         }
-      : { name: '', code: '', address: '', timeZone: browserTimeZone(), unitSystem: null },
+      : {
+          name: '',
+          code: '',
+          address: '',
+          timeZone: browserTimeZone(),
+          unitSystem: null,
+          reviewTurnaroundDays: 5,
+          reviewMarginDays: 2,
+        },
   });
 
   const onError = (error: Error) => {
@@ -131,6 +150,36 @@ export function SiteDialog({ site, onClose }: { site?: AdminSite; onClose: () =>
             <option value="imperial">US customary (ft, lb, kip, psf)</option>
           </select>
         </FormField>
+        <div className="grid grid-cols-2 gap-3">
+          <FormField
+            id="site-review-turnaround"
+            label="Review turnaround (working days)"
+            hint="From submission; Monday to Friday, public holidays not counted out."
+            error={errors.reviewTurnaroundDays?.message}
+          >
+            <input
+              type="number"
+              min={1}
+              max={60}
+              className={inputClasses}
+              {...register('reviewTurnaroundDays', { valueAsNumber: true })}
+            />
+          </FormField>
+          <FormField
+            id="site-review-margin"
+            label="Done before the lift by (days)"
+            hint="The review is due this many days before the planned lift, if that is sooner."
+            error={errors.reviewMarginDays?.message}
+          >
+            <input
+              type="number"
+              min={0}
+              max={30}
+              className={inputClasses}
+              {...register('reviewMarginDays', { valueAsNumber: true })}
+            />
+          </FormField>
+        </div>
         <div className="mt-1 flex justify-end gap-2 border-t border-rule pt-3">
           <Button onClick={onClose}>Cancel</Button>
           <Button type="submit" variant="primary" disabled={saving.isPending}>

@@ -24,5 +24,6 @@ export const MAIL_EVENT_LABELS: Record<MailEvent, string> = {
   answered: 'Finding answered',
   resubmitted: 'Package resubmitted',
   reminder: 'Lift date reminder',
+  review_due: 'Review due reminder',
   invite: 'Invitation',
 };

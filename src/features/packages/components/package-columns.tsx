@@ -21,6 +21,7 @@ const COLUMNS_BY_VARIANT: Record<PackageTableVariant, string[]> = {
     'package',
     'contractor',
     'plannedLiftDate',
+    'reviewDue',
     'revision',
     'check',
     'engineer',
@@ -32,6 +33,7 @@ const COLUMNS_BY_VARIANT: Record<PackageTableVariant, string[]> = {
     'package',
     'contractor',
     'plannedLiftDate',
+    'reviewDue',
     'revision',
     'check',
     'status',
@@ -155,6 +157,26 @@ export function usePackageColumns({
         cell: (info) => (
           <DateWithUrgency value={info.getValue()} settled={info.row.original.status === 'returned'} />
         ),
+      }),
+      column.accessor('reviewDueOn', {
+        id: 'reviewDue',
+        header: 'Review due',
+        cell: (info) => {
+          const pkg = info.row.original;
+          if (!pkg.reviewDueOn) return <span className="text-ink-soft">Not submitted</span>;
+          return (
+            <span className="flex flex-col tabular">
+              <time dateTime={pkg.reviewDueOn} className="whitespace-nowrap">
+                {formatDate(pkg.reviewDueOn)}
+              </time>
+              {pkg.reviewOverdue && (
+                <span className="whitespace-nowrap text-[12.5px] font-bold text-late">
+                  <span aria-hidden="true">▲ </span>Overdue
+                </span>
+              )}
+            </span>
+          );
+        },
       }),
       column.accessor('revisionNumber', {
         id: 'revision',

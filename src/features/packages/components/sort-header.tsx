@@ -3,12 +3,14 @@
 // words that say what the next press will do.
 import type { PackageSort } from '../hooks/use-package-list-params';
 
-type SortableColumn = 'reference' | 'plannedLiftDate' | 'updatedAt' | 'openDiscrepancies' | 'revision';
+type SortableColumn =
+  'reference' | 'plannedLiftDate' | 'reviewDue' | 'updatedAt' | 'openDiscrepancies' | 'revision';
 
 /** Table column id → the server's sort field. */
 export const SORTABLE: Record<string, SortableColumn> = {
   reference: 'reference',
   plannedLiftDate: 'plannedLiftDate',
+  reviewDue: 'reviewDue',
   updatedAt: 'updatedAt',
   check: 'openDiscrepancies',
   revision: 'revision',
@@ -18,6 +20,7 @@ const MOST_FIRST: ReadonlySet<SortableColumn> = new Set(['openDiscrepancies', 'r
 const SORT_WORDS: Record<SortableColumn, [string, string]> = {
   reference: ['reference, A to Z', 'reference, Z to A'],
   plannedLiftDate: ['planned lift, earliest first', 'planned lift, latest first'],
+  reviewDue: ['review due, earliest first', 'review due, latest first'],
   updatedAt: ['last update, oldest first', 'last update, newest first'],
   openDiscrepancies: ['open discrepancies, fewest first', 'open discrepancies, most first'],
   revision: ['revision, lowest first', 'revision, highest first'],
