@@ -16,6 +16,7 @@ import http from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 import type { DataSource, Logger } from 'typeorm';
+import { PACKAGE_SORTS } from '../shared/schemas/packages';
 import { benchServices } from './lib/bench-flow';
 import { seedQueue, type SeededQueue } from './lib/bench-queue-seed';
 
@@ -176,18 +177,7 @@ interface Variant {
 }
 
 function variants(s: SeededQueue, deep: { plannedLiftDate: string; updatedAt: string }): Variant[] {
-  const sorts = [
-    'plannedLiftDate',
-    '-plannedLiftDate',
-    'updatedAt',
-    '-updatedAt',
-    'reference',
-    '-reference',
-    'openDiscrepancies',
-    '-openDiscrepancies',
-    'revision',
-    '-revision',
-  ];
+  const sorts = [...PACKAGE_SORTS];
   return [
     { name: 'signed-in floor: GET /api/me', query: '', outsideTarget: true },
     ...sorts.map((sort) => ({ name: `sort ${sort}`, query: `sort=${sort}` })),

@@ -66,12 +66,10 @@ function DocumentChanges({
   documents,
   from,
   to,
-  th,
 }: {
   documents: RevisionCompare['documents'];
   from: number;
   to: number;
-  th: string;
 }) {
   const changed = documents.filter((d) => d.change !== 'unchanged').length;
   const side = (d: RevisionCompare['documents'][number]['from']) =>
@@ -85,19 +83,7 @@ function DocumentChanges({
         </span>
       </h3>
       <table className="w-full border-collapse text-[12.5px]">
-        <thead>
-          <tr className="border-b border-rule-strong">
-            <th scope="col" className={th}>
-              Document
-            </th>
-            <th scope="col" className={th}>
-              Revision {from}
-            </th>
-            <th scope="col" className={th}>
-              Revision {to}
-            </th>
-          </tr>
-        </thead>
+        <SideBySideHead first="Document" from={from} to={to} />
         <tbody>
           {documents.map((d, i) => (
             <tr key={i} className="border-b border-rule align-top">
@@ -118,6 +104,23 @@ function DocumentChanges({
         </tbody>
       </table>
     </section>
+  );
+}
+
+const th = 'px-2 py-1 text-left text-[11.5px] uppercase tracking-[0.05em] text-ink-soft';
+
+/** The head of a side-by-side table: what each row is, then the two revisions. */
+function SideBySideHead({ first, from, to }: { first: string; from: number; to: number }) {
+  return (
+    <thead>
+      <tr className="border-b border-rule-strong">
+        {[first, `Revision ${from}`, `Revision ${to}`].map((label) => (
+          <th key={label} scope="col" className={th}>
+            {label}
+          </th>
+        ))}
+      </tr>
+    </thead>
   );
 }
 
@@ -163,10 +166,9 @@ export function RevisionDifference({
   const { inputs, checks, documents } = compare.data;
   const changedChecks = checks.filter((c) => c.changed);
   const sameChecks = checks.filter((c) => !c.changed);
-  const th = 'px-2 py-1 text-left text-[11.5px] uppercase tracking-[0.05em] text-ink-soft';
   return (
     <div className="flex flex-col">
-      <DocumentChanges documents={documents} from={from} to={revision} th={th} />
+      <DocumentChanges documents={documents} from={from} to={revision} />
       <section aria-labelledby="diff-inputs">
         <h3 id="diff-inputs" className="border-b border-rule bg-sheet-alt px-3 py-1.5 text-[13px] font-bold">
           Inputs changed <span className="font-normal text-ink-soft">· {inputs.length}</span>
@@ -177,19 +179,7 @@ export function RevisionDifference({
           </p>
         ) : (
           <table className="w-full border-collapse text-[12.5px]">
-            <thead>
-              <tr className="border-b border-rule-strong">
-                <th scope="col" className={th}>
-                  Input
-                </th>
-                <th scope="col" className={th}>
-                  Revision {from}
-                </th>
-                <th scope="col" className={th}>
-                  Revision {revision}
-                </th>
-              </tr>
-            </thead>
+            <SideBySideHead first="Input" from={from} to={revision} />
             <tbody>
               {inputs.map((row) => (
                 <tr key={row.path} className="border-b border-rule align-top">
@@ -214,19 +204,7 @@ export function RevisionDifference({
           </span>
         </h3>
         <table className="w-full border-collapse text-[12.5px]">
-          <thead>
-            <tr className="border-b border-rule-strong">
-              <th scope="col" className={th}>
-                Check
-              </th>
-              <th scope="col" className={th}>
-                Revision {from}
-              </th>
-              <th scope="col" className={th}>
-                Revision {revision}
-              </th>
-            </tr>
-          </thead>
+          <SideBySideHead first="Check" from={from} to={revision} />
           <tbody>
             {[...changedChecks, ...sameChecks].map((c) => (
               <tr
