@@ -5,8 +5,9 @@
 import type { Actor } from '@shared/rules/actor';
 import type { DataSource } from 'typeorm';
 import { In } from 'typeorm';
-import type { UnitSystem } from '@shared/schemas/common';
 import { POLICY_DEFAULTS, SitePolicy } from '@shared/schemas/site-policy';
+import type { z } from 'zod';
+import type { SiteBody } from '@shared/schemas/admin';
 import { AppError, zodFields } from '../../lib/app-error';
 import { recordAudit } from '../audit/service';
 import { Organisation } from '../organisations/organisation.entity';
@@ -118,19 +119,10 @@ function codeTaken(error: unknown) {
   return (error as { code?: string }).code === '23505';
 }
 
-export async function createSite(
-  ds: DataSource,
-  admin: Actor,
-  body: {
-    name: string;
-    code: string;
-    address: string;
-    timeZone: string;
-    unitSystem: UnitSystem | null;
-    reviewTurnaroundDays: number;
-    reviewMarginDays: number;
-  },
-) {
+/** A site's settings, as SiteBody gives them (SitePatch: some of them). */
+type SiteSettings = z.output<typeof SiteBody>;
+
+export async function createSite(ds: DataSource, admin: Actor, body: SiteSettings) {
   try {
     const site = await ds.transaction(async (m) => {
       const s = await m
@@ -154,20 +146,7 @@ export async function createSite(
   }
 }
 
-export async function updateSite(
-  ds: DataSource,
-  admin: Actor,
-  id: string,
-  body: Partial<{
-    name: string;
-    code: string;
-    address: string;
-    timeZone: string;
-    unitSystem: UnitSystem | null;
-    reviewTurnaroundDays: number;
-    reviewMarginDays: number;
-  }>,
-) {
+export async function updateSite(ds: DataSource, admin: Actor, id: string, body: Partial<SiteSettings>) {
   const site = await ownSite(ds, admin, id);
   try {
     await ds.transaction(async (m) => {
